@@ -1,0 +1,13 @@
+import { defineConfig } from "vitest/config";
+import path from "node:path";
+
+export default defineConfig({
+  resolve: { alias: { "@": path.resolve(import.meta.dirname) } },
+  test: {
+    include: ["tests/**/*.test.ts", "analysis/**/*.test.ts"],
+    exclude: ["tests/journeys/**", "node_modules/**"],
+    testTimeout: 30_000,
+    hookTimeout: 60_000,
+    pool: "forks",
+  },
+});
