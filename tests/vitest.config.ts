@@ -2,7 +2,8 @@ import { defineConfig } from "vitest/config";
 import path from "node:path";
 
 export default defineConfig({
-  resolve: { alias: { "@": path.resolve(import.meta.dirname) } },
+  resolve: { alias: { "@": path.resolve(import.meta.dirname, "..") } },
+  root: path.resolve(import.meta.dirname, ".."),
   test: {
     include: ["tests/**/*.test.ts", "analysis/**/*.test.ts"],
     exclude: ["tests/journeys/**", "node_modules/**"],
