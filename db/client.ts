@@ -1,0 +1,26 @@
+import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
+import { Pool } from "pg";
+import { env } from "@/lib/env";
+import * as schema from "./schema";
+
+export type Database = NodePgDatabase<typeof schema>;
+/** A transaction handle has the same query surface as the database. */
+export type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+export type Db = Database | Tx;
+
+const globalForDb = globalThis as unknown as { rlPool?: Pool; rlDb?: Database };
+
+/** One pool per process (survives hot reload in development). */
+export function db(): Database {
+  if (!globalForDb.rlDb) {
+    globalForDb.rlPool = new Pool({ connectionString: env().DATABASE_URL, max: 10 });
+    globalForDb.rlDb = drizzle(globalForDb.rlPool, { schema });
+  }
+  return globalForDb.rlDb;
+}
+
+export async function closeDb(): Promise<void> {
+  await globalForDb.rlPool?.end();
+  globalForDb.rlPool = undefined;
+  globalForDb.rlDb = undefined;
+}

@@ -1,0 +1,141 @@
+import {
+  pgTable, text, timestamp, uuid, real, integer, boolean, jsonb, index, uniqueIndex, primaryKey,
+} from "drizzle-orm/pg-core";
+import type { AnalysisResult, AnalyzeOptions, AcceptanceProfile } from "@/analysis/types";
+import { organization, user } from "./auth";
+import { jobs, sites, systems } from "./records";
+
+export const TEST_STATUSES = ["submitted", "waiting_review", "signed_off", "sent_back"] as const;
+export type TestStatus = (typeof TEST_STATUSES)[number];
+
+/** One evacuation and decay test: the record a technician keeps. */
+export const vacuumTests = pgTable(
+  "vacuum_tests",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    createdById: text("created_by_id").notNull().references(() => user.id),
+    jobId: uuid("job_id").references(() => jobs.id, { onDelete: "set null" }),
+    siteId: uuid("site_id").references(() => sites.id, { onDelete: "set null" }),
+    systemId: uuid("system_id").references(() => systems.id, { onDelete: "set null" }),
+    title: text("title").notNull(),
+    source: text("source", { enum: ["file", "typed"] }).notNull(),
+    refrigerant: text("refrigerant"),
+    lineSetFeet: real("line_set_feet"),
+    liquidOd: text("liquid_od"),
+    suctionOd: text("suction_od"),
+    volumeLitres: real("volume_litres"),
+    ambientC: real("ambient_c"),
+    rigNote: text("rig_note"),
+    notes: text("notes"),
+    isPractice: boolean("is_practice").default(false).notNull(),
+    status: text("status", { enum: TEST_STATUSES }).default("submitted").notNull(),
+    helpRequested: boolean("help_requested").default(false).notNull(),
+    /** Denormalised from the current analysis for lists and filters. */
+    verdict: text("verdict"),
+    currentAnalysisId: uuid("current_analysis_id"),
+    testedAt: timestamp("tested_at", { withTimezone: true }).defaultNow().notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [
+    index("tests_org_tested_idx").on(t.organizationId, t.testedAt),
+    index("tests_org_creator_idx").on(t.organizationId, t.createdById),
+  ],
+);
+
+/** The raw file as uploaded: stored once in S3, never modified. */
+export const uploads = pgTable(
+  "uploads",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
+    objectKey: text("object_key").notNull().unique(),
+    sha256: text("sha256").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    filename: text("filename").notNull(),
+    contentType: text("content_type").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [index("uploads_test_idx").on(t.testId)],
+);
+
+/** Each run of the analysis on a test; the test points to the current one. */
+export const analyses = pgTable(
+  "analyses",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    engineVersion: text("engine_version").notNull(),
+    options: jsonb("options").$type<AnalyzeOptions>().notNull(),
+    profile: jsonb("profile").$type<AcceptanceProfile>().notNull(),
+    result: jsonb("result").$type<AnalysisResult>().notNull(),
+    series: jsonb("series").$type<{ t: number[]; p: number[] }>().notNull(),
+    verdict: text("verdict").notNull(),
+    confidence: real("confidence").notNull(),
+    isolationAt: real("isolation_at"),
+    reason: text("reason"),
+    createdById: text("created_by_id").notNull().references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [uniqueIndex("analyses_test_version_idx").on(t.testId, t.version)],
+);
+
+export const findings = pgTable(
+  "findings",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    analysisId: uuid("analysis_id").notNull().references(() => analyses.id, { onDelete: "cascade" }),
+    testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
+    code: text("code").notNull(),
+    severity: text("severity").notNull(),
+    title: text("title").notNull(),
+  },
+  (t) => [index("findings_analysis_idx").on(t.analysisId), index("findings_org_code_idx").on(t.organizationId, t.code)],
+);
+
+/** A retried upload with the same key returns the first test instead of a duplicate. */
+export const idempotencyKeys = pgTable(
+  "idempotency_keys",
+  {
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    key: text("key").notNull(),
+    userId: text("user_id").notNull().references(() => user.id, { onDelete: "cascade" }),
+    testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.organizationId, t.key] })],
+);
+
+/** A test shared with a member who could not otherwise see it. */
+export const testShares = pgTable(
+  "test_shares",
+  {
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
+    userId: text("user_id").notNull().references(() => user.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.testId, t.userId] })],
+);
+
+/** An organization's acceptance rules; one is the default. */
+export const acceptanceProfiles = pgTable(
+  "acceptance_profiles",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    targetMicrons: real("target_microns").notNull(),
+    holdMinutes: real("hold_minutes").notNull(),
+    limitMicrons: real("limit_microns").notNull(),
+    leakRateMicronsPerMinute: real("leak_rate_microns_per_minute").notNull(),
+    isDefault: boolean("is_default").default(false).notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [index("profiles_org_idx").on(t.organizationId)],
+);

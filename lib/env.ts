@@ -1,0 +1,53 @@
+import { z } from "zod";
+
+/**
+ * The only reader of process.env. Every key is documented in .env.example.
+ * Parsed once, lazily, so importing a module never fails at build time.
+ */
+const schema = z.object({
+  RISELINE_MODE: z.enum(["development", "demo", "test", "production"]).default("development"),
+  DATABASE_URL: z.string().url(),
+  BETTER_AUTH_SECRET: z.string().min(32, "BETTER_AUTH_SECRET must be at least 32 characters"),
+  BETTER_AUTH_URL: z.string().url().default("http://127.0.0.1:3000"),
+  /** Comma-separated extra origins trusted for auth POSTs (e.g. http://localhost:3000). */
+  TRUSTED_ORIGINS: z.string().default(""),
+  /** "on" or "off"; defaults to on in production, off elsewhere. */
+  AUTH_RATE_LIMIT: z.enum(["on", "off"]).optional(),
+  S3_ENDPOINT: z.string().url(),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_BUCKET: z.string().min(3),
+  S3_ACCESS_KEY_ID: z.string().min(1),
+  S3_SECRET_ACCESS_KEY: z.string().min(1),
+  SMTP_HOST: z.string().default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().positive().default(2525),
+  MAIL_FROM: z.string().default("Riseline <no-reply@riseline.test>"),
+  /** Folder where the local SMTP catcher stores messages (demo/development/test only). */
+  MAILBOX_DIR: z.string().optional(),
+  /** Upload limit in bytes for a gauge log. */
+  MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(32 * 1024 * 1024),
+});
+
+export type Env = z.infer<typeof schema>;
+
+let cached: Env | null = null;
+
+export function env(): Env {
+  if (cached) return cached;
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const keys = parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ");
+    throw new Error(`Riseline configuration is incomplete (${keys}). See .env.example.`);
+  }
+  cached = parsed.data;
+  return cached;
+}
+
+/** True where the catcher's mailbox page and other helpers for trying the product may show. */
+export function isLocalMode(): boolean {
+  return env().RISELINE_MODE !== "production";
+}
+
+export function authRateLimitEnabled(): boolean {
+  const e = env();
+  return e.AUTH_RATE_LIMIT ? e.AUTH_RATE_LIMIT === "on" : e.RISELINE_MODE === "production";
+}

@@ -1,0 +1,46 @@
+import nodemailer, { type Transporter } from "nodemailer";
+import { env } from "@/lib/env";
+
+export interface OutgoingMail {
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+}
+
+let transport: Transporter | null = null;
+
+function transporter(): Transporter {
+  if (!transport) {
+    const e = env();
+    transport = nodemailer.createTransport({
+      host: e.SMTP_HOST,
+      port: e.SMTP_PORT,
+      secure: false,
+      ignoreTLS: true,
+    });
+  }
+  return transport;
+}
+
+/** Send one message. Throws when the SMTP server refuses or is unreachable. */
+export async function sendMail(mail: OutgoingMail): Promise<void> {
+  await transporter().sendMail({ from: env().MAIL_FROM, ...mail });
+}
+
+const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+
+/** Plain text and HTML from the same paragraphs and one call-to-action link. */
+export function composeMail(opts: { to: string; subject: string; paragraphs: string[]; link?: { label: string; url: string } }): OutgoingMail {
+  const text = [...opts.paragraphs, ...(opts.link ? [`${opts.link.label}: ${opts.link.url}`] : []), "", "— Riseline"].join("\n\n");
+  const html = [
+    `<div style="font-family:'IBM Plex Sans',Arial,sans-serif;font-size:16px;line-height:1.5;color:#14232b">`,
+    ...opts.paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`),
+    opts.link
+      ? `<p><a href="${escapeHtml(opts.link.url)}" style="display:inline-block;padding:12px 18px;background:#0b6e69;color:#fff;border-radius:8px;text-decoration:none">${escapeHtml(opts.link.label)}</a></p><p style="font-size:13px;color:#50616b">${escapeHtml(opts.link.url)}</p>`
+      : "",
+    `<p style="font-size:13px;color:#50616b">— Riseline</p></div>`,
+  ].join("");
+  return { to: opts.to, subject: opts.subject, text, html };
+}

@@ -1,0 +1,63 @@
+/**
+ * Riseline's permission matrix: the one place that says which role may do what.
+ * DEVELOPERS.md shows the same table; tests/permissions.test.ts walks every row.
+ *
+ * Row-level rules (whose tests a technician sees, for instance) live in the data layer
+ * (db/queries/visibility.ts), driven by `canReadAllTests` below.
+ */
+export const ROLES = ["owner", "lead", "technician", "trainer", "apprentice"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  owner: "Owner",
+  lead: "Lead technician",
+  technician: "Technician",
+  trainer: "Trainer",
+  apprentice: "Apprentice",
+};
+
+const everyone: readonly Role[] = ROLES;
+
+export const PERMISSIONS = {
+  /** Upload a gauge log or typed readings. */
+  "tests.upload": everyone,
+  /** See every test of the organization (others see their own and those shared with them). */
+  "tests.read_all": ["owner", "lead", "trainer"],
+  /** Re-run the analysis with overrides (on a test the member can see and uploaded, or any for leads). */
+  "tests.reanalyse": everyone,
+  /** Move a test through review: sign off or send back with a request. */
+  "tests.review": ["owner", "lead"],
+  /** Comment on a test the member can see. */
+  "tests.comment": everyone,
+  /** Create and revoke read-only share links and e-mail reports to customers. */
+  "reports.share": ["owner", "lead"],
+  /** Read the training casebook (customer and site details stripped except for leads and owners). */
+  "casebook.read": everyone,
+  /** Build collections, add entries, pin notes. */
+  "casebook.curate": ["trainer"],
+  /** Customers, sites, systems and jobs. */
+  "records.manage": ["owner", "lead", "technician"],
+  /** See the member list of the organization. */
+  "members.read": everyone,
+  /** Invite, change roles, remove members. */
+  "members.manage": ["owner"],
+  /** Acceptance profiles (target, hold time, limit, leak threshold). */
+  "profiles.manage": ["owner", "lead"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof PERMISSIONS;
+
+export function isRole(value: unknown): value is Role {
+  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
+}
+
+export function can(role: Role, permission: Permission): boolean {
+  return (PERMISSIONS[permission] as readonly Role[]).includes(role);
+}
+
+export function canReadAllTests(role: Role): boolean {
+  return can(role, "tests.read_all");
+}
+
+/** Roles the owner may hand out in an invitation (ownership is transferred, not invited). */
+export const INVITABLE_ROLES: readonly Role[] = ["lead", "technician", "trainer", "apprentice"];

@@ -1,0 +1,93 @@
+#!/usr/bin/env bash
+# Start or stop Riseline's local services for one profile (demo or test), all on loopback.
+#   scripts/services.sh start demo|test     scripts/services.sh stop demo|test
+# PostgreSQL comes from Debian's package; s3rver and the SMTP catcher run in scripts/fakes.mjs.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+action=${1:?start|stop}
+profile=${2:?demo|test}
+
+case "$profile" in
+  demo) PG_PORT=54329; S3_PORT=4569; SMTP_PORT=2525 ;;
+  test) PG_PORT=54339; S3_PORT=4579; SMTP_PORT=2535 ;;
+  *) echo "unknown profile $profile" >&2; exit 2 ;;
+esac
+ROOT="$PWD/.data/$profile"
+PGDATA="$ROOT/pg"
+SOCKDIR="$ROOT/run"
+PGBIN=/usr/lib/postgresql/15/bin
+BUCKET="riseline-$profile"
+
+ensure_postgres_installed() {
+  if [ ! -x "$PGBIN/postgres" ]; then
+    echo "• Installing PostgreSQL from Debian's packages…"
+    apt-get update -qq
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq postgresql >/dev/null
+  fi
+  # Debian's package starts a cluster of its own; we use a private one, so stop that.
+  if command -v pg_lsclusters >/dev/null && pg_lsclusters -h 2>/dev/null | grep -q online; then
+    pg_ctlcluster --force 15 main stop >/dev/null 2>&1 || true
+  fi
+}
+
+pg_running() { [ -f "$PGDATA/postmaster.pid" ] && runuser -u postgres -- "$PGBIN/pg_ctl" -D "$PGDATA" status >/dev/null 2>&1; }
+
+start_pg() {
+  ensure_postgres_installed
+  mkdir -p "$ROOT" "$SOCKDIR"
+  chgrp postgres "$SOCKDIR" && chmod 775 "$SOCKDIR"
+  if [ ! -f "$PGDATA/PG_VERSION" ]; then
+    install -d -o postgres -g postgres -m 700 "$PGDATA"
+    runuser -u postgres -- "$PGBIN/initdb" -D "$PGDATA" -U postgres --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null
+  fi
+  touch "$ROOT/pg.log" && chown postgres "$ROOT/pg.log"
+  if ! pg_running; then
+    runuser -u postgres -- "$PGBIN/pg_ctl" -D "$PGDATA" -l "$ROOT/pg.log" -w \
+      -o "-c listen_addresses=127.0.0.1 -c port=$PG_PORT -c unix_socket_directories=$SOCKDIR -c fsync=off" start >/dev/null
+  fi
+  for _ in $(seq 1 30); do pg_isready -q -h 127.0.0.1 -p "$PG_PORT" -U postgres && break; sleep 0.5; done
+  psql -h 127.0.0.1 -p "$PG_PORT" -U postgres -tAc "SELECT 1 FROM pg_database WHERE datname='riseline'" | grep -q 1 \
+    || psql -h 127.0.0.1 -p "$PG_PORT" -U postgres -qc "CREATE DATABASE riseline" >/dev/null
+}
+
+stop_pg() {
+  if pg_running; then runuser -u postgres -- "$PGBIN/pg_ctl" -D "$PGDATA" -m fast -w stop >/dev/null || true; fi
+}
+
+start_fakes() {
+  mkdir -p "$ROOT/run"
+  if [ -f "$ROOT/run/fakes.pid" ] && kill -0 "$(cat "$ROOT/run/fakes.pid")" 2>/dev/null; then return; fi
+  setsid node scripts/fakes.mjs --s3-dir "$ROOT/s3" --s3-port "$S3_PORT" --bucket "$BUCKET" \
+    --smtp-port "$SMTP_PORT" --mail-dir "$ROOT/mail" >"$ROOT/fakes.log" 2>&1 &
+  echo $! >"$ROOT/run/fakes.pid"
+  for _ in $(seq 1 40); do grep -q "smtp catcher" "$ROOT/fakes.log" 2>/dev/null && return; sleep 0.25; done
+  echo "The S3 fake or the SMTP catcher did not start; see $ROOT/fakes.log" >&2; cat "$ROOT/fakes.log" >&2; exit 1
+}
+
+stop_fakes() {
+  if [ -f "$ROOT/run/fakes.pid" ]; then
+    pid=$(cat "$ROOT/run/fakes.pid")
+    kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true
+    for _ in $(seq 1 20); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+    kill -KILL -- "-$pid" 2>/dev/null || true
+    rm -f "$ROOT/run/fakes.pid"
+  fi
+}
+
+case "$action" in
+  start) start_pg; start_fakes ;;
+  stop) stop_fakes; stop_pg ;;
+  env)
+    cat <<ENV
+DATABASE_URL=postgres://postgres@127.0.0.1:$PG_PORT/riseline
+S3_ENDPOINT=http://127.0.0.1:$S3_PORT
+S3_BUCKET=$BUCKET
+S3_ACCESS_KEY_ID=S3RVER
+S3_SECRET_ACCESS_KEY=S3RVER
+SMTP_HOST=127.0.0.1
+SMTP_PORT=$SMTP_PORT
+MAILBOX_DIR=$ROOT/mail
+ENV
+    ;;
+  *) echo "unknown action $action" >&2; exit 2 ;;
+esac
