@@ -1,0 +1,191 @@
+/**
+ * Generic nonlinear least squares (Levenberg–Marquardt), the one solver behind every nonlinear fit
+ * in Riseline: the NIST StRD checks call it directly and the plateau hold models use it to polish the
+ * variable-projection solution (see models.ts).
+ */
+import { solveLinearLeastSquares } from "./linear";
+
+export interface NonlinearModel {
+  /** Model value at x for parameters b. */
+  value(x: number, b: readonly number[]): number;
+  /** Partial derivatives ∂f/∂b_j at x, written into out (length = b.length). Optional: central differences otherwise. */
+  gradient?(x: number, b: readonly number[], out: number[]): void;
+}
+
+export interface NonlinearOptions {
+  /** Default 200. */
+  maxIterations?: number;
+  /** Relative step size below which the fit has converged (default 1e-12). */
+  stepTolerance?: number;
+  /** Relative RSS decrease below which the fit has converged (default 1e-15). */
+  rssTolerance?: number;
+  /**
+   * Largest accepted change of a nonzero parameter in one step, as a multiple of its current size
+   * (default 10). Larger steps are damped further, which keeps a parameter from "evaporating" to a
+   * flat region where its gradient vanishes (the trap of BoxBOD start 1).
+   */
+  maxRelativeStep?: number;
+}
+
+export type StopReason = "converged" | "iteration_limit" | "non_finite" | "closed_form";
+
+export interface NonlinearFit {
+  params: number[];
+  /** √diag(covariance). */
+  stdErrors: number[];
+  /** s²·(JᵀJ)⁻¹ at the solution, s² = rss/dof. */
+  covariance: number[][];
+  rss: number;
+  dof: number;
+  /** √(rss/dof). */
+  residualSd: number;
+  iterations: number;
+  stopReason: StopReason;
+}
+
+function sumSquares(model: NonlinearModel, x: ArrayLike<number>, y: ArrayLike<number>, b: readonly number[]): number {
+  let s = 0;
+  for (let i = 0; i < y.length; i++) {
+    const r = y[i] - model.value(x[i], b);
+    s += r * r;
+  }
+  return s;
+}
+
+/** Jacobian columns J[j][i] = ∂f(x_i)/∂b_j (analytic when the model gives one, else central differences). */
+function jacobianColumns(model: NonlinearModel, x: ArrayLike<number>, b: readonly number[]): Float64Array[] {
+  const n = x.length;
+  const p = b.length;
+  const cols = Array.from({ length: p }, () => new Float64Array(n));
+  if (model.gradient) {
+    const g = new Array<number>(p).fill(0);
+    for (let i = 0; i < n; i++) {
+      model.gradient(x[i], b, g);
+      for (let j = 0; j < p; j++) cols[j][i] = g[j];
+    }
+    return cols;
+  }
+  for (let j = 0; j < p; j++) {
+    // Central difference, step ≈ ∛ε·|b_j| (truncation and rounding errors balanced).
+    const h = 6e-6 * Math.max(Math.abs(b[j]), 1e-8);
+    const up = b.slice();
+    const down = b.slice();
+    up[j] += h;
+    down[j] -= h;
+    for (let i = 0; i < n; i++) cols[j][i] = (model.value(x[i], up) - model.value(x[i], down)) / (2 * h);
+  }
+  return cols;
+}
+
+/**
+ * Fit y ≈ f(x; b) by Levenberg–Marquardt with Marquardt's diagonal scaling.
+ *
+ * Method: each step solves the damped problem min ‖J·δ − r‖² + λ‖D·δ‖² as an augmented least-squares
+ * system by Householder QR (no normal equations, so no squared condition number), with D the largest
+ * column norms of J seen so far (Moré 1978). λ falls ×0.1 after a successful step and rises ×10 after a
+ * failed one; a step that would change a nonzero parameter by more than maxRelativeStep times its size
+ * counts as failed (a crude trust region in relative terms, in the spirit of Moré's step bound). Stops when every relative parameter step is below stepTolerance or the relative RSS decrease
+ * is below rssTolerance ("converged"), when λ grows past 1e16 with no improvement possible ("converged":
+ * the minimum is reached to machine precision), at maxIterations ("iteration_limit"), or when the model
+ * stops giving finite values ("non_finite"). Covariance s²·(JᵀJ)⁻¹ by QR at the solution.
+ * Units: parameters in the model's units; rss in y units squared.
+ * References: K. Levenberg (1944), D. W. Marquardt, J. SIAM 11 (1963) 431; J. J. Moré, "The
+ * Levenberg–Marquardt algorithm: implementation and theory", Lecture Notes in Math. 630 (1978) 105.
+ * Checked against the NIST StRD nonlinear regression certified values (tests/analysis/fit-nist.test.ts).
+ */
+export function fitNonlinear(
+  model: NonlinearModel,
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  start: readonly number[],
+  options: NonlinearOptions = {},
+): NonlinearFit {
+  const maxIterations = options.maxIterations ?? 200;
+  const stepTol = options.stepTolerance ?? 1e-12;
+  const rssTol = options.rssTolerance ?? 1e-15;
+  const maxRelStep = options.maxRelativeStep ?? 10;
+  const n = y.length;
+  const p = start.length;
+  let b = start.slice();
+  let rss = sumSquares(model, x, y, b);
+  let stopReason: StopReason = "iteration_limit";
+  let iterations = 0;
+  if (!Number.isFinite(rss)) return finish(model, x, y, b, rss, 0, "non_finite");
+  let lambda = 1e-3;
+  const d = new Array<number>(p).fill(0);
+  outer: for (; iterations < maxIterations; ) {
+    iterations++;
+    const jac = jacobianColumns(model, x, b);
+    const resid = new Float64Array(n + p);
+    for (let i = 0; i < n; i++) resid[i] = y[i] - model.value(x[i], b);
+    for (let j = 0; j < p; j++) {
+      let s = 0;
+      for (let i = 0; i < n; i++) s += jac[j][i] * jac[j][i];
+      d[j] = Math.max(d[j], Math.sqrt(s));
+      if (!Number.isFinite(d[j])) {
+        stopReason = "non_finite";
+        break outer;
+      }
+    }
+    for (;;) {
+      const sqrtLambda = Math.sqrt(lambda);
+      const augmented = jac.map((col, j) => {
+        const a = new Float64Array(n + p);
+        a.set(col);
+        a[n + j] = sqrtLambda * (d[j] > 0 ? d[j] : 1);
+        return a;
+      });
+      const step = solveLinearLeastSquares(augmented, resid, 1e-14).coef;
+      const trial = b.map((v, j) => v + step[j]);
+      const tooFar = step.some((s, j) => b[j] !== 0 && Math.abs(s) > maxRelStep * Math.abs(b[j]));
+      const trialRss = tooFar ? NaN : sumSquares(model, x, y, trial);
+      if (Number.isFinite(trialRss) && trialRss <= rss) {
+        const smallStep = step.every((s, j) => Math.abs(s) <= stepTol * (Math.abs(b[j]) + stepTol));
+        const smallDecrease = rss - trialRss <= rssTol * rss;
+        b = trial;
+        rss = trialRss;
+        lambda = Math.max(lambda * 0.1, 1e-15);
+        if (smallStep || smallDecrease) {
+          stopReason = "converged";
+          break outer;
+        }
+        break;
+      }
+      lambda *= 10;
+      if (lambda > 1e16) {
+        stopReason = "converged";
+        break outer;
+      }
+    }
+  }
+  return finish(model, x, y, b, rss, iterations, stopReason);
+}
+
+function finish(
+  model: NonlinearModel,
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  b: number[],
+  rss: number,
+  iterations: number,
+  stopReason: StopReason,
+): NonlinearFit {
+  const p = b.length;
+  const dof = y.length - p;
+  const s2 = dof > 0 ? rss / dof : NaN;
+  let covariance: number[][] = Array.from({ length: p }, () => new Array<number>(p).fill(NaN));
+  if (Number.isFinite(rss)) {
+    const ls = solveLinearLeastSquares(jacobianColumns(model, x, b), new Float64Array(y.length));
+    if (ls.rank === p) covariance = ls.inverseNormal.map((row) => row.map((v) => v * s2));
+  }
+  return {
+    params: b,
+    stdErrors: covariance.map((row, j) => Math.sqrt(row[j])),
+    covariance,
+    rss,
+    dof,
+    residualSd: Math.sqrt(s2),
+    iterations,
+    stopReason: Number.isFinite(rss) ? stopReason : "non_finite",
+  };
+}
