@@ -5,11 +5,12 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 action=${1:?start|stop}
-profile=${2:?demo|test}
+profile=${2:?demo|test|dev}
 
 case "$profile" in
   demo) PG_PORT=54329; S3_PORT=4569; SMTP_PORT=2525 ;;
   test) PG_PORT=54339; S3_PORT=4579; SMTP_PORT=2535 ;;
+  dev) PG_PORT=54349; S3_PORT=4589; SMTP_PORT=2545 ;;
   *) echo "unknown profile $profile" >&2; exit 2 ;;
 esac
 ROOT="$PWD/.data/$profile"

@@ -1,0 +1,25 @@
+import { sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { publicRoute } from "@/lib/api/handler";
+import { bucketReachable } from "@/lib/storage";
+
+export const dynamic = "force-dynamic";
+
+async function databaseReachable(): Promise<boolean> {
+  try {
+    await db().execute(sql`select 1`);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** GET /api/health — both stores, for the demo script, the tests and a load balancer. */
+export const GET = publicRoute({}, async () => {
+  const [database, bucket] = await Promise.all([databaseReachable(), bucketReachable()]);
+  const ok = database && bucket;
+  return Response.json(
+    { ok, database: database ? "ok" : "unreachable", bucket: bucket ? "ok" : "unreachable" },
+    { status: ok ? 200 : 503 },
+  );
+});

@@ -1,0 +1,10 @@
+import type { NextConfig } from "next";
+
+const nextConfig: NextConfig = {
+  serverExternalPackages: ["pg", "psychrolib"],
+  poweredByHeader: false,
+  devIndicators: false,
+  typedRoutes: false,
+};
+
+export default nextConfig;

@@ -1,0 +1,44 @@
+/** Reads what the real SMTP catcher (scripts/fakes.mjs) stored, as a person would read mail. */
+import { readdirSync, readFileSync, existsSync } from "node:fs";
+import { join } from "node:path";
+import { env } from "@/lib/env";
+
+export interface CaughtMail {
+  id: string;
+  receivedAt: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string;
+  attachments: { filename?: string; contentType: string; size: number }[];
+}
+
+export function readMailbox(): CaughtMail[] {
+  const dir = env().MAILBOX_DIR;
+  if (!dir || !existsSync(dir)) return [];
+  return readdirSync(dir)
+    .filter((f) => f.endsWith(".json"))
+    .sort()
+    .map((f) => JSON.parse(readFileSync(join(dir, f), "utf8")) as CaughtMail);
+}
+
+/** Waits until a message to `to` (optionally matching the subject) arrives; returns the newest. */
+export async function waitForMail(to: string, subject?: RegExp, timeoutMs = 10_000): Promise<CaughtMail> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const hit = readMailbox()
+      .filter((m) => m.to.includes(to) && (!subject || subject.test(m.subject)))
+      .pop();
+    if (hit) return hit;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no mail to ${to}${subject ? ` matching ${subject}` : ""} within ${timeoutMs} ms`);
+}
+
+/** The first link into the app found in a message's text body. */
+export function firstAppLink(mail: CaughtMail): string {
+  const m = /(https?:\/\/127\.0\.0\.1:\d+\/[^\s)]+)/.exec(mail.text);
+  if (!m) throw new Error(`no app link in mail "${mail.subject}"`);
+  return m[1];
+}
