@@ -1,0 +1,233 @@
+/**
+ * Which column is the time, the pressure, a unit, an ambient temperature — from header words
+ * and the first rows' cells — and what unit the pressure is in.
+ */
+import { LogError } from "../errors";
+import type { ImportOptions, PressureUnit } from "../types";
+import { namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../units";
+import { parseReading } from "./numbers";
+import type { Layout } from "./sniff";
+import { detectTimeSpec, type TimeSpec } from "./timespec";
+
+export interface ColumnChoice {
+  timeIndex: number;
+  /** Separate date column (format date_and_time), else -1. */
+  dateIndex: number;
+  pressureIndex: number;
+  /** Column holding a unit per row, else -1 (only used when the unit is not fixed). */
+  unitIndex: number;
+  temperatureIndex: number;
+  temperatureFahrenheit: boolean;
+  /** Fixed pressure unit, or null when the unit column decides per row. */
+  unit: PressureUnit | null;
+  /** Unit assumed (microns) because nothing named one. */
+  unitAssumed: boolean;
+  time: TimeSpec;
+  assumptions: string[];
+  unsure: boolean;
+}
+
+const TIME_WORDS = new Set(["time", "timestamp", "datetime", "date", "elapsed", "clock", "stamp", "ts", "t", "runtime", "duration", "zeit", "hora", "utc", "local", "sec", "seconds", "min", "minutes"]);
+const PRESSURE_WORDS = new Set(["pressure", "vacuum", "vac", "reading", "value", "gauge", "level", "p", "press", "abs", "absolute"]);
+const TEMPERATURE_WORDS = new Set(["temp", "temperature", "ambient", "degf", "degc", "fahrenheit", "celsius", "tamb", "oat"]);
+const UNIT_WORDS = new Set(["unit", "units", "uom"]);
+const IGNORED_WORDS = new Set(["battery", "batt", "sensor", "id", "serial", "rssi", "signal", "status", "humidity", "rh", "voltage", "volts", "note", "notes", "comment", "event", "index", "record", "channel", "name", "device", "model", "flag", "flags", "alarm"]);
+
+function hasWord(tokens: string[], words: Set<string>): boolean {
+  return tokens.some((t) => words.has(t));
+}
+
+function columnCells(layout: Layout, index: number): string[] {
+  const out: string[] = [];
+  for (const row of layout.sampleRows) {
+    const c = row[index];
+    if (c !== undefined && c.trim().length > 0) out.push(c.trim());
+  }
+  return out;
+}
+
+function mostlyNumeric(cells: string[], decimalComma: boolean): boolean {
+  if (cells.length === 0) return false;
+  let n = 0;
+  for (const c of cells) if (parseReading(c, decimalComma) === parseReading(c, decimalComma)) n++;
+  return n * 2 >= cells.length;
+}
+
+function describeColumns(header: string[]): string {
+  return header.map((h, i) => (h.length > 0 ? `'${h}'` : `#${i}`)).join(", ");
+}
+
+/** Resolve a header name (case-insensitive) or 0-based index given in options. */
+function resolveColumn(header: string[], want: string | number, what: string): number {
+  if (typeof want === "number") {
+    if (Number.isInteger(want) && want >= 0 && want < header.length) return want;
+  } else if (typeof want === "string") {
+    const i = header.findIndex((h) => h.toLowerCase() === want.trim().toLowerCase());
+    if (i >= 0) return i;
+  }
+  throw new LogError("invalid_option", `${what} column ${JSON.stringify(want)} is not in the file; columns seen: ${describeColumns(header)}`, { column: String(want) });
+}
+
+function gaugeError(header: string, unitText: string): LogError {
+  return new LogError(
+    "unknown_unit",
+    `column '${header}': '${unitText}' is a gauge pressure (relative to the atmosphere), not an absolute vacuum reading; export the log in an absolute unit (${UNITS_UNDERSTOOD.join(", ")})`,
+    { column: header },
+  );
+}
+
+function unknownUnitError(header: string, unitText: string): LogError {
+  const ambiguous = namesAmbiguousUnit(unitText);
+  const why = ambiguous === "psi"
+    ? "'psi' does not say absolute (psia) or gauge (psig)"
+    : ambiguous === "bar"
+      ? "bar is not read here (use mbar or kPa)"
+      : `'${unitText}' is not a pressure unit known here`;
+  return new LogError("unknown_unit", `column '${header}': ${why}; units understood: ${UNITS_UNDERSTOOD.join(", ")}`, { column: header });
+}
+
+function findTime(layout: Layout, options: ImportOptions, taken: Set<number>): { timeIndex: number; dateIndex: number; spec: TimeSpec } {
+  const { header, decimalComma } = layout;
+  const tokens = header.map((h) => unitTokens(h));
+  const detect = (i: number, dateIndex = -1) =>
+    detectTimeSpec(header[i], columnCells(layout, i), decimalComma, options.timeUnit,
+      dateIndex >= 0 ? header[dateIndex] : null, dateIndex >= 0 ? columnCells(layout, dateIndex) : null);
+
+  if (options.timeColumn !== undefined) {
+    const i = resolveColumn(header, options.timeColumn, "time");
+    const spec = detect(i);
+    if (!spec) {
+      const line = layout.sampleLines[0] ?? layout.headerLine + 2;
+      throw new LogError("bad_time", `line ${line}: time '${columnCells(layout, i)[0] ?? ""}' in column '${header[i]}' is not a time`, { line, column: header[i] });
+    }
+    return { timeIndex: i, dateIndex: -1, spec };
+  }
+
+  // Separate date and time columns.
+  const dateOnly = tokens.findIndex((t) => t.includes("date") && !t.includes("time"));
+  const timeOnly = tokens.findIndex((t, i) => i !== dateOnly && t.includes("time") && !t.includes("date"));
+  if (dateOnly >= 0 && timeOnly >= 0) {
+    const spec = detect(timeOnly, dateOnly);
+    if (spec) return { timeIndex: timeOnly, dateIndex: dateOnly, spec };
+  }
+
+  const named = header.map((_, i) => i).filter((i) => !taken.has(i) && hasWord(tokens[i], TIME_WORDS));
+  for (const i of named) {
+    const spec = detect(i);
+    if (spec) return { timeIndex: i, dateIndex: -1, spec };
+  }
+  // No time word: the first column whose cells are dated or clock times.
+  for (let i = 0; i < header.length; i++) {
+    if (taken.has(i) || parsePressureUnit(header[i])) continue;
+    const spec = detect(i);
+    if (spec && (spec.dated || spec.format === "clock")) return { timeIndex: i, dateIndex: -1, spec };
+  }
+  if (named.length > 0) {
+    const i = named[0];
+    const k = layout.sampleRows.findIndex((r) => (r[i] ?? "").trim().length > 0);
+    const line = k >= 0 ? layout.sampleLines[k] : layout.headerLine + 2;
+    const cell = k >= 0 ? layout.sampleRows[k][i].trim() : "";
+    throw new LogError("bad_time", `line ${line}: time '${cell}' in column '${header[i]}' is not a time`, { line, column: header[i] });
+  }
+  throw new LogError("no_time_column", `no time column found; columns seen: ${describeColumns(header)}`);
+}
+
+/** Choose the columns and the unit. Throws LogError (no_time_column, no_pressure_column, unknown_unit, invalid_option, bad_time). */
+export function chooseColumns(layout: Layout, options: ImportOptions): ColumnChoice {
+  const { header, decimalComma } = layout;
+  const tokens = header.map((h) => unitTokens(h));
+  const assumptions: string[] = [];
+  let unsure = false;
+
+  let pressureIndex = -1;
+  const taken = new Set<number>();
+  if (options.pressureColumn !== undefined) {
+    pressureIndex = resolveColumn(header, options.pressureColumn, "pressure");
+    taken.add(pressureIndex);
+  }
+  const { timeIndex, dateIndex, spec } = findTime(layout, options, taken);
+  taken.add(timeIndex);
+  if (dateIndex >= 0) taken.add(dateIndex);
+
+  const unitIndex = tokens.findIndex((t, i) => !taken.has(i) && hasWord(t, UNIT_WORDS) && !parsePressureUnit(header[i]));
+  if (unitIndex >= 0) taken.add(unitIndex);
+
+  const isTemperature = (i: number) => {
+    const t = tokens[i];
+    if (hasWord(t, TEMPERATURE_WORDS)) return true;
+    return t.length <= 3 && (t.includes("f") || t.includes("c")) && !parsePressureUnit(header[i]);
+  };
+
+  if (pressureIndex < 0) {
+    for (let i = 0; i < header.length && pressureIndex < 0; i++)
+      if (!taken.has(i) && parsePressureUnit(header[i]) && !isTemperature(i)) pressureIndex = i;
+    for (let i = 0; i < header.length && pressureIndex < 0; i++)
+      if (!taken.has(i) && hasWord(tokens[i], PRESSURE_WORDS) && !isTemperature(i)) pressureIndex = i;
+    if (pressureIndex < 0) {
+      const numeric = header
+        .map((_, i) => i)
+        .filter((i) => !taken.has(i) && !isTemperature(i) && !hasWord(tokens[i], IGNORED_WORDS) && mostlyNumeric(columnCells(layout, i), decimalComma));
+      if (numeric.length === 1) {
+        pressureIndex = numeric[0];
+        assumptions.push(`pressure read from column '${header[pressureIndex]}': the only other numeric column (its header does not say pressure)`);
+        unsure = true;
+      }
+    }
+    if (pressureIndex < 0)
+      throw new LogError("no_pressure_column", `no pressure column found; columns seen: ${describeColumns(header)}`);
+  }
+  taken.add(pressureIndex);
+
+  // Unit: option, then the pressure header, then a unit column, else microns (a guess).
+  const pressureHeader = header[pressureIndex];
+  let unit: PressureUnit | null = null;
+  let unitAssumed = false;
+  if (options.unit) {
+    unit = options.unit;
+    assumptions.push(`pressure unit ${unit}, as asked`);
+  } else {
+    const parsed = parsePressureUnit(pressureHeader);
+    if (parsed && parsed.gauge) throw gaugeError(pressureHeader, pressureHeader);
+    if (parsed && !parsed.gauge) unit = parsed.unit;
+    else if (namesAmbiguousUnit(pressureHeader)) throw unknownUnitError(pressureHeader, pressureHeader);
+    else if (unitIndex < 0) {
+      unit = "micron";
+      unitAssumed = true;
+      unsure = true;
+      assumptions.push(`unit taken as microns: the header '${pressureHeader}' names none`);
+    }
+  }
+
+  let temperatureIndex = -1;
+  for (let i = 0; i < header.length && temperatureIndex < 0; i++)
+    if (!taken.has(i) && isTemperature(i) && mostlyNumeric(columnCells(layout, i), decimalComma)) temperatureIndex = i;
+  let temperatureFahrenheit = false;
+  if (temperatureIndex >= 0) {
+    const t = tokens[temperatureIndex];
+    if (t.some((w) => w === "f" || w === "degf" || w === "fahrenheit" || w === "of")) temperatureFahrenheit = true;
+    else if (!t.some((w) => w === "c" || w === "degc" || w === "celsius" || w === "oc")) {
+      const cells = columnCells(layout, temperatureIndex).map((c) => parseReading(c, decimalComma)).filter((v) => v === v);
+      const sorted = cells.sort((a, b) => a - b);
+      const median = sorted.length > 0 ? sorted[Math.floor(sorted.length / 2)] : NaN;
+      temperatureFahrenheit = median > 50;
+      assumptions.push(`temperature column '${header[temperatureIndex]}' names no unit: read as ${temperatureFahrenheit ? "°F (values above 50)" : "°C"}`);
+    }
+  }
+
+  assumptions.unshift(...spec.assumptions);
+  return {
+    timeIndex,
+    dateIndex,
+    pressureIndex,
+    unitIndex: unit === null ? unitIndex : -1,
+    temperatureIndex,
+    temperatureFahrenheit,
+    unit,
+    unitAssumed,
+    time: spec,
+    assumptions,
+    unsure: unsure || spec.unsure,
+  };
+}
+
+export { gaugeError, unknownUnitError };

@@ -1,0 +1,200 @@
+/**
+ * importLog: a gauge's CSV export → sorted times (seconds from the first data row) and
+ * pressures in microns, with what was read and what had to be assumed.
+ *
+ * One papaparse pass over the data; everything else (delimiter, header row, columns, units,
+ * time format) is decided from the first lines only.
+ */
+import Papa from "papaparse";
+import { LogError } from "../errors";
+import type { Finding, ImportedLog, ImportOptions, ImportSummary, PressureUnit } from "../types";
+import { chooseColumns } from "./columns";
+import { duplicatesFinding, reorderedFinding } from "./findings";
+import { readRows, type RowsRead } from "./rows";
+import { sniffLayout } from "./sniff";
+
+/** 64 MiB: a 24-hour 1 Hz log is about 2.5 MB, so this leaves a wide margin. */
+export const DEFAULT_MAX_BYTES = 64 * 1024 * 1024;
+/** 1,000,000 data rows: a 24-hour 1 Hz log is 86,400. */
+export const DEFAULT_MAX_ROWS = 1_000_000;
+/** Fewest usable readings the analysis can work with. */
+export const MIN_READINGS = 5;
+/** With no unit named, readings all below this look like Torr or mbar rather than microns. */
+const SMALL_VALUES_LIMIT = 30;
+
+const PRESSURE_UNITS: readonly PressureUnit[] = ["micron", "mtorr", "torr", "mmhg", "pa", "kpa", "mbar", "hpa", "psia", "inhg"];
+
+function formatCount(n: number): string {
+  return n.toLocaleString("en-US");
+}
+
+function checkOptions(options: ImportOptions): { maxBytes: number; maxRows: number } {
+  if (options === null || typeof options !== "object") throw new LogError("invalid_option", "options must be an object");
+  const positive = (v: unknown, name: string, fallback: number) => {
+    if (v === undefined) return fallback;
+    if (typeof v !== "number" || !(v > 0) || !Number.isFinite(v)) throw new LogError("invalid_option", `${name} must be a positive number, got ${String(v)}`);
+    return v;
+  };
+  if (options.unit !== undefined && !PRESSURE_UNITS.includes(options.unit))
+    throw new LogError("invalid_option", `unit '${String(options.unit)}' is not one of ${PRESSURE_UNITS.join(", ")}`);
+  if (options.timeUnit !== undefined && options.timeUnit !== "s" && options.timeUnit !== "min")
+    throw new LogError("invalid_option", `timeUnit '${String(options.timeUnit)}' must be "s" or "min"`);
+  for (const key of ["timeColumn", "pressureColumn"] as const) {
+    const v = options[key];
+    if (v !== undefined && typeof v !== "string" && typeof v !== "number")
+      throw new LogError("invalid_option", `${key} must be a header name or a 0-based column index`);
+  }
+  return { maxBytes: positive(options.maxBytes, "maxBytes", DEFAULT_MAX_BYTES), maxRows: positive(options.maxRows, "maxRows", DEFAULT_MAX_ROWS) };
+}
+
+function countLines(text: string, from: number): number {
+  let n = 0;
+  for (let i = text.indexOf("\n", from); i !== -1; i = text.indexOf("\n", i + 1)) n++;
+  return n;
+}
+
+function isoOf(seconds: number, zoned: boolean): string | null {
+  const ms = seconds * 1000;
+  if (!Number.isFinite(ms) || Math.abs(ms) > 8.64e15) return null;
+  const iso = new Date(ms).toISOString();
+  return zoned ? iso : iso.slice(0, -1); // no zone in the file: local wall time, no "Z"
+}
+
+/**
+ * Read a gauge log. Throws LogError only (empty_file, file_too_large, too_many_rows, no_header,
+ * no_time_column, no_pressure_column, unknown_unit, bad_time, too_few_readings, invalid_option).
+ * Anything else escaping is a bug; see importLog for the guarded entry.
+ */
+export function importLogStrict(text: string, options: ImportOptions = {}): ImportedLog {
+  const { maxBytes, maxRows } = checkOptions(options);
+  if (typeof text !== "string") throw new LogError("invalid_option", "the log must be text");
+  if (text.length > maxBytes)
+    throw new LogError("file_too_large", `the file is ${formatCount(text.length)} characters; the limit is ${formatCount(maxBytes)} (${(maxBytes / 1048576).toFixed(0)} MiB)`);
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  if (text.trim().length === 0) throw new LogError("empty_file", "the file is empty");
+
+  const layout = sniffLayout(text);
+  const choice = chooseColumns(layout, options);
+  const body = layout.headerOffset === 0 ? text : text.slice(layout.headerOffset);
+  const parsed = Papa.parse<string[]>(body, {
+    delimiter: layout.delimiter,
+    newline: layout.newline,
+    header: false,
+    skipEmptyLines: false,
+    preview: maxRows + 2,
+  });
+  const rows = parsed.data;
+  const firstLine = layout.headerLine + 1;
+
+  let spec = choice.time;
+  let result = readRows(rows, choice, spec, layout.decimalComma, firstLine, layout.header.length);
+  if (!result.ok && spec.alternate) {
+    spec = spec.alternate;
+    result = readRows(rows, choice, spec, layout.decimalComma, firstLine, layout.header.length);
+  }
+  if (!result.ok) {
+    const column = layout.header[choice.timeIndex] ?? String(choice.timeIndex);
+    throw new LogError("bad_time", `line ${result.line}: time '${result.cell.trim().slice(0, 40)}' in column '${column}' is not a time (expected ${spec.description})`, { line: result.line, column });
+  }
+  const read = result.read;
+  if (read.rows > maxRows) {
+    const found = countLines(text, layout.headerOffset);
+    throw new LogError("too_many_rows", `the file has about ${formatCount(found)} data rows; the limit is ${formatCount(maxRows)}`);
+  }
+  if (read.microns.length < MIN_READINGS)
+    throw new LogError("too_few_readings", `only ${read.microns.length} usable reading${read.microns.length === 1 ? "" : "s"} (of ${read.rows} rows); at least ${MIN_READINGS} are needed`);
+
+  return assemble(read, layout, choice, spec);
+}
+
+function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice: ReturnType<typeof chooseColumns>, spec: typeof choice.time): ImportedLog {
+  const assumptions = [...choice.assumptions];
+  if (spec !== choice.time) assumptions.push(...spec.assumptions.slice(-1));
+  let unsure = choice.unsure;
+  const n = read.microns.length;
+  const t0 = read.firstRaw;
+
+  let tSeconds = new Array<number>(n);
+  let reordered = 0;
+  let runningMax = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const t = read.rawSeconds[i] - t0;
+    tSeconds[i] = t;
+    if (t < runningMax) reordered++;
+    else runningMax = t;
+  }
+  let microns = read.microns;
+  let temperatureC = read.temperatureC;
+  if (reordered > 0) {
+    const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => tSeconds[a] - tSeconds[b] || a - b);
+    tSeconds = order.map((i) => tSeconds[i]);
+    microns = order.map((i) => read.microns[i]);
+    if (temperatureC) temperatureC = order.map((i) => read.temperatureC![i]);
+  }
+  let duplicates = 0;
+  let firstDuplicateAt = NaN;
+  for (let i = 1; i < n; i++)
+    if (tSeconds[i] === tSeconds[i - 1]) {
+      if (duplicates === 0) firstDuplicateAt = tSeconds[i];
+      duplicates++;
+    }
+  const overRangeSeconds = read.overRangeRaw.map((r) => r - t0).sort((a, b) => a - b);
+
+  const findings: Finding[] = [];
+  if (reordered > 0) findings.push(reorderedFinding(reordered, n));
+  if (duplicates > 0) findings.push(duplicatesFinding(duplicates, n, firstDuplicateAt));
+
+  if (choice.unitAssumed) {
+    let max = 0;
+    for (let i = 0; i < n; i++) if (microns[i] > max) max = microns[i];
+    if (max < SMALL_VALUES_LIMIT)
+      assumptions.push(`every reading is below ${SMALL_VALUES_LIMIT}: that looks like Torr or mbar rather than microns; set the unit if so`);
+  }
+  if (read.unitsSeen > 1) assumptions.push("the unit column changes between rows: each reading converted with its own unit");
+  if (read.footerRows > 0) assumptions.push(`${read.footerRows} line${read.footerRows === 1 ? "" : "s"} at the end with no time ignored (footer)`);
+  if (read.ignoredLines > 0) assumptions.push(`${read.ignoredLines} line${read.ignoredLines === 1 ? "" : "s"} with a single cell ignored (not data)`);
+  if (read.skipped > 0 && read.overRangeRaw.length > 0)
+    assumptions.push(`${read.overRangeRaw.length} reading${read.overRangeRaw.length === 1 ? "" : "s"} marked over range (gauge above its range)`);
+  if (spec.unsure) unsure = true;
+
+  const header = layout.header;
+  const summary: ImportSummary = {
+    rows: read.rows,
+    skipped: read.skipped,
+    overRange: read.overRangeRaw.length,
+    unit: read.unit,
+    timeFormat: spec.format,
+    delimiter: layout.delimiter,
+    decimalComma: layout.decimalComma,
+    headerLine: layout.headerLine,
+    columns: header,
+    timeColumn: choice.dateIndex >= 0 ? `${header[choice.dateIndex]} + ${header[choice.timeIndex]}` : header[choice.timeIndex],
+    pressureColumn: header[choice.pressureIndex],
+    temperatureColumn: choice.temperatureIndex >= 0 ? header[choice.temperatureIndex] : null,
+    unsure,
+    assumptions,
+  };
+  return {
+    tSeconds,
+    microns,
+    overRangeSeconds,
+    temperatureC,
+    startedAt: spec.dated ? isoOf(t0, spec.zoned) : null,
+    summary,
+    findings,
+  };
+}
+
+/**
+ * Read a gauge log (CSV / semicolon / tab text, as exported) into seconds and microns.
+ * Throws LogError only, for any input string: an unexpected failure inside is reported as
+ * no_header ("could not be read as a table") rather than escaping as another error type.
+ */
+export function importLog(text: string, options: ImportOptions = {}): ImportedLog {
+  try {
+    return importLogStrict(text, options);
+  } catch (e) {
+    if (e instanceof LogError) throw e;
+    throw new LogError("no_header", `the file could not be read as a table of readings (${e instanceof Error ? e.message : String(e)})`);
+  }
+}

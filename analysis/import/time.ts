@@ -1,0 +1,243 @@
+/**
+ * Time cell parsers, written by hand (no Date.parse, no regex per row) because a 24-hour 1 Hz
+ * log has 86,400 stamps. Every parser returns seconds as a float, or NaN when the cell is not
+ * in its form. Dated forms return seconds since 1970-01-01 00:00; a stamp without a zone is
+ * read as if it were UTC (local wall time: only differences between stamps matter).
+ */
+
+export type DateOrder = "ymd" | "dmy" | "mdy";
+
+/** Days from 1970-01-01 to a proleptic Gregorian date (H. Hinnant, "chrono-compatible low-level date algorithms"). */
+export function daysFromCivil(year: number, month: number, day: number): number {
+  const y = month <= 2 ? year - 1 : year;
+  const era = Math.floor(y / 400);
+  const yoe = y - era * 400;
+  const doy = Math.floor((153 * (month + (month > 2 ? -3 : 9)) + 2) / 5) + day - 1;
+  const doe = yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy;
+  return era * 146097 + doe - 719468;
+}
+
+const DAYS_IN_MONTH = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+function validDate(y: number, m: number, d: number): boolean {
+  if (m < 1 || m > 12 || d < 1 || d > DAYS_IN_MONTH[m - 1]) return false;
+  if (m === 2 && d === 29) return (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
+  return true;
+}
+
+/* A tiny cursor scanner shared by the parsers below (single-threaded, so module state is safe). */
+let str = "";
+let pos = 0;
+let digitsRead = 0;
+
+function readInt(): number {
+  let v = 0;
+  const start = pos;
+  while (pos < str.length) {
+    const c = str.charCodeAt(pos);
+    if (c < 48 || c > 57) break;
+    v = v * 10 + (c - 48);
+    pos++;
+  }
+  digitsRead = pos - start;
+  return digitsRead === 0 ? NaN : v;
+}
+
+function skipSpaces(): void {
+  while (pos < str.length && (str.charCodeAt(pos) === 32 || str.charCodeAt(pos) === 9)) pos++;
+}
+
+/** Reads H:MM[:SS[.fff]] at the cursor → seconds, or NaN. `maxHours` 24 for a clock, larger for a duration. */
+function readClock(maxHours: number): number {
+  const h = readInt();
+  if (h !== h || digitsRead > 3 || str.charCodeAt(pos) !== 58 /* : */) return NaN;
+  pos++;
+  const m = readInt();
+  if (m !== m || digitsRead !== 2 || m > 59) return NaN;
+  let s = 0;
+  if (str.charCodeAt(pos) === 58) {
+    pos++;
+    s = readInt();
+    if (s !== s || digitsRead !== 2 || s > 60) return NaN;
+    const c = str.charCodeAt(pos);
+    if (c === 46 || c === 44) {
+      // fraction: .5, .250, ,5
+      pos++;
+      let scale = 0.1;
+      const start = pos;
+      while (pos < str.length) {
+        const d = str.charCodeAt(pos);
+        if (d < 48 || d > 57) break;
+        s += (d - 48) * scale;
+        scale /= 10;
+        pos++;
+      }
+      if (pos === start) return NaN;
+    }
+  }
+  if (h > maxHours) return NaN;
+  return h * 3600 + m * 60 + s;
+}
+
+/** Reads an optional AM/PM suffix and adjusts seconds of day; NaN if the hour does not fit. */
+function readMeridiem(secondsOfDay: number): number {
+  skipSpaces();
+  if (pos >= str.length) return secondsOfDay;
+  const c = str.charCodeAt(pos) | 32;
+  if ((c !== 97 && c !== 112) || (str.charCodeAt(pos + 1) | 32) !== 109) return secondsOfDay;
+  pos += 2;
+  if (str.charCodeAt(pos) === 46) pos++; // "p.m."-less "pm." tolerance
+  const hour = Math.floor(secondsOfDay / 3600);
+  if (hour < 1 || hour > 12) return NaN;
+  const isPm = c === 112;
+  if (hour === 12) return isPm ? secondsOfDay : secondsOfDay - 12 * 3600;
+  return isPm ? secondsOfDay + 12 * 3600 : secondsOfDay;
+}
+
+/** Reads an optional zone: Z, UTC, GMT, ±HH, ±HHMM, ±HH:MM → seconds to subtract; NaN if malformed. */
+function readZone(): number {
+  skipSpaces();
+  if (pos >= str.length) return 0;
+  const c = str.charCodeAt(pos);
+  if (c === 90 || c === 122) {
+    pos++;
+    return 0;
+  }
+  if (c === 43 || c === 45) {
+    pos++;
+    const sign = c === 45 ? -1 : 1;
+    const start = pos;
+    const hh = readInt();
+    if (hh !== hh) return NaN;
+    let offset: number;
+    if (pos - start === 4) offset = Math.floor(hh / 100) * 3600 + (hh % 100) * 60;
+    else if (pos - start <= 2) {
+      offset = hh * 3600;
+      if (str.charCodeAt(pos) === 58) {
+        pos++;
+        const mm = readInt();
+        if (mm !== mm || digitsRead !== 2) return NaN;
+        offset += mm * 60;
+      }
+    } else return NaN;
+    return sign * offset;
+  }
+  const word = str.slice(pos, pos + 3).toUpperCase();
+  if (word === "UTC" || word === "GMT") {
+    pos += 3;
+    const more = readZone();
+    return more;
+  }
+  return NaN;
+}
+
+function atEnd(): boolean {
+  skipSpaces();
+  return pos >= str.length;
+}
+
+/** Reads a date at the cursor in the given order → days since 1970, or NaN. Two-digit years are 20yy. */
+function readDate(order: DateOrder): number {
+  const a = readInt();
+  const aLen = digitsRead;
+  const sep = str.charCodeAt(pos);
+  if (a !== a || (sep !== 45 && sep !== 47 && sep !== 46)) return NaN;
+  pos++;
+  const b = readInt();
+  if (b !== b || digitsRead > 2 || str.charCodeAt(pos) !== sep) return NaN;
+  pos++;
+  const c = readInt();
+  const cLen = digitsRead;
+  if (c !== c) return NaN;
+  let y: number, m: number, d: number;
+  if (order === "ymd") {
+    if (aLen !== 4 || cLen > 2) return NaN;
+    y = a; m = b; d = c;
+  } else {
+    if (aLen > 2 || (cLen !== 4 && cLen !== 2)) return NaN;
+    y = cLen === 2 ? 2000 + c : c;
+    if (order === "dmy") { d = a; m = b; } else { m = a; d = b; }
+  }
+  if (!validDate(y, m, d)) return NaN;
+  return daysFromCivil(y, m, d);
+}
+
+/**
+ * Parse a date-and-time stamp: ISO 8601 ("2026-06-14T13:05:00Z", "2026-06-14 13:05:00.5+02:00")
+ * or a day-first / month-first form ("14/06/2026 13:05:00", "6/14/2026 1:05:00 PM").
+ * Returns seconds since 1970 (UTC when a zone is given, wall time otherwise), or NaN.
+ */
+export function parseDateTime(cell: string, order: DateOrder): number {
+  str = cell;
+  pos = 0;
+  skipSpaces();
+  const days = readDate(order);
+  if (days !== days) return NaN;
+  const c = str.charCodeAt(pos);
+  if (c === 84 || c === 116 || c === 32 || c === 95 || c === 44) {
+    pos++;
+    skipSpaces();
+  } else if (pos >= str.length) {
+    return days * 86400; // date only
+  } else return NaN;
+  let secondsOfDay = readClock(24);
+  if (secondsOfDay !== secondsOfDay) return NaN;
+  secondsOfDay = readMeridiem(secondsOfDay);
+  const zone = readZone();
+  if (zone !== zone || secondsOfDay !== secondsOfDay || !atEnd()) return NaN;
+  return days * 86400 + secondsOfDay - zone;
+}
+
+/** Whether a date-and-time cell carries a zone designator (Z, ±hh:mm, UTC). */
+export function hasZone(cell: string): boolean {
+  const s = cell.trim();
+  const tIndex = s.search(/[T ]\d/);
+  if (tIndex < 0) return false;
+  return /(Z|[+-]\d\d(:?\d\d)?|UTC|GMT)$/i.test(s.slice(tIndex + 1));
+}
+
+/** Parse a date-only cell ("2026-06-14", "14/06/2026") → days since 1970, or NaN. */
+export function parseDateOnly(cell: string, order: DateOrder): number {
+  str = cell;
+  pos = 0;
+  skipSpaces();
+  const days = readDate(order);
+  return days === days && atEnd() ? days : NaN;
+}
+
+/** Parse a clock time "13:05:00", "1:05 PM", "13:05:00.25" → seconds of the day, or NaN. */
+export function parseClock(cell: string): number {
+  str = cell;
+  pos = 0;
+  skipSpaces();
+  let s = readClock(24);
+  if (s !== s) return NaN;
+  s = readMeridiem(s);
+  return s === s && atEnd() ? s : NaN;
+}
+
+/** Parse an elapsed duration written with colons: "1:02:03" (h:mm:ss), "65:30" (mm:ss) → seconds. */
+export function parseColonDuration(cell: string): number {
+  str = cell;
+  pos = 0;
+  skipSpaces();
+  const a = readInt();
+  if (a !== a || str.charCodeAt(pos) !== 58) return NaN;
+  pos++;
+  const b = readInt();
+  if (b !== b || digitsRead !== 2 || b > 59) return NaN;
+  if (str.charCodeAt(pos) !== 58) {
+    // mm:ss
+    let s = a * 60 + b;
+    if (str.charCodeAt(pos) === 46) {
+      const frac = Number("0" + str.slice(pos));
+      if (frac !== frac) return NaN;
+      s += frac;
+      pos = str.length;
+    }
+    return atEnd() ? s : NaN;
+  }
+  pos = 0;
+  const s = readClock(1e7);
+  return s === s && atEnd() ? s : NaN;
+}

@@ -1,0 +1,211 @@
+/**
+ * Deciding how a time column is written, from its header and its first cells, and turning
+ * that into one parser used for every row.
+ */
+import type { TimeFormat } from "../types";
+import { unitTokens } from "../units";
+import { parseReading } from "./numbers";
+import {
+  type DateOrder,
+  hasZone,
+  parseClock,
+  parseColonDuration,
+  parseDateOnly,
+  parseDateTime,
+} from "./time";
+
+export type ElapsedUnit = "ms" | "s" | "min" | "h";
+
+const SECONDS_PER: Record<ElapsedUnit, number> = { ms: 0.001, s: 1, min: 60, h: 3600 };
+
+export interface TimeSpec {
+  format: TimeFormat;
+  /** Seconds for one row: absolute (seconds since 1970, wall time) for dated forms, of the day for clocks, elapsed otherwise. NaN = not a time. */
+  parse: (timeCell: string, dateCell: string) => number;
+  /** Clock times: add a day when a stamp falls more than 12 h behind the one before. */
+  rollover: boolean;
+  /** Dated forms: the parse result is a calendar time (for startedAt). */
+  dated: boolean;
+  zoned: boolean;
+  /** The other day/month order, to retry with when the chosen one fails on a later row. */
+  alternate: TimeSpec | null;
+  assumptions: string[];
+  unsure: boolean;
+  /** Plain words for the summary: "ISO 8601 with zone", "elapsed minutes", … */
+  description: string;
+}
+
+/** Time unit named in a header: "elapsed_s", "time (min)", "t [ms]", "Runtime hours". */
+export function timeUnitFromHeader(header: string): ElapsedUnit | null {
+  for (const t of unitTokens(header)) {
+    if (t === "s" || t === "sec" || t === "secs" || t === "second" || t === "seconds") return "s";
+    if (t === "min" || t === "mins" || t === "minute" || t === "minutes") return "min";
+    if (t === "ms" || t === "msec" || t === "millis" || t === "milliseconds") return "ms";
+    if (t === "h" || t === "hr" || t === "hrs" || t === "hour" || t === "hours") return "h";
+  }
+  return null;
+}
+
+function fits(samples: string[], test: (s: string) => boolean): boolean {
+  if (samples.length === 0) return false;
+  let ok = 0;
+  for (const s of samples) if (test(s)) ok++;
+  // Allow one stray cell in a sample (a typo is reported later with its line).
+  return ok >= Math.max(1, samples.length - 1);
+}
+
+/** Day/month order of slash- or dot-dates, or null when the cells are not such dates. */
+function dateOrderOf(samples: string[], parseAs: (s: string, o: DateOrder) => number): { order: DateOrder; unsure: boolean } | null {
+  if (fits(samples, (s) => parseAs(s, "ymd") === parseAs(s, "ymd"))) return { order: "ymd", unsure: false };
+  const dmy = fits(samples, (s) => parseAs(s, "dmy") === parseAs(s, "dmy"));
+  const mdy = fits(samples, (s) => parseAs(s, "mdy") === parseAs(s, "mdy"));
+  if (dmy && !mdy) return { order: "dmy", unsure: false };
+  if (mdy && !dmy) return { order: "mdy", unsure: false };
+  if (!dmy) return null;
+  // Ambiguous (every day ≤ 12): dots and dashes are day-first by custom, slashes month-first.
+  const slash = samples.some((s) => s.includes("/"));
+  return { order: slash ? "mdy" : "dmy", unsure: true };
+}
+
+function orderWords(order: DateOrder): string {
+  return order === "ymd" ? "year-month-day" : order === "dmy" ? "day/month/year" : "month/day/year";
+}
+
+function dateTimeSpec(samples: string[], order: DateOrder, unsure: boolean, withAlternate: boolean): TimeSpec {
+  const isIso = order === "ymd" && samples.some((s) => /\d[Tt]\d/.test(s));
+  const zoned = samples.length > 0 && samples.every((s) => hasZone(s));
+  const assumptions: string[] = [];
+  if (!zoned) assumptions.push("times carry no zone: read as local wall time (only differences are used)");
+  if (unsure) assumptions.push(`dates read as ${orderWords(order)}: every day in the first rows is 12 or less, so the order is a guess`);
+  const spec: TimeSpec = {
+    format: isIso ? "iso" : "datetime",
+    parse: (cell) => parseDateTime(cell, order),
+    rollover: false,
+    dated: true,
+    zoned,
+    alternate: null,
+    assumptions,
+    unsure,
+    description: isIso ? `ISO 8601${zoned ? " with zone" : ""}` : `date and time (${orderWords(order)})`,
+  };
+  if (withAlternate && unsure && order !== "ymd") {
+    const other: DateOrder = order === "dmy" ? "mdy" : "dmy";
+    spec.alternate = dateTimeSpec(samples, other, false, false);
+    spec.alternate.assumptions.push(`dates read as ${orderWords(other)}: a later row did not fit ${orderWords(order)}`);
+  }
+  return spec;
+}
+
+/**
+ * Work out how the time column is written from its header and sample cells (non-blank, trimmed).
+ * `dateSamples` are the cells of a separate date column, when there is one. Returns null when the
+ * cells are not times in any form known here.
+ */
+export function detectTimeSpec(
+  header: string,
+  samples: string[],
+  decimalComma: boolean,
+  timeUnitOption: "s" | "min" | undefined,
+  dateHeader: string | null = null,
+  dateSamples: string[] | null = null,
+): TimeSpec | null {
+  if (samples.length === 0) return null;
+
+  if (dateHeader !== null && dateSamples !== null) {
+    const found = dateOrderOf(dateSamples, parseDateOnly);
+    if (!found || !fits(samples, (s) => parseClock(s) === parseClock(s))) return null;
+    const { order, unsure } = found;
+    let lastDateCell = "";
+    let lastDays = NaN;
+    const assumptions = ["times carry no zone: read as local wall time (only differences are used)"];
+    if (unsure) assumptions.push(`dates read as ${orderWords(order)}: every day in the first rows is 12 or less, so the order is a guess`);
+    return {
+      format: "date_and_time",
+      parse: (timeCell, dateCell) => {
+        if (dateCell !== lastDateCell) {
+          lastDateCell = dateCell;
+          lastDays = parseDateOnly(dateCell, order);
+        }
+        return lastDays * 86400 + parseClock(timeCell);
+      },
+      rollover: false,
+      dated: true,
+      zoned: false,
+      alternate: null,
+      assumptions,
+      unsure,
+      description: `separate date (${orderWords(order)}) and time columns`,
+    };
+  }
+
+  const headerUnit = timeUnitFromHeader(header);
+  if (fits(samples, (s) => parseReading(s, decimalComma) === parseReading(s, decimalComma))) {
+    const first = parseReading(samples[0], decimalComma);
+    if (first >= 1e9 && !timeUnitOption) {
+      const scale = first >= 1e11 ? 0.001 : 1;
+      return {
+        format: "elapsed_s",
+        parse: (cell) => parseReading(cell, decimalComma) * scale,
+        rollover: false,
+        dated: true,
+        zoned: true,
+        alternate: null,
+        assumptions: [`time column read as Unix time (${scale === 1 ? "seconds" : "milliseconds"} since 1970 UTC)`],
+        unsure: false,
+        description: "Unix time",
+      };
+    }
+    const unit: ElapsedUnit = timeUnitOption ?? headerUnit ?? "s";
+    const factor = SECONDS_PER[unit];
+    const assumptions: string[] = [];
+    let unsure = false;
+    if (timeUnitOption) assumptions.push(`elapsed time in ${unit === "s" ? "seconds" : "minutes"}, as asked`);
+    else if (!headerUnit) {
+      assumptions.push(`elapsed time taken as seconds: the header '${header}' names no unit`);
+      unsure = true;
+    } else if (unit === "ms" || unit === "h") assumptions.push(`elapsed time in ${unit === "ms" ? "milliseconds" : "hours"}, converted to seconds`);
+    return {
+      format: unit === "min" ? "elapsed_min" : "elapsed_s",
+      parse: (cell) => parseReading(cell, decimalComma) * factor,
+      rollover: false,
+      dated: false,
+      zoned: false,
+      alternate: null,
+      assumptions,
+      unsure,
+      description: unit === "min" ? "elapsed minutes" : unit === "s" ? "elapsed seconds" : `elapsed ${unit}`,
+    };
+  }
+
+  const found = dateOrderOf(samples, parseDateTime);
+  if (found) return dateTimeSpec(samples, found.order, found.unsure, true);
+
+  const elapsedHeader = headerUnit !== null || /elapsed|duration|runtime|run time/i.test(header);
+  if (!elapsedHeader && fits(samples, (s) => parseClock(s) === parseClock(s))) {
+    return {
+      format: "clock",
+      parse: (cell) => parseClock(cell),
+      rollover: true,
+      dated: false,
+      zoned: false,
+      alternate: null,
+      assumptions: [],
+      unsure: false,
+      description: "clock time (midnight rollover handled)",
+    };
+  }
+  if (fits(samples, (s) => parseColonDuration(s) === parseColonDuration(s))) {
+    return {
+      format: "elapsed_s",
+      parse: (cell) => parseColonDuration(cell),
+      rollover: false,
+      dated: false,
+      zoned: false,
+      alternate: null,
+      assumptions: [`elapsed time read as ${samples[0].split(":").length === 3 ? "h:mm:ss" : "mm:ss"}`],
+      unsure: false,
+      description: "elapsed h:mm:ss",
+    };
+  }
+  return null;
+}
