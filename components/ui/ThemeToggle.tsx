@@ -1,0 +1,42 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import { cx } from "./cx";
+
+export const THEME_KEY = "rl-theme";
+export type Theme = "light" | "dark";
+
+function applyTheme(theme: Theme) {
+  document.documentElement.classList.toggle("dark", theme === "dark");
+  try {
+    localStorage.setItem(THEME_KEY, theme);
+  } catch {
+    /* private mode: the choice lasts for this page only */
+  }
+}
+
+/** Switches light/dark and remembers it in localStorage "rl-theme" (read before paint by app/layout.tsx). */
+export function ThemeToggle({ className, showLabel = true }: { className?: string; showLabel?: boolean }) {
+  const [theme, setTheme] = useState<Theme | null>(null);
+  useEffect(() => {
+    setTheme(document.documentElement.classList.contains("dark") ? "dark" : "light");
+  }, []);
+  const next: Theme = theme === "dark" ? "light" : "dark";
+  const label = theme === "dark" ? "Light screen" : "Dark screen";
+  return (
+    <button
+      type="button"
+      data-testid="theme-toggle"
+      aria-label={showLabel ? undefined : label}
+      aria-pressed={theme === "dark"}
+      onClick={() => {
+        applyTheme(next);
+        setTheme(next);
+      }}
+      className={cx("inline-flex min-h-tap min-w-tap items-center justify-center gap-2 rounded-xl px-3 text-body text-fg hover:bg-surface-sunken", className)}
+    >
+      <span aria-hidden className="text-lead">{theme === "dark" ? "☀" : "☾"}</span>
+      {showLabel && <span>{label}</span>}
+    </button>
+  );
+}
