@@ -1,0 +1,46 @@
+# Shared steps of scripts/demo.sh and scripts/test.sh (sourced, not run).
+
+say() { printf '\033[1;36m•\033[0m %s\n' "$*"; }
+
+# npm ci when node_modules is missing or older than package-lock.json.
+ensure_node_modules() {
+  local want have
+  want=$(sha256sum package-lock.json | cut -d' ' -f1)
+  have=$(cat node_modules/.riseline-lock 2>/dev/null || true)
+  if [ ! -d node_modules ] || [ "$want" != "$have" ]; then
+    say "Installing npm packages (npm ci)…"
+    npm ci --no-audit --no-fund --loglevel=error
+    echo "$want" > node_modules/.riseline-lock
+  fi
+}
+
+ensure_chromium() {
+  if [ ! -x /usr/bin/chromium ]; then
+    say "Installing Chromium from Debian's packages (browser journeys)…"
+    apt-get update -qq
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+  fi
+}
+
+random_secret() { head -c 48 /dev/urandom | base64 | tr -d '/+=\n' | head -c 48; }
+
+# Waits until the URL answers 200 (up to $2 seconds).
+wait_for_url() {
+  local url=$1 seconds=${2:-60}
+  for _ in $(seq 1 $((seconds * 2))); do
+    curl -sf -o /dev/null "$url" && return 0
+    sleep 0.5
+  done
+  return 1
+}
+
+# Stops a process group started with setsid, whose leader's pid is in the file $1.
+stop_group() {
+  local pidfile=$1 pid
+  [ -f "$pidfile" ] || return 0
+  pid=$(cat "$pidfile")
+  kill -TERM -- "-$pid" 2>/dev/null || true
+  for _ in $(seq 1 30); do kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
+  kill -KILL -- "-$pid" 2>/dev/null || true
+  rm -f "$pidfile"
+}

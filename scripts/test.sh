@@ -1,0 +1,70 @@
+#!/usr/bin/env bash
+# `npm test`: the whole suite on its own services (separate database, bucket, ports, data dirs):
+# type-check, lint, unit and integration tests (vitest), then the browser journeys against a
+# production build. Stops everything it started; exits non-zero on any failure.
+set -uo pipefail
+cd "$(dirname "$0")/.."
+. scripts/lib.sh
+export NEXT_TELEMETRY_DISABLED=1 CI="${CI:-}"
+
+ensure_node_modules || exit 1
+ensure_chromium || exit 1
+
+ROOT=.data/test
+cleanup() {
+  stop_group "$ROOT/run/next.pid"
+  bash scripts/services.sh stop test
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+# A fresh start every run: empty database, bucket and mailbox.
+bash scripts/services.sh stop test >/dev/null 2>&1 || true
+rm -rf "$ROOT/s3" "$ROOT/mail" "$ROOT"/*.json
+bash scripts/services.sh start test || exit 1
+psql -q -h 127.0.0.1 -p 54339 -U postgres -c "DROP DATABASE IF EXISTS riseline WITH (FORCE)" -c "CREATE DATABASE riseline" postgres >/dev/null || exit 1
+
+set -a
+eval "$(bash scripts/services.sh env test)"
+RISELINE_MODE=test
+BETTER_AUTH_SECRET=$(random_secret)
+BETTER_AUTH_URL=http://127.0.0.1:3100
+AUTH_RATE_LIMIT=off
+set +a
+
+failed=()
+step() {
+  local name=$1; shift
+  say "$name"
+  if ! "$@"; then failed+=("$name"); fi
+}
+
+step "Migrations on an empty database" ./node_modules/.bin/tsx scripts/migrate.ts
+step "Type-check" ./node_modules/.bin/tsc --noEmit -p .
+step "Lint" ./node_modules/.bin/eslint -c scripts/eslint.config.mjs .
+step "Unit and integration tests" ./node_modules/.bin/vitest run --config tests/vitest.config.ts \
+  --reporter=default --reporter=json --outputFile.json="$ROOT/unit.json"
+
+say "Production build for the journeys"
+if ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1; then
+  mkdir -p "$ROOT/run"
+  setsid ./node_modules/.bin/next start -H 127.0.0.1 -p 3100 >"$ROOT/next.log" 2>&1 &
+  echo $! >"$ROOT/run/next.pid"
+  if wait_for_url http://127.0.0.1:3100/api/health 90; then
+    step "Browser journeys (Chromium)" ./node_modules/.bin/vitest run --config tests/journeys/vitest.config.ts \
+      --reporter=default --reporter=json --outputFile.json="$ROOT/journeys.json"
+  else
+    echo "The app did not start; last lines of $ROOT/next.log:"; tail -30 "$ROOT/next.log"
+    failed+=("Start the app")
+  fi
+else
+  tail -40 "$ROOT/build.log"
+  failed+=("Production build")
+fi
+
+node scripts/test-summary.mjs "$ROOT/unit.json" "$ROOT/journeys.json"
+if [ ${#failed[@]} -gt 0 ]; then
+  printf 'Failed steps: %s\n' "${failed[*]}"
+  exit 1
+fi
+echo "All steps passed."

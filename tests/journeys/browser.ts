@@ -1,0 +1,50 @@
+/**
+ * Debian's Chromium driven by playwright-core. Each journey gets a fresh profile directory.
+ * APP_URL is where Riseline runs (scripts/test.sh starts `next start` there).
+ */
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { env } from "@/lib/env";
+
+export const APP_URL = env().BETTER_AUTH_URL;
+
+/** A 360 × 740 phone, touch on, as technicians use Riseline in the truck. */
+export const PHONE = { viewport: { width: 360, height: 740 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 };
+export const DESKTOP = { viewport: { width: 1280, height: 860 } };
+
+export interface Session {
+  browser: Browser;
+  newContext: (opts?: Parameters<Browser["newContext"]>[0]) => Promise<BrowserContext>;
+  close: () => Promise<void>;
+}
+
+export async function launch(): Promise<Session> {
+  const profile = mkdtempSync(join(tmpdir(), "rl-chromium-"));
+  const browser = await chromium.launch({
+    executablePath: "/usr/bin/chromium",
+    args: [
+      "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
+      "--disable-background-networking", "--disable-component-update", "--disable-sync",
+      `--user-data-dir=${profile}`,
+    ],
+  });
+  return {
+    browser,
+    newContext: (opts) => browser.newContext({ baseURL: APP_URL, ...opts }),
+    close: async () => {
+      await browser.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Signs in through the real sign-in page. */
+export async function signInThroughPage(page: Page, email: string, password: string): Promise<void> {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(/\/home/);
+}
