@@ -4,7 +4,7 @@
  */
 import { LogError } from "../errors";
 import type { ImportOptions, PressureUnit } from "../types";
-import { namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../units";
+import { type GaugeUnit, namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../units";
 import { parseReading } from "./numbers";
 import type { Layout } from "./sniff";
 import { detectTimeSpec, type TimeSpec } from "./timespec";
@@ -68,10 +68,12 @@ function resolveColumn(header: string[], want: string | number, what: string): n
   throw new LogError("invalid_option", `${what} column ${JSON.stringify(want)} is not in the file; columns seen: ${describeColumns(header)}`, { column: String(want) });
 }
 
-function gaugeError(header: string, unitText: string): LogError {
+const GAUGE_WORDS: Record<GaugeUnit, string> = { psig: "psig", kpa_gauge: "kPa gauge", bar_gauge: "bar gauge", inhg_vacuum: "inHg vacuum" };
+
+function gaugeError(header: string, unitText: string, gaugeUnit: GaugeUnit): LogError {
   return new LogError(
     "unknown_unit",
-    `column '${header}': '${unitText}' is a gauge pressure (relative to the atmosphere), not an absolute vacuum reading; export the log in an absolute unit (${UNITS_UNDERSTOOD.join(", ")})`,
+    `column '${header}': '${unitText}' is ${GAUGE_WORDS[gaugeUnit]}, a gauge pressure (relative to the atmosphere), not an absolute vacuum reading; export the log in an absolute unit (${UNITS_UNDERSTOOD.join(", ")})`,
     { column: header },
   );
 }
@@ -187,7 +189,7 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
     assumptions.push(`pressure unit ${unit}, as asked`);
   } else {
     const parsed = parsePressureUnit(pressureHeader);
-    if (parsed && parsed.gauge) throw gaugeError(pressureHeader, pressureHeader);
+    if (parsed && parsed.gauge) throw gaugeError(pressureHeader, pressureHeader, parsed.gaugeUnit);
     if (parsed && !parsed.gauge) unit = parsed.unit;
     else if (namesAmbiguousUnit(pressureHeader)) throw unknownUnitError(pressureHeader, pressureHeader);
     else if (unitIndex < 0) {

@@ -47,10 +47,13 @@ function checkOptions(options: ImportOptions): { maxBytes: number; maxRows: numb
   return { maxBytes: positive(options.maxBytes, "maxBytes", DEFAULT_MAX_BYTES), maxRows: positive(options.maxRows, "maxRows", DEFAULT_MAX_ROWS) };
 }
 
-function countLines(text: string, from: number): number {
+/** Lines after the header line (a last line without a line end counts too). */
+function countDataLines(text: string, headerOffset: number): number {
+  const headerEnd = text.indexOf("\n", headerOffset);
+  if (headerEnd === -1) return 0;
   let n = 0;
-  for (let i = text.indexOf("\n", from); i !== -1; i = text.indexOf("\n", i + 1)) n++;
-  return n;
+  for (let i = text.indexOf("\n", headerEnd + 1); i !== -1; i = text.indexOf("\n", i + 1)) n++;
+  return text.endsWith("\n") ? n : n + 1;
 }
 
 function isoOf(seconds: number, zoned: boolean): string | null {
@@ -74,6 +77,8 @@ export function importLogStrict(text: string, options: ImportOptions = {}): Impo
   if (text.trim().length === 0) throw new LogError("empty_file", "the file is empty");
 
   const layout = sniffLayout(text);
+  if (layout.sampleRows.length === 0)
+    throw new LogError("too_few_readings", `only 0 usable readings: the file has a header (line ${layout.headerLine + 1}) but no data rows; at least ${MIN_READINGS} are needed`, { line: layout.headerLine + 1 });
   const choice = chooseColumns(layout, options);
   const body = layout.headerOffset === 0 ? text : text.slice(layout.headerOffset);
   const parsed = Papa.parse<string[]>(body, {
@@ -88,9 +93,13 @@ export function importLogStrict(text: string, options: ImportOptions = {}): Impo
 
   let spec = choice.time;
   let result = readRows(rows, choice, spec, layout.decimalComma, firstLine, layout.header.length);
-  if (!result.ok && spec.alternate) {
-    spec = spec.alternate;
-    result = readRows(rows, choice, spec, layout.decimalComma, firstLine, layout.header.length);
+  if (spec.alternate && (!result.ok || result.read.footerRows > 0)) {
+    // The day/month order was a guess from the first rows: a later row may prove the other.
+    const other = readRows(rows, choice, spec.alternate, layout.decimalComma, firstLine, layout.header.length);
+    if (other.ok && (!result.ok || other.read.footerRows < result.read.footerRows)) {
+      spec = spec.alternate;
+      result = other;
+    }
   }
   if (!result.ok) {
     const column = layout.header[choice.timeIndex] ?? String(choice.timeIndex);
@@ -98,7 +107,7 @@ export function importLogStrict(text: string, options: ImportOptions = {}): Impo
   }
   const read = result.read;
   if (read.rows > maxRows) {
-    const found = countLines(text, layout.headerOffset);
+    const found = countDataLines(text, layout.headerOffset);
     throw new LogError("too_many_rows", `the file has about ${formatCount(found)} data rows; the limit is ${formatCount(maxRows)}`);
   }
   if (read.microns.length < MIN_READINGS)

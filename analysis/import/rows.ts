@@ -110,7 +110,7 @@ export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec,
       if (unitCell !== lastUnitCell && unitCell.trim().length > 0) {
         const parsed = parsePressureUnit(unitCell);
         if (!parsed) throw lineError(unknownUnitError(header[unitIndex] ?? "unit", unitCell.trim()), firstLine + i);
-        if (parsed.gauge) throw lineError(gaugeError(header[unitIndex] ?? "unit", unitCell.trim()), firstLine + i);
+        if (parsed.gauge) throw lineError(gaugeError(header[unitIndex] ?? "unit", unitCell.trim(), parsed.gaugeUnit), firstLine + i);
         lastUnitCell = unitCell;
         factor = micronsPerUnit(parsed.unit);
         if (firstUnit === null) firstUnit = parsed.unit;

@@ -152,6 +152,8 @@ function detectDecimalComma(rows: string[][], delimiter: string): boolean {
  * Throws no_header when no row of column names precedes the data.
  */
 export function sniffLayout(text: string): Layout {
+  if (text.slice(0, 4096).indexOf("\u0000") !== -1)
+    throw new LogError("no_header", "the file is not text (it holds binary data); export the log as CSV");
   const newline = detectNewline(text);
   const { lines, offsets } = headLines(text, newline, HEADER_SEARCH_LINES + SAMPLE_ROWS);
   const searchLines = lines.slice(0, HEADER_SEARCH_LINES);
@@ -184,8 +186,8 @@ export function sniffLayout(text: string): Layout {
     if (looksLikeHeader(cells)) {
       let next = i + 1;
       while (next < lines.length && isBlank(lines[next])) next++;
-      if (next >= lines.length || looksLikeData(split[next])) { headerLine = i; break; }
-      if (fields < 2 || cells.length === fields) headerLine = i; // keep the latest candidate
+      if (next < lines.length ? looksLikeData(split[next]) : fields >= 2 && cells.length === fields) { headerLine = i; break; }
+      if (fields >= 2 && cells.length === fields) headerLine = i; // keep the latest candidate
     }
   }
   if (headerLine === -1) {

@@ -1,0 +1,195 @@
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import { importLog } from "@/analysis/import";
+import { toMicrons } from "@/analysis/units";
+
+const root = path.resolve(import.meta.dirname, "../..");
+const sample = (name: string) => readFileSync(path.join(root, "fixtures/samples", name), "utf8");
+const layout = (name: string) => readFileSync(path.join(root, "fixtures/layouts", name), "utf8");
+
+// Unit conversions are exact by definition (NIST SP 811 B.8); floating point leaves ~1e-12 relative.
+const close = (a: number, b: number, relTol = 1e-9) => expect(Math.abs(a - b)).toBeLessThanOrEqual(relTol * Math.max(1, Math.abs(b)));
+
+describe("the six sample layouts (fixtures/samples, invented data; expected values read off the files)", () => {
+  it("sample-1: ISO 8601 with zone, microns, 238 rows 10 s apart", () => {
+    const log = importLog(sample("sample-1-iso-microns.csv"));
+    expect(log.summary).toMatchObject({ rows: 238, skipped: 0, overRange: 0, unit: "micron", timeFormat: "iso", delimiter: ",", decimalComma: false, headerLine: 0, timeColumn: "timestamp", pressureColumn: "microns", unsure: false });
+    expect(log.tSeconds[0]).toBe(0);
+    expect(log.tSeconds.at(-1)).toBe(2370); // 13:05:00 → 13:44:30
+    expect(log.microns[0]).toBe(20900);
+    expect(log.microns.at(-1)).toBe(533);
+    expect(log.startedAt).toBe("2026-06-14T13:05:00.000Z");
+    expect(log.findings).toEqual([]);
+  });
+
+  it("sample-2: elapsed seconds from the header 'elapsed_s', mTorr = microns", () => {
+    const log = importLog(sample("sample-2-elapsed-mtorr.csv"));
+    expect(log.summary).toMatchObject({ rows: 302, skipped: 0, unit: "mtorr", timeFormat: "elapsed_s", unsure: false });
+    expect(log.tSeconds.at(-1)).toBe(3010);
+    expect(log.microns[0]).toBe(22000);
+    expect(log.startedAt).toBeNull();
+  });
+
+  it("sample-3: preamble skipped, clock times, '>25000' over-range markers, °F ambient kept as °C", () => {
+    const log = importLog(sample("sample-3-clock-microns-preamble.csv"));
+    expect(log.summary).toMatchObject({ rows: 79, skipped: 6, overRange: 6, unit: "micron", timeFormat: "clock", headerLine: 4, timeColumn: "Time", pressureColumn: "Vacuum (microns)", temperatureColumn: "Ambient (F)" });
+    // Time zero is the first data row (13:05:00) although its pressure is an over-range marker.
+    expect(log.overRangeSeconds).toEqual([0, 30, 60, 90, 120, 150]);
+    expect(log.tSeconds[0]).toBe(180); // 13:08:00, first number
+    expect(log.tSeconds.at(-1)).toBe(2340); // 13:44:00
+    expect(log.microns[0]).toBe(24400);
+    // 71.1 °F = 21.7222 °C ((F − 32) × 5/9, exact definition of the scales)
+    close(log.temperatureC![0], ((71.1 - 32) * 5) / 9);
+    expect(log.temperatureC).toHaveLength(log.tSeconds.length);
+  });
+
+  it("sample-4: elapsed minutes from '(min)', Torr × 1000 = microns", () => {
+    const log = importLog(sample("sample-4-minutes-torr.csv"));
+    expect(log.summary).toMatchObject({ rows: 120, skipped: 0, unit: "torr", timeFormat: "elapsed_min" });
+    close(log.tSeconds[1], 0.1667 * 60);
+    close(log.tSeconds.at(-1)!, 19.8333 * 60);
+    expect(log.microns[0]).toBe(411);
+    expect(log.microns.at(-1)).toBe(6410);
+  });
+
+  it("sample-5: semicolons, decimal comma, Pa; '---' after 24,000 microns counted as over range", () => {
+    const log = importLog(sample("sample-5-semicolon-pa-comma.csv"));
+    expect(log.summary).toMatchObject({ rows: 492, skipped: 262, overRange: 262, unit: "pa", timeFormat: "iso", delimiter: ";", decimalComma: true });
+    close(log.microns[0], toMicrons(25.2, "pa"));
+    expect(log.tSeconds.at(-1)).toBe(237); // 13:08:57, a lone reading between runs of '---'
+    expect(log.overRangeSeconds[0]).toBe(229); // 13:08:49, the first '---' (line 231)
+    expect(log.overRangeSeconds).toHaveLength(262);
+  });
+
+  it("sample-6: extra columns ignored, mbar", () => {
+    const log = importLog(sample("sample-6-iso-mbar-extra.csv"));
+    expect(log.summary).toMatchObject({ rows: 35, skipped: 0, unit: "mbar", timeFormat: "iso", pressureColumn: "vacuum_mbar", timeColumn: "date_time", temperatureColumn: null });
+    close(log.microns[0], toMicrons(0.3773, "mbar"));
+    expect(log.tSeconds.at(-1)).toBe(1020);
+  });
+});
+
+describe("hand-made layouts (fixtures/layouts; expected values written with the files)", () => {
+  it("tab-delimited, 'YYYY-MM-DD HH:MM:SS' without zone, extra text column", () => {
+    const log = importLog(layout("tab.tsv"));
+    expect(log.summary).toMatchObject({ delimiter: "\t", timeFormat: "datetime", rows: 10 });
+    expect(log.tSeconds).toEqual([0, 60, 120, 180, 240, 300, 360, 420, 480, 540]);
+    expect(log.startedAt).toBe("2026-06-14T13:00:00.000"); // no zone in the file: no 'Z'
+    expect(log.summary.assumptions.join(" ")).toMatch(/no zone/);
+  });
+
+  it("quoted fields: a comma inside the header and thousands separators inside cells", () => {
+    const log = importLog(layout("quoted.csv"));
+    expect(log.summary.pressureColumn).toBe("Vacuum, microns");
+    expect(log.microns).toEqual([1250, 1020, 845, 700, 612, 540]);
+  });
+
+  it("byte-order mark and CRLF line ends", () => {
+    const log = importLog(layout("bom-crlf.csv"));
+    expect(log.summary.columns).toEqual(["time", "microns"]);
+    expect(log.microns).toEqual([800, 700, 650, 610, 590, 580]);
+    expect(log.tSeconds.at(-1)).toBe(50);
+  });
+
+  it("separate date and time columns crossing midnight, day-first date, °C temperature with a blank", () => {
+    const log = importLog(layout("date-time-columns.csv"));
+    expect(log.summary).toMatchObject({ timeFormat: "date_and_time", timeColumn: "Date + Time", temperatureColumn: "Line temp C" });
+    expect(log.tSeconds).toEqual([0, 20, 40, 60, 80, 100]);
+    expect(log.temperatureC![0]).toBe(12.5);
+    expect(Number.isNaN(log.temperatureC![3])).toBe(true);
+  });
+
+  it("clock times rolling over midnight (23:58 → 00:02)", () => {
+    const log = importLog(layout("midnight-clock.csv"));
+    expect(log.summary.timeFormat).toBe("clock");
+    expect(log.tSeconds).toEqual([0, 60, 90, 120, 150, 180, 240]);
+  });
+
+  it("out-of-order and duplicate stamps: stable sort plus info findings with counts", () => {
+    const log = importLog(layout("unordered.csv"));
+    expect(log.tSeconds).toEqual([0, 10, 20, 30, 40, 40, 50]);
+    expect(log.microns).toEqual([900, 800, 700, 600, 550, 548, 530]); // duplicates keep file order
+    const reordered = log.findings.find((f) => f.code === "timestamps_reordered");
+    const duplicates = log.findings.find((f) => f.code === "duplicate_timestamps");
+    expect(reordered).toMatchObject({ severity: "info", evidence: { readingsOutOfOrder: 1 } });
+    expect(duplicates).toMatchObject({ severity: "info", evidence: { duplicateTimestamps: 1 }, atSeconds: 40 });
+  });
+
+  it("a unit column that changes from Torr to mTorr between rows", () => {
+    const log = importLog(layout("unit-column.csv"));
+    expect(log.microns).toEqual([1200, 1050, 980, 850, 760, 700]);
+    expect(log.summary.unit).toBe("torr");
+  });
+
+  it("elapsed time with no unit: seconds assumed, unsure, said in assumptions", () => {
+    const log = importLog(layout("elapsed-no-unit.csv"));
+    expect(log.summary).toMatchObject({ timeFormat: "elapsed_s", unsure: true, unit: "micron" });
+    expect(log.summary.assumptions.join(" ")).toMatch(/seconds/);
+    expect(log.summary.assumptions.join(" ")).toMatch(/microns/);
+  });
+
+  it("no unit and every value below 30: flagged as probably Torr or mbar, still unsure", () => {
+    const log = importLog(layout("small-values-no-unit.csv"));
+    expect(log.summary.unsure).toBe(true);
+    expect(log.summary.assumptions.join(" ")).toMatch(/Torr or mbar/);
+  });
+
+  it("explicit overrides win: time column by name, pressure column by index, unit, time unit", () => {
+    const log = importLog(layout("overrides.csv"), { timeColumn: "RUN", pressureColumn: 2, unit: "pa", timeUnit: "min" });
+    expect(log.summary).toMatchObject({ timeColumn: "run", pressureColumn: "chan2", unit: "pa", timeFormat: "elapsed_min" });
+    expect(log.tSeconds).toEqual([0, 60, 120, 180, 240, 300]);
+    close(log.microns[0], toMicrons(66.7, "pa"));
+    // The unit option also beats a unit named in the header.
+    const forced = importLog(sample("sample-1-iso-microns.csv"), { unit: "mtorr" });
+    expect(forced.summary.unit).toBe("mtorr");
+  });
+
+  it("month-first dates with AM/PM (unambiguous: day 14 > 12), noon to 1 PM", () => {
+    const log = importLog(layout("month-first-pm.csv"));
+    expect(log.summary.timeFormat).toBe("datetime");
+    expect(log.tSeconds).toEqual([0, 30, 60, 90, 120, 150]);
+    expect(log.startedAt).toBe("2026-06-14T12:59:30.000");
+  });
+
+  it("ISO with a +02:00 offset: startedAt in UTC", () => {
+    const log = importLog(layout("zone-offset.csv"));
+    expect(log.startedAt).toBe("2026-06-14T13:05:00.000Z");
+    expect(log.tSeconds.at(-1)).toBe(75);
+  });
+
+  it("day.month.year, decimal comma, blank and 'Err' cells skipped (not over range), a footer row ignored", () => {
+    const log = importLog(layout("footer-and-gaps.csv"));
+    expect(log.summary).toMatchObject({ rows: 7, skipped: 2, overRange: 0, decimalComma: true, unit: "pa" });
+    expect(log.tSeconds).toEqual([0, 30, 40, 50, 60]);
+    expect(log.overRangeSeconds).toEqual([]);
+    expect(log.summary.assumptions.join(" ")).toMatch(/footer/);
+  });
+
+  it("day/month order that is ambiguous in the first 50 rows is retried when a later row proves it", () => {
+    // 60 rows on 12 June (ambiguous: 12/06), then rows on 13 June written 13/06 (day-first only).
+    const lines = ["time,microns"];
+    for (let i = 0; i < 60; i++) lines.push(`12/06/2026 23:${String(i % 60).padStart(2, "0")}:00,${500 + i}`);
+    for (let i = 0; i < 5; i++) lines.push(`13/06/2026 00:0${i}:00,${600 + i}`);
+    const log = importLog(lines.join("\n"));
+    expect(log.tSeconds.at(-1)).toBe(64 * 60); // 12 June 23:00 → 13 June 00:04
+    expect(log.summary.assumptions.join(" ")).toMatch(/day\/month\/year/);
+  });
+
+  it("Unix time in seconds: startedAt from the stamps", () => {
+    const start = Date.UTC(2026, 5, 14, 13, 5, 0) / 1000;
+    const text = ["unix_time,microns", ...Array.from({ length: 6 }, (_, i) => `${start + 10 * i},${800 - i}`)].join("\n");
+    const log = importLog(text);
+    expect(log.startedAt).toBe("2026-06-14T13:05:00.000Z");
+    expect(log.tSeconds.at(-1)).toBe(50);
+  });
+
+  it("a 24-hour 1 Hz log (86,400 rows) is read in full", () => {
+    const start = Date.UTC(2026, 5, 14) / 1000;
+    const rows = ["timestamp,microns"];
+    for (let i = 0; i < 86_400; i++) rows.push(`${new Date((start + i) * 1000).toISOString().slice(0, 19)}Z,${400 + (i % 50)}`);
+    const log = importLog(rows.join("\n") + "\n");
+    expect(log.tSeconds).toHaveLength(86_400);
+    expect(log.tSeconds.at(-1)).toBe(86_399);
+  });
+});
