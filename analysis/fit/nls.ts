@@ -161,6 +161,21 @@ export function fitNonlinear(
   return finish(model, x, y, b, rss, iterations, stopReason);
 }
 
+/**
+ * Summarise a least-squares solution b without iterating: rss, dof, s²·(JᵀJ)⁻¹ (by QR), standard errors.
+ * Used when a solution comes from elsewhere (variable projection) and must be reported the same way.
+ */
+export function summariseFit(
+  model: NonlinearModel,
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  b: readonly number[],
+  iterations: number,
+  stopReason: StopReason,
+): NonlinearFit {
+  return finish(model, x, y, b.slice(), sumSquares(model, x, y, b), iterations, stopReason);
+}
+
 function finish(
   model: NonlinearModel,
   x: ArrayLike<number>,

@@ -1,0 +1,182 @@
+/**
+ * Fitting the hold (the rise after isolation): all four models, spikes left out, one chosen by rule.
+ */
+import { LogError } from "../errors";
+import type { HoldFitResult, HoldModelKind, ModelFit } from "../types";
+import { fitStraightLine } from "./linear";
+import { HOLD_MODEL_PARAMS, holdModelMicrons, paramsFromVector } from "./models";
+import type { NonlinearFit } from "./nls";
+import { reduceHold, type ReducedHold } from "./reduce";
+import { medianInPlace } from "./median";
+import { findSpikes } from "./robust";
+import { aiccLeastSquares, chooseHoldModel } from "./select";
+import { fitPlateauModel } from "./varpro";
+
+export { fitNonlinear } from "./nls";
+export type { NonlinearFit, NonlinearModel, NonlinearOptions } from "./nls";
+export { fitStraightLine, solveLinearLeastSquares } from "./linear";
+
+/**
+ * Pressure in microns the fitted model predicts at tSeconds after isolation
+ * (p0 + a·(1 − e^(−t/τ)) + l·t with absent terms zero; l in microns per second).
+ */
+export function evaluateModel(fit: ModelFit, tSeconds: number): number {
+  return holdModelMicrons(fit.params, tSeconds);
+}
+
+/** Median interval between successive readings, seconds (repeated time stamps ignored; 1 s if none). */
+function medianPositiveStep(t: ArrayLike<number>): number {
+  const d = new Float64Array(Math.max(0, t.length - 1));
+  let m = 0;
+  for (let i = 1; i < t.length; i++) if (t[i] > t[i - 1]) d[m++] = t[i] - t[i - 1];
+  return m === 0 ? 1 : medianInPlace(d, 0, m);
+}
+
+function maskOf(indices: number[], n: number): Uint8Array {
+  const mask = new Uint8Array(n);
+  for (const i of indices) mask[i] = 1;
+  return mask;
+}
+
+/** The model at every t (microns), in one tight loop. */
+function modelCurve(params: ModelFit["params"], t: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(t.length);
+  const a = params.a ?? 0;
+  const tau = params.tauSeconds ?? 1;
+  const l = params.l ?? 0;
+  for (let i = 0; i < t.length; i++) out[i] = params.p0 + a * -Math.expm1(-t[i] / tau) + l * t[i];
+  return out;
+}
+
+/** Fit of one model on the reduced points, as the solver returned it. */
+interface RawFit {
+  kind: HoldModelKind;
+  fit: NonlinearFit;
+}
+
+function fitOnReduced(r: ReducedHold, holdSeconds: number, sampleSeconds: number, notes: string[]): RawFit[] {
+  const n = r.tSeconds.length;
+  const out: RawFit[] = [];
+  if (n >= 2) {
+    let mean = 0;
+    for (let i = 0; i < n; i++) mean += r.microns[i];
+    mean /= n;
+    let rss = 0;
+    for (let i = 0; i < n; i++) rss += (r.microns[i] - mean) ** 2;
+    const s2 = rss / (n - 1);
+    out.push({
+      kind: "flat",
+      fit: { params: [mean], stdErrors: [Math.sqrt(s2 / n)], covariance: [[s2 / n]], rss, dof: n - 1, residualSd: Math.sqrt(s2), iterations: 0, stopReason: "closed_form" },
+    });
+  }
+  if (n >= 3) {
+    const line = fitStraightLine(r.tSeconds, r.microns);
+    out.push({
+      kind: "climb",
+      fit: { params: [line.b0, line.b1], stdErrors: [line.sdB0, line.sdB1], covariance: line.covariance, rss: line.rss, dof: line.dof, residualSd: line.residualSd, iterations: 0, stopReason: "closed_form" },
+    });
+  }
+  const tauMin = Math.min(1, sampleSeconds / 2);
+  const tauMax = 10 * holdSeconds;
+  for (const withClimb of [false, true]) {
+    const kind: HoldModelKind = withClimb ? "plateau_climb" : "plateau";
+    if (!(tauMax > tauMin)) {
+      notes.push(`${kind} not fitted: hold too short`);
+      continue;
+    }
+    const outcome = fitPlateauModel(r.tSeconds, r.microns, withClimb, tauMin, tauMax);
+    if (outcome.fit) out.push({ kind, fit: outcome.fit });
+    else if (outcome.notIdentified === "step") notes.push(`${kind} not identified: best τ under ${tauMin} s (a step at isolation)`);
+    else if (outcome.notIdentified === "no_bend") notes.push(`${kind} not identified: no bend within τ ≤ 10× the hold`);
+    else notes.push(`${kind} not fitted: too few points`);
+  }
+  return out;
+}
+
+/** Turn a solver result into the shared ModelFit: rss, residual sd and R² over the raw kept readings. */
+function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, excluded: number[], nFit: number): ModelFit {
+  const names = HOLD_MODEL_PARAMS[raw.kind];
+  const params = paramsFromVector(raw.kind, raw.fit.params);
+  const stdErrors = paramsFromVector(raw.kind, raw.fit.stdErrors);
+  const skip = maskOf(excluded, t.length);
+  const fitted = modelCurve(params, t);
+  let n = 0;
+  let mean = 0;
+  for (let i = 0; i < t.length; i++) if (!skip[i]) (n++, (mean += p[i]));
+  mean /= n;
+  let rss = 0;
+  let tss = 0;
+  for (let i = 0; i < t.length; i++) {
+    if (skip[i]) continue;
+    rss += (p[i] - fitted[i]) ** 2;
+    tss += (p[i] - mean) ** 2;
+  }
+  const dof = n - names.length;
+  return {
+    kind: raw.kind,
+    params,
+    stdErrors,
+    covariance: raw.fit.covariance,
+    n,
+    dof,
+    rss,
+    residualSd: dof > 0 ? Math.sqrt(rss / dof) : NaN,
+    rSquared: tss > 0 ? 1 - rss / tss : rss === 0 ? 1 : 0,
+    aicc: aiccLeastSquares(raw.fit.rss, nFit, names.length),
+    iterations: raw.fit.iterations,
+    stopReason: raw.fit.stopReason,
+    excluded,
+  };
+}
+
+/**
+ * Fit the four hold models to a hold and choose one.
+ *
+ * Input: tSeconds since isolation (ascending), microns (same length). Method:
+ * 1. holds over 2,000 readings are reduced to 1,000 equal-time-bin medians (reduce.ts), so fitting costs
+ *    one O(n) pass plus a constant;
+ * 2. flat and climb by closed-form least squares (QR); plateau and plateau_climb by variable projection
+ *    over τ ∈ [min(1 s, half a sample), 10× the hold] and a Levenberg–Marquardt polish (varpro.ts);
+ * 3. with robust (default true): readings more than 5 robust sd (relative to the reading) from the most
+ *    flexible fit are spikes (robust.ts), left out, and everything is refitted;
+ * 4. the model is chosen by the rule in select.ts (AICc margin 4 plus physical sanity).
+ * Unweighted least squares, on purpose: gauge noise grows with the reading (a few % plus resolution
+ * steps) but within one hold the reading rarely spans more than a decade, the binned medians already tame
+ * the noise, and weights taken from the noisy readings themselves would bias the fit towards low readings.
+ * Reported per model: n = raw readings used (spikes left out), dof = n − parameters, rss / residualSd /
+ * rSquared over those raw readings; covariance and stdErrors from s²·(JᵀJ)⁻¹ of the points fitted (the
+ * bins when binned); aicc on the points fitted. Units: microns, seconds, l in microns per second.
+ * Throws LogError("too_few_readings") with fewer than 2 readings or mismatched lengths.
+ */
+export function fitHoldModels(tSeconds: number[], microns: number[], options: { robust?: boolean } = {}): HoldFitResult {
+  if (tSeconds.length !== microns.length) throw new LogError("too_few_readings", `hold has ${tSeconds.length} times but ${microns.length} readings`);
+  if (tSeconds.length < 2) throw new LogError("too_few_readings", `hold has ${tSeconds.length} reading(s); at least 2 are needed to fit`);
+  const robust = options.robust ?? true;
+  const holdSeconds = tSeconds[tSeconds.length - 1] - Math.min(0, tSeconds[0]);
+  const sampleSeconds = medianPositiveStep(tSeconds);
+  const ctx = { holdSeconds, sampleSeconds };
+
+  const run = (excluded: number[]) => {
+    const notes: string[] = [];
+    const reduced = reduceHold(tSeconds, microns, maskOf(excluded, tSeconds.length));
+    const raws = fitOnReduced(reduced, holdSeconds, sampleSeconds, notes);
+    return { notes, reduced, raws };
+  };
+  let excluded: number[] = [];
+  let pass = run(excluded);
+  if (robust) {
+    const flexible = ["plateau_climb", "climb", "plateau", "flat"].map((k) => pass.raws.find((r) => r.kind === k)).find((r) => r);
+    if (flexible) {
+      excluded = findSpikes(microns, modelCurve(paramsFromVector(flexible.kind, flexible.fit.params), tSeconds));
+      if (excluded.length > 0) pass = run(excluded);
+    }
+  }
+  const fits: Partial<Record<HoldModelKind, ModelFit>> = {};
+  for (const raw of pass.raws) fits[raw.kind] = toModelFit(raw, tSeconds, microns, excluded, pass.reduced.tSeconds.length);
+  const notes = pass.notes;
+  if (excluded.length > 0) notes.push(`${excluded.length} spike(s) left out (over 5 robust sd, relative to the reading, from the first fit)`);
+  if (pass.reduced.binned)
+    notes.push(`${tSeconds.length - excluded.length} readings reduced to ${pass.reduced.tSeconds.length} equal-time-bin medians before fitting (AICc on the bins)`);
+  const { chosen, rule } = chooseHoldModel(fits, ctx, notes);
+  return { chosen, rule, fits };
+}

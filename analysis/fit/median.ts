@@ -1,0 +1,38 @@
+/**
+ * Median by quickselect (Hoare's FIND, 1961): expected O(n), reorders the given range in place.
+ * Even counts give the mean of the two middle values.
+ */
+export function medianInPlace(v: Float64Array, from = 0, to = v.length): number {
+  const n = to - from;
+  if (n <= 0) return NaN;
+  const k = from + (n >> 1);
+  const hi = select(v, from, to - 1, k);
+  if (n % 2) return hi;
+  // The lower middle is the largest value left of k after the partition.
+  let lo = -Infinity;
+  for (let i = from; i < k; i++) if (v[i] > lo) lo = v[i];
+  return (lo + hi) / 2;
+}
+
+function select(v: Float64Array, left: number, right: number, k: number): number {
+  while (right > left) {
+    const pivot = v[(left + right) >> 1];
+    let i = left;
+    let j = right;
+    while (i <= j) {
+      while (v[i] < pivot) i++;
+      while (v[j] > pivot) j--;
+      if (i <= j) {
+        const tmp = v[i];
+        v[i] = v[j];
+        v[j] = tmp;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) right = j;
+    else if (k >= i) left = i;
+    else return v[k];
+  }
+  return v[k];
+}
