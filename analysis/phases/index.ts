@@ -1,0 +1,238 @@
+/**
+ * Phase finding: pull-down, isolation, hold(s) and break, in time linear in the number of readings.
+ *
+ * Method: readings are binned and median-smoothed in log10 (smooth.ts); zig-zag pivots with a
+ * threshold above the gauge noise split the log into falls (pull-downs) and rises (holds). Each
+ * trough after a fall is an isolation, placed exactly by a two-line change-point fit on the raw
+ * readings around it (hinge.ts). A hold runs to the next pull-down (a confirmed peak), to a break
+ * (over-range markers, or a jump of thousands of microns far faster than the hold's own rise) or to
+ * the end of the log. A log with no fall before its first rise starts in the hold.
+ */
+import type { Hold, Phases } from "../types";
+import { hingeSplit } from "./hinge";
+import { binReadings, medianIntervalSeconds, relativeNoise, zigzag, type Bins } from "./smooth";
+
+export { medianIntervalSeconds, relativeNoise } from "./smooth";
+
+export interface PhaseOptions {
+  /** Force the isolation point (seconds from the first row). */
+  isolationAtSeconds?: number;
+  /** Use exactly this window as the hold (seconds from the first row). */
+  holdWindow?: { startSeconds: number; endSeconds: number };
+  /** The profile's hold time: a hold this long, or ended by a pull-down or break, is complete. */
+  holdSeconds: number;
+}
+
+export interface HoldRange {
+  /** Indices into the readings, inclusive. */
+  startIndex: number;
+  endIndex: number;
+  /** False when the log starts in this hold (isolation not seen). */
+  isolationSeen: boolean;
+}
+
+export interface PhaseAnalysis {
+  phases: Phases;
+  ranges: HoldRange[];
+  /** Relative gauge noise (fraction of the reading). */
+  noiseFraction: number;
+  sampleSeconds: number;
+  /** Readings of the pull-down before the primary hold, inclusive, or null. */
+  pulldownRange: { startIndex: number; endIndex: number } | null;
+}
+
+/** A jump this large (microns, in one step) far beyond the hold's own trend is the vacuum being broken. */
+const BREAK_JUMP_MICRONS = 2000;
+
+/** A hold cut short by a new pull-down must last this long to count (shorter rises are hops). */
+const MIN_REPULL_HOLD_SECONDS = 180;
+
+function lastIndexAtOrBefore(t: ArrayLike<number>, seconds: number): number {
+  let lo = 0;
+  let hi = t.length - 1;
+  if (t[0] > seconds) return -1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (t[mid] <= seconds) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo;
+}
+
+function firstIndexAtOrAfter(t: ArrayLike<number>, seconds: number): number {
+  const i = lastIndexAtOrBefore(t, seconds);
+  if (i >= 0 && t[i] === seconds) return i;
+  return Math.min(i + 1, t.length - 1);
+}
+
+/** Index of the highest reading (3-point median) among [from, to]. */
+function argmaxMedian3(p: ArrayLike<number>, from: number, to: number): number {
+  let best = from;
+  let bestValue = -Infinity;
+  for (let i = from; i <= to; i++) {
+    const a = p[Math.max(i - 1, from)];
+    const b = p[i];
+    const c = p[Math.min(i + 1, to)];
+    const m = Math.max(Math.min(a, b), Math.min(Math.max(a, b), c));
+    if (m > bestValue) {
+      bestValue = m;
+      best = i;
+    }
+  }
+  return best;
+}
+
+/** Place the isolation near trough bin `b` with a change-point fit on the raw readings. */
+function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBin: number, endBin: number, threshold: number, endIndex: number): number {
+  const y = bins.logMicrons;
+  const yb = y[b];
+  let peak = yb;
+  for (let j = b; j <= endBin; j++) peak = Math.max(peak, y[j]);
+  const riseTarget = yb + Math.max(threshold / 2, (peak - yb) / 2);
+  let r = b + 1;
+  while (r < endBin && y[r] < riseTarget) r++;
+  let l = b - 1;
+  while (l > prevBin && y[l] < yb + 2 * threshold) l--;
+  l = Math.max(l, prevBin, 0);
+  const trough = Math.min(bins.start[b] + ((bins.start[b + 1] - bins.start[b]) >> 1), endIndex);
+  let to = Math.min(bins.start[Math.min(r + 1, bins.count)] - 1, endIndex);
+  to = Math.max(to, Math.min(trough + 4, endIndex));
+  let from = bins.start[l];
+  const rightSpan = Math.max(t[to] - t[trough], 1);
+  // keep the left window comparable to the right one so the curved pull-down tail does not dominate
+  while (from < trough - 10 && t[trough] - t[from] > rightSpan) from++;
+  from = Math.min(from, Math.max(trough - 4, 0));
+  return hingeSplit(t, p, from, to, trough);
+}
+
+/** Where in [start, end] the vacuum is broken: over-range markers or a jump far above the trend. */
+function findBreak(t: number[], p: number[], start: number, end: number, overRange: number[]): { endIndex: number; breakAt: number } | null {
+  // over-range markers after isolation
+  let ota: number | null = null;
+  for (const s of overRange) {
+    if (s > t[start]) {
+      ota = s;
+      break;
+    }
+  }
+  let cut: { endIndex: number; breakAt: number } | null = null;
+  if (ota !== null) {
+    const nextAfterEnd = end + 1 < t.length ? t[end + 1] : Infinity;
+    if (ota < nextAfterEnd) cut = { endIndex: Math.max(lastIndexAtOrBefore(t, ota - 1e-9), start), breakAt: ota };
+  }
+  const scanEnd = cut ? cut.endIndex : end;
+  for (let i = start + 3; i <= scanEnd; i++) {
+    const step = p[i] - p[i - 1];
+    if (step < BREAK_JUMP_MICRONS) continue;
+    const trend = Math.max((p[i - 1] - p[start]) / Math.max(t[i - 1] - t[start], 1e-9), 0);
+    const expected = trend * (t[i] - t[i - 1]);
+    // a spike comes straight back down; a break stays up (or the gauge leaves its range)
+    let stays = i < scanEnd;
+    for (let j = i + 1; j <= Math.min(i + 3, scanEnd); j++) if (p[j] < 0.5 * p[i]) stays = false;
+    if (step > 5 * expected + BREAK_JUMP_MICRONS && stays) return { endIndex: i - 1, breakAt: t[i] };
+  }
+  return cut;
+}
+
+export function findPhases(t: number[], p: number[], overRangeSeconds: number[], options: PhaseOptions): PhaseAnalysis {
+  const n = t.length;
+  const sampleSeconds = medianIntervalSeconds(t);
+  const noiseFraction = relativeNoise(p);
+  const empty: PhaseAnalysis = { phases: { pulldown: null, holds: [], primary: null, breakAtSeconds: null }, ranges: [], noiseFraction, sampleSeconds, pulldownRange: null };
+  if (n < 3) return empty;
+  const overRange = [...overRangeSeconds].sort((a, b) => a - b);
+  const minHoldSeconds = Math.max(60, 2 * sampleSeconds);
+
+  const candidates: { start: number; end: number; endedBy: Hold["endedBy"]; breakAt: number | null; seen: boolean }[] = [];
+  const push = (start: number, end: number, endedBy: Hold["endedBy"], seen: boolean) => {
+    const cut = findBreak(t, p, start, end, overRange);
+    if (cut) candidates.push({ start, end: cut.endIndex, endedBy: "break", breakAt: cut.breakAt, seen });
+    else candidates.push({ start, end, endedBy, breakAt: null, seen });
+  };
+
+  if (options.holdWindow) {
+    const s = firstIndexAtOrAfter(t, options.holdWindow.startSeconds);
+    const e = Math.max(lastIndexAtOrBefore(t, options.holdWindow.endSeconds), s);
+    push(s, e, "end_of_log", s > 0);
+  } else {
+    const bins = binReadings(t, p);
+    const sigmaLog = noiseFraction / Math.LN10;
+    const threshold = Math.max(Math.log10(1.15), 4 * sigmaLog);
+    const pivots = zigzag(bins.logMicrons, threshold);
+    let prevPeakBin = 0;
+    let sawFall = false;
+    for (let k = 0; k < pivots.length; k++) {
+      const pv = pivots[k];
+      if (pv.kind === "peak") {
+        prevPeakBin = pv.bin;
+        sawFall = pv.confirmed;
+        continue;
+      }
+      const next = pivots[k + 1];
+      const endBin = next ? next.bin : bins.count - 1;
+      const endedBy: Hold["endedBy"] = next && next.confirmed ? "pulldown" : "end_of_log";
+      let end = endedBy === "pulldown" ? argmaxMedian3(p, bins.start[Math.max(endBin - 1, 0)], bins.start[Math.min(endBin + 2, bins.count)] - 1) : n - 1;
+      let fallBefore = sawFall;
+      if (!fallBefore) {
+        let maxBefore = -Infinity;
+        for (let j = 0; j <= pv.bin; j++) maxBefore = Math.max(maxBefore, bins.logMicrons[j]);
+        fallBefore = maxBefore - bins.logMicrons[pv.bin] >= threshold || t[bins.start[pv.bin]] - t[0] > Math.max(3 * sampleSeconds, 45);
+      }
+      let start = 0;
+      let seen = false;
+      if (fallBefore) {
+        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end);
+        seen = start > 0;
+      }
+      if (end <= start) end = Math.min(start + 1, n - 1);
+      push(start, end, endedBy, seen);
+    }
+  }
+
+  // keep real holds; overrides move the isolation of the hold that contains it
+  // a re-pull after a real hold comes minutes later; shorter rises inside a pull-down are hops
+  let holdsIdx = candidates.filter(
+    (c) => t[c.end] - t[c.start] >= (c.endedBy === "pulldown" ? Math.max(minHoldSeconds, MIN_REPULL_HOLD_SECONDS) : minHoldSeconds) && c.end - c.start >= 2,
+  );
+  if (options.isolationAtSeconds !== undefined && !options.holdWindow) {
+    const s = firstIndexAtOrAfter(t, options.isolationAtSeconds);
+    const host = candidates.find((c) => c.end >= s && (c.start <= s || true)) ?? null;
+    const end = host && host.end > s ? host.end : n - 1;
+    holdsIdx = [];
+    const cut = findBreak(t, p, s, end, overRange);
+    holdsIdx.push(cut ? { start: s, end: cut.endIndex, endedBy: "break", breakAt: cut.breakAt, seen: true } : { start: s, end, endedBy: host && host.end > s ? host.endedBy : "end_of_log", breakAt: null, seen: true });
+  }
+
+  const holds: Hold[] = holdsIdx.map((c) => {
+    const duration = t[c.end] - t[c.start];
+    return {
+      isolatedAtSeconds: t[c.start],
+      endSeconds: t[c.end],
+      startMicrons: p[c.start],
+      endMicrons: p[c.end],
+      complete: c.endedBy !== "end_of_log" || duration >= options.holdSeconds,
+      endedBy: c.endedBy,
+      fit: null,
+    };
+  });
+  const ranges: HoldRange[] = holdsIdx.map((c) => ({ startIndex: c.start, endIndex: c.end, isolationSeen: c.seen }));
+  let primary: number | null = null;
+  for (let i = holds.length - 1; i >= 0 && primary === null; i--) if (holds[i].complete) primary = i;
+  if (primary === null && holds.length > 0) primary = holds.length - 1;
+
+  let pulldown: Phases["pulldown"] = null;
+  let pulldownRange: PhaseAnalysis["pulldownRange"] = null;
+  if (primary !== null && ranges[primary].isolationSeen) {
+    const startIndex = primary > 0 ? ranges[primary - 1].endIndex + 1 : 0;
+    const endIndex = ranges[primary].startIndex;
+    let lowest = Infinity;
+    for (let i = startIndex; i <= endIndex; i++) {
+      const m = Math.max(Math.min(p[Math.max(i - 1, startIndex)], p[i]), Math.min(Math.max(p[Math.max(i - 1, startIndex)], p[i]), p[Math.min(i + 1, endIndex)]));
+      lowest = Math.min(lowest, m);
+    }
+    pulldown = { startSeconds: t[startIndex], endSeconds: t[endIndex], startMicrons: p[startIndex], lowestMicrons: lowest };
+    pulldownRange = { startIndex, endIndex };
+  }
+  const breakAtSeconds = holdsIdx.find((c) => c.breakAt !== null)?.breakAt ?? null;
+  return { phases: { pulldown, holds, primary, breakAtSeconds }, ranges, noiseFraction, sampleSeconds, pulldownRange };
+}

@@ -1,0 +1,135 @@
+/**
+ * Robust smoothing for phase finding, linear in the number of readings: readings are grouped
+ * into time bins (at most a few thousand), each bin is summarised by its median, and a running
+ * median of five bins removes single-bin spikes. Pressure is smoothed in log10 because a log spans
+ * decades and gauge noise is proportional to the reading.
+ */
+
+export interface Bins {
+  /** Index of the first reading in each bin; bin j holds readings [start[j], start[j+1]). */
+  start: Int32Array;
+  /** Median time of each bin (seconds). */
+  tSeconds: Float64Array;
+  /** log10 of the bin's median reading, after a running median of three bins. */
+  logMicrons: Float64Array;
+  count: number;
+}
+
+/** Median of a copy of values[from, to). */
+export function medianOf(values: ArrayLike<number>, from: number, to: number): number {
+  const n = to - from;
+  if (n <= 0) return NaN;
+  if (n === 1) return values[from];
+  const copy = new Float64Array(n);
+  for (let i = 0; i < n; i++) copy[i] = values[from + i];
+  copy.sort();
+  return n % 2 ? copy[n >> 1] : 0.5 * (copy[n / 2 - 1] + copy[n / 2]);
+}
+
+/** Median positive step between consecutive times (seconds), from at most ~20,000 steps. */
+export function medianIntervalSeconds(t: ArrayLike<number>): number {
+  const n = t.length;
+  if (n < 2) return 1;
+  const stride = Math.max(1, Math.floor(n / 20000));
+  const steps: number[] = [];
+  for (let i = stride; i < n; i += stride) {
+    const d = (t[i] - t[i - stride]) / stride;
+    if (d > 0) steps.push(d);
+  }
+  if (steps.length === 0) return 1;
+  steps.sort((a, b) => a - b);
+  return steps[steps.length >> 1];
+}
+
+/**
+ * Relative gauge noise (standard deviation as a fraction of the reading) from the median absolute
+ * second difference of log readings: for white noise Var(Δ²y) = 6σ², so
+ * σ_rel ≈ ln(10) · MAD(Δ² log10 p) / (0.6745 · √6). Second differences cancel straight-line trends,
+ * and the median ignores a few spikes (robust scale estimate, Hampel 1974). Capped at 20 %.
+ */
+export function relativeNoise(microns: ArrayLike<number>): number {
+  const n = microns.length;
+  if (n < 4) return 0.02;
+  const stride = Math.max(1, Math.floor(n / 20000));
+  const d: number[] = [];
+  for (let i = 2; i < n; i += stride) {
+    d.push(Math.abs(Math.log10(microns[i]) - 2 * Math.log10(microns[i - 1]) + Math.log10(microns[i - 2])));
+  }
+  d.sort((a, b) => a - b);
+  const mad = d[d.length >> 1];
+  return Math.min(Math.max((Math.LN10 * mad) / (0.6745 * Math.sqrt(6)), 0.001), 0.2);
+}
+
+/** Bin readings by time so that there are at most `maxBins` bins and each spans ≥ one interval. */
+export function binReadings(t: ArrayLike<number>, microns: ArrayLike<number>, maxBins = 3000): Bins {
+  const n = t.length;
+  const span = n > 1 ? t[n - 1] - t[0] : 0;
+  const width = Math.max(span / maxBins, 0);
+  const starts: number[] = [];
+  let edge = -Infinity;
+  for (let i = 0; i < n; i++) {
+    if (t[i] >= edge) {
+      starts.push(i);
+      edge = t[i] + width;
+      if (width === 0) edge = t[i] + 1e-9;
+    }
+  }
+  const count = starts.length;
+  const start = new Int32Array(count + 1);
+  starts.forEach((s, j) => (start[j] = s));
+  start[count] = n;
+  const tMid = new Float64Array(count);
+  const raw = new Float64Array(count);
+  for (let j = 0; j < count; j++) {
+    tMid[j] = medianOf(t, start[j], start[j + 1]);
+    raw[j] = Math.log10(medianOf(microns, start[j], start[j + 1]));
+  }
+  return { start, tSeconds: tMid, logMicrons: runningMedian(raw, count >= 60 ? 5 : 3), count };
+}
+
+/** Running median with an odd window (edges use the part of the window that exists). */
+export function runningMedian(values: Float64Array, window: number): Float64Array {
+  const n = values.length;
+  const half = window >> 1;
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = medianOf(values, Math.max(0, i - half), Math.min(n, i + half + 1));
+  return out;
+}
+
+export interface Pivot {
+  kind: "peak" | "trough";
+  /** Bin index. */
+  bin: number;
+  /** False for the last, still-open extreme at the end of the log. */
+  confirmed: boolean;
+}
+
+/**
+ * Zig-zag pivots of a series: a peak (trough) is confirmed once the series has fallen (risen) by
+ * more than `threshold` from it. Linear time. The last extreme is returned unconfirmed.
+ */
+export function zigzag(y: Float64Array, threshold: number): Pivot[] {
+  const n = y.length;
+  const pivots: Pivot[] = [];
+  if (n === 0) return pivots;
+  let trend = 0;
+  let hi = 0;
+  let lo = 0;
+  for (let j = 1; j < n; j++) {
+    if (trend >= 0 && y[j] > y[hi]) hi = j;
+    if (trend <= 0 && y[j] < y[lo]) lo = j;
+    if (trend >= 0 && y[hi] - y[j] > threshold) {
+      pivots.push({ kind: "peak", bin: hi, confirmed: true });
+      trend = -1;
+      lo = j;
+    } else if (trend <= 0 && y[j] - y[lo] > threshold) {
+      pivots.push({ kind: "trough", bin: lo, confirmed: true });
+      trend = 1;
+      hi = j;
+    }
+  }
+  if (trend > 0) pivots.push({ kind: "peak", bin: hi, confirmed: false });
+  else if (trend < 0) pivots.push({ kind: "trough", bin: lo, confirmed: false });
+  else pivots.push({ kind: "trough", bin: lo, confirmed: false });
+  return pivots;
+}
