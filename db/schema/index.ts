@@ -1,3 +1,4 @@
 export * from "./auth";
 export * from "./records";
 export * from "./tests";
+export * from "./review";
