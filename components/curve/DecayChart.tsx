@@ -1,0 +1,250 @@
+"use client";
+
+/**
+ * The evacuation and decay curve: microns on a log axis against minutes from the first row,
+ * with the pull-down and the hold shaded, the isolation marker, the fitted hold model, the
+ * forecast band, and the profile's limit and target lines. Loaded with next/dynamic only.
+ */
+import { useEffect, useMemo, useRef, useState } from "react";
+import {
+  Chart,
+  Filler,
+  LinearScale,
+  LineController,
+  LineElement,
+  LogarithmicScale,
+  PointElement,
+  Tooltip,
+  type ChartConfiguration,
+  type Plugin,
+} from "chart.js";
+import type { AnalysisResult } from "@/analysis/types";
+import { buildCurve, curveSummary, durationWords, microns, type CurveModel } from "./model";
+import { CurveLegend } from "./CurveLegend";
+
+Chart.register(LineController, LineElement, PointElement, LinearScale, LogarithmicScale, Filler, Tooltip);
+
+export interface DecayChartProps {
+  analysis: AnalysisResult;
+  series: { t: number[]; p: number[] };
+  /** Called with seconds from the first row when the user taps the chart (re-analysis). */
+  onPickSeconds?: (seconds: number) => void;
+  /** A chosen (not yet analysed) isolation point, seconds from the first row. */
+  pickedSeconds?: number | null;
+  className?: string;
+}
+
+interface Palette {
+  fg: string;
+  soft: string;
+  grid: string;
+  measured: string;
+  fit: string;
+  band: string;
+  bandLine: string;
+  pulldown: string;
+  hold: string;
+  limit: string;
+  target: string;
+  pick: string;
+}
+
+function palette(): Palette {
+  const dark = document.documentElement.classList.contains("dark");
+  const css = getComputedStyle(document.documentElement);
+  return {
+    fg: css.getPropertyValue("--rl-fg").trim() || (dark ? "#e8f0ee" : "#14232b"),
+    soft: css.getPropertyValue("--rl-fg-soft").trim() || (dark ? "#b3c2c0" : "#46565f"),
+    grid: dark ? "rgba(232,240,238,0.12)" : "rgba(20,35,43,0.10)",
+    measured: dark ? "#72cbbf" : "#0b6e69",
+    fit: dark ? "#f7cd6b" : "#a86d05",
+    band: dark ? "rgba(247,205,107,0.20)" : "rgba(232,163,23,0.20)",
+    bandLine: dark ? "rgba(247,205,107,0.7)" : "rgba(168,109,5,0.6)",
+    pulldown: dark ? "rgba(114,203,191,0.10)" : "rgba(11,110,105,0.07)",
+    hold: dark ? "rgba(99,150,220,0.16)" : "rgba(37,99,168,0.08)",
+    limit: dark ? "#fb8a5c" : "#c2410c",
+    target: dark ? "#5fd39a" : "#1d7f4e",
+    pick: "#e8a317",
+  };
+}
+
+function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number | null): Plugin<"line"> {
+  const vline = (chart: Chart, xMinutes: number, color: string, label: string, dash: number[]) => {
+    const { ctx, chartArea, scales } = chart;
+    const x = scales.x.getPixelForValue(xMinutes);
+    if (x < chartArea.left || x > chartArea.right) return;
+    ctx.save();
+    ctx.strokeStyle = color;
+    ctx.lineWidth = 2;
+    ctx.setLineDash(dash);
+    ctx.beginPath();
+    ctx.moveTo(x, chartArea.top);
+    ctx.lineTo(x, chartArea.bottom);
+    ctx.stroke();
+    ctx.setLineDash([]);
+    ctx.fillStyle = color;
+    ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
+    const w = ctx.measureText(label).width;
+    const tx = x + 4 + w > chartArea.right ? x - 4 - w : x + 4;
+    ctx.fillText(label, tx, chartArea.top + 14);
+    ctx.restore();
+  };
+  return {
+    id: "riselinePhases",
+    beforeDatasetsDraw(chart) {
+      const { ctx, chartArea, scales } = chart;
+      const band = (range: [number, number] | null, color: string, label: string) => {
+        if (!range) return;
+        const x0 = Math.max(chartArea.left, scales.x.getPixelForValue(range[0]));
+        const x1 = Math.min(chartArea.right, scales.x.getPixelForValue(range[1]));
+        if (x1 <= x0) return;
+        ctx.save();
+        ctx.fillStyle = color;
+        ctx.fillRect(x0, chartArea.top, x1 - x0, chartArea.bottom - chartArea.top);
+        ctx.fillStyle = colors.soft;
+        ctx.font = "500 12px 'IBM Plex Sans', system-ui, sans-serif";
+        if (x1 - x0 > ctx.measureText(label).width + 8) ctx.fillText(label, x0 + 4, chartArea.bottom - 6);
+        ctx.restore();
+      };
+      band(model.pulldown, colors.pulldown, "Pull-down");
+      band(model.hold, colors.hold, "Hold");
+    },
+    afterDatasetsDraw(chart) {
+      const { ctx, chartArea, scales } = chart;
+      const hline = (micronsValue: number, color: string, label: string) => {
+        const y = scales.y.getPixelForValue(micronsValue);
+        if (y < chartArea.top || y > chartArea.bottom) return;
+        ctx.save();
+        ctx.fillStyle = color;
+        ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
+        const w = ctx.measureText(label).width;
+        ctx.fillText(label, chartArea.right - w - 4, y - 4);
+        ctx.restore();
+      };
+      hline(model.limitMicrons, colors.limit, `Limit ${microns(model.limitMicrons)}`);
+      hline(model.targetMicrons, colors.target, `Target ${microns(model.targetMicrons)}`);
+      if (model.isolationMinutes != null) vline(chart, model.isolationMinutes, colors.fg, "Isolated", [6, 4]);
+      const p = picked();
+      if (p != null) vline(chart, p / 60, colors.pick, "New isolation", []);
+    },
+  };
+}
+
+/** 1, 2, 5 × 10^k ticks with thousands separators; other log ticks are hidden. */
+function logTick(value: number | string): string {
+  const v = Number(value);
+  const mant = v / 10 ** Math.floor(Math.log10(v) + 1e-9);
+  return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
+}
+
+export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, className = "" }: DecayChartProps) {
+  const canvasRef = useRef<HTMLCanvasElement | null>(null);
+  const chartRef = useRef<Chart<"line"> | null>(null);
+  const pickedRef = useRef<number | null>(pickedSeconds);
+  const pickRef = useRef(onPickSeconds);
+  const [themeTick, setThemeTick] = useState(0);
+  const model = useMemo(() => buildCurve(analysis, series), [analysis, series]);
+  const summary = useMemo(() => curveSummary(analysis, series), [analysis, series]);
+
+  pickRef.current = onPickSeconds;
+
+  useEffect(() => {
+    const obs = new MutationObserver(() => setThemeTick((n) => n + 1));
+    obs.observe(document.documentElement, { attributes: true, attributeFilter: ["class"] });
+    return () => obs.disconnect();
+  }, []);
+
+  useEffect(() => {
+    const canvas = canvasRef.current;
+    if (!canvas) return;
+    const colors = palette();
+    const line = (data: { x: number; y: number }[], extra: Record<string, unknown>) => ({
+      data,
+      pointRadius: 0,
+      pointHitRadius: 0,
+      borderWidth: 2,
+      tension: 0,
+      ...extra,
+    });
+    const xMin = 0;
+    const xMax = model.xMaxMinutes;
+    const config: ChartConfiguration<"line", { x: number; y: number }[]> = {
+      type: "line",
+      data: {
+        datasets: [
+          line(model.band.high, { label: "Forecast high", borderColor: colors.bandLine, borderWidth: 1, borderDash: [3, 3], fill: "+1", backgroundColor: colors.band }),
+          line(model.band.low, { label: "Forecast low", borderColor: colors.bandLine, borderWidth: 1, borderDash: [3, 3], fill: false }),
+          line([{ x: xMin, y: model.limitMicrons }, { x: xMax, y: model.limitMicrons }], { label: "Limit", borderColor: colors.limit, borderDash: [8, 5], borderWidth: 2 }),
+          line([{ x: xMin, y: model.targetMicrons }, { x: xMax, y: model.targetMicrons }], { label: "Target", borderColor: colors.target, borderDash: [2, 4], borderWidth: 2 }),
+          line(model.measured, { label: "Reading", borderColor: colors.measured, borderWidth: 2.5, pointHitRadius: 6 }),
+          line(model.fitted, { label: "Fitted hold", borderColor: colors.fit, borderWidth: 3, borderDash: [10, 4] }),
+        ],
+      },
+      options: {
+        animation: false,
+        responsive: true,
+        maintainAspectRatio: false,
+        parsing: false,
+        normalized: true,
+        interaction: { mode: "nearest", axis: "x", intersect: false },
+        layout: { padding: { right: 4 } },
+        scales: {
+          x: {
+            type: "linear",
+            min: xMin,
+            max: xMax,
+            title: { display: true, text: "minutes from the first reading", color: colors.soft, font: { size: 12 } },
+            ticks: { color: colors.soft, font: { size: 12 }, maxTicksLimit: 7 },
+            grid: { color: colors.grid },
+          },
+          y: {
+            type: "logarithmic",
+            min: model.yMinMicrons,
+            max: model.yMaxMicrons,
+            title: { display: true, text: "microns", color: colors.soft, font: { size: 12 } },
+            ticks: { color: colors.soft, font: { size: 12 }, callback: logTick, autoSkip: true },
+            grid: { color: colors.grid },
+          },
+        },
+        plugins: {
+          tooltip: {
+            filter: (item) => item.dataset.label === "Reading" || item.dataset.label === "Fitted hold",
+            callbacks: {
+              title: (items) => (items[0] ? `${durationWords(items[0].parsed.x! * 60)} from start` : ""),
+              label: (item) => `${item.dataset.label}: ${microns(item.parsed.y)} microns`,
+            },
+          },
+        },
+        onClick: (event, _els, chart) => {
+          if (!pickRef.current || event.x == null) return;
+          const minutes = chart.scales.x.getValueForPixel(event.x);
+          if (minutes == null || !Number.isFinite(minutes)) return;
+          const lastSeconds = series.t.length ? series.t[series.t.length - 1] : 0;
+          pickRef.current(Math.round(Math.min(Math.max(0, minutes * 60), lastSeconds)));
+        },
+      },
+      plugins: [phasesPlugin(model, colors, () => pickedRef.current)],
+    };
+    const chart = new Chart(canvas, config);
+    chartRef.current = chart;
+    return () => {
+      chart.destroy();
+      chartRef.current = null;
+    };
+  }, [model, series, themeTick]);
+
+  useEffect(() => {
+    pickedRef.current = pickedSeconds;
+    chartRef.current?.draw();
+  }, [pickedSeconds]);
+
+  return (
+    <figure data-testid="decay-chart" className={`rounded-card border border-surface-line bg-surface-raised p-2 shadow-card sm:p-4 ${className}`}>
+      <div className="relative h-72 w-full sm:h-96">
+        <canvas ref={canvasRef} role="img" aria-label={`Decay curve. ${summary}`} className={onPickSeconds ? "cursor-crosshair" : undefined} />
+      </div>
+      <CurveLegend hasFit={model.fitted.length > 0} hasBand={model.band.mid.length > 0} />
+      <figcaption className="sr-only" data-testid="chart-summary">{summary}</figcaption>
+    </figure>
+  );
+}
