@@ -65,6 +65,8 @@ export const mailOutbox = pgTable(
     subject: text("subject").notNull(),
     text: text("text_body").notNull(),
     html: text("html_body").notNull(),
+    /** Built at send time so the body never goes stale: "report_pdf" attaches the test's report. */
+    attachment: text("attachment", { enum: ["report_pdf"] }),
     status: text("status", { enum: MAIL_STATUSES }).default("pending").notNull(),
     attempts: integer("attempts").default(0).notNull(),
     lastError: text("last_error"),
