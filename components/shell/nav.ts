@@ -1,0 +1,40 @@
+import { can, type Role } from "@/lib/permissions";
+import type { IconName } from "./icons";
+
+export interface NavItem {
+  href: string;
+  label: string;
+  icon: IconName;
+  /** The one call to action, drawn larger. */
+  prominent?: boolean;
+}
+
+/** The app's places, in order, for a role (Review only for those who sign tests off). */
+export function navItemsFor(role: Role): NavItem[] {
+  const items: NavItem[] = [
+    { href: "/home", label: "Home", icon: "home" },
+    { href: "/tests", label: "Tests", icon: "tests" },
+    { href: "/tests/new", label: "New test", icon: "new", prominent: true },
+  ];
+  if (can(role, "tests.review")) items.push({ href: "/review", label: "Review", icon: "review" });
+  items.push(
+    { href: "/casebook", label: "Casebook", icon: "casebook" },
+    { href: "/tools", label: "Tools", icon: "tools" },
+    { href: "/settings/members", label: "Shop", icon: "shop" },
+  );
+  return items;
+}
+
+/** True when `pathname` is inside `href` ("/tests/123" is in Tests, but "/tests/new" is not). */
+export function isCurrent(pathname: string, href: string, all: NavItem[]): boolean {
+  if (pathname === href) return true;
+  if (!pathname.startsWith(href + "/")) return false;
+  // A more specific item owns the path.
+  return !all.some((i) => i.href !== href && i.href.startsWith(href + "/") && (pathname === i.href || pathname.startsWith(i.href + "/")));
+}
+
+/** On a phone the bar holds four places and "More"; the rest live in the sheet. */
+export function splitForPhone(items: NavItem[]): { bar: NavItem[]; sheet: NavItem[] } {
+  const barHrefs = ["/home", "/tests", "/tests/new", items.some((i) => i.href === "/review") ? "/review" : "/casebook"];
+  return { bar: barHrefs.map((h) => items.find((i) => i.href === h)!), sheet: items.filter((i) => !barHrefs.includes(i.href)) };
+}
