@@ -19,8 +19,9 @@ export function daysFromCivil(year: number, month: number, day: number): number 
 
 const DAYS_IN_MONTH = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
+/** Written with positive comparisons so that NaN in any part is invalid. */
 function validDate(y: number, m: number, d: number): boolean {
-  if (m < 1 || m > 12 || d < 1 || d > DAYS_IN_MONTH[m - 1]) return false;
+  if (!(y >= 0 && m >= 1 && m <= 12 && d >= 1 && d <= DAYS_IN_MONTH[m - 1])) return false;
   if (m === 2 && d === 29) return (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
   return true;
 }
@@ -162,12 +163,54 @@ function readDate(order: DateOrder): number {
   return daysFromCivil(y, m, d);
 }
 
+let cachedDate = "";
+let cachedDaySeconds = NaN;
+
+function digit2(s: string, i: number): number {
+  const a = s.charCodeAt(i) - 48;
+  const b = s.charCodeAt(i + 1) - 48;
+  return a >= 0 && a <= 9 && b >= 0 && b <= 9 ? a * 10 + b : NaN;
+}
+
+/**
+ * Fixed-position fast path for "YYYY-MM-DDTHH:MM:SS" followed by nothing or "Z" (or a space
+ * instead of T). The date part is cached, so a log of one day parses it once. NaN = not this
+ * exact form (the general parser then decides).
+ */
+function parseIsoFast(s: string): number {
+  const n = s.length;
+  if ((n !== 19 && n !== 20) || s.charCodeAt(4) !== 45 || s.charCodeAt(7) !== 45 || s.charCodeAt(13) !== 58 || s.charCodeAt(16) !== 58) return NaN;
+  if (n === 20 && s.charCodeAt(19) !== 90) return NaN;
+  const sep = s.charCodeAt(10);
+  if (sep !== 84 && sep !== 32) return NaN;
+  let daySeconds: number;
+  if (cachedDate.length === 10 && s.startsWith(cachedDate)) daySeconds = cachedDaySeconds;
+  else {
+    const y = digit2(s, 0) * 100 + digit2(s, 2);
+    const m = digit2(s, 5);
+    const d = digit2(s, 8);
+    if (!validDate(y, m, d)) return NaN; // NaN fails the range checks
+    daySeconds = daysFromCivil(y, m, d) * 86400;
+    cachedDate = s.slice(0, 10);
+    cachedDaySeconds = daySeconds;
+  }
+  const hh = digit2(s, 11);
+  const mm = digit2(s, 14);
+  const ss = digit2(s, 17);
+  if (!(hh <= 24 && mm <= 59 && ss <= 60)) return NaN;
+  return daySeconds + hh * 3600 + mm * 60 + ss;
+}
+
 /**
  * Parse a date-and-time stamp: ISO 8601 ("2026-06-14T13:05:00Z", "2026-06-14 13:05:00.5+02:00")
  * or a day-first / month-first form ("14/06/2026 13:05:00", "6/14/2026 1:05:00 PM").
  * Returns seconds since 1970 (UTC when a zone is given, wall time otherwise), or NaN.
  */
 export function parseDateTime(cell: string, order: DateOrder): number {
+  if (order === "ymd") {
+    const fast = parseIsoFast(cell);
+    if (fast === fast) return fast;
+  }
   str = cell;
   pos = 0;
   skipSpaces();
