@@ -2,6 +2,8 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { importLog } from "@/analysis/import";
+import { classifyNonNumber, parseReading } from "@/analysis/import/numbers";
+import { parseClock, parseColonDuration, parseDateTime } from "@/analysis/import/time";
 import { toMicrons } from "@/analysis/units";
 
 const root = path.resolve(import.meta.dirname, "../..");
@@ -191,5 +193,59 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     const log = importLog(rows.join("\n") + "\n");
     expect(log.tSeconds).toHaveLength(86_400);
     expect(log.tSeconds.at(-1)).toBe(86_399);
+  });
+});
+
+describe("cell parsers", () => {
+  it("dated stamps agree with Date.UTC (ECMAScript Date, proleptic Gregorian) over 10,000 seeded instants 1990–2089", () => {
+    let seed = 42;
+    const random = () => (seed = (seed * 48271) % 2147483647) / 2147483647;
+    for (let k = 0; k < 10_000; k++) {
+      const ms = Math.floor(Date.UTC(1990, 0, 1) + random() * (Date.UTC(2090, 0, 1) - Date.UTC(1990, 0, 1)));
+      const d = new Date(Math.floor(ms / 1000) * 1000);
+      const iso = d.toISOString(); // 2026-06-14T13:05:00.000Z
+      const want = d.getTime() / 1000;
+      // Fast path (fixed positions), general path (fraction), space separator, day-first and month-first forms.
+      expect(parseDateTime(iso.slice(0, 19) + "Z", "ymd")).toBe(want);
+      expect(parseDateTime(iso, "ymd")).toBe(want);
+      expect(parseDateTime(iso.slice(0, 10) + " " + iso.slice(11, 19), "ymd")).toBe(want);
+      const [y, m, day] = [iso.slice(0, 4), iso.slice(5, 7), iso.slice(8, 10)];
+      expect(parseDateTime(`${day}/${m}/${y} ${iso.slice(11, 19)}`, "dmy")).toBe(want);
+      expect(parseDateTime(`${m}/${day}/${y} ${iso.slice(11, 19)}`, "mdy")).toBe(want);
+    }
+  });
+
+  it("rejects impossible dates and times (Gregorian calendar rules: 2024 is a leap year, 2026 is not)", () => {
+    expect(parseDateTime("2024-02-29T00:00:00Z", "ymd")).toBe(Date.UTC(2024, 1, 29) / 1000);
+    for (const bad of ["2026-02-29T00:00:00Z", "2026-13-01T00:00:00Z", "2026-06-14T13:60:00Z", "2026-06-14T1x:00:00Z", "2026-06-14T13:05:00Q", "2026-06-31 10:00:00"])
+      expect(Number.isNaN(parseDateTime(bad, "ymd"))).toBe(true);
+    expect(Number.isNaN(parseClock("25:00:00"))).toBe(true);
+    expect(parseClock("12:30:00 AM")).toBe(30 * 60);
+    expect(parseClock("12:30 PM")).toBe(12.5 * 3600);
+    expect(parseColonDuration("65:30")).toBe(65 * 60 + 30);
+    expect(parseColonDuration("1:02:03")).toBe(3723);
+  });
+
+  it("zone designators are applied (ISO 8601): +02:00, -0500, Z all name the same instant", () => {
+    const want = Date.UTC(2026, 5, 14, 13, 5, 0) / 1000;
+    expect(parseDateTime("2026-06-14T15:05:00+02:00", "ymd")).toBe(want);
+    expect(parseDateTime("2026-06-14T08:05:00-0500", "ymd")).toBe(want);
+    expect(parseDateTime("2026-06-14 13:05:00 UTC", "ymd")).toBe(want);
+  });
+
+  it("readings: plain, decimal comma, thousands separators; hex, Infinity and words refused", () => {
+    expect(parseReading("512", false)).toBe(512);
+    expect(parseReading(" 512.5 ", false)).toBe(512.5);
+    expect(parseReading("25,20", true)).toBe(25.2);
+    expect(parseReading("1.234,5", true)).toBe(1234.5);
+    expect(parseReading("1,234", false)).toBe(1234);
+    for (const bad of ["0x1F", "Infinity", "1e309", "", "OR", ">25000", "12a"]) expect(Number.isNaN(parseReading(bad, false))).toBe(true);
+  });
+
+  it("over-range markers are told apart from blanks and errors", () => {
+    for (const c of [">25000", "OR", "O.R.", "OL", "HI", "Over range"]) expect(classifyNonNumber(c)).toBe("over_range");
+    expect(classifyNonNumber("---")).toBe("dashes");
+    expect(classifyNonNumber("  ")).toBe("blank");
+    for (const c of ["Err", "n/a", "<20"]) expect(classifyNonNumber(c)).toBe("other");
   });
 });
