@@ -1,0 +1,222 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import { useQueryClient } from "@tanstack/react-query";
+import { Alert, Button, LinkButton } from "@/components/ui";
+import {
+  ApiError,
+  createTestFromReadings,
+  isOffline,
+  newIdempotencyKey,
+  previewImport,
+  uploadTest,
+  type CreatedTest,
+  type ImportPreview,
+} from "@/lib/client/api";
+import { ColumnChooser, type ColumnChoice } from "./ColumnChooser";
+import { ContextFields } from "./ContextFields";
+import { EMPTY_CONTEXT, appendContext, contextFields, type TestContext } from "./context";
+import { DropZone, MAX_UPLOAD_BYTES } from "./DropZone";
+import { adviseOnError } from "./errors";
+import { TypedReadings } from "./TypedReadings";
+import { UploadResult } from "./UploadResult";
+import type { TimeMode } from "./readings";
+
+type Phase =
+  | { kind: "pick" }
+  | { kind: "checking"; file: File }
+  | { kind: "choose"; file: File; preview: ImportPreview }
+  | { kind: "sending"; file?: File; progress: number | null }
+  | { kind: "error"; error: unknown; file?: File; retry: () => void }
+  | { kind: "done"; created: CreatedTest };
+
+/** What is being sent; a retry sends the same thing with the same key. */
+type Attempt =
+  | { source: "file"; file: File; choice?: ColumnChoice; key: string }
+  | { source: "typed"; readings: { time: string | number; microns: number }[]; mode: TimeMode; key: string };
+
+/** The preview needs only the header and first rows: send at most 256 KB, cut at a line end. */
+const PREVIEW_BYTES = 256 * 1024;
+
+async function previewPart(file: File): Promise<Blob> {
+  if (file.size <= PREVIEW_BYTES) return file;
+  const text = await file.slice(0, PREVIEW_BYTES).text();
+  const cut = text.lastIndexOf("\n");
+  return new Blob([cut > 0 ? text.slice(0, cut + 1) : text], { type: file.type || "text/csv" });
+}
+
+export function NewTest() {
+  const [tab, setTab] = useState<"file" | "typed">("file");
+  const [phase, setPhase] = useState<Phase>({ kind: "pick" });
+  const [context, setContext] = useState<TestContext>(EMPTY_CONTEXT);
+  const [online, setOnline] = useState(true);
+  const queryClient = useQueryClient();
+
+  useEffect(() => {
+    const update = () => setOnline(!isOffline());
+    update();
+    window.addEventListener("online", update);
+    window.addEventListener("offline", update);
+    return () => {
+      window.removeEventListener("online", update);
+      window.removeEventListener("offline", update);
+    };
+  }, []);
+
+  const send = async (a: Attempt) => {
+    const file = a.source === "file" ? a.file : undefined;
+    setPhase({ kind: "sending", file, progress: a.source === "file" ? 0 : null });
+    try {
+      if (isOffline()) throw new ApiError(0, "offline", "You are offline.");
+      let created: CreatedTest;
+      if (a.source === "file") {
+        const form = new FormData();
+        form.set("file", a.file, a.file.name);
+        if (a.choice) {
+          form.set("timeColumn", a.choice.timeColumn);
+          form.set("pressureColumn", a.choice.pressureColumn);
+          form.set("unit", a.choice.unit);
+          if (a.choice.timeUnit) form.set("timeUnit", a.choice.timeUnit);
+        }
+        appendContext(form, context);
+        created = await uploadTest(form, {
+          idempotencyKey: a.key,
+          onProgress: (f) => setPhase((p) => (p.kind === "sending" ? { ...p, progress: f } : p)),
+        });
+      } else {
+        created = await createTestFromReadings({ readings: a.readings, timeMode: a.mode, ...contextFields(context) }, a.key);
+      }
+      queryClient.invalidateQueries({ queryKey: ["tests"] });
+      setPhase({ kind: "done", created });
+    } catch (error) {
+      setPhase({ kind: "error", error, file, retry: () => void send(a) });
+    }
+  };
+
+  async function onFile(file: File) {
+    if (file.size > MAX_UPLOAD_BYTES) {
+      setPhase({ kind: "error", error: new ApiError(413, "file_too_large", `${file.name} is ${(file.size / 1048576).toFixed(0)} MB; the limit is 64 MB.`), file, retry: reset });
+      return;
+    }
+    if (file.size === 0) {
+      setPhase({ kind: "error", error: new ApiError(422, "invalid_file", `${file.name} is empty.`), file, retry: reset });
+      return;
+    }
+    setPhase({ kind: "checking", file });
+    try {
+      if (isOffline()) throw new ApiError(0, "offline", "You are offline.");
+      const preview = await previewImport(await previewPart(file), file.name);
+      if (preview.detected.unsure) {
+        setPhase({ kind: "choose", file, preview });
+        return;
+      }
+    } catch (error) {
+      // No preview service: let the upload itself decide. Anything else is the file's problem.
+      if (!(error instanceof ApiError && (error.status === 404 || error.status === 405))) {
+        setPhase({ kind: "error", error, file, retry: () => void onFile(file) });
+        return;
+      }
+    }
+    await send({ source: "file", file, key: newIdempotencyKey() });
+  }
+
+  function reset() {
+    setPhase({ kind: "pick" });
+  }
+
+  const busy = phase.kind === "checking" || phase.kind === "sending";
+
+  if (phase.kind === "done") return <UploadResult created={phase.created} onAnother={reset} />;
+
+  return (
+    <div className="space-y-5">
+      {!online && (
+        <Alert tone="warning" title="You are offline">
+          You can fill in the test now; sending waits for signal.
+        </Alert>
+      )}
+      <div role="tablist" aria-label="How to enter the test" className="grid grid-cols-2 gap-1 rounded-xl bg-surface-sunken p-1">
+        {([
+          ["file", "Gauge file"],
+          ["typed", "Typed readings"],
+        ] as const).map(([k, label]) => (
+          <button
+            key={k}
+            role="tab"
+            type="button"
+            id={`tab-${k}`}
+            aria-selected={tab === k}
+            aria-controls={`panel-${k}`}
+            disabled={busy}
+            onClick={() => {
+              setTab(k);
+              if (phase.kind !== "pick") reset();
+            }}
+            className={`min-h-tap rounded-lg px-3 text-body font-semibold ${tab === k ? "bg-surface-raised text-fg shadow-card" : "text-fg-soft"}`}
+          >
+            {label}
+          </button>
+        ))}
+      </div>
+
+      <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`} className="space-y-4">
+        {tab === "file" && phase.kind === "pick" && <DropZone onFile={onFile} />}
+        {tab === "file" && phase.kind === "choose" && (
+          <ColumnChooser
+            preview={phase.preview}
+            filename={phase.file.name}
+            onConfirm={(choice) => send({ source: "file", file: phase.file, choice, key: newIdempotencyKey() })}
+            onCancel={reset}
+          />
+        )}
+        {tab === "typed" && (
+          <TypedReadings busy={busy} onSubmit={(readings, mode) => send({ source: "typed", readings, mode, key: newIdempotencyKey() })} />
+        )}
+        {(phase.kind === "checking" || (phase.kind === "sending" && tab === "file")) && (
+          <Progress label={phase.kind === "checking" ? `Checking ${phase.file.name}…` : `Sending ${phase.file?.name ?? "readings"}…`} fraction={phase.kind === "sending" ? phase.progress : null} />
+        )}
+        {phase.kind === "error" && <ErrorPanel error={phase.error} onRetry={phase.retry} onReset={reset} tab={tab} />}
+      </div>
+
+      <ContextFields value={context} onChange={setContext} />
+    </div>
+  );
+}
+
+function Progress({ label, fraction }: { label: string; fraction: number | null }) {
+  const pct = fraction == null ? null : Math.round(fraction * 100);
+  return (
+    <div className="space-y-2 rounded-card border border-surface-line bg-surface-raised p-4" role="status" aria-live="polite" data-testid="upload-progress">
+      <p className="text-body font-medium">{pct === 100 ? "Analysing…" : label}</p>
+      <div className="h-3 overflow-hidden rounded-full bg-surface-sunken">
+        <div
+          className={`h-full rounded-full bg-tide-600 dark:bg-tide-400 ${pct == null ? "w-1/3 animate-pulse" : "transition-[width]"}`}
+          style={pct == null ? undefined : { width: `${Math.max(4, pct)}%` }}
+        />
+      </div>
+      {pct != null && <p className="text-caption text-fg-soft">{pct} % sent</p>}
+    </div>
+  );
+}
+
+function ErrorPanel({ error, onRetry, onReset, tab }: { error: unknown; onRetry: () => void; onReset: () => void; tab: "file" | "typed" }) {
+  const a = adviseOnError(error);
+  return (
+    <div data-testid="upload-error">
+      <Alert
+        tone="error"
+        title={a.title}
+        action={
+          <div className="flex flex-col gap-2 sm:flex-row">
+            {a.canRetry && <Button onClick={onRetry}>Retry</Button>}
+            {a.signIn && <LinkButton href="/sign-in">Sign in</LinkButton>}
+            <Button variant="secondary" onClick={onReset}>{tab === "file" ? "Choose another file" : "Back to the readings"}</Button>
+          </div>
+        }
+      >
+        <p data-testid="upload-error-message">{a.message}</p>
+        <p className="mt-1 text-fg-soft">{a.todo}</p>
+      </Alert>
+    </div>
+  );
+}

@@ -1,0 +1,46 @@
+"use client";
+
+import { useEffect, useRef } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
+import { VerdictBanner } from "@/components/verdict/VerdictBanner";
+import { SafetyNote } from "@/components/verdict/SafetyNote";
+import { Alert, Button, LinkButton } from "@/components/ui";
+import { getTest, type CreatedTest } from "@/lib/client/api";
+
+/** The verdict as soon as the server answers, then the curve (chart.js loads only now). */
+export function UploadResult({ created, onAnother }: { created: CreatedTest; onAnother: () => void }) {
+  const ref = useRef<HTMLDivElement | null>(null);
+  const id = created.test.id;
+  const detail = useQuery({ queryKey: ["test", id], queryFn: ({ signal }) => getTest(id, signal) });
+
+  useEffect(() => {
+    ref.current?.scrollIntoView({ block: "start" });
+    ref.current?.focus();
+  }, []);
+
+  return (
+    <div ref={ref} tabIndex={-1} className="space-y-4 outline-none" data-testid="upload-result">
+      <p className="text-body text-fg-soft">
+        Saved as <span className="font-semibold text-fg">{created.test.title}</span>
+      </p>
+      <VerdictBanner analysis={created.analysis} />
+      {detail.data ? (
+        <LazyDecayChart analysis={detail.data.analysis} series={detail.data.series} />
+      ) : detail.isError ? (
+        <Alert tone="warning" title="The curve could not be loaded">
+          The test is saved. Open the test page to see the curve.
+        </Alert>
+      ) : (
+        <div className="flex h-72 items-center justify-center rounded-card border border-surface-line bg-surface-raised text-fg-soft" role="status">
+          Loading the curve…
+        </div>
+      )}
+      <SafetyNote />
+      <div className="flex flex-col gap-3 sm:flex-row">
+        <LinkButton href={`/tests/${id}`} size="lg" block>Open the test page</LinkButton>
+        <Button variant="secondary" size="lg" block onClick={onAnother}>Start another test</Button>
+      </div>
+    </div>
+  );
+}

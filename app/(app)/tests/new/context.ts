@@ -1,0 +1,89 @@
+/**
+ * The optional context a technician may add to a test (job, site, system, line set, …) and
+ * how it travels: as multipart fields with a file, or as JSON beside typed readings.
+ */
+export const TUBE_SIZES = ["1/4", "3/8", "1/2", "5/8", "3/4", "7/8", "1-1/8"] as const;
+
+export const REFRIGERANTS = ["R-410A", "R-32", "R-454B", "R-452B", "R-22", "R-134a", "R-404A", "R-407C", "R-448A", "R-290", "R-744"] as const;
+
+export interface TestContext {
+  title: string;
+  jobId: string;
+  /** Typed or picked site name; siteId is set when it matches an existing site. */
+  siteName: string;
+  siteId: string;
+  systemName: string;
+  systemId: string;
+  refrigerant: string;
+  lineSetFeet: string;
+  liquidOd: string;
+  suctionOd: string;
+  volumeLitres: string;
+  ambient: string;
+  ambientUnit: "C" | "F";
+  notes: string;
+  rigNote: string;
+  isPractice: boolean;
+}
+
+export const EMPTY_CONTEXT: TestContext = {
+  title: "",
+  jobId: "",
+  siteName: "",
+  siteId: "",
+  systemName: "",
+  systemId: "",
+  refrigerant: "",
+  lineSetFeet: "",
+  liquidOd: "",
+  suctionOd: "",
+  volumeLitres: "",
+  ambient: "",
+  ambientUnit: "F",
+  notes: "",
+  rigNote: "",
+  isPractice: false,
+};
+
+function num(s: string): number | undefined {
+  const v = Number(s.trim().replace(",", "."));
+  return s.trim() !== "" && Number.isFinite(v) ? v : undefined;
+}
+
+/** °F → °C: (F − 32) · 5/9. */
+export function ambientCelsius(ctx: TestContext): number | undefined {
+  const v = num(ctx.ambient);
+  if (v === undefined) return undefined;
+  return ctx.ambientUnit === "F" ? Math.round(((v - 32) * 5) / 9 * 10) / 10 : v;
+}
+
+/** The context as API fields; empty fields are left out so nothing is ever required. */
+export function contextFields(ctx: TestContext): Record<string, string | number | boolean> {
+  const out: Record<string, string | number | boolean> = {};
+  const text = (k: string, v: string) => {
+    if (v.trim()) out[k] = v.trim();
+  };
+  text("title", ctx.title);
+  text("jobId", ctx.jobId);
+  if (ctx.siteId) out.siteId = ctx.siteId;
+  else text("newSiteName", ctx.siteName);
+  if (ctx.systemId) out.systemId = ctx.systemId;
+  else if (ctx.siteId || ctx.siteName.trim()) text("newSystemName", ctx.systemName);
+  text("refrigerant", ctx.refrigerant);
+  const feet = num(ctx.lineSetFeet);
+  if (feet !== undefined) out.lineSetFeet = feet;
+  text("liquidOd", ctx.liquidOd);
+  text("suctionOd", ctx.suctionOd);
+  const litres = num(ctx.volumeLitres);
+  if (litres !== undefined) out.volumeLitres = litres;
+  const c = ambientCelsius(ctx);
+  if (c !== undefined) out.ambientC = c;
+  text("notes", ctx.notes);
+  text("rigNote", ctx.rigNote);
+  if (ctx.isPractice) out.isPractice = true;
+  return out;
+}
+
+export function appendContext(form: FormData, ctx: TestContext): void {
+  for (const [k, v] of Object.entries(contextFields(ctx))) form.set(k, String(v));
+}
