@@ -1,0 +1,143 @@
+/**
+ * A plan beside a real pull-down: when the real curve is much slower than the gas-only plan,
+ * say where it lags and what that usually means (restriction, leak, moisture).
+ *
+ * Method: both curves are aligned at the real log's first reading at or below 20,000 microns
+ * (many micron gauges only read below about that), and the time each takes from there to
+ * 5,000 microns, and from 5,000 microns to the target, is compared. Below about 4,600 microns
+ * water at 0 °C boils, so a curve that keeps up above 5,000 and lags below it points to water;
+ * one that lags from the start points to a restriction or the pump.
+ * Thresholds (our own rule, common practice, no published source): real ≥ 3 × the plan is
+ * "much slower" — a gas-only plan is optimistic, so up to about 2–3 × is ordinary.
+ */
+import type { Finding } from "./types";
+import type { Plan } from "./planner";
+
+export const MUCH_SLOWER_FACTOR = 3;
+const ALIGN_BELOW_MICRONS = 20_000;
+const WATER_LEVEL_MICRONS = 5_000;
+
+export interface PlanComparison {
+  /** Real time ÷ planned time from the alignment reading to the target (null if the real one never got there). */
+  slowdownFactor: number | null;
+  /** The same ratio above 5,000 microns and from 5,000 microns to the target. */
+  upperFactor: number | null;
+  lowerFactor: number | null;
+  alignedAtMicrons: number | null;
+  /** The plan curve shifted in time to start where the real curve was aligned (for overlays). */
+  planOnRealTime: { tSeconds: number[]; microns: number[] } | null;
+  findings: Finding[];
+}
+
+/** Plan time at a pressure, interpolated in ln(p) on the falling plan curve. */
+export function planSecondsAt(plan: Plan, microns: number): number | null {
+  const { tSeconds: t, microns: p } = plan.curve;
+  if (microns >= p[0]) return 0;
+  for (let i = 1; i < p.length; i++)
+    if (p[i] <= microns) {
+      const f = (Math.log(p[i - 1]) - Math.log(microns)) / (Math.log(p[i - 1]) - Math.log(p[i]));
+      return t[i - 1] + f * (t[i] - t[i - 1]);
+    }
+  return null;
+}
+
+/** First time the real series is at or below a pressure, interpolated linearly between readings. */
+function realSecondsAt(real: { tSeconds: number[]; microns: number[] }, microns: number, from: number): number | null {
+  for (let i = Math.max(from, 1); i < real.microns.length; i++)
+    if (real.microns[i] <= microns) {
+      const a = real.microns[i - 1];
+      const b = real.microns[i];
+      const f = a === b ? 1 : (a - microns) / (a - b);
+      return real.tSeconds[i - 1] + Math.min(1, Math.max(0, f)) * (real.tSeconds[i] - real.tSeconds[i - 1]);
+    }
+  return null;
+}
+
+const ratio = (real: number | null, planned: number | null) => (real !== null && planned !== null && planned > 0 ? real / planned : null);
+
+/** Compare a plan with a real pull-down (seconds, microns; the part before isolation). */
+export function comparePlanWithPullDown(plan: Plan, real: { tSeconds: number[]; microns: number[] }): PlanComparison {
+  const empty: PlanComparison = { slowdownFactor: null, upperFactor: null, lowerFactor: null, alignedAtMicrons: null, planOnRealTime: null, findings: [] };
+  if (real.microns.length < 2) return empty;
+  let a = real.microns.findIndex((m) => m <= ALIGN_BELOW_MICRONS);
+  if (a < 0) a = 0;
+  const pA = real.microns[a];
+  const target = plan.input.targetMicrons;
+  const tRealA = real.tSeconds[a];
+  const tPlanA = planSecondsAt(plan, pA);
+  if (tPlanA === null || pA <= target) return { ...empty, alignedAtMicrons: pA };
+
+  const planTo = (m: number) => {
+    const t = planSecondsAt(plan, m);
+    return t === null ? null : t - tPlanA;
+  };
+  const realTo = (m: number) => {
+    const t = realSecondsAt(real, m, a + 1);
+    return t === null ? null : t - tRealA;
+  };
+  const planTarget = planTo(target);
+  const realTarget = realTo(target);
+  const slowdownFactor = ratio(realTarget, planTarget);
+  let upperFactor: number | null = null;
+  let lowerFactor: number | null = null;
+  if (pA > WATER_LEVEL_MICRONS && WATER_LEVEL_MICRONS > target) {
+    const p5 = planTo(WATER_LEVEL_MICRONS);
+    const r5 = realTo(WATER_LEVEL_MICRONS);
+    upperFactor = ratio(r5, p5);
+    if (r5 !== null && p5 !== null && realTarget !== null && planTarget !== null) lowerFactor = ratio(realTarget - r5, planTarget - p5);
+  }
+  const shift = tRealA - tPlanA;
+  const planOnRealTime = {
+    tSeconds: plan.curve.tSeconds.map((t) => t + shift).filter((t) => t >= tRealA - 1e-9 || shift < 0),
+    microns: plan.curve.microns.filter((_, i) => plan.curve.tSeconds[i] + shift >= tRealA - 1e-9 || shift < 0),
+  };
+
+  const findings: Finding[] = [];
+  const realSpan = real.tSeconds[real.tSeconds.length - 1] - tRealA;
+  const evidence = {
+    plannedSecondsToTarget: planTarget,
+    realSecondsToTarget: realTarget,
+    slowdownFactor,
+    upperFactor,
+    lowerFactor,
+    alignedAtMicrons: pA,
+    targetMicrons: target,
+  };
+  const moistureLikely = upperFactor !== null && upperFactor < MUCH_SLOWER_FACTOR && (lowerFactor ?? Infinity) >= MUCH_SLOWER_FACTOR;
+  const checks = moistureLikely
+    ? [
+        "It kept up with the plan above 5,000 microns and lagged below: water boiling off is the usual cause. Keep evacuating and add heat (indoor blower, outdoor fan).",
+        "Never run the compressor under vacuum.",
+        "If it still lags, isolate and watch the rise: a plateau means moisture, a steady climb a leak.",
+      ]
+    : [
+        "Look for restrictions: cores left in, core depressors in hose ends, long or narrow hoses, a manifold in the path.",
+        "Test the rig alone: pump blank-off with the gauge on the pump, then with the hoses capped (gaskets, core tools).",
+        "Check the pump oil: cloudy or yellow oil slows a pump down; change it.",
+      ];
+  if (slowdownFactor !== null && slowdownFactor >= MUCH_SLOWER_FACTOR) {
+    findings.push({
+      code: "pull_down_much_slower_than_plan",
+      severity: "advice",
+      title: `Pull-down ${slowdownFactor.toFixed(1)}× slower than planned`,
+      message: `From ${Math.round(pA).toLocaleString("en-US")} microns the real pull-down took ${slowdownFactor.toFixed(1)} times the gas-only plan to reach ${target} microns.`,
+      evidence,
+      checks,
+      cautions: ["Never energise the compressor while the system is in deep vacuum."],
+    });
+  } else if (realTarget === null && planTarget !== null && realSpan >= MUCH_SLOWER_FACTOR * planTarget) {
+    findings.push({
+      code: "target_not_reached_planned",
+      severity: "warning",
+      title: "Target not reached in far more than the planned time",
+      message: `The plan reaches ${target} microns in ${Math.round(planTarget / 60)} min from ${Math.round(pA).toLocaleString("en-US")} microns; the real pull-down had ${Math.round(realSpan / 60)} min and never got there.`,
+      evidence,
+      checks: [
+        "Check the rig's history: pump oil changes and blank-off trend.",
+        ...checks,
+      ],
+      cautions: ["Never energise the compressor while the system is in deep vacuum."],
+    });
+  }
+  return { slowdownFactor, upperFactor, lowerFactor, alignedAtMicrons: pA, planOnRealTime, findings };
+}
