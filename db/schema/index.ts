@@ -2,3 +2,5 @@ export * from "./auth";
 export * from "./records";
 export * from "./tests";
 export * from "./review";
+export * from "./rigs";
+export * from "./pressure";
