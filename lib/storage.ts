@@ -23,6 +23,11 @@ function client(): S3Client {
   return g.rlS3;
 }
 
+/** Test seam: swap the S3 client (e.g. one pointed at a dead port); null restores the configured one. */
+export function setStorageClientForTests(replacement: S3Client | null): void {
+  g.rlS3 = replacement ?? undefined;
+}
+
 /** Organization-scoped key for a raw gauge log; the test id keeps it unique. */
 export function rawLogKey(organizationId: string, testId: string, filename: string): string {
   const safe = filename.replace(/[^A-Za-z0-9._-]+/g, "_").slice(-80) || "log.csv";

@@ -1,0 +1,14 @@
+import { route } from "@/lib/api/handler";
+import { previewLog } from "@/lib/tests/preview";
+import { readPreviewFile } from "@/lib/tests/request";
+import { importOverridesSchema, parseInput } from "@/lib/tests/schemas";
+import { importOptionsOf } from "@/lib/tests/options";
+
+export const dynamic = "force-dynamic";
+
+/** POST /api/imports/preview — multipart `file` (+ optional column/unit choices) → columns, first rows, detection. */
+export const POST = route({ permission: "tests.upload" }, async ({ req }) => {
+  const { file, fields } = await readPreviewFile(req);
+  const overrides = parseInput(importOverridesSchema, fields, "form");
+  return previewLog(file.text, importOptionsOf(overrides) ?? {});
+});

@@ -1,0 +1,24 @@
+import { db } from "@/db/client";
+import { route } from "@/lib/api/handler";
+import { loadTestDetail, listTests } from "@/lib/tests/read";
+import { readUploadRequest } from "@/lib/tests/request";
+import { idempotencyKeySchema, listTestsQuerySchema, parseInput } from "@/lib/tests/schemas";
+import { createTestFromUpload } from "@/lib/tests/upload";
+
+export const dynamic = "force-dynamic";
+
+/**
+ * POST /api/tests — upload a gauge log (multipart `file` + metadata) or typed readings (JSON).
+ * 201 { test, analysis } for a new test; 200 with the first test for a retried Idempotency-Key.
+ */
+export const POST = route({ permission: "tests.upload" }, async ({ req, actor }) => {
+  const rawKey = req.headers.get("idempotency-key");
+  const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
+  const input = await readUploadRequest(req);
+  const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey });
+  const detail = await loadTestDetail(db(), actor, outcome.testId);
+  return Response.json({ test: detail.test, analysis: detail.analysis }, { status: outcome.created ? 201 : 200 });
+});
+
+/** GET /api/tests — the tests the caller may see, newest first, cursor-paginated. */
+export const GET = route({ permission: "member", query: listTestsQuerySchema }, async ({ actor, query }) => listTests(db(), actor, query));

@@ -1,0 +1,91 @@
+import { and, asc, eq, sql } from "drizzle-orm";
+import type { Db } from "@/db/client";
+import { analyses, findings, user } from "@/db/schema";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+
+export interface NewAnalysis {
+  id?: string;
+  organizationId: string;
+  testId: string;
+  version: number;
+  options: AnalyzeOptions;
+  result: AnalysisResult;
+  series: { t: number[]; p: number[] };
+  reason?: string | null;
+  createdById: string;
+}
+
+/** Store one analysis run and its findings rows. */
+export async function insertAnalysis(db: Db, params: NewAnalysis) {
+  const r = params.result;
+  const [row] = await db
+    .insert(analyses)
+    .values({
+      ...(params.id ? { id: params.id } : {}),
+      organizationId: params.organizationId,
+      testId: params.testId,
+      version: params.version,
+      engineVersion: r.engineVersion,
+      options: params.options,
+      profile: r.profile,
+      result: r,
+      series: params.series,
+      verdict: r.verdict,
+      confidence: r.confidence,
+      isolationAt: r.isolationAt,
+      reason: params.reason ?? null,
+      createdById: params.createdById,
+    })
+    .returning({ id: analyses.id, version: analyses.version, createdAt: analyses.createdAt });
+  if (r.findings.length) {
+    await db.insert(findings).values(
+      r.findings.map((f) => ({
+        organizationId: params.organizationId,
+        analysisId: row.id,
+        testId: params.testId,
+        code: f.code,
+        severity: f.severity,
+        title: f.title,
+      })),
+    );
+  }
+  return row;
+}
+
+/** The next version number of a test's analyses (call with the test row locked). */
+export async function getNextAnalysisVersionByTest(db: Db, params: { organizationId: string; testId: string }): Promise<number> {
+  const [row] = await db
+    .select({ v: sql<number>`coalesce(max(${analyses.version}), 0)::int` })
+    .from(analyses)
+    .where(and(eq(analyses.organizationId, params.organizationId), eq(analyses.testId, params.testId)));
+  return (row?.v ?? 0) + 1;
+}
+
+export async function getAnalysisById(db: Db, params: { organizationId: string; analysisId: string }) {
+  const [row] = await db
+    .select()
+    .from(analyses)
+    .where(and(eq(analyses.organizationId, params.organizationId), eq(analyses.id, params.analysisId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Every analysis of a test, oldest first, without the bulky result and series. */
+export async function listAnalysesByTest(db: Db, params: { organizationId: string; testId: string }) {
+  return db
+    .select({
+      id: analyses.id,
+      version: analyses.version,
+      verdict: analyses.verdict,
+      confidence: analyses.confidence,
+      createdAt: analyses.createdAt,
+      createdById: analyses.createdById,
+      createdByName: user.name,
+      reason: analyses.reason,
+      options: analyses.options,
+    })
+    .from(analyses)
+    .innerJoin(user, eq(user.id, analyses.createdById))
+    .where(and(eq(analyses.organizationId, params.organizationId), eq(analyses.testId, params.testId)))
+    .orderBy(asc(analyses.version));
+}

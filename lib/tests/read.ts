@@ -1,0 +1,104 @@
+/** Reading tests back: one test with its analysis, chart series and history; the list page. */
+import type { AnalysisResult } from "@/analysis/types";
+import type { Db } from "@/db/client";
+import { getAnalysisById, listAnalysesByTest } from "@/db/queries/analyses";
+import { getTestById, getUploadByTest, listTestsByOrganization } from "@/db/queries/tests";
+import type { Viewer } from "@/db/queries/visibility";
+import { AppError } from "@/lib/errors";
+import { toTestDto, type AnalysisHistoryEntry, type TestDto, type TestListItem } from "./dto";
+import type { ListTestsQuery } from "./schemas";
+
+export interface TestDetail {
+  test: TestDto;
+  analysis: AnalysisResult;
+  series: { t: number[]; p: number[] };
+  history: AnalysisHistoryEntry[];
+  upload: { filename: string; sizeBytes: number; sha256: string } | null;
+}
+
+/** A visible test or a 404 (unknown, other organization and not visible all look the same). */
+export async function requireVisibleTest(db: Db, viewer: Viewer, testId: string) {
+  const row = await getTestById(db, { viewer, testId });
+  if (!row) throw new AppError("not_found", "No such test.");
+  return row;
+}
+
+export async function loadTestDetail(db: Db, viewer: Viewer, testId: string): Promise<TestDetail> {
+  const row = await requireVisibleTest(db, viewer, testId);
+  const org = viewer.organizationId;
+  const [current, history, upload] = await Promise.all([
+    row.test.currentAnalysisId ? getAnalysisById(db, { organizationId: org, analysisId: row.test.currentAnalysisId }) : null,
+    listAnalysesByTest(db, { organizationId: org, testId }),
+    getUploadByTest(db, { organizationId: org, testId }),
+  ]);
+  if (!current) throw new AppError("internal", "This test has no analysis yet.");
+  return {
+    test: toTestDto(row),
+    analysis: current.result,
+    series: current.series,
+    history: history.map((h) => ({
+      id: h.id,
+      version: h.version,
+      verdict: h.verdict,
+      confidence: h.confidence,
+      createdAt: h.createdAt.toISOString(),
+      createdBy: { id: h.createdById, name: h.createdByName },
+      reason: h.reason,
+      options: h.options,
+    })),
+    upload: upload ? { filename: upload.filename, sizeBytes: upload.sizeBytes, sha256: upload.sha256 } : null,
+  };
+}
+
+/** The opaque list cursor: base64url of the last row's testedAt (PostgreSQL text) and id. */
+export function encodeCursor(testedAtKey: string, id: string): string {
+  return Buffer.from(JSON.stringify([testedAtKey, id])).toString("base64url");
+}
+
+export function decodeCursor(cursor: string): { testedAt: string; id: string } {
+  try {
+    const [testedAt, id] = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8")) as [unknown, unknown];
+    if (typeof testedAt === "string" && !Number.isNaN(Date.parse(testedAt.replace(" ", "T"))) && typeof id === "string" && /^[0-9a-f-]{36}$/i.test(id))
+      return { testedAt, id };
+  } catch {
+    // fall through
+  }
+  throw new AppError("invalid_input", "cursor: not a cursor this list gave out", { field: "cursor" });
+}
+
+export async function listTests(db: Db, viewer: Viewer, q: ListTestsQuery): Promise<{ items: TestListItem[]; nextCursor: string | null }> {
+  const rows = await listTestsByOrganization(db, {
+    viewer,
+    filters: {
+      verdict: q.verdict,
+      technicianId: q.technicianId,
+      siteId: q.siteId,
+      from: q.from ? new Date(q.from) : undefined,
+      to: q.to ? new Date(q.to) : undefined,
+      isPractice: q.isPractice,
+      after: q.cursor ? decodeCursor(q.cursor) : undefined,
+      limit: q.limit,
+    },
+  });
+  const page = rows.slice(0, q.limit);
+  const last = page[page.length - 1];
+  return {
+    items: page.map((r) => ({
+      id: r.id,
+      title: r.title,
+      verdict: r.verdict,
+      confidence: r.confidence,
+      status: r.status,
+      testedAt: r.testedAt.toISOString(),
+      technician: { id: r.technicianId, name: r.technicianName },
+      site: r.siteId && r.siteName !== null ? { id: r.siteId, name: r.siteName } : null,
+      systemName: r.systemName,
+      isPractice: r.isPractice,
+      startMicrons: r.startMicrons,
+      endMicrons: r.endMicrons,
+      leakRateMicronsPerMinute: r.leakRateMicronsPerMinute,
+      findingCodes: r.findingCodes,
+    })),
+    nextCursor: rows.length > q.limit && last ? encodeCursor(last.testedAtKey, last.id) : null,
+  };
+}

@@ -1,0 +1,218 @@
+/**
+ * The upload pipeline: analyse in memory → store the raw file → one DB transaction.
+ *
+ *  - An unreadable log throws LogError before anything is stored (422, nothing saved).
+ *  - Storage failing → 503, no rows written.
+ *  - The transaction failing → the stored object is deleted again (compensation), 503.
+ *  - An Idempotency-Key already used in the organization returns the first test; two identical
+ *    concurrent requests race on the idempotency_keys primary key inside the transaction, the
+ *    loser rolls back, deletes its object and returns the winner's test.
+ */
+import { randomUUID } from "node:crypto";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+import type { Database, Tx } from "@/db/client";
+import { getJobById, getSiteById, getSystemById, createSite, createSystem } from "@/db/queries/records";
+import { getIdempotencyKeyByKey, insertIdempotencyKey, insertTest, insertUpload, updateTestCurrentAnalysis } from "@/db/queries/tests";
+import { insertAnalysis } from "@/db/queries/analyses";
+import { AppError } from "@/lib/errors";
+import { log } from "@/lib/log";
+import { deleteObject, putObject, rawLogKey } from "@/lib/storage";
+import { runAnalysis } from "./engine";
+import { sha256Hex } from "./files";
+import { compactOptions, importOptionsOf, resolveProfile, volumeOf } from "./options";
+import type { TestMetadata } from "./schemas";
+
+export interface Uploader {
+  organizationId: string;
+  userId: string;
+}
+
+export interface UploadInput {
+  metadata: TestMetadata;
+  source: "file" | "typed";
+  filename: string;
+  contentType: string;
+  bytes: Uint8Array;
+  text: string;
+  /** Importer choices the source implies (typed readings name their own columns). */
+  importDefaults?: AnalyzeOptions["import"];
+  idempotencyKey?: string;
+}
+
+export interface UploadOutcome {
+  testId: string;
+  /** False when an earlier upload with the same Idempotency-Key is returned. */
+  created: boolean;
+}
+
+type FaultHook = (tx: Tx, ctx: { testId: string; objectKey: string }) => Promise<void>;
+let faultBeforeCommit: FaultHook | null = null;
+
+/** Test seam: runs inside the upload transaction just before it commits; a throw rolls it back. */
+export function setUploadFaultForTests(hook: FaultHook | null): void {
+  faultBeforeCommit = hook;
+}
+
+class KeyTaken extends Error {}
+
+function titleOf(m: TestMetadata, filename: string, source: "file" | "typed"): string {
+  if (m.title) return m.title;
+  const where = [m.newSiteName, m.newSystemName].filter(Boolean).join(" — ");
+  if (where) return where;
+  return source === "typed" ? "Typed readings" : filename.replace(/\.[A-Za-z0-9]{1,5}$/, "") || "Vacuum test";
+}
+
+/** A file time with a zone is an instant; one without is wall time we cannot place, so it is not used. */
+function testedAtOf(m: TestMetadata, startedAt: string | null): Date {
+  if (m.testedAt) return new Date(m.testedAt);
+  if (startedAt && /(Z|[+-]\d\d:?\d\d)$/.test(startedAt)) {
+    const d = new Date(startedAt);
+    if (!Number.isNaN(d.getTime()) && d.getTime() <= Date.now() + 86_400_000) return d;
+  }
+  return new Date();
+}
+
+async function checkRecords(tx: Tx, org: string, m: TestMetadata) {
+  if (m.jobId && !(await getJobById(tx, { organizationId: org, jobId: m.jobId })))
+    throw new AppError("invalid_input", "jobId: no such job in your organization", { field: "jobId" });
+  let siteId = m.siteId ?? null;
+  if (siteId && !(await getSiteById(tx, { organizationId: org, siteId })))
+    throw new AppError("invalid_input", "siteId: no such site in your organization", { field: "siteId" });
+  let systemId = m.systemId ?? null;
+  if (systemId) {
+    const system = await getSystemById(tx, { organizationId: org, systemId });
+    if (!system) throw new AppError("invalid_input", "systemId: no such system in your organization", { field: "systemId" });
+    if (siteId && system.siteId !== siteId) throw new AppError("invalid_input", "systemId: that system is at another site", { field: "systemId" });
+    siteId ??= system.siteId;
+  }
+  if (m.newSiteName) siteId = (await createSite(tx, { organizationId: org, name: m.newSiteName })).id;
+  if (m.newSystemName && siteId)
+    systemId = (
+      await createSystem(tx, {
+        organizationId: org,
+        siteId,
+        name: m.newSystemName,
+        refrigerant: m.refrigerant ?? null,
+        lineSetFeet: m.lineSetFeet ?? null,
+        liquidOd: m.liquidOd ?? null,
+        suctionOd: m.suctionOd ?? null,
+      })
+    ).id;
+  return { siteId, systemId };
+}
+
+/** The engine options of a new test: importer choices, the profile, the volume, the ambient. */
+export async function uploadOptionsOf(db: Database, org: string, input: UploadInput): Promise<AnalyzeOptions> {
+  const m = input.metadata;
+  const profile = await resolveProfile(db, { organizationId: org, profileId: m.profileId });
+  const overrides = importOptionsOf(m);
+  const imp = input.importDefaults || overrides ? { ...(input.importDefaults ?? {}), ...(overrides ?? {}) } : undefined;
+  return compactOptions({ import: imp, profile, volume: volumeOf(m), ambientC: m.ambientC });
+}
+
+/** Run the whole pipeline for one upload. Throws LogError (422) or AppError. */
+export async function createTestFromUpload(db: Database, who: Uploader, input: UploadInput): Promise<UploadOutcome> {
+  const org = who.organizationId;
+  if (input.idempotencyKey) {
+    const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
+    if (seen) return { testId: seen.testId, created: false };
+  }
+  const options = await uploadOptionsOf(db, org, input);
+  const run = runAnalysis(input.text, options); // LogError → 422 before anything is stored
+
+  const testId = randomUUID();
+  const analysisId = randomUUID();
+  const objectKey = rawLogKey(org, testId, input.filename);
+  const sha256 = sha256Hex(input.bytes);
+  try {
+    await putObject(objectKey, input.bytes, input.contentType || "text/csv", sha256);
+  } catch (err) {
+    log.error("raw log not stored", { objectKey, err: String(err) });
+    throw new AppError("storage_unavailable");
+  }
+
+  try {
+    await db.transaction(async (tx) => {
+      const { siteId, systemId } = await checkRecords(tx, org, input.metadata);
+      await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, options, result: run.result, series: run.series, startedAt: run.startedAt });
+      if (input.idempotencyKey) {
+        const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: who.userId, testId });
+        if (!claimed) throw new KeyTaken();
+      }
+      if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
+    });
+  } catch (err) {
+    await deleteObject(objectKey).catch((e) => log.error("orphan raw log left in storage", { objectKey, err: String(e) }));
+    if (err instanceof KeyTaken) {
+      const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
+      if (seen) return { testId: seen.testId, created: false };
+      throw new AppError("conflict", "The same upload is being saved by another request; try again.");
+    }
+    if (err instanceof AppError) throw err;
+    log.error("upload transaction failed; raw log removed", { testId, err: err instanceof Error ? err.message : String(err) });
+    throw new AppError("database_unavailable");
+  }
+  return { testId, created: true };
+}
+
+interface PersistArgs {
+  who: Uploader;
+  input: UploadInput;
+  testId: string;
+  analysisId: string;
+  objectKey: string;
+  sha256: string;
+  siteId: string | null;
+  systemId: string | null;
+  options: AnalyzeOptions;
+  result: AnalysisResult;
+  series: { t: number[]; p: number[] };
+  startedAt: string | null;
+}
+
+async function persistNewTest(tx: Tx, a: PersistArgs) {
+  const m = a.input.metadata;
+  const org = a.who.organizationId;
+  await insertTest(tx, {
+    id: a.testId,
+    organizationId: org,
+    createdById: a.who.userId,
+    jobId: m.jobId ?? null,
+    siteId: a.siteId,
+    systemId: a.systemId,
+    title: titleOf(m, a.input.filename, a.input.source),
+    source: a.input.source,
+    refrigerant: m.refrigerant ?? null,
+    lineSetFeet: m.lineSetFeet ?? null,
+    liquidOd: m.liquidOd ?? null,
+    suctionOd: m.suctionOd ?? null,
+    volumeLitres: m.volumeLitres ?? null,
+    ambientC: m.ambientC ?? null,
+    rigNote: m.rigNote ?? null,
+    notes: m.notes ?? null,
+    isPractice: m.isPractice,
+    verdict: a.result.verdict,
+    currentAnalysisId: a.analysisId,
+    testedAt: testedAtOf(m, a.startedAt),
+  });
+  await insertUpload(tx, {
+    organizationId: org,
+    testId: a.testId,
+    objectKey: a.objectKey,
+    sha256: a.sha256,
+    sizeBytes: a.input.bytes.byteLength,
+    filename: a.input.filename,
+    contentType: a.input.contentType || "text/csv",
+  });
+  await insertAnalysis(tx, {
+    id: a.analysisId,
+    organizationId: org,
+    testId: a.testId,
+    version: 1,
+    options: a.options,
+    result: a.result,
+    series: a.series,
+    createdById: a.who.userId,
+  });
+  await updateTestCurrentAnalysis(tx, { organizationId: org, testId: a.testId, analysisId: a.analysisId, verdict: a.result.verdict });
+}
