@@ -1,0 +1,162 @@
+/**
+ * The analysis engine's one entry: a gauge log in, a verdict with its reasons, numbers, forecast and
+ * findings out. Pure: no I/O. Throws only LogError on bad input or options.
+ *
+ *   analyzeLog(text, options)      — CSV text as exported by a gauge
+ *   analyzeReadings(log, options)  — readings already in hand (typed in, or imported earlier)
+ */
+import { chosenFit, classifyHold, type HoldEvidence } from "./classify";
+import { diagnose } from "./diagnose";
+import { fitHoldModels } from "./fit";
+import { forecastHold } from "./forecast";
+import { importLog } from "./import";
+import { findPhases } from "./phases";
+import { checkOptions } from "./profile";
+import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFitResult, ImportedLog, LeakRate } from "./types";
+import { leakRateFromRise, systemVolumeLitres } from "./volume";
+import { LogError } from "./errors";
+
+export const ENGINE_VERSION = "0.1.0";
+
+export { DEFAULT_PROFILE } from "./profile";
+export { downsampleForChart } from "./downsample";
+
+/** Analyse a gauge log given as text (CSV, semicolon or tab separated, as exported). */
+export function analyzeLog(text: string, options: AnalyzeOptions = {}): AnalysisResult {
+  const checked = checkOptions(options);
+  const log = importLog(text, checked.options.import ?? {});
+  return analyzeChecked(log, checked.options, checked.profile);
+}
+
+/** Analyse readings already in hand (seconds from the first row, microns). */
+export function analyzeReadings(log: ImportedLog, options: AnalyzeOptions = {}): AnalysisResult {
+  const checked = checkOptions(options);
+  if (!log || !Array.isArray(log.tSeconds) || !Array.isArray(log.microns) || log.tSeconds.length !== log.microns.length) {
+    throw new LogError("invalid_option", "readings: tSeconds and microns must be arrays of the same length");
+  }
+  return analyzeChecked(log, checked.options, checked.profile);
+}
+
+function median(values: number[]): number | null {
+  const v = values.filter(Number.isFinite).sort((a, b) => a - b);
+  return v.length ? v[v.length >> 1] : null;
+}
+
+function fitHold(t: number[], p: number[], start: number, end: number): HoldFitResult | null {
+  if (end - start + 1 < 3) return null;
+  const tRel: number[] = [];
+  const pHold: number[] = [];
+  for (let i = start; i <= end; i++) {
+    tRel.push(t[i] - t[start]);
+    pHold.push(p[i]);
+  }
+  try {
+    return fitHoldModels(tRel, pHold, { robust: true });
+  } catch (e) {
+    if (e instanceof LogError) return null;
+    throw e;
+  }
+}
+
+function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: AcceptanceProfile): AnalysisResult {
+  // an absolute gauge cannot read zero or below: those readings are left out and reported
+  const t: number[] = [];
+  const p: number[] = [];
+  const nonPositiveSeconds: number[] = [];
+  for (let i = 0; i < log.tSeconds.length; i++) {
+    const v = log.microns[i];
+    if (!Number.isFinite(v) || !Number.isFinite(log.tSeconds[i])) continue;
+    if (v <= 0) nonPositiveSeconds.push(log.tSeconds[i]);
+    else {
+      t.push(log.tSeconds[i]);
+      p.push(v);
+    }
+  }
+  if (t.length < 3) throw new LogError("too_few_readings", `only ${t.length} readings above zero; at least 3 are needed`);
+
+  const holdSeconds = profile.holdMinutes * 60;
+  const pa = findPhases(t, p, log.overRangeSeconds ?? [], {
+    isolationAtSeconds: options.isolationAtSeconds,
+    holdWindow: options.holdWindow,
+    holdSeconds,
+  });
+  pa.ranges.forEach((r, k) => {
+    pa.phases.holds[k].fit = fitHold(t, p, r.startIndex, r.endIndex);
+  });
+
+  const primary = pa.phases.primary;
+  let evidence: HoldEvidence | null = null;
+  let fit: HoldFitResult | null = null;
+  let forecast: Forecast | null = null;
+  if (primary !== null) {
+    const r = pa.ranges[primary];
+    const hold = pa.phases.holds[primary];
+    fit = hold.fit;
+    const observed = hold.endSeconds - hold.isolatedAtSeconds;
+    let maxMicrons = 0;
+    for (let i = r.startIndex; i <= r.endIndex && t[i] - t[r.startIndex] <= Math.max(holdSeconds, 0); i++) {
+      const a = p[Math.max(i - 1, r.startIndex)];
+      const c = p[Math.min(i + 1, r.endIndex)];
+      maxMicrons = Math.max(maxMicrons, Math.max(Math.min(a, p[i]), Math.min(Math.max(a, p[i]), c)));
+    }
+    const tail = p.slice(Math.max(r.endIndex - 2, r.startIndex), r.endIndex + 1).sort((x, y) => x - y);
+    evidence = {
+      holdSeconds: observed,
+      readings: r.endIndex - r.startIndex + 1,
+      startMicrons: hold.startMicrons,
+      endMicrons: tail[tail.length >> 1],
+      maxMicrons,
+      isolationSeen: r.isolationSeen,
+    };
+    if (fit && chosenFit(fit)) {
+      try {
+        forecast = forecastHold(fit, observed, holdSeconds, profile.limitMicrons);
+      } catch (e) {
+        if (!(e instanceof LogError)) throw e;
+      }
+    }
+  }
+  const c = classifyHold(fit, evidence, profile, forecast);
+
+  let leakRate: LeakRate | null = null;
+  if (options.volume && c.decay && c.climbMicronsPerMinute > 0) {
+    const litres = systemVolumeLitres(options.volume);
+    if (litres !== null && litres > 0) leakRate = leakRateFromRise(c.climbMicronsPerMinute, litres);
+  }
+
+  const ambientC = options.ambientC ?? (log.temperatureC ? median(log.temperatureC) : null);
+  const findings = [
+    ...(log.findings ?? []),
+    ...diagnose({
+      tSeconds: t,
+      microns: p,
+      nonPositiveSeconds,
+      phases: pa,
+      profile,
+      verdict: c.verdict,
+      decay: c.decay,
+      climbMicronsPerMinute: c.climbMicronsPerMinute,
+      holdReadings: evidence?.readings ?? 0,
+      ambientC,
+    }),
+  ];
+
+  const isolationAt = primary !== null && pa.ranges[primary].isolationSeen ? pa.phases.holds[primary].isolatedAtSeconds : null;
+  return {
+    engineVersion: ENGINE_VERSION,
+    verdict: c.verdict,
+    confidence: c.confidence,
+    reasons: c.reasons,
+    isolationAt,
+    decay: c.decay,
+    meetsProfile: c.meetsProfile,
+    profile,
+    profileRules: c.profileRules,
+    forecast,
+    holds: pa.phases.holds,
+    phases: pa.phases,
+    leakRate,
+    findings,
+    import: log.summary,
+  };
+}
