@@ -148,7 +148,7 @@ function parent(): void {
   const script = fileURLToPath(import.meta.url);
   const results: ChildResult[] = [];
   for (const rows of SIZES) {
-    const r = spawnSync(process.execPath, ["--expose-gc", "--import", "tsx", script, "--child", String(rows)], { encoding: "utf8", maxBuffer: 1 << 20 });
+    const r = spawnSync(process.execPath, ["--expose-gc", "--import", "tsx", script, "--child", String(rows)], { encoding: "utf8", maxBuffer: 1 << 20, cwd: path.resolve(path.dirname(script), "..") });
     if (r.status !== 0) {
       process.stderr.write(`size ${rows} failed (exit ${r.status}): ${r.stderr}\n`);
       process.exitCode = 1;

@@ -74,7 +74,7 @@ export function importLogStrict(text: string, options: ImportOptions = {}): Impo
   if (text.length > maxBytes)
     throw new LogError("file_too_large", `the file is ${formatCount(text.length)} characters; the limit is ${formatCount(maxBytes)} (${(maxBytes / 1048576).toFixed(0)} MiB)`);
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  if (text.trim().length === 0) throw new LogError("empty_file", "the file is empty");
+  if (!/\S/.test(text.slice(0, 65536)) && text.trim().length === 0) throw new LogError("empty_file", "the file is empty");
 
   const layout = sniffLayout(text);
   if (layout.sampleRows.length === 0)

@@ -6,7 +6,7 @@
 import { LogError } from "../errors";
 
 /** Lines looked at to find the header (preamble included). */
-const HEADER_SEARCH_LINES = 200;
+const HEADER_SEARCH_LINES = 100;
 /** Data rows after the header used to decide columns, units and time format. */
 export const SAMPLE_ROWS = 50;
 
@@ -162,7 +162,7 @@ export function sniffLayout(text: string): Layout {
   let fields = 1;
   let best = -1;
   for (const d of DELIMITERS) {
-    const { fields: n, score } = delimiterScore(searchLines, d);
+    const { fields: n, score } = delimiterScore(lines, d);
     if (score > best) { best = score; delimiter = d; fields = n; }
   }
   if (best <= 0) { delimiter = ","; fields = 1; }
