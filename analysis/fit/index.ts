@@ -137,8 +137,8 @@ function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, exc
  *    one O(n) pass plus a constant;
  * 2. flat and climb by closed-form least squares (QR); plateau and plateau_climb by variable projection
  *    over τ ∈ [min(1 s, half a sample), 10× the hold] and a Levenberg–Marquardt polish (varpro.ts);
- * 3. with robust (default true): readings more than 5 robust sd (relative to the reading) from the most
- *    flexible fit are spikes (robust.ts), left out, and everything is refitted;
+ * 3. with robust (default true): readings more than 5 local robust sd off the most flexible fit are
+ *    spikes (robust.ts), left out, and everything is refitted;
  * 4. the model is chosen by the rule in select.ts (AICc margin 4 plus physical sanity).
  * Unweighted least squares, on purpose: gauge noise grows with the reading (a few % plus resolution
  * steps) but within one hold the reading rarely spans more than a decade, the binned medians already tame
@@ -174,7 +174,7 @@ export function fitHoldModels(tSeconds: number[], microns: number[], options: { 
   const fits: Partial<Record<HoldModelKind, ModelFit>> = {};
   for (const raw of pass.raws) fits[raw.kind] = toModelFit(raw, tSeconds, microns, excluded, pass.reduced.tSeconds.length);
   const notes = pass.notes;
-  if (excluded.length > 0) notes.push(`${excluded.length} spike(s) left out (over 5 robust sd, relative to the reading, from the first fit)`);
+  if (excluded.length > 0) notes.push(`${excluded.length} spike(s) left out (over 5 local robust sd off the first fit)`);
   if (pass.reduced.binned)
     notes.push(`${tSeconds.length - excluded.length} readings reduced to ${pass.reduced.tSeconds.length} equal-time-bin medians before fitting (AICc on the bins)`);
   const { chosen, rule } = chooseHoldModel(fits, ctx, notes);

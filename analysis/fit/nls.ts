@@ -25,6 +25,8 @@ export interface NonlinearOptions {
    * flat region where its gradient vanishes (the trap of BoxBOD start 1).
    */
   maxRelativeStep?: number;
+  /** Converged when every column of J is this close to orthogonal to the residuals (cosine; default 1e-13). */
+  gradientTolerance?: number;
 }
 
 export type StopReason = "converged" | "iteration_limit" | "non_finite" | "closed_form";
@@ -84,9 +86,11 @@ function jacobianColumns(model: NonlinearModel, x: ArrayLike<number>, b: readonl
  * system by Householder QR (no normal equations, so no squared condition number), with D the largest
  * column norms of J seen so far (Moré 1978). λ falls ×0.1 after a successful step and rises ×10 after a
  * failed one; a step that would change a nonzero parameter by more than maxRelativeStep times its size
- * counts as failed (a crude trust region in relative terms, in the spirit of Moré's step bound). Stops when every relative parameter step is below stepTolerance or the relative RSS decrease
- * is below rssTolerance ("converged"), when λ grows past 1e16 with no improvement possible ("converged":
- * the minimum is reached to machine precision), at maxIterations ("iteration_limit"), or when the model
+ * counts as failed (a crude trust region in relative terms, in the spirit of Moré's step bound). Stops
+ * ("converged") when every relative parameter step is below stepTolerance, the relative RSS decrease is
+ * below rssTolerance, the residuals are orthogonal to every Jacobian column to gradientTolerance (MINPACK's
+ * gtol test), or a failed step is already below stepTolerance or λ passes 1e16 (the minimum is reached to
+ * machine precision); at maxIterations ("iteration_limit"), or when the model
  * stops giving finite values ("non_finite"). Covariance s²·(JᵀJ)⁻¹ by QR at the solution.
  * Units: parameters in the model's units; rss in y units squared.
  * References: K. Levenberg (1944), D. W. Marquardt, J. SIAM 11 (1963) 431; J. J. Moré, "The
@@ -104,6 +108,7 @@ export function fitNonlinear(
   const stepTol = options.stepTolerance ?? 1e-12;
   const rssTol = options.rssTolerance ?? 1e-15;
   const maxRelStep = options.maxRelativeStep ?? 10;
+  const gradTol = options.gradientTolerance ?? 1e-13;
   const n = y.length;
   const p = start.length;
   let b = start.slice();
@@ -118,14 +123,25 @@ export function fitNonlinear(
     const jac = jacobianColumns(model, x, b);
     const resid = new Float64Array(n + p);
     for (let i = 0; i < n; i++) resid[i] = y[i] - model.value(x[i], b);
+    let worstCosine = 0;
+    const residNorm = Math.sqrt(rss);
     for (let j = 0; j < p; j++) {
       let s = 0;
-      for (let i = 0; i < n; i++) s += jac[j][i] * jac[j][i];
+      let g = 0;
+      for (let i = 0; i < n; i++) {
+        s += jac[j][i] * jac[j][i];
+        g += jac[j][i] * resid[i];
+      }
       d[j] = Math.max(d[j], Math.sqrt(s));
       if (!Number.isFinite(d[j])) {
         stopReason = "non_finite";
         break outer;
       }
+      if (s > 0 && residNorm > 0) worstCosine = Math.max(worstCosine, Math.abs(g) / (Math.sqrt(s) * residNorm));
+    }
+    if (worstCosine <= gradTol) {
+      stopReason = "converged";
+      break;
     }
     for (;;) {
       const sqrtLambda = Math.sqrt(lambda);
@@ -151,8 +167,9 @@ export function fitNonlinear(
         }
         break;
       }
+      const smallStep = step.every((s, j) => Math.abs(s) <= stepTol * (Math.abs(b[j]) + stepTol));
       lambda *= 10;
-      if (lambda > 1e16) {
+      if (smallStep || lambda > 1e16) {
         stopReason = "converged";
         break outer;
       }

@@ -11,27 +11,43 @@ export const SPIKE_MAX_FRACTION = 0.05;
 export const SPIKE_MIN_MICRONS = 5;
 
 /**
- * Indices of readings that are spikes against a first fit. Gauge noise grows with the reading, so each
- * residual is taken relative to the fitted reading, z = (reading − fit)/max(fit, 1 micron); a reading is a
- * spike when z lies more than k robust sd from the median z (robust sd = 1.4826·MAD, consistent with σ for
- * Gaussian noise) and it is off by more than SPIKE_MIN_MICRONS. If more than SPIKE_MAX_FRACTION of the
- * readings would be flagged, none are (the model is wrong, not the points). Units: microns.
+ * Readings per block for the local scale: at least this many (the MAD of 100 Gaussian values is within
+ * ~17 % of σ at 1 sd, so a 5-sd test rarely fires on clean data), and at most 20 blocks per hold.
+ */
+export const SPIKE_BLOCK_MIN = 100;
+
+/**
+ * Indices of readings that are spikes against a first fit. Gauge noise changes along a hold (it grows
+ * with the reading, and resolution steps change at 1,000 microns), and a first fit may miss the curve's
+ * shape a little, so the test is local: the residuals (reading − fit, microns) are cut into consecutive
+ * blocks of max(100, n/20) readings, and a reading is a spike when it lies more than k robust sd from its
+ * block's median residual (robust sd = 1.4826·MAD of the block, consistent with σ for Gaussian noise,
+ * floored at 1 micron, one resolution step) and is off by more than SPIKE_MIN_MICRONS. If more than
+ * SPIKE_MAX_FRACTION of the readings would be flagged, none are (the model is wrong, not the points).
  * Reference: F. R. Hampel, J. Amer. Statist. Assoc. 69 (1974) 383 (the MAD-based outlier identifier);
  * P. J. Rousseeuw & C. Croux, J. Amer. Statist. Assoc. 88 (1993) 1273 (the 1.4826 factor).
  */
 export function findSpikes(readingsMicrons: ArrayLike<number>, fittedMicrons: Float64Array, k = SPIKE_K): number[] {
   const n = fittedMicrons.length;
   if (n < 5) return [];
-  const z = new Float64Array(n);
-  for (let i = 0; i < n; i++) z[i] = (readingsMicrons[i] - fittedMicrons[i]) / Math.max(fittedMicrons[i], 1);
-  const work = Float64Array.from(z);
-  const centre = medianInPlace(work);
-  for (let i = 0; i < n; i++) work[i] = Math.abs(z[i] - centre);
-  const scale = 1.4826 * medianInPlace(work);
+  const resid = new Float64Array(n);
+  for (let i = 0; i < n; i++) resid[i] = readingsMicrons[i] - fittedMicrons[i];
+  const block = Math.max(SPIKE_BLOCK_MIN, Math.ceil(n / 20));
+  const work = new Float64Array(block);
   const out: number[] = [];
-  for (let i = 0; i < n; i++) {
-    const off = Math.abs(readingsMicrons[i] - fittedMicrons[i]);
-    if (Math.abs(z[i] - centre) > k * scale && off > SPIKE_MIN_MICRONS) out.push(i);
+  for (let from = 0; from < n; from += block) {
+    // Fold a short last block into a full-size window ending at n.
+    const lo = Math.max(0, Math.min(from, n - block));
+    const hi = Math.min(n, lo + block);
+    const m = hi - lo;
+    for (let i = 0; i < m; i++) work[i] = resid[lo + i];
+    const centre = medianInPlace(work, 0, m);
+    for (let i = 0; i < m; i++) work[i] = Math.abs(resid[lo + i] - centre);
+    const scale = Math.max(1.4826 * medianInPlace(work, 0, m), 1);
+    for (let i = from; i < Math.min(n, from + block); i++) {
+      const off = Math.abs(resid[i] - centre);
+      if (off > k * scale && off > SPIKE_MIN_MICRONS) out.push(i);
+    }
   }
   return out.length > SPIKE_MAX_FRACTION * n ? [] : out;
 }
