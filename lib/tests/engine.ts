@@ -4,8 +4,7 @@
  */
 import { importLog } from "@/analysis/import/index";
 import type { AnalysisResult, AnalyzeOptions, ImportedLog } from "@/analysis/types";
-// STAND-IN until analysis/index.ts and analysis/downsample.ts land (then import from there).
-import { analyzeLog as engineAnalyzeLog, downsampleForChart } from "./engine-standin";
+import { analyzeReadings, downsampleForChart } from "@/analysis/index";
 
 /** Most points the chart series keeps (the detail page draws it on a phone). */
 export const CHART_MAX_POINTS = 1500;
@@ -31,9 +30,9 @@ function keepTimesOf(result: AnalysisResult): number[] {
  * option (the caller maps it to 422 with the importer's message).
  */
 export function runAnalysis(text: string, options: AnalyzeOptions): EngineRun {
-  const result = engineAnalyzeLog(text, options);
-  // The series is read again for the chart: the engine's result carries no readings.
+  // Import once, analyse the readings, and thin the same readings for the chart.
   const log: ImportedLog = importLog(text, options.import ?? {});
+  const result = analyzeReadings(log, options);
   const thinned = downsampleForChart(log.tSeconds, log.microns, CHART_MAX_POINTS, keepTimesOf(result));
   return { result, series: { t: thinned.tSeconds, p: thinned.microns }, startedAt: log.startedAt };
 }

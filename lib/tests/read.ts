@@ -58,7 +58,7 @@ export function encodeCursor(testedAtKey: string, id: string): string {
 export function decodeCursor(cursor: string): { testedAt: string; id: string } {
   try {
     const [testedAt, id] = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8")) as [unknown, unknown];
-    if (typeof testedAt === "string" && !Number.isNaN(Date.parse(testedAt.replace(" ", "T"))) && typeof id === "string" && /^[0-9a-f-]{36}$/i.test(id))
+    if (typeof testedAt === "string" && /^\d{4}-\d\d-\d\d[ T]\d\d:\d\d:\d\d(\.\d{1,6})?([+-]\d\d(:?\d\d)?|Z)?$/.test(testedAt) && typeof id === "string" && /^[0-9a-f-]{36}$/i.test(id))
       return { testedAt, id };
   } catch {
     // fall through
