@@ -1,0 +1,137 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { Alert, Button, Input } from "@/components/ui";
+import { authClient, authErrorMessage, type AuthClientError } from "@/lib/auth-client";
+
+const MIN_PASSWORD = 10;
+
+interface Props {
+  invitationId: string;
+  invitedEmail: string;
+  shopName: string;
+  /** E-mail of the person signed in in this browser, if anyone. */
+  signedInEmail: string | null;
+}
+
+/**
+ * Signed in as the invited e-mail: one button. Signed in as someone else: sign out first.
+ * Signed out: create the account for the invited e-mail, or sign in to an existing one; then accept.
+ */
+export function InviteActions({ invitationId, invitedEmail, shopName, signedInEmail }: Props) {
+  const router = useRouter();
+  const [mode, setMode] = useState<"create" | "sign-in">("create");
+  const [name, setName] = useState("");
+  const [password, setPassword] = useState("");
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const [fieldError, setFieldError] = useState<{ name?: string; password?: string }>({});
+  const sameUser = signedInEmail?.toLowerCase() === invitedEmail.toLowerCase();
+
+  function fail(err: AuthClientError | null | undefined) {
+    setError(authErrorMessage(err));
+    setBusy(false);
+  }
+
+  async function accept() {
+    const res = await authClient.organization.acceptInvitation({ invitationId });
+    if (res.error) return fail(res.error);
+    router.replace("/home");
+    router.refresh();
+  }
+
+  if (signedInEmail && !sameUser) {
+    return (
+      <div className="flex flex-col gap-4">
+        <Alert tone="warning" title="Signed in as someone else">
+          This browser is signed in as {signedInEmail}, but the invitation is for {invitedEmail}. Sign out, then open the link again.
+        </Alert>
+        <Button
+          variant="secondary"
+          block
+          busy={busy}
+          onClick={async () => {
+            setBusy(true);
+            await authClient.signOut();
+            router.refresh();
+            setBusy(false);
+          }}
+        >
+          Sign out of {signedInEmail}
+        </Button>
+      </div>
+    );
+  }
+
+  if (sameUser) {
+    return (
+      <div className="flex flex-col gap-4">
+        {error && <Alert tone="error">{error}</Alert>}
+        <Button size="lg" block busy={busy} onClick={() => { setBusy(true); setError(null); void accept(); }}>
+          Join {shopName}
+        </Button>
+      </div>
+    );
+  }
+
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    setError(null);
+    const errs: typeof fieldError = {};
+    if (mode === "create" && !name.trim()) errs.name = "Write your name as your crew knows it.";
+    if (mode === "create" && password.length < MIN_PASSWORD) errs.password = `Use at least ${MIN_PASSWORD} characters.`;
+    if (mode === "sign-in" && !password) errs.password = "Enter your password.";
+    setFieldError(errs);
+    if (Object.keys(errs).length) return;
+    setBusy(true);
+    const res =
+      mode === "create"
+        ? await authClient.signUp.email({ email: invitedEmail, password, name: name.trim() })
+        : await authClient.signIn.email({ email: invitedEmail, password });
+    if (res.error) {
+      if (res.error.code?.startsWith("USER_ALREADY_EXISTS")) {
+        setMode("sign-in");
+        setError("There is already an account for this e-mail. Sign in with its password to join.");
+        setBusy(false);
+        return;
+      }
+      return fail(res.error);
+    }
+    await accept();
+  }
+
+  return (
+    <form onSubmit={submit} className="flex flex-col gap-4" noValidate>
+      <div role="tablist" aria-label="How to join" className="grid grid-cols-2 gap-1 rounded-xl bg-surface-sunken p-1">
+        {(["create", "sign-in"] as const).map((m) => (
+          <button
+            key={m}
+            type="button"
+            role="tab"
+            aria-selected={mode === m}
+            onClick={() => { setMode(m); setError(null); setFieldError({}); }}
+            className={"min-h-tap rounded-lg px-2 text-body font-medium " + (mode === m ? "bg-surface-raised text-fg shadow-card" : "text-fg-soft")}
+          >
+            {m === "create" ? "I am new here" : "I have an account"}
+          </button>
+        ))}
+      </div>
+      {error && <Alert tone="error">{error}</Alert>}
+      <Input label="E-mail" type="email" value={invitedEmail} readOnly hint="The invitation is for this address." />
+      {mode === "create" && <Input label="Your name" autoComplete="name" value={name} onChange={(e) => setName(e.target.value)} error={fieldError.name} />}
+      <Input
+        label={mode === "create" ? "Choose a password" : "Password"}
+        type="password"
+        autoComplete={mode === "create" ? "new-password" : "current-password"}
+        value={password}
+        onChange={(e) => setPassword(e.target.value)}
+        error={fieldError.password}
+        hint={mode === "create" ? `At least ${MIN_PASSWORD} characters.` : undefined}
+      />
+      <Button type="submit" size="lg" block busy={busy}>
+        {mode === "create" ? `Create account and join` : `Sign in and join`}
+      </Button>
+    </form>
+  );
+}
