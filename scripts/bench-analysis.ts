@@ -124,10 +124,11 @@ async function child(rows: number): Promise<ChildResult> {
   const tasks: (() => unknown)[] = [() => Papa.parse(text), () => importLog(text)];
   if (analyze) tasks.push(() => analyze!(text));
   const [parse, imported, analyzed] = timeInterleaved(tasks, repeats);
-  gc?.();
+  const collect = () => { gc?.(); gc?.(); };
+  collect();
   const before = process.memoryUsage().heapUsed;
   const kept = analyze ? analyze(text) : importLog(text);
-  gc?.();
+  collect();
   const retained = process.memoryUsage().heapUsed - before;
   void kept;
   return {

@@ -118,6 +118,7 @@ export function importLogStrict(text: string, options: ImportOptions = {}): Impo
 
 function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice: ReturnType<typeof chooseColumns>, spec: typeof choice.time): ImportedLog {
   const assumptions = [...choice.assumptions];
+  if (layout.unitsRow) assumptions.unshift(`units read from the row under the column names (line ${layout.headerLine + 1})`);
   if (spec !== choice.time) assumptions.push(...spec.assumptions.slice(-1));
   let unsure = choice.unsure;
   const n = read.microns.length;

@@ -4,6 +4,7 @@
  * The whole file is parsed once, later, with what is decided here.
  */
 import { LogError } from "../errors";
+import { parsePressureUnit } from "../units";
 
 /** Lines looked at to find the header (preamble included). */
 const HEADER_SEARCH_LINES = 100;
@@ -25,6 +26,8 @@ export interface Layout {
   /** 1-based file line of each sample row. */
   sampleLines: number[];
   decimalComma: boolean;
+  /** The header row is a row of units under a row of names; `header` holds both ("Pressure (mTorr)"). */
+  unitsRow: boolean;
 }
 
 export function detectNewline(text: string): Layout["newline"] {
@@ -197,6 +200,16 @@ export function sniffLayout(text: string): Layout {
     );
   }
 
+  // A row of units under the names ("Time,Pressure" then "s,mTorr"): fold the units into the names.
+  let header = split[headerLine].map((h) => h.trim());
+  let unitsRow = false;
+  let names = headerLine - 1;
+  while (names >= 0 && isBlank(lines[names])) names--;
+  if (names >= 0 && split[names].length === header.length && looksLikeHeader(split[names]) && header.some((h) => parsePressureUnit(h) !== null) && header.every((h) => h.length <= 16)) {
+    header = split[names].map((n, j) => (header[j].length > 0 ? `${n.trim()} (${header[j]})` : n.trim()));
+    unitsRow = true;
+  }
+
   const sampleRows: string[][] = [];
   const sampleLines: number[] = [];
   for (let i = headerLine + 1; i < lines.length && sampleRows.length < SAMPLE_ROWS; i++) {
@@ -209,7 +222,8 @@ export function sniffLayout(text: string): Layout {
     delimiter,
     headerLine,
     headerOffset: offsets[headerLine],
-    header: split[headerLine].map((h) => h.trim()),
+    header,
+    unitsRow,
     sampleRows,
     sampleLines,
     decimalComma: detectDecimalComma(sampleRows, delimiter),

@@ -178,6 +178,13 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     expect(log.summary.assumptions.join(" ")).toMatch(/day\/month\/year/);
   });
 
+  it("a row of units under the column names is folded into them (s, mTorr, F)", () => {
+    const log = importLog(layout("units-row.csv"));
+    expect(log.summary).toMatchObject({ headerLine: 2, timeColumn: "Time (s)", pressureColumn: "Pressure (mTorr)", temperatureColumn: "Temperature (F)", unit: "mtorr", timeFormat: "elapsed_s", unsure: false });
+    expect(log.tSeconds).toEqual([0, 15, 30, 45, 60, 75]);
+    close(log.temperatureC![0], 20); // 68 °F = 20 °C exactly
+  });
+
   it("Unix time in seconds: startedAt from the stamps", () => {
     const start = Date.UTC(2026, 5, 14, 13, 5, 0) / 1000;
     const text = ["unix_time,microns", ...Array.from({ length: 6 }, (_, i) => `${start + 10 * i},${800 - i}`)].join("\n");
