@@ -1,0 +1,75 @@
+/**
+ * The words of every notification. Plain text and HTML from the same paragraphs (composeMail),
+ * a link back into the app, and nothing secret: no passwords, no tokens, no raw readings.
+ */
+import { composeMail, type OutgoingMail } from "@/lib/mail";
+import { env } from "@/lib/env";
+import { verdictLabel } from "@/lib/reports/words";
+
+export interface TestSummary {
+  id: string;
+  title: string;
+  verdict: string | null;
+  technicianName: string;
+  siteName?: string | null;
+}
+
+export function testUrl(testId: string): string {
+  return new URL(`/tests/${testId}`, env().BETTER_AUTH_URL).toString();
+}
+
+function verdictLine(t: TestSummary): string {
+  const v = verdictLabel(t.verdict);
+  return `Verdict: ${v}.${t.siteName ? ` Site: ${t.siteName}.` : ""}`;
+}
+
+export function reviewRequestedMail(to: string, t: TestSummary, opts: { by: string | null; help: boolean; note?: string | null; automatic?: string }): OutgoingMail {
+  const who = opts.by ?? "Riseline";
+  const headline = opts.help
+    ? `${who} asks for help with "${t.title}".`
+    : opts.automatic
+      ? `"${t.title}" by ${t.technicianName} went into the review queue: ${opts.automatic}.`
+      : `${who} asks you to review "${t.title}".`;
+  return composeMail({
+    to,
+    subject: opts.help ? `Help asked: ${t.title}` : `Review requested: ${t.title}`,
+    paragraphs: [headline, verdictLine(t), ...(opts.note ? [`Note: ${opts.note}`] : [])],
+    link: { label: "Open the test", url: testUrl(t.id) },
+  });
+}
+
+export function signedOffMail(to: string, t: TestSummary, opts: { by: string; note?: string | null }): OutgoingMail {
+  return composeMail({
+    to,
+    subject: `Signed off: ${t.title}`,
+    paragraphs: [`${opts.by} signed off "${t.title}".`, verdictLine(t), ...(opts.note ? [`Note: ${opts.note}`] : [])],
+    link: { label: "Open the test", url: testUrl(t.id) },
+  });
+}
+
+export function sentBackMail(to: string, t: TestSummary, opts: { by: string; request: string }): OutgoingMail {
+  return composeMail({
+    to,
+    subject: `Sent back: ${t.title}`,
+    paragraphs: [
+      `${opts.by} sent "${t.title}" back to you.`,
+      `What to do: ${opts.request}`,
+      "When you have done it, re-test and resubmit the test from its page.",
+    ],
+    link: { label: "Open the test", url: testUrl(t.id) },
+  });
+}
+
+/** To a customer: the report as a PDF attachment, no link into the app (they are not members). */
+export function reportMail(to: string, t: TestSummary & { organizationName: string; testedAt: Date }, opts: { message?: string | null }): OutgoingMail {
+  return composeMail({
+    to,
+    subject: `Vacuum test report — ${t.siteName ?? t.title}`,
+    paragraphs: [
+      `${t.organizationName} sends you the report of the evacuation and decay test "${t.title}" made on ${t.testedAt.toISOString().slice(0, 10)} by ${t.technicianName}.`,
+      verdictLine(t),
+      ...(opts.message ? [opts.message] : []),
+      "The report is attached as a PDF.",
+    ],
+  });
+}

@@ -1,0 +1,89 @@
+/**
+ * Review actions on one test: check visibility and role, lock the test, check the transition,
+ * change the status, write the audit event and queue the e-mails, all in one transaction; then
+ * deliver the e-mails. An illegal transition is a 409 with the state machine's words.
+ */
+import type { Database, Tx } from "@/db/client";
+import { getTestById } from "@/db/queries/tests";
+import {
+  getUserEmailById, insertTestEvent, listReviewerEmailsByOrganization, lockTestReviewStateById, updateTestStatusById,
+} from "@/db/queries/review";
+import type { TestStatus } from "@/db/schema";
+import type { Actor } from "@/lib/api/handler";
+import { AppError } from "@/lib/errors";
+import { can } from "@/lib/permissions";
+import { reviewRequestedMail, sentBackMail, signedOffMail, type TestSummary } from "@/lib/notify/messages";
+import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import type { OutgoingMail } from "@/lib/mail";
+import { ACTION_PERMISSION, NOTE_REQUIRED, checkTransition, type ReviewAction } from "./state";
+
+export interface ReviewOutcome {
+  testId: string;
+  fromStatus: TestStatus;
+  status: TestStatus;
+  helpRequested: boolean;
+  eventId: string;
+  mailIds: string[];
+}
+
+const EVENT_KIND = {
+  request_review: "review_requested",
+  ask_help: "help_requested",
+  sign_off: "signed_off",
+  send_back: "sent_back",
+  resubmit: "resubmitted",
+} as const;
+
+/** The test as a member sees it, or 404 (unknown, other organization, or not visible to them). */
+export async function requireVisibleTest(db: Database | Tx, actor: Actor, testId: string) {
+  const row = await getTestById(db, { viewer: { organizationId: actor.organizationId, userId: actor.userId, role: actor.role }, testId });
+  if (!row) throw new AppError("not_found", "No such test.");
+  return row;
+}
+
+async function mailsFor(tx: Tx, actor: Actor, action: ReviewAction, summary: TestSummary, createdById: string, note: string | null): Promise<OutgoingMail[]> {
+  const org = actor.organizationId;
+  if (action === "sign_off" || action === "send_back") {
+    if (createdById === actor.userId) return [];
+    const tech = await getUserEmailById(tx, { organizationId: org, userId: createdById });
+    if (!tech) return [];
+    return [action === "sign_off" ? signedOffMail(tech.email, summary, { by: actor.name, note }) : sentBackMail(tech.email, summary, { by: actor.name, request: note ?? "" })];
+  }
+  const reviewers = (await listReviewerEmailsByOrganization(tx, { organizationId: org })).filter((e) => e !== actor.email);
+  return reviewers.map((to) => reviewRequestedMail(to, summary, { by: actor.name, help: action === "ask_help", note }));
+}
+
+/** Apply one review action for a member. Throws 404 / 403 / 400 / 409 AppErrors. */
+export async function applyReviewAction(
+  db: Database,
+  actor: Actor,
+  params: { testId: string; action: ReviewAction; note?: string | null },
+): Promise<ReviewOutcome> {
+  const { testId, action } = params;
+  const note = params.note?.trim() || null;
+  const detail = await requireVisibleTest(db, actor, testId);
+  if (!can(actor.role, ACTION_PERMISSION[action])) {
+    throw new AppError("forbidden", `Your role (${actor.role}) cannot ${action.replace("_", " ")} a test; a lead or the owner can.`);
+  }
+  if (NOTE_REQUIRED[action] && !note) {
+    throw new AppError("invalid_input", action === "send_back" ? "note: say what to do (for example: pull down again and hold 15 minutes)." : "note: say what you need help with.");
+  }
+  const outcome = await db.transaction(async (tx) => {
+    const locked = await lockTestReviewStateById(tx, { organizationId: actor.organizationId, testId });
+    if (!locked) throw new AppError("not_found", "No such test.");
+    const check = checkTransition(locked.status, action);
+    if (!check.ok) throw new AppError("conflict", check.message, { status: locked.status, action });
+    const helpRequested = action === "ask_help" ? true : action === "sign_off" || action === "send_back" ? false : locked.helpRequested;
+    const moved = await updateTestStatusById(tx, { organizationId: actor.organizationId, testId, fromStatus: locked.status, toStatus: check.to, helpRequested });
+    if (!moved) throw new AppError("conflict");
+    const event = await insertTestEvent(tx, {
+      organizationId: actor.organizationId, testId, actorId: actor.userId, kind: EVENT_KIND[action], fromStatus: locked.status, toStatus: check.to, note,
+    });
+    const summary: TestSummary = { id: testId, title: locked.title, verdict: locked.verdict, technicianName: detail.createdByName, siteName: detail.siteName };
+    const mails = await mailsFor(tx, actor, action, summary, locked.createdById, note);
+    const mailIds = await queueMail(tx, mails.map((m) => ({ ...m, organizationId: actor.organizationId, testId })));
+    return { testId, fromStatus: locked.status, status: check.to, helpRequested, eventId: event.id, mailIds };
+  });
+  await deliverMailSoon(db, outcome.mailIds);
+  return outcome;
+}

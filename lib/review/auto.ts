@@ -1,0 +1,79 @@
+/**
+ * The rule that puts a new test in the lead's queue without anyone asking: a test that is not a
+ * pass, misses the organization's profile, or whose technician asked for help goes from
+ * submitted to waiting_review, with an audit event by Riseline itself and an e-mail to the
+ * leads. Practice tests never enter the queue. Idempotent: a test already moved is left alone.
+ */
+import type { Database, Db } from "@/db/client";
+import { getTestById } from "@/db/queries/tests";
+import {
+  insertTestEvent, listReviewerEmailsByOrganization, listTestsDueForReviewByOrganization, updateTestStatusById,
+} from "@/db/queries/review";
+import { reviewRequestedMail } from "@/lib/notify/messages";
+import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import { verdictLabel } from "@/lib/reports/words";
+
+export interface RoutedTest {
+  routed: boolean;
+  /** Why it entered the queue, in words ("verdict: Leak likely", "misses the profile", …). */
+  reasons: string[];
+  mailIds: string[];
+}
+
+function reasonsOf(due: { verdict: string | null; meetsProfile: boolean | null; helpRequested: boolean }): string[] {
+  const r: string[] = [];
+  if (due.verdict !== "pass") r.push(`verdict: ${verdictLabel(due.verdict)}`);
+  if (due.meetsProfile !== true) r.push("misses the acceptance profile");
+  if (due.helpRequested) r.push("the technician asked for help");
+  return r;
+}
+
+/**
+ * Inside the caller's transaction: move the test into review if the rule says so and queue the
+ * leads' e-mail. The caller delivers `mailIds` with deliverMail after commit.
+ */
+export async function queueNewTestForReview(tx: Db, params: { organizationId: string; testId: string; actorId: string | null }): Promise<RoutedTest> {
+  const [due] = await listTestsDueForReviewByOrganization(tx, { organizationId: params.organizationId, testId: params.testId, limit: 1 });
+  if (!due) return { routed: false, reasons: [], mailIds: [] };
+  const moved = await updateTestStatusById(tx, { organizationId: params.organizationId, testId: due.id, fromStatus: "submitted", toStatus: "waiting_review" });
+  if (!moved) return { routed: false, reasons: [], mailIds: [] };
+  const reasons = reasonsOf(due);
+  const automatic = reasons.join("; ");
+  await insertTestEvent(tx, {
+    organizationId: params.organizationId, testId: due.id, actorId: null, kind: "review_requested",
+    fromStatus: "submitted", toStatus: "waiting_review", note: `Automatic: ${automatic}.`,
+  });
+  // Read with a lead's eyes: the test's names for the message (visibility is the whole organization).
+  const detail = await getTestById(tx, { viewer: { organizationId: params.organizationId, userId: params.actorId ?? "", role: "owner" }, testId: due.id });
+  const summary = { id: due.id, title: detail?.test.title ?? "Vacuum test", verdict: due.verdict, technicianName: detail?.createdByName ?? "A technician", siteName: detail?.siteName };
+  const reviewers = await listReviewerEmailsByOrganization(tx, { organizationId: params.organizationId });
+  const mailIds = await queueMail(
+    tx,
+    reviewers.map((to) => ({ ...reviewRequestedMail(to, summary, { by: null, help: due.helpRequested, automatic }), organizationId: params.organizationId, testId: due.id })),
+  );
+  return { routed: true, reasons, mailIds };
+}
+
+/**
+ * Call after a new test (and its first analysis) is committed: applies the rule in its own
+ * transaction and sends the leads' e-mail. Safe to call twice. Never throws for mail trouble.
+ */
+export async function routeNewTestToReview(db: Database, params: { organizationId: string; testId: string; actorId: string | null }): Promise<RoutedTest> {
+  const out = await db.transaction((tx) => queueNewTestForReview(tx, params));
+  await deliverMailSoon(db, out.mailIds);
+  return out;
+}
+
+/**
+ * The same rule over every submitted test of an organization that should be in the queue
+ * (the review queue runs it when it loads, so a test stored by any path is never missed).
+ */
+export async function sweepNewTestsIntoReview(db: Database, params: { organizationId: string; limit?: number }): Promise<number> {
+  const due = await listTestsDueForReviewByOrganization(db, { organizationId: params.organizationId, limit: params.limit ?? 50 });
+  let n = 0;
+  for (const t of due) {
+    const out = await routeNewTestToReview(db, { organizationId: params.organizationId, testId: t.id, actorId: t.createdById });
+    if (out.routed) n++;
+  }
+  return n;
+}
