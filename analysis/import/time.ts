@@ -163,19 +163,13 @@ function readDate(order: DateOrder): number {
   return daysFromCivil(y, m, d);
 }
 
-let cachedDate = "";
+let cachedDateKey = -1;
 let cachedDaySeconds = NaN;
-
-function digit2(s: string, i: number): number {
-  const a = s.charCodeAt(i) - 48;
-  const b = s.charCodeAt(i + 1) - 48;
-  return a >= 0 && a <= 9 && b >= 0 && b <= 9 ? a * 10 + b : NaN;
-}
 
 /**
  * Fixed-position fast path for "YYYY-MM-DDTHH:MM:SS" followed by nothing or "Z" (or a space
- * instead of T). The date part is cached, so a log of one day parses it once. NaN = not this
- * exact form (the general parser then decides).
+ * instead of T). The date's day count is cached by its digits, so a log of one day computes it
+ * once. NaN = not this exact form (the general parser then decides).
  */
 function parseIsoFast(s: string): number {
   const n = s.length;
@@ -183,21 +177,29 @@ function parseIsoFast(s: string): number {
   if (n === 20 && s.charCodeAt(19) !== 90) return NaN;
   const sep = s.charCodeAt(10);
   if (sep !== 84 && sep !== 32) return NaN;
+  // Each character − 48 must be 0…9: one negative value makes the OR negative (huge after >>> 0); the > 9 tests catch the rest.
+  const y0 = s.charCodeAt(0) - 48, y1 = s.charCodeAt(1) - 48, y2 = s.charCodeAt(2) - 48, y3 = s.charCodeAt(3) - 48;
+  const m0 = s.charCodeAt(5) - 48, m1 = s.charCodeAt(6) - 48, d0 = s.charCodeAt(8) - 48, d1 = s.charCodeAt(9) - 48;
+  const h0 = s.charCodeAt(11) - 48, h1 = s.charCodeAt(12) - 48, i0 = s.charCodeAt(14) - 48, i1 = s.charCodeAt(15) - 48;
+  const s0 = s.charCodeAt(17) - 48, s1 = s.charCodeAt(18) - 48;
+  if (((y0 | y1 | y2 | y3 | m0 | m1 | d0 | d1 | h0 | h1 | i0 | i1 | s0 | s1) >>> 0) > 15 ||
+    y0 > 9 || y1 > 9 || y2 > 9 || y3 > 9 || m0 > 9 || m1 > 9 || d0 > 9 || d1 > 9 || h0 > 9 || h1 > 9 || i0 > 9 || i1 > 9 || s0 > 9 || s1 > 9) return NaN;
+  const year = y0 * 1000 + y1 * 100 + y2 * 10 + y3;
+  const month = m0 * 10 + m1;
+  const day = d0 * 10 + d1;
+  const key = year * 10000 + month * 100 + day;
   let daySeconds: number;
-  if (cachedDate.length === 10 && s.startsWith(cachedDate)) daySeconds = cachedDaySeconds;
+  if (key === cachedDateKey) daySeconds = cachedDaySeconds;
   else {
-    const y = digit2(s, 0) * 100 + digit2(s, 2);
-    const m = digit2(s, 5);
-    const d = digit2(s, 8);
-    if (!validDate(y, m, d)) return NaN; // NaN fails the range checks
-    daySeconds = daysFromCivil(y, m, d) * 86400;
-    cachedDate = s.slice(0, 10);
+    if (!validDate(year, month, day)) return NaN;
+    daySeconds = daysFromCivil(year, month, day) * 86400;
+    cachedDateKey = key;
     cachedDaySeconds = daySeconds;
   }
-  const hh = digit2(s, 11);
-  const mm = digit2(s, 14);
-  const ss = digit2(s, 17);
-  if (!(hh <= 24 && mm <= 59 && ss <= 60)) return NaN;
+  const hh = h0 * 10 + h1;
+  const mm = i0 * 10 + i1;
+  const ss = s0 * 10 + s1;
+  if (hh > 24 || mm > 59 || ss > 60) return NaN;
   return daySeconds + hh * 3600 + mm * 60 + ss;
 }
 
