@@ -149,7 +149,7 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
       throw new AppError("conflict", "The same upload is being saved by another request; try again.");
     }
     if (err instanceof AppError) throw err;
-    log.error("upload transaction failed; raw log removed", { testId, err: err instanceof Error ? err.message : String(err) });
+    log.error("upload transaction failed; raw log removed", { testId, err: String((err as { cause?: unknown })?.cause ?? err) });
     throw new AppError("database_unavailable");
   }
   return { testId, created: true };
