@@ -1,0 +1,47 @@
+import { importLog } from "@/analysis/import";
+import { db } from "@/db/client";
+import { createRigEvent, getRigItemById, listRigEventsByRig } from "@/db/queries/rigs";
+import { route } from "@/lib/api/handler";
+import { AppError } from "@/lib/errors";
+import { rigEventSchema, rigParams } from "@/lib/rigs/schemas";
+import { requireRigAccess, viewerOf } from "@/lib/rigs/service";
+
+export const GET = route({ permission: "member", params: rigParams }, async ({ actor, params }) => {
+  await requireRigAccess(db(), viewerOf(actor), params.id, "read");
+  return { events: await listRigEventsByRig(db(), { organizationId: actor.organizationId, rigId: params.id }) };
+});
+
+/**
+ * Log upkeep on a rig the caller manages: oil change (with why), blank-off test (typed lowest
+ * reading, or a gauge log whose lowest reading is taken), gauge cleaned or checked, hose gaskets,
+ * pump hour-meter reading.
+ */
+export const POST = route({ permission: "member", params: rigParams, body: rigEventSchema }, async ({ actor, params, body }) => {
+  await requireRigAccess(db(), viewerOf(actor), params.id, "manage");
+  if (body.itemId && !(await getRigItemById(db(), { organizationId: actor.organizationId, rigId: params.id, itemId: body.itemId })))
+    throw new AppError("invalid_input", "itemId: not an item of this rig");
+  let lowestMicrons = body.lowestMicrons ?? null;
+  let note = body.note ?? null;
+  if (body.kind === "blank_off" && body.logText) {
+    const log = importLog(body.logText);
+    lowestMicrons = Math.min(...log.microns);
+    note = [note, `lowest of ${log.microns.length} logged readings (${log.summary.unit})`].filter(Boolean).join("; ");
+  }
+  const event = await createRigEvent(db(), {
+    organizationId: actor.organizationId,
+    rigId: params.id,
+    values: {
+      kind: body.kind,
+      itemId: body.itemId ?? null,
+      occurredOn: body.occurredOn,
+      oilReason: body.kind === "oil_changed" ? body.oilReason ?? null : null,
+      lowestMicrons: body.kind === "blank_off" ? lowestMicrons : null,
+      pumpHours: body.pumpHours ?? null,
+      referenceMicrons: body.kind === "gauge_checked" ? body.referenceMicrons ?? null : null,
+      gaugeMicrons: body.kind === "gauge_checked" ? body.gaugeMicrons ?? null : null,
+      note,
+      createdById: actor.userId,
+    },
+  });
+  return Response.json({ event }, { status: 201 });
+});
