@@ -1,0 +1,49 @@
+import { db } from "@/db/client";
+import { createPressureTest, isJobOfOrganization, listPressureTestsByViewer } from "@/db/queries/pressure-tests";
+import { route } from "@/lib/api/handler";
+import { AppError } from "@/lib/errors";
+import { evaluatePressureTestRequest } from "@/lib/pressure/evaluate";
+import { pressureTestCreateSchema, pressureTestListQuery } from "@/lib/pressure/schemas";
+import { viewerOf } from "@/lib/rigs/service";
+
+/** Nitrogen tests the caller may see (same rule as vacuum tests), optionally for one job. */
+export const GET = route({ permission: "member", query: pressureTestListQuery }, async ({ actor, query }) => {
+  return { items: await listPressureTestsByViewer(db(), { viewer: viewerOf(actor), jobId: query.jobId }) };
+});
+
+/** Record a nitrogen standing-pressure test from typed readings or a logger CSV; answers with the verdict worked out. */
+export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema }, async ({ actor, body }) => {
+  if (body.jobId && !(await isJobOfOrganization(db(), { organizationId: actor.organizationId, jobId: body.jobId })))
+    throw new AppError("invalid_input", "jobId: no such job in this shop");
+  let evaluated;
+  try {
+    evaluated = evaluatePressureTestRequest(body);
+  } catch (err) {
+    if (err instanceof RangeError) throw new AppError("invalid_input", err.message);
+    throw err;
+  }
+  const { result } = evaluated;
+  const row = await createPressureTest(db(), {
+    organizationId: actor.organizationId,
+    createdById: actor.userId,
+    jobId: body.jobId ?? null,
+    title: body.title || "Nitrogen standing-pressure test",
+    source: body.source,
+    unit: evaluated.unit,
+    temperatureUnit: evaluated.temperatureUnit,
+    startPressure: evaluated.start.pressureGauge,
+    startTemperature: evaluated.start.temperature,
+    endPressure: evaluated.end.pressureGauge,
+    endTemperature: evaluated.end.temperature,
+    atmosphereAbs: result.atmosphereAbs,
+    ratedTestPressure: body.ratedTestPressureGauge ?? null,
+    gaugeResolution: body.gaugeResolution ?? null,
+    durationSeconds: evaluated.durationSeconds,
+    series: evaluated.series,
+    verdict: result.verdict,
+    result,
+    notes: body.notes ?? null,
+    testedAt: body.testedAt ? new Date(body.testedAt) : new Date(),
+  });
+  return Response.json({ test: row, result, assumptions: evaluated.assumptions }, { status: 201 });
+});
