@@ -94,12 +94,13 @@ function fitOnReduced(r: ReducedHold, holdSeconds: number, sampleSeconds: number
 }
 
 /** Turn a solver result into the shared ModelFit: rss, residual sd and R² over the raw kept readings. */
-function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, excluded: number[], nFit: number): ModelFit {
+function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, skip: Uint8Array, excluded: number[], nFit: number): ModelFit {
   const names = HOLD_MODEL_PARAMS[raw.kind];
   const params = paramsFromVector(raw.kind, raw.fit.params);
   const stdErrors = paramsFromVector(raw.kind, raw.fit.stdErrors);
-  const skip = maskOf(excluded, t.length);
-  const fitted = modelCurve(params, t);
+  const a = params.a ?? 0;
+  const tau = params.tauSeconds ?? 1;
+  const l = params.l ?? 0;
   let n = 0;
   let mean = 0;
   for (let i = 0; i < t.length; i++) if (!skip[i]) (n++, (mean += p[i]));
@@ -108,7 +109,8 @@ function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, exc
   let tss = 0;
   for (let i = 0; i < t.length; i++) {
     if (skip[i]) continue;
-    rss += (p[i] - fitted[i]) ** 2;
+    const r = p[i] - (params.p0 + a * -Math.expm1(-t[i] / tau) + l * t[i]);
+    rss += r * r;
     tss += (p[i] - mean) ** 2;
   }
   const dof = n - names.length;
@@ -172,7 +174,8 @@ export function fitHoldModels(tSeconds: number[], microns: number[], options: { 
     }
   }
   const fits: Partial<Record<HoldModelKind, ModelFit>> = {};
-  for (const raw of pass.raws) fits[raw.kind] = toModelFit(raw, tSeconds, microns, excluded, pass.reduced.tSeconds.length);
+  const skip = maskOf(excluded, tSeconds.length);
+  for (const raw of pass.raws) fits[raw.kind] = toModelFit(raw, tSeconds, microns, skip, excluded, pass.reduced.tSeconds.length);
   const notes = pass.notes;
   if (excluded.length > 0) notes.push(`${excluded.length} spike(s) left out (over 5 local robust sd off the first fit)`);
   if (pass.reduced.binned)

@@ -63,13 +63,28 @@ export function vectorFromParams(kind: HoldModelKind, params: HoldParams): numbe
   return HOLD_MODEL_PARAMS[kind].map((name) => params[name] as number);
 }
 
-/** The hold model as a generic NonlinearModel over its parameter vector (for fitNonlinear). */
+/**
+ * The hold model as a generic NonlinearModel over its parameter vector (for fitNonlinear), written out
+ * per kind so the solver's inner loops make no objects: b = [p0, a, τ, l] with absent ones left out.
+ */
 export function holdNonlinearModel(kind: HoldModelKind): NonlinearModel {
+  const hasPlateau = kind === "plateau" || kind === "plateau_climb";
+  const lIndex = kind === "climb" ? 1 : kind === "plateau_climb" ? 3 : -1;
   return {
-    value: (t, b) => holdModelMicrons(paramsFromVector(kind, b), t),
+    value: (t, b) => {
+      let p = b[0];
+      if (hasPlateau) p += b[1] * -Math.expm1(-t / b[2]);
+      if (lIndex > 0) p += b[lIndex] * t;
+      return p;
+    },
     gradient: (t, b, out) => {
-      const g = holdModelGradient(kind, paramsFromVector(kind, b), t);
-      for (let j = 0; j < g.length; j++) out[j] = g[j];
+      out[0] = 1;
+      if (hasPlateau) {
+        const e = Math.exp(-t / b[2]);
+        out[1] = -Math.expm1(-t / b[2]);
+        out[2] = (-b[1] * t * e) / (b[2] * b[2]);
+      }
+      if (lIndex > 0) out[lIndex] = t;
     },
   };
 }

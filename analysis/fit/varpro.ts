@@ -36,8 +36,8 @@ export interface ProjectionBasis {
   scratch: Float64Array;
 }
 
-function orthogonalise(v: Float64Array, q: Float64Array[]): void {
-  for (let pass = 0; pass < 2; pass++)
+function orthogonalise(v: Float64Array, q: Float64Array[], passes = 2): void {
+  for (let pass = 0; pass < passes; pass++)
     for (const qk of q) {
       let dot = 0;
       for (let i = 0; i < v.length; i++) dot += qk[i] * v[i];
@@ -77,7 +77,8 @@ function projectedRss(b: ProjectionBasis, tauSeconds: number): { rss: number; a:
     z[i] = -Math.expm1(-b.t[i] / tauSeconds);
     zNorm2Raw += z[i] * z[i];
   }
-  orthogonalise(z, b.q);
+  // One pass suffices here: Q is orthonormal to rounding, and a z nearly inside span(Q) is rejected below.
+  orthogonalise(z, b.q, 1);
   let zz = 0;
   let zy = 0;
   for (let i = 0; i < n; i++) {
@@ -119,7 +120,7 @@ export interface TimeConstantSearch {
 
 /**
  * Minimise the projected RSS over ln τ: a grid of `gridPoints` values log-spaced from tauMinSeconds
- * to tauMaxSeconds brackets the minimum, then golden-section search refines it to ~1e-7 in ln τ; the
+ * to tauMaxSeconds brackets the minimum, then golden-section search refines it to 1e-5 in ln τ (the Levenberg–Marquardt polish does the rest); the
  * linear coefficients at the best τ come from a full QR solve (projectedFit).
  */
 export function searchTimeConstant(
@@ -128,7 +129,7 @@ export function searchTimeConstant(
   withClimb: boolean,
   tauMinSeconds: number,
   tauMaxSeconds: number,
-  gridPoints = 48,
+  gridPoints = 32,
 ): TimeConstantSearch {
   const basis = projectionBasis(t, p, withClimb);
   const lo = Math.log(tauMinSeconds);
@@ -162,7 +163,7 @@ export function searchTimeConstant(
   let d = a + ratio * (b - a);
   let fc = f(c);
   let fd = f(d);
-  while (b - a > 1e-7) {
+  while (b - a > 1e-5) {
     if (fc < fd) {
       b = d;
       d = c;
@@ -208,7 +209,7 @@ export function fitPlateauModel(
   const { coef, tauSeconds } = search.best;
   const start = withClimb ? [coef[0], coef[1], tauSeconds, coef[2]] : [coef[0], coef[1], tauSeconds];
   const model = holdNonlinearModel(kind);
-  const polished = fitNonlinear(model, t, p, start, { maxIterations: 30, stepTolerance: 1e-10 });
+  const polished = fitNonlinear(model, t, p, start, { maxIterations: 30, stepTolerance: 1e-8, gradientTolerance: 1e-9 });
   const polishOk =
     polished.stopReason !== "non_finite" && polished.params[2] > 0 && polished.rss <= search.best.rss * (1 + 1e-12);
   const fit = polishOk ? polished : summariseFit(model, t, p, start, search.evaluations, "converged");
