@@ -273,3 +273,35 @@ describe("import preview", () => {
     expect(body.error.message.length).toBeGreaterThan(10);
   });
 });
+
+describe("demo seed (scripts/seed-tests.ts, invented company)", () => {
+  it("creates a believable month through the real pipeline and skips a second run (idempotent)", async () => {
+    const { seedDemoTests } = await import("@/scripts/seed-tests");
+    const crew = await createCrew();
+    const members = Object.values(crew).map((m) => ({ userId: m.userId, role: m.role, name: m.name }));
+    const first = await seedDemoTests(db(), { organizationId: crew.owner.organizationId, members });
+    expect(first.created).toBeGreaterThanOrEqual(40);
+    expect(first.created).toBeLessThanOrEqual(60);
+    const again = await seedDemoTests(db(), { organizationId: crew.owner.organizationId, members });
+    expect(again).toEqual({ created: 0, skipped: true });
+    const rows = await countRows(crew.owner.organizationId);
+    expect(rows.tests).toBe(first.created);
+    expect(await listKeys(`orgs/${crew.owner.organizationId}/`)).toHaveLength(first.created);
+    // every page of the list, as the owner sees it
+    const items: { verdict: string; testedAt: string; technician: { id: string } }[] = [];
+    let cursor: string | null = null;
+    do {
+      const page: { items: typeof items; nextCursor: string | null } = await (
+        await listGet(appRequest(`/api/tests?limit=50${cursor ? `&cursor=${cursor}` : ""}`, { as: crew.owner }))
+      ).json();
+      items.push(...page.items);
+      cursor = page.nextCursor;
+    } while (cursor);
+    expect(items).toHaveLength(first.created);
+    const verdicts = new Set(items.map((i) => i.verdict));
+    for (const v of ["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"]) expect(verdicts).toContain(v);
+    const oldest = Math.min(...items.map((i) => Date.parse(i.testedAt)));
+    expect(Date.now() - oldest).toBeLessThanOrEqual(31 * 86_400_000);
+    expect(new Set(items.map((i) => i.technician.id)).size).toBeGreaterThanOrEqual(2);
+  }, 180_000);
+});
