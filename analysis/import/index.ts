@@ -165,6 +165,8 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
   if (read.ignoredLines > 0) assumptions.push(`${read.ignoredLines} line${read.ignoredLines === 1 ? "" : "s"} with a single cell ignored (not data)`);
   if (read.skipped > 0 && read.overRangeRaw.length > 0)
     assumptions.push(`${read.overRangeRaw.length} reading${read.overRangeRaw.length === 1 ? "" : "s"} marked over range (gauge above its range)`);
+  if (read.underRange > 0)
+    assumptions.push(`${read.underRange} reading${read.underRange === 1 ? "" : "s"} marked below the gauge's range (such as '<20') skipped`);
   if (spec.unsure) unsure = true;
 
   const header = layout.header;

@@ -11,7 +11,9 @@ export type CellKind =
   | "over_range"
   /** Dashes only ("-", "---"): no reading; over-range or not is decided from the neighbours. */
   | "dashes"
-  /** Anything else ("Err", "n/a", "<20", text). */
+  /** Below the gauge's range: "<20", "UR", "LO". */
+  | "under_range"
+  /** Anything else ("Err", "n/a", text). */
   | "other";
 
 const OVER_RANGE_WORDS = new Set([
@@ -72,9 +74,11 @@ export function classifyNonNumber(cell: string): CellKind {
   if (s.length === 0) return "blank";
   const c = s.charCodeAt(0);
   if (c === 62 /* > */) return "over_range";
+  if (c === 60 /* < */) return "under_range";
   if (/^[-–—]+$/.test(s)) return "dashes";
   const lower = s.toLowerCase();
   if (OVER_RANGE_WORDS.has(lower)) return "over_range";
+  if (lower === "ur" || lower === "lo" || lower === "low" || lower === "under" || lower === "underrange" || lower === "under range" || lower === "-ol") return "under_range";
   if (/^(over|hi|high)\b/.test(lower) || /\bover[- ]?range\b/.test(lower)) return "over_range";
   return "other";
 }

@@ -32,6 +32,8 @@ export interface RowsRead {
   /** Unit of the first reading (or the fixed unit). */
   unit: PressureUnit;
   unitsSeen: number;
+  /** Skipped cells marked below the gauge's range ("<20"). */
+  underRange: number;
 }
 
 export type RowsResult = { ok: true; read: RowsRead } | { ok: false; line: number; cell: string };
@@ -68,6 +70,7 @@ export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec,
   let firstBad = -1;
   let badRows = 0;
   let lastGood = -1;
+  let underRange = 0;
 
   for (let i = 1; i < rows.length; i++) {
     const row = rows[i];
@@ -133,6 +136,7 @@ export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec,
       const kind = cell === undefined ? "blank" : classifyNonNumber(cell);
       if (kind === "over_range") overRangeRaw.push(t);
       else if (kind === "dashes") { dashRaw.push(t); dashBefore.push(microns.length); }
+      else if (kind === "under_range") underRange++;
     }
   }
 
@@ -161,6 +165,7 @@ export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec,
       footerRows: firstBad >= 0 ? badRows : 0,
       unit: firstUnit ?? "micron",
       unitsSeen,
+      underRange,
     },
   };
 }

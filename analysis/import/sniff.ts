@@ -136,15 +136,21 @@ function delimiterScore(lines: string[], delimiter: string): { fields: number; s
   return { fields, score };
 }
 
-/** Decimal comma: more cells like "25,20" than like "25.20" (never in a comma-delimited file). */
+/**
+ * Decimal comma: more cells like "25,20" than like "25.20". In a comma-delimited file a decimal
+ * comma can only sit inside quotes; there "1,250" (three digits after the comma) is read as a
+ * thousands separator, so only other digit counts ("25,2", "0,1234") count as decimal commas.
+ */
 function detectDecimalComma(rows: string[][], delimiter: string): boolean {
-  if (delimiter === ",") return false;
   let comma = 0;
   let point = 0;
   for (const row of rows)
     for (const cell of row) {
       const s = cell.trim();
-      if (/^[+-]?\d+,\d+$/.test(s) || /^[+-]?\d{1,3}(\.\d{3})+,\d+$/.test(s)) comma++;
+      if (delimiter === ",") {
+        if (/^[+-]?\d+,(\d{1,2}|\d{4,})$/.test(s)) comma++;
+        else if (/^[+-]?\d*\.\d+$/.test(s)) point++;
+      } else if (/^[+-]?\d+,\d+$/.test(s) || /^[+-]?\d{1,3}(\.\d{3})+,\d+$/.test(s)) comma++;
       else if (/^[+-]?\d*\.\d+$/.test(s)) point++;
     }
   return comma > 0 && comma >= point;

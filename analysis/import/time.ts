@@ -167,12 +167,21 @@ let cachedDateKey = -1;
 let cachedDaySeconds = NaN;
 
 /**
- * Fixed-position fast path for "YYYY-MM-DDTHH:MM:SS" followed by nothing or "Z" (or a space
- * instead of T). The date's day count is cached by its digits, so a log of one day computes it
+ * Fixed-position fast path for "YYYY-MM-DDTHH:MM:SS[.sss]" followed by nothing or "Z" (or a
+ * space instead of T). The date's day count is cached by its digits, so a log of one day computes it
  * once. NaN = not this exact form (the general parser then decides).
  */
 function parseIsoFast(s: string): number {
-  const n = s.length;
+  let n = s.length;
+  let fraction = 0;
+  if (n === 23 || n === 24) {
+    // ".sss" milliseconds
+    const f0 = s.charCodeAt(20) - 48, f1 = s.charCodeAt(21) - 48, f2 = s.charCodeAt(22) - 48;
+    if (s.charCodeAt(19) !== 46 || !(f0 >= 0 && f0 <= 9 && f1 >= 0 && f1 <= 9 && f2 >= 0 && f2 <= 9)) return NaN;
+    if (n === 24 && s.charCodeAt(23) !== 90) return NaN;
+    fraction = (f0 * 100 + f1 * 10 + f2) / 1000;
+    n = 19;
+  }
   if ((n !== 19 && n !== 20) || s.charCodeAt(4) !== 45 || s.charCodeAt(7) !== 45 || s.charCodeAt(13) !== 58 || s.charCodeAt(16) !== 58) return NaN;
   if (n === 20 && s.charCodeAt(19) !== 90) return NaN;
   const sep = s.charCodeAt(10);
@@ -200,7 +209,7 @@ function parseIsoFast(s: string): number {
   const mm = i0 * 10 + i1;
   const ss = s0 * 10 + s1;
   if (hh > 24 || mm > 59 || ss > 60) return NaN;
-  return daySeconds + hh * 3600 + mm * 60 + ss;
+  return daySeconds + hh * 3600 + mm * 60 + ss + fraction;
 }
 
 /**

@@ -185,6 +185,15 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     close(log.temperatureC![0], 20); // 68 °F = 20 °C exactly
   });
 
+  it("decimal comma inside quotes in a comma-delimited file; '<0,01' under range skipped and said; milliseconds in stamps", () => {
+    const log = importLog(layout("quoted-decimal-comma.csv"));
+    expect(log.summary).toMatchObject({ delimiter: ",", decimalComma: true, unit: "mbar", skipped: 1, overRange: 0 });
+    close(log.microns[0], toMicrons(0.8, "mbar"));
+    expect(log.tSeconds).toEqual([0, 1, 3, 4, 5]);
+    expect(log.startedAt).toBe("2026-06-14T13:05:00.500");
+    expect(log.summary.assumptions.join(" ")).toMatch(/below the gauge's range/);
+  });
+
   it("Unix time in seconds: startedAt from the stamps", () => {
     const start = Date.UTC(2026, 5, 14, 13, 5, 0) / 1000;
     const text = ["unix_time,microns", ...Array.from({ length: 6 }, (_, i) => `${start + 10 * i},${800 - i}`)].join("\n");
@@ -215,6 +224,8 @@ describe("cell parsers", () => {
       // Fast path (fixed positions), general path (fraction), space separator, day-first and month-first forms.
       expect(parseDateTime(iso.slice(0, 19) + "Z", "ymd")).toBe(want);
       expect(parseDateTime(iso, "ymd")).toBe(want);
+      expect(parseDateTime(iso.slice(0, 19) + ".250Z", "ymd")).toBe(want + 0.25); // fast path with milliseconds
+      expect(parseDateTime(iso.slice(0, 19) + ".25Z", "ymd")).toBe(want + 0.25); // general path
       expect(parseDateTime(iso.slice(0, 10) + " " + iso.slice(11, 19), "ymd")).toBe(want);
       const [y, m, day] = [iso.slice(0, 4), iso.slice(5, 7), iso.slice(8, 10)];
       expect(parseDateTime(`${day}/${m}/${y} ${iso.slice(11, 19)}`, "dmy")).toBe(want);
@@ -249,10 +260,11 @@ describe("cell parsers", () => {
     for (const bad of ["0x1F", "Infinity", "1e309", "", "OR", ">25000", "12a"]) expect(Number.isNaN(parseReading(bad, false))).toBe(true);
   });
 
-  it("over-range markers are told apart from blanks and errors", () => {
+  it("over- and under-range markers are told apart from blanks and errors (common practice, no published source)", () => {
     for (const c of [">25000", "OR", "O.R.", "OL", "HI", "Over range"]) expect(classifyNonNumber(c)).toBe("over_range");
     expect(classifyNonNumber("---")).toBe("dashes");
     expect(classifyNonNumber("  ")).toBe("blank");
-    for (const c of ["Err", "n/a", "<20"]) expect(classifyNonNumber(c)).toBe("other");
+    for (const c of ["<20", "UR", "LO"]) expect(classifyNonNumber(c)).toBe("under_range");
+    for (const c of ["Err", "n/a", "abc"]) expect(classifyNonNumber(c)).toBe("other");
   });
 });
