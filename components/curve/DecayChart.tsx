@@ -57,7 +57,7 @@ function palette(): Palette {
     soft: css.getPropertyValue("--rl-fg-soft").trim() || (dark ? "#b3c2c0" : "#46565f"),
     grid: dark ? "rgba(232,240,238,0.12)" : "rgba(20,35,43,0.10)",
     measured: dark ? "#72cbbf" : "#0b6e69",
-    fit: dark ? "#f7cd6b" : "#a86d05",
+    fit: dark ? "#ffffff" : "#14232b",
     band: dark ? "rgba(247,205,107,0.20)" : "rgba(232,163,23,0.20)",
     bandLine: dark ? "rgba(247,205,107,0.7)" : "rgba(168,109,5,0.6)",
     pulldown: dark ? "rgba(114,203,191,0.10)" : "rgba(11,110,105,0.07)",
@@ -123,7 +123,7 @@ function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number |
       };
       hline(model.limitMicrons, colors.limit, `Limit ${microns(model.limitMicrons)}`);
       hline(model.targetMicrons, colors.target, `Target ${microns(model.targetMicrons)}`);
-      if (model.isolationMinutes != null) vline(chart, model.isolationMinutes, colors.fg, "Isolated", [6, 4]);
+      if (model.isolationMinutes != null) vline(chart, model.isolationMinutes, colors.soft, "Isolated", [6, 4]);
       const p = picked();
       if (p != null) vline(chart, p / 60, colors.pick, "New isolation", []);
     },
@@ -177,7 +177,7 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
           line([{ x: xMin, y: model.limitMicrons }, { x: xMax, y: model.limitMicrons }], { label: "Limit", borderColor: colors.limit, borderDash: [8, 5], borderWidth: 2 }),
           line([{ x: xMin, y: model.targetMicrons }, { x: xMax, y: model.targetMicrons }], { label: "Target", borderColor: colors.target, borderDash: [2, 4], borderWidth: 2 }),
           line(model.measured, { label: "Reading", borderColor: colors.measured, borderWidth: 2.5, pointHitRadius: 6 }),
-          line(model.fitted, { label: "Fitted hold", borderColor: colors.fit, borderWidth: 3, borderDash: [10, 4] }),
+          line(model.fitted, { label: "Fitted hold", borderColor: colors.fit, borderWidth: 2 }),
         ],
       },
       options: {

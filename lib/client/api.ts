@@ -27,7 +27,10 @@ export interface TestRecord {
   isPractice?: boolean;
   technician?: { id: string; name: string } | null;
   site?: { id: string; name: string } | null;
-  systemName?: string | null;
+  system?: { id: string; name: string } | null;
+  job?: { id: string; reference: string | null; visitedOn: string | null } | null;
+  helpRequested?: boolean;
+  currentAnalysisId?: string | null;
   [key: string]: unknown;
 }
 

@@ -45,6 +45,21 @@ async function previewPart(file: File): Promise<Blob> {
   return new Blob([cut > 0 ? text.slice(0, cut + 1) : text], { type: file.type || "text/csv" });
 }
 
+/** Column or unit problems the technician can settle by choosing; the server sends the first rows along. */
+const CHOOSABLE = new Set(["no_time_column", "no_pressure_column", "unknown_unit"]);
+
+function chooserFromError(error: unknown): ImportPreview | null {
+  if (!(error instanceof ApiError) || error.status !== 422 || !CHOOSABLE.has(String(error.details?.reason))) return null;
+  const columns = error.details?.columns;
+  const rows = error.details?.rows;
+  if (!Array.isArray(columns) || columns.length < 2 || !Array.isArray(rows)) return null;
+  return {
+    columns: columns.map(String),
+    rows: rows as string[][],
+    detected: { timeColumn: null, pressureColumn: null, unit: null, timeFormat: null, unsure: true, assumptions: [error.message] },
+  };
+}
+
 export function NewTest() {
   const [tab, setTab] = useState<"file" | "typed">("file");
   const [phase, setPhase] = useState<Phase>({ kind: "pick" });
@@ -111,6 +126,11 @@ export function NewTest() {
         return;
       }
     } catch (error) {
+      const chooser = chooserFromError(error);
+      if (chooser) {
+        setPhase({ kind: "choose", file, preview: chooser });
+        return;
+      }
       // No preview service: let the upload itself decide. Anything else is the file's problem.
       if (!(error instanceof ApiError && (error.status === 404 || error.status === 405))) {
         setPhase({ kind: "error", error, file, retry: () => void onFile(file) });

@@ -23,6 +23,8 @@ export function TypedReadings({ busy, onSubmit }: Props) {
     { time: "0", microns: "" },
     { time: "1", microns: "" },
     { time: "2", microns: "" },
+    { time: "3", microns: "" },
+    { time: "4", microns: "" },
   ]);
   const [problems, setProblems] = useState<string[]>([]);
   const tableRef = useRef<HTMLTableElement | null>(null);

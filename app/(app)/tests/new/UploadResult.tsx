@@ -5,6 +5,7 @@ import { useQuery } from "@tanstack/react-query";
 import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
 import { VerdictBanner } from "@/components/verdict/VerdictBanner";
 import { SafetyNote } from "@/components/verdict/SafetyNote";
+import { verdictText } from "@/components/verdict/words";
 import { Alert, Button, LinkButton } from "@/components/ui";
 import { getTest, type CreatedTest } from "@/lib/client/api";
 
@@ -16,12 +17,12 @@ export function UploadResult({ created, onAnother }: { created: CreatedTest; onA
 
   useEffect(() => {
     ref.current?.scrollIntoView({ block: "start" });
-    ref.current?.focus();
   }, []);
 
   return (
-    <div ref={ref} tabIndex={-1} className="space-y-4 outline-none" data-testid="upload-result">
-      <p className="text-body text-fg-soft">
+    <div ref={ref} className="scroll-mt-16 space-y-4" data-testid="upload-result">
+      <p className="text-body text-fg-soft" role="status">
+        <span className="sr-only">Analysed. Verdict: {verdictText(created.analysis.verdict).headline}. </span>
         Saved as <span className="font-semibold text-fg">{created.test.title}</span>
       </p>
       <VerdictBanner analysis={created.analysis} />

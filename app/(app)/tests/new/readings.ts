@@ -91,6 +91,6 @@ export function checkReadings(rows: ReadingRow[], mode: TimeMode): CheckedReadin
     else time = r.time.trim();
     if (p !== null && p >= 0 && time !== null) readings.push({ time, microns: p });
   });
-  if (problems.length === 0 && readings.length < 3) problems.push("Enter at least 3 readings taken after isolating the pump.");
+  if (problems.length === 0 && readings.length < 5) problems.push("Enter at least 5 readings taken after isolating the pump.");
   return { readings, problems };
 }

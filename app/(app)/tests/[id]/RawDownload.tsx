@@ -1,0 +1,45 @@
+"use client";
+
+import { useState } from "react";
+import { Alert, Button } from "@/components/ui";
+import { getRawLink, type TestDetail } from "@/lib/client/api";
+
+function sizeWords(bytes: number): string {
+  if (bytes < 1024) return `${bytes} B`;
+  if (bytes < 1048576) return `${(bytes / 1024).toFixed(0)} kB`;
+  return `${(bytes / 1048576).toFixed(1)} MB`;
+}
+
+/** The file exactly as uploaded, through a short-lived link. */
+export function RawDownload({ testId, upload }: { testId: string; upload: TestDetail["upload"] }) {
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  if (!upload) return <p className="text-body text-fg-soft">Typed readings: there is no file to download.</p>;
+  return (
+    <div className="space-y-2">
+      <Button
+        variant="secondary"
+        block
+        busy={busy}
+        onClick={async () => {
+          setBusy(true);
+          setError(null);
+          try {
+            const { url } = await getRawLink(testId);
+            window.location.assign(url);
+          } catch (e) {
+            setError((e as Error).message);
+          } finally {
+            setBusy(false);
+          }
+        }}
+      >
+        Download the raw file
+      </Button>
+      <p className="break-all text-caption text-fg-soft">
+        {upload.filename} · {sizeWords(upload.sizeBytes)} · SHA-256 {upload.sha256.slice(0, 12)}…
+      </p>
+      {error && <Alert tone="error">{error}</Alert>}
+    </div>
+  );
+}

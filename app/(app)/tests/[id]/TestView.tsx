@@ -1,0 +1,79 @@
+"use client";
+
+import { useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
+import { VerdictBanner } from "@/components/verdict/VerdictBanner";
+import { SafetyNote } from "@/components/verdict/SafetyNote";
+import { Alert, Button, Card, LinkButton, Spinner } from "@/components/ui";
+import { ApiError, getTest } from "@/lib/client/api";
+import { FindingsList } from "./FindingsList";
+import { ForecastPanel } from "./ForecastPanel";
+import { HistoryList } from "./HistoryList";
+import { NumbersPanel } from "./NumbersPanel";
+import { RawDownload } from "./RawDownload";
+import { ReanalyseForm } from "./ReanalyseForm";
+import { STATUS_WORDS, dateTimeWords } from "./format";
+import { ImportPanel } from "./ImportPanel";
+
+/** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
+export function TestView({ id, canReanalyse }: { id: string; canReanalyse: boolean }) {
+  const q = useQuery({ queryKey: ["test", id], queryFn: ({ signal }) => getTest(id, signal) });
+  const [picked, setPicked] = useState<number | null>(null);
+
+  if (q.isPending)
+    return (
+      <div className="flex items-center gap-3 py-10 text-fg-soft" role="status">
+        <Spinner label="" /> Loading the test…
+      </div>
+    );
+  if (q.isError) {
+    const e = q.error;
+    const notFound = e instanceof ApiError && e.status === 404;
+    return (
+      <Alert tone="error" title={notFound ? "Test not found" : "The test could not be loaded"} action={notFound ? <LinkButton href="/tests">All tests</LinkButton> : <Button onClick={() => q.refetch()}>Retry</Button>}>
+        {notFound ? "It may have been removed, or it is not shared with you." : (e as Error).message}
+      </Alert>
+    );
+  }
+
+  const { test, analysis, series, history, upload } = q.data;
+  const where = [test.site?.name, test.system?.name].filter(Boolean).join(" · ");
+  return (
+    <div className="space-y-5">
+      <header className="space-y-1">
+        <p className="text-body text-fg-soft">
+          {STATUS_WORDS[test.status] ?? test.status}
+          {test.isPractice ? " · practice" : ""} · {dateTimeWords(test.testedAt)}
+          {test.technician?.name ? ` · ${test.technician.name}` : ""}
+        </p>
+        <h1 className="text-headline break-words">{test.title}</h1>
+        {where && <p className="text-body">{where}</p>}
+      </header>
+      <VerdictBanner analysis={analysis} />
+      <div>
+        <h2 className="sr-only">Curve</h2>
+        <LazyDecayChart analysis={analysis} series={series} onPickSeconds={canReanalyse ? setPicked : undefined} pickedSeconds={picked} />
+        {canReanalyse && <p className="mt-1 text-caption text-fg-soft">Tap the chart to move the isolation point, then “Analyse again” below.</p>}
+      </div>
+      <div className="grid gap-5 lg:grid-cols-2">
+        <NumbersPanel analysis={analysis} />
+        <div className="space-y-5">
+          <ForecastPanel analysis={analysis} />
+          <SafetyNote full />
+        </div>
+      </div>
+      <FindingsList findings={analysis.findings} />
+      <div className="grid gap-5 lg:grid-cols-2">
+        {canReanalyse && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
+        <div className="space-y-5">
+          <HistoryList history={history} currentId={test.currentAnalysisId} />
+          <Card title="Record">
+            <RawDownload testId={id} upload={upload} />
+            <ImportPanel analysis={analysis} test={test} />
+          </Card>
+        </div>
+      </div>
+    </div>
+  );
+}
