@@ -90,7 +90,7 @@ export const UNITS_UNDERSTOOD: readonly string[] = [
 /** Spellings (lower case, separators removed, µ read as u) → unit. */
 const SPELLINGS: ReadonlyMap<string, ParsedPressureUnit> = (() => {
   const table: [ParsedPressureUnit, string[]][] = [
-    [{ unit: "micron", gauge: false }, ["micron", "microns", "umhg", "uhg", "micronhg", "micronshg", "micronsofmercury", "micronofmercury", "micronsmercury"]],
+    [{ unit: "micron", gauge: false }, ["micron", "microns", "u", "umhg", "uhg", "micronhg", "micronshg", "micronsofmercury", "micronofmercury", "micronsmercury"]],
     [{ unit: "mtorr", gauge: false }, ["mtorr", "millitorr", "mtorrabs"]],
     [{ unit: "torr", gauge: false }, ["torr", "torrabs"]],
     [{ unit: "mmhg", gauge: false }, ["mmhg", "mmhga", "mmhgabs", "mmhgabsolute", "mmofmercury"]],

@@ -46,6 +46,13 @@ export function timeUnitFromHeader(header: string): ElapsedUnit | null {
   return null;
 }
 
+/** A stamp with a month name, through Date.parse with " UTC" appended (so the machine's zone plays no part). */
+function parseNamedMonth(cell: string): number {
+  if (!/[A-Za-z]{3}/.test(cell)) return NaN;
+  const ms = Date.parse(cell.trim() + " UTC");
+  return ms === ms ? ms / 1000 : NaN;
+}
+
 function fits(samples: string[], test: (s: string) => boolean): boolean {
   if (samples.length === 0) return false;
   let ok = 0;
@@ -141,6 +148,21 @@ export function detectTimeSpec(
   const headerUnit = timeUnitFromHeader(header);
   if (fits(samples, (s) => parseReading(s, decimalComma) === parseReading(s, decimalComma))) {
     const first = parseReading(samples[0], decimalComma);
+    // Spreadsheet serial dates (days since 1899-12-30; 36526 = 2000-01-01, 73051 = 2100-01-01) in a date-named column.
+    if (!timeUnitOption && !headerUnit && /date|stamp/i.test(header) && first >= 36526 && first < 73051) {
+      return {
+        format: "datetime",
+        // Rounded to the millisecond: the stored fraction of a day carries binary noise.
+        parse: (cell) => Math.round((parseReading(cell, decimalComma) - 25569) * 86_400_000) / 1000,
+        rollover: false,
+        dated: true,
+        zoned: false,
+        alternate: null,
+        assumptions: ["time column read as spreadsheet serial dates (days since 1899-12-30), local wall time"],
+        unsure: false,
+        description: "spreadsheet serial date",
+      };
+    }
     if (first >= 1e9 && !timeUnitOption) {
       const scale = first >= 1e11 ? 0.001 : 1;
       return {
@@ -179,6 +201,21 @@ export function detectTimeSpec(
 
   const found = dateOrderOf(samples, parseDateTime);
   if (found) return dateTimeSpec(samples, found.order, found.unsure, true);
+
+  // Month names ("Jun 14 2026 13:05:00", "14-Jun-2026 1:05 PM"): the engine's date parser, read as UTC wall time.
+  if (fits(samples, (s) => /[A-Za-z]{3}/.test(s) && parseNamedMonth(s) === parseNamedMonth(s))) {
+    return {
+      format: "datetime",
+      parse: parseNamedMonth,
+      rollover: false,
+      dated: true,
+      zoned: false,
+      alternate: null,
+      assumptions: ["times carry no zone: read as local wall time (only differences are used)"],
+      unsure: false,
+      description: "date with month name and time",
+    };
+  }
 
   const elapsedHeader = headerUnit !== null || /elapsed|duration|runtime|run time/i.test(header);
   if (!elapsedHeader && fits(samples, (s) => parseClock(s) === parseClock(s))) {

@@ -194,6 +194,21 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     expect(log.summary.assumptions.join(" ")).toMatch(/below the gauge's range/);
   });
 
+  it("spreadsheet serial dates in a 'Date' column (days since 1899-12-30, the spreadsheet 1900 date system) and a 'µ' header", () => {
+    const text = "Date,Vacuum (µ)\n" + [0, 1, 2, 3, 4].map((i) => `${46187.5 + (i * 10) / 86400},${800 - i * 10}`).join("\n");
+    const log = importLog(text);
+    expect(log.startedAt).toBe("2026-06-14T12:00:00.000"); // 46187 = 2026-06-14 in the 1900 date system
+    expect(log.tSeconds).toEqual([0, 10, 20, 30, 40]);
+    expect(log.summary.unit).toBe("micron");
+  });
+
+  it("month names with AM/PM ('Jun 14, 2026 1:05:00 PM')", () => {
+    const text = "Time,Microns\n" + [0, 10, 20, 30, 40].map((s) => `"Jun 14, 2026 1:05:${String(s).padStart(2, "0")} PM",${800 - s}`).join("\n");
+    const log = importLog(text);
+    expect(log.startedAt).toBe("2026-06-14T13:05:00.000");
+    expect(log.tSeconds).toEqual([0, 10, 20, 30, 40]);
+  });
+
   it("Unix time in seconds: startedAt from the stamps", () => {
     const start = Date.UTC(2026, 5, 14, 13, 5, 0) / 1000;
     const text = ["unix_time,microns", ...Array.from({ length: 6 }, (_, i) => `${start + 10 * i},${800 - i}`)].join("\n");
