@@ -47,7 +47,7 @@ function modelInterval(fit: ModelFit, tSeconds: number, observedSeconds: number)
  * the data cannot reject (AICc within the selection margin of the best fitted model): far beyond the
  * observed part, a plateau and a climb that fit the first minutes equally well part ways, and the band
  * shows it. earlyCall is "pass" when the whole interval is below the limit, "fail" when it is wholly
- * above, else null. The band has FORECAST_BAND_POINTS points from 0 to atHoldSeconds.
+ * above, else null (also null when there were too few readings to compare the models). The band has FORECAST_BAND_POINTS points from 0 to atHoldSeconds.
  * Units: seconds after isolation, microns.
  */
 export function forecastHold(fit: HoldFitResult, observedHoldSeconds: number, atHoldSeconds: number, limitMicrons: number): Forecast {
@@ -74,7 +74,9 @@ export function forecastHold(fit: HoldFitResult, observedHoldSeconds: number, at
     const b = at(t);
     band.push({ tSeconds: t, microns: b.mid, low: b.low, high: b.high });
   }
-  const earlyCall = end.high < limitMicrons ? "pass" : end.low > limitMicrons ? "fail" : null;
+  // No call when the models could not even be compared (too few readings for AICc).
+  const comparable = !!chosen && Number.isFinite(chosen.aicc);
+  const earlyCall = !comparable ? null : end.high < limitMicrons ? "pass" : end.low > limitMicrons ? "fail" : null;
   return {
     atHoldSeconds,
     predictedMicrons: end.mid,

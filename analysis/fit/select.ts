@@ -44,7 +44,8 @@ export interface SelectionContext {
 export function ineligibleReason(fit: ModelFit, ctx: SelectionContext): string | null {
   const { a, tauSeconds, l } = fit.params;
   const minEffect = Math.max(MIN_EFFECT_MICRONS, Number.isFinite(fit.residualSd) ? fit.residualSd : 0);
-  if (!Number.isFinite(fit.aicc) || fit.stopReason === "non_finite") return "no finite fit";
+  if (fit.stopReason === "non_finite") return "no finite fit";
+  if (!Number.isFinite(fit.aicc)) return "too few points for AICc";
   if (a !== undefined && tauSeconds !== undefined) {
     if (a <= 0) return "falls instead of rising to a level";
     if (tauSeconds > TAU_MAX_HOLD_MULTIPLE * ctx.holdSeconds)
@@ -80,7 +81,8 @@ export function chooseHoldModel(
     if (why) words.push(`${kind} set aside: ${why}`);
     else eligible.push(fit);
   }
-  if (eligible.length === 0) return { chosen: "flat", rule: ["no model could be fitted; flat by default", ...words, ...notes].join("; ") };
+  if (eligible.length === 0)
+    return { chosen: "flat", rule: ["flat by default: too few readings to compare models (AICc needs at least 4 points fitted)", ...words, ...notes].join("; ") };
   let best = eligible.reduce((x, y) => (y.aicc < x.aicc ? y : x));
   const lowest = best;
   const simpler = eligible

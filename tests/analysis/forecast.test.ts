@@ -111,6 +111,11 @@ describe("forecastHold — band and widening (common practice, no published sour
     expect(forecast.predictedMicrons).toBe(forecast.band[FORECAST_BAND_POINTS - 1].microns);
   });
 
+  it("makes no early call from 3 readings, too few to tell a rise from scatter", () => {
+    const fit = fitHoldModels([0, 60, 120], [300, 320, 345]);
+    expect(forecastHold(fit, 120, 600, LIMIT).earlyCall).toBeNull();
+  });
+
   it("makes no early call when the limit lies inside the interval", () => {
     // A climb that reaches the limit almost exactly at 10 minutes.
     const { forecast } = earlyForecast({ p0: 400, l: 1 }, 6);
