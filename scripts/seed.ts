@@ -33,7 +33,7 @@ async function main() {
     { organizationId: org.id, name: "Strict (new installs, A2L)", targetMicrons: 300, holdMinutes: 15, limitMicrons: 500, leakRateMicronsPerMinute: 5, isDefault: false },
   ]);
   const { seedDemoTests } = await import("./seed-tests");
-  const count = await seedDemoTests(db(), { organizationId: org.id, members: people });
+  const { created: count } = await seedDemoTests(db(), { organizationId: org.id, members: people });
   console.log(`• Seeded "${DEMO_COMPANY.name}" with ${people.length} people and ${count} tests.`);
   printPeople();
 }
