@@ -6,7 +6,9 @@
  *  - a hold shorter than the profile's hold time that has not yet passed the limit → inconclusive
  *    (the forecast may still give an early call);
  *  - a steady climb at or above the profile's leak rate is a leak, even below the limit; a curve still
- *    rising at that rate at the end because it has not levelled off counts as a climb too;
+ *    rising at that rate at the end because it has not levelled off counts as a climb too; the
+ *    readings of the second half of the hold must climb at least half that rate (a step that then
+ *    stays flat is not a leak);
  *  - a level-off above the limit is moisture (water boiling off, or refrigerant leaving the oil);
  *  - both → leak_and_moisture; neither → pass.
  */
@@ -25,6 +27,8 @@ export interface HoldEvidence {
   /** Highest reading (3-point median) up to the profile's hold time, microns. */
   maxMicrons: number;
   isolationSeen: boolean;
+  /** Least-squares slope of the readings over the last half of the hold (microns per minute), or null. */
+  lateSlopeMicronsPerMinute: number | null;
 }
 
 export interface Classification {
@@ -128,7 +132,9 @@ export function classifyHold(fit: HoldFitResult | null, e: HoldEvidence | null, 
     };
   }
 
-  const leak = climb >= profile.leakRateMicronsPerMinute;
+  // a steady climb shows in the second half of the hold too; a quick step that then stays flat does not
+  const steady = e.lateSlopeMicronsPerMinute === null || e.lateSlopeMicronsPerMinute >= 0.5 * profile.leakRateMicronsPerMinute;
+  const leak = climb >= profile.leakRateMicronsPerMinute && steady;
   const plateau = decay.plateauMicrons;
   const moisture = (plateau !== null && levelledOff && plateau > limit) || (!leak && e.maxMicrons > limit);
   const exceeded = e.maxMicrons > limit;

@@ -42,6 +42,38 @@ function median(values: number[]): number | null {
   return v.length ? v[v.length >> 1] : null;
 }
 
+/** Highest running median (5 readings, 3 for short holds) of p[from..to] up to time `untilSeconds`. */
+function robustMax(p: number[], from: number, to: number, untilSeconds: number, t: number[]): number {
+  const half = to - from + 1 >= 15 ? 2 : 1;
+  let best = 0;
+  for (let i = from; i <= to && t[i] <= untilSeconds; i++) {
+    const w = p.slice(Math.max(i - half, from), Math.min(i + half, to) + 1).sort((a, b) => a - b);
+    best = Math.max(best, w[w.length >> 1]);
+  }
+  return best;
+}
+
+/** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings). */
+function lateSlopePerMinute(t: number[], p: number[], from: number, to: number): number | null {
+  const mid = t[from] + (t[to] - t[from]) / 2;
+  let n = 0;
+  let sx = 0;
+  let sy = 0;
+  let sxx = 0;
+  let sxy = 0;
+  for (let i = to; i >= from && t[i] >= mid; i--) {
+    const x = t[i] - mid;
+    n++;
+    sx += x;
+    sy += p[i];
+    sxx += x * x;
+    sxy += x * p[i];
+  }
+  const cxx = sxx - (sx * sx) / n;
+  if (n < 3 || cxx <= 0) return null;
+  return ((sxy - (sx * sy) / n) / cxx) * 60;
+}
+
 function fitHold(t: number[], p: number[], start: number, end: number): HoldFitResult | null {
   if (end - start + 1 < 3) return null;
   const tRel: number[] = [];
@@ -93,12 +125,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     const hold = pa.phases.holds[primary];
     fit = hold.fit;
     const observed = hold.endSeconds - hold.isolatedAtSeconds;
-    let maxMicrons = 0;
-    for (let i = r.startIndex; i <= r.endIndex && t[i] - t[r.startIndex] <= Math.max(holdSeconds, 0); i++) {
-      const a = p[Math.max(i - 1, r.startIndex)];
-      const c = p[Math.min(i + 1, r.endIndex)];
-      maxMicrons = Math.max(maxMicrons, Math.max(Math.min(a, p[i]), Math.min(Math.max(a, p[i]), c)));
-    }
+    const maxMicrons = robustMax(p, r.startIndex, r.endIndex, t[r.startIndex] + holdSeconds, t);
     const tail = p.slice(Math.max(r.endIndex - 2, r.startIndex), r.endIndex + 1).sort((x, y) => x - y);
     evidence = {
       holdSeconds: observed,
@@ -107,6 +134,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
       endMicrons: tail[tail.length >> 1],
       maxMicrons,
       isolationSeen: r.isolationSeen,
+      lateSlopeMicronsPerMinute: lateSlopePerMinute(t, p, r.startIndex, r.endIndex),
     };
     if (fit && chosenFit(fit)) {
       try {

@@ -1,9 +1,9 @@
 /**
  * Locating the isolation point: the pump valved off is where the curve stops falling and starts
- * rising. Two straight lines are fitted by least squares, one to each side of every candidate split
- * (the split reading belongs to both), and the split with the smallest total residual sum of squares
- * wins (a segmented regression / change-point search; Hinkley 1969). Prefix sums make each candidate
- * O(1), so the search is linear in the window length.
+ * rising. A continuous broken line (two straight pieces joined at a candidate reading) is fitted by
+ * least squares at every candidate, and the joint with the smallest residual sum of squares wins
+ * (segmented regression with a change point; Hinkley 1969, Biometrika 56:495). Prefix sums make each
+ * candidate O(1), so the search is linear in the window length.
  */
 
 /** 3-point running median of microns[from..to] (inclusive), edges copied. */
@@ -25,13 +25,22 @@ function median3(values: ArrayLike<number>, from: number, to: number): Float64Ar
 
 /**
  * Index (into the full arrays) of the best split between a falling and a rising/flat straight
- * line on readings [from, to]. Needs at least two readings on each side; returns `fallback`
- * when the window is too short.
+ * line on readings [from, to], the split searched within [splitFrom, splitTo]. Needs at least two
+ * readings on each side; returns `fallback` when the window is too short.
  */
-export function hingeSplit(t: ArrayLike<number>, microns: ArrayLike<number>, from: number, to: number, fallback: number): number {
+export function hingeSplit(
+  t: ArrayLike<number>,
+  microns: ArrayLike<number>,
+  from: number,
+  to: number,
+  fallback: number,
+  splitFrom = from,
+  splitTo = to,
+): number {
   const n = to - from + 1;
   if (n < 5) return fallback;
-  const y = median3(microns, from, to);
+  // a 3-point median guards against spikes on dense logs; on sparse ones it would erase the corner
+  const y = n >= 15 ? median3(microns, from, to) : Float64Array.from({ length: n }, (_, i) => microns[from + i]);
   const t0 = t[from];
   // prefix sums of 1, x, y, x², xy, y²
   const sx = new Float64Array(n + 1);
@@ -47,25 +56,37 @@ export function hingeSplit(t: ArrayLike<number>, microns: ArrayLike<number>, fro
     sxy[i + 1] = sxy[i] + x * y[i];
     syy[i + 1] = syy[i] + y[i] * y[i];
   }
-  // residual sum of squares and slope of a line through points [a, b)
-  const lineFit = (a: number, b: number): { rss: number; slope: number } => {
-    const m = b - a;
-    const mx = (sx[b] - sx[a]) / m;
-    const my = (sy[b] - sy[a]) / m;
-    const cxx = sxx[b] - sxx[a] - m * mx * mx;
-    const cxy = sxy[b] - sxy[a] - m * mx * my;
-    const cyy = syy[b] - syy[a] - m * my * my;
-    if (cxx <= 0) return { rss: Math.max(cyy, 0), slope: 0 };
-    return { rss: Math.max(cyy - (cxy * cxy) / cxx, 0), slope: cxy / cxx };
-  };
+  // continuous hinge at x_k: y = a + b·min(x − x_k, 0) + c·max(x − x_k, 0); normal equations from
+  // the prefix sums, solved by Cramer's rule (3 × 3), so each candidate costs O(1)
+  const seg = (i: number, j: number) => ({
+    n: j - i,
+    x: sx[j] - sx[i],
+    xx: sxx[j] - sxx[i],
+    xy: sxy[j] - sxy[i],
+    y: sy[j] - sy[i],
+  });
+  const all = seg(0, n);
+  const yy = syy[n];
   let best = fallback;
   let bestRss = Infinity;
-  for (let k = 1; k <= n - 2; k++) {
-    const left = lineFit(0, k + 1);
-    const right = lineFit(k, n);
-    // the left side must not be rising faster than the right: a pull-down turning into a hold
-    if (left.slope > right.slope) continue;
-    const rss = left.rss + right.rss;
+  for (let k = Math.max(1, splitFrom - from); k <= Math.min(n - 2, splitTo - from); k++) {
+    const xk = t[from + k] - t0;
+    const L = seg(0, k + 1);
+    const R = seg(k + 1, n);
+    const su = L.x - L.n * xk;
+    const suu = L.xx - 2 * xk * L.x + L.n * xk * xk;
+    const suy = L.xy - xk * L.y;
+    const sv = R.x - R.n * xk;
+    const svv = R.xx - 2 * xk * R.x + R.n * xk * xk;
+    const svy = R.xy - xk * R.y;
+    const det = n * suu * svv - su * su * svv - sv * sv * suu;
+    if (!(Math.abs(det) > 1e-12)) continue;
+    const a = (all.y * suu * svv - su * suy * svv - sv * svy * suu) / det;
+    const b = (n * suy * svv - all.y * su * svv - sv * sv * suy + sv * su * svy) / det;
+    const c = (n * suu * svy - su * su * svy - all.y * sv * suu + su * sv * suy) / det;
+    // a pull-down turning into a hold: the right side must rise faster than the left
+    if (b > c) continue;
+    const rss = yy - (a * all.y + b * suy + c * svy);
     if (rss < bestRss) {
       bestRss = rss;
       best = from + k;

@@ -83,12 +83,13 @@ function argmaxMedian3(p: ArrayLike<number>, from: number, to: number): number {
 }
 
 /** Place the isolation near trough bin `b` with a change-point fit on the raw readings. */
-function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBin: number, endBin: number, threshold: number, endIndex: number): number {
+function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBin: number, endBin: number, threshold: number, endIndex: number, noiseLog: number): number {
   const y = bins.logMicrons;
   const yb = y[b];
   let peak = yb;
   for (let j = b; j <= endBin; j++) peak = Math.max(peak, y[j]);
-  const riseTarget = yb + Math.max(threshold / 2, (peak - yb) / 2);
+  // the start of the rise is the straightest part of it: fit only up to a quarter of the rise
+  const riseTarget = yb + Math.max(threshold / 4, (peak - yb) / 4);
   let r = b + 1;
   while (r < endBin && y[r] < riseTarget) r++;
   let l = b - 1;
@@ -100,9 +101,20 @@ function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBi
   let from = bins.start[l];
   const rightSpan = Math.max(t[to] - t[trough], 1);
   // keep the left window comparable to the right one so the curved pull-down tail does not dominate
-  while (from < trough - 10 && t[trough] - t[from] > rightSpan) from++;
+  while (from < trough - 10 && t[trough] - t[from] > 1.5 * rightSpan) from++;
   from = Math.min(from, Math.max(trough - 4, 0));
-  return hingeSplit(t, p, from, to, trough);
+  // the smoothed trough is close already: search the split near the bins that tie with it (a flat
+  // bottom within the noise), plus 90 s either side
+  const tie = Math.max(noiseLog, 0.002);
+  let first = b;
+  while (first - 1 > Math.max(prevBin, l) && y[first - 1] <= yb + tie) first--;
+  let last = b;
+  while (last + 1 < Math.min(endBin, r) && y[last + 1] <= yb + tie) last++;
+  const sample = Math.max((t[to] - t[from]) / Math.max(to - from, 1), 1e-9);
+  const reach = Math.max(2, Math.ceil(90 / sample));
+  const lo = Math.max(from, bins.start[first] - reach);
+  const hi = Math.min(to, bins.start[last + 1] - 1 + reach);
+  return hingeSplit(t, p, from, to, trough, lo, hi);
 }
 
 /** Where in [start, end] the vacuum is broken: over-range markers or a jump far above the trend. */
@@ -181,7 +193,7 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
       let start = 0;
       let seen = false;
       if (fallBefore) {
-        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end);
+        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog);
         seen = start > 0;
       }
       if (end <= start) end = Math.min(start + 1, n - 1);

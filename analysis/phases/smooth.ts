@@ -42,10 +42,11 @@ export function medianIntervalSeconds(t: ArrayLike<number>): number {
 }
 
 /**
- * Relative gauge noise (standard deviation as a fraction of the reading) from the median absolute
- * second difference of log readings: for white noise Var(Δ²y) = 6σ², so
- * σ_rel ≈ ln(10) · MAD(Δ² log10 p) / (0.6745 · √6). Second differences cancel straight-line trends,
- * and the median ignores a few spikes (robust scale estimate, Hampel 1974). Capped at 20 %.
+ * Relative gauge noise (standard deviation as a fraction of the reading) from the lower quartile of
+ * the absolute second differences of log readings. For white noise Δ²y ~ N(0, 6σ²) and the lower
+ * quartile of |N(0, s²)| is 0.3186·s, so σ_rel ≈ ln(10) · Q25(|Δ² log10 p|) / (0.3186 · √6). Second
+ * differences cancel straight-line trends; the lower quartile ignores spikes and the curvature of a
+ * sparsely sampled pull-down (robust scale estimation in the manner of Hampel 1974). Capped at 20 %.
  */
 export function relativeNoise(microns: ArrayLike<number>): number {
   const n = microns.length;
@@ -56,8 +57,8 @@ export function relativeNoise(microns: ArrayLike<number>): number {
     d.push(Math.abs(Math.log10(microns[i]) - 2 * Math.log10(microns[i - 1]) + Math.log10(microns[i - 2])));
   }
   d.sort((a, b) => a - b);
-  const mad = d[d.length >> 1];
-  return Math.min(Math.max((Math.LN10 * mad) / (0.6745 * Math.sqrt(6)), 0.001), 0.2);
+  const q25 = d[d.length >> 2];
+  return Math.min(Math.max((Math.LN10 * q25) / (0.3186 * Math.sqrt(6)), 0.001), 0.2);
 }
 
 /** Bin readings by time so that there are at most `maxBins` bins and each spans ≥ one interval. */

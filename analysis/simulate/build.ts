@@ -132,7 +132,8 @@ export function simulateFromParams(params: SimulationParams, scenario: string | 
   const holdStart = Math.max(holdSeg.startSeconds, 0);
   const holdSeconds = holds[primary].endSeconds - holdStart;
   const plateauMicrons = last.hold.plateauRiseMicrons > 0 ? isolationMicrons + last.hold.plateauRiseMicrons : null;
-  const holdReadings = holdCounts.get(lastAttempt) ?? 0;
+  // the analysis counts the lowest reading before the rise as the hold's first
+  const holdReadings = (holdCounts.get(lastAttempt) ?? 0) + (holds[primary].isolationAtSeconds !== null ? 1 : 0);
   const truth: SimulationTruth = {
     scenario,
     seed: params.seed,

@@ -91,8 +91,13 @@ export function renderLog(rows: RenderRow[], spec: RenderSpec): string {
   const startMs = Date.parse(spec.startIso);
   const label = UNIT_LABEL[spec.unit];
   const lines: string[] = [];
+  // an over-range marker such as ">25000" names the gauge's top in the log's own unit
+  const marker = (m: string | undefined, comma: boolean): string => {
+    const top = /^>(\d+)$/.exec(m ?? "");
+    return top ? `>${formatReading(Number(top[1]), spec.unit, comma)}` : (m ?? "");
+  };
   const cell = (r: RenderRow, comma = false): string =>
-    r.microns === null ? (r.marker ?? "") : formatReading(r.microns, spec.unit, comma);
+    r.microns === null ? marker(r.marker, comma) : formatReading(r.microns, spec.unit, comma);
   switch (spec.layout) {
     case "iso":
       lines.push(`timestamp,pressure (${label})`);

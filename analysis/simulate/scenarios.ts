@@ -3,7 +3,7 @@
  * verdict and findings the log should give. All data invented.
  */
 import type { PressureUnit } from "../types";
-import { makePulldownCurve, type HoldSpec, type PulldownSpec } from "./curve";
+import { holdMicrons, makePulldownCurve, type HoldSpec, type PulldownSpec } from "./curve";
 import type { AttemptSpec, SimulationParams } from "./params";
 import { makeRng, type Rng } from "./prng";
 import { LAYOUTS, UNITS, type Layout } from "./render";
@@ -153,20 +153,23 @@ function draw(o: ScenarioOptions, rng: Rng): Drawn {
       return { ...d, sampleSeconds: rng.uniform(150, 300), startInHoldAllowed: false };
     }
     case "multi_attempt": {
+      // each re-pull starts where the last hold ended and isolates at a drawn pressure
+      const firstSpec = pulldownTo(rng, basePulldown(rng), iso);
       const first: AttemptSpec = {
-        pulldown: pulldownTo(rng, basePulldown(rng), iso),
+        pulldown: firstSpec,
         hold: rng.chance(0.5) ? leakHold(rng, rng.uniform(5, 10), 60, 300) : moistureHold(rng, iso, rng.uniform(8, 12)),
       };
       const attempts = [first];
+      let endMicrons = holdMicrons(first.hold, makePulldownCurve(firstSpec, rng).endMicrons, first.hold.holdSeconds);
       const extra = rng.int(1, 2);
       for (let k = 0; k < extra; k++) {
         const iso2 = rng.uniform(150, 400);
-        const pd = { ...basePulldown(rng), moistureMicrons: rng.uniform(50, 400), startMicrons: 0 };
         const last = k === extra - 1;
-        attempts.push({
-          pulldown: { ...pd, durationSeconds: rng.uniform(420, 1200) },
-          hold: last ? (rng.chance(0.6) ? tightHold(rng, iso2, minutes) : leakHold(rng, minutes)) : leakHold(rng, rng.uniform(5, 9), 60, 300),
-        });
+        const spec = pulldownTo(rng, { ...basePulldown(rng), moistureMicrons: rng.uniform(50, 300), startMicrons: endMicrons }, iso2);
+        const isoReached = makePulldownCurve(spec, rng).endMicrons;
+        const hold = last ? (rng.chance(0.6) ? tightHold(rng, isoReached, minutes) : leakHold(rng, minutes)) : leakHold(rng, rng.uniform(5, 9), 60, 300);
+        attempts.push({ pulldown: spec, hold });
+        endMicrons = holdMicrons(hold, isoReached, hold.holdSeconds);
       }
       const lastHold = attempts[attempts.length - 1].hold;
       return { attempts, findings: lastHold.leakMicronsPerMinute > 0 ? ["leak"] : [], startInHoldAllowed: false };
