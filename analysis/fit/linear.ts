@@ -58,7 +58,7 @@ export function solveLinearLeastSquares(
   let row = 0;
   for (let j = 0; j < p; j++) {
     const col = a[j];
-    // Apply earlier reflections already done in place (they were applied to all later columns).
+    // Earlier reflections have already been applied to this column in place.
     let norm2 = 0;
     for (let i = row; i < n; i++) norm2 += col[i] * col[i];
     const norm = Math.sqrt(norm2);
@@ -147,7 +147,8 @@ export function fitStraightLine(
   }
   const dof = n - ls.rank;
   const s2 = dof > 0 ? rss / dof : NaN;
-  const covariance = ls.inverseNormal.map((r) => r.map((v) => v * s2));
+  // A dropped column (all x equal) has no defined slope uncertainty: NaN, not 0.
+  const covariance = ls.inverseNormal.map((r, i) => r.map((v, j) => (ls.dropped.includes(i) || ls.dropped.includes(j) ? NaN : v * s2)));
   return {
     b0,
     b1,

@@ -22,14 +22,14 @@ describe("tubeLitresPerFoot — ACR copper tube", () => {
       expect(Math.abs(tubeLitresPerFoot(od, temper) * 1000 - mlPerFoot)).toBeLessThanOrEqual(0.005);
     });
   }
-  it("defaults to annealed and rejects a size not in the table with LogError invalid_option", () => {
+  it("defaults to annealed and rejects a size not in the table with LogError invalid_option (common practice, no published source)", () => {
     expect(tubeLitresPerFoot("3/8")).toBe(tubeLitresPerFoot("3/8", "annealed"));
     expect(() => tubeLitresPerFoot("5/16")).toThrow(LogError);
   });
 });
 
 describe("systemVolumeLitres", () => {
-  it("prefers litres when given", () => {
+  it("prefers litres when given (interface contract, no published source)", () => {
     expect(systemVolumeLitres({ litres: 4.2, coilLitres: 1 })).toBe(4.2);
   });
   it("sums liquid and suction line per set plus the coil (ASTM B280 volumes, CHECK-VALUES.md)", () => {
@@ -37,10 +37,10 @@ describe("systemVolumeLitres", () => {
     const v = systemVolumeLitres({ lineSet: [{ lengthFeet: 25, liquidOd: "3/8", suctionOd: "3/4" }], coilLitres: 1.5 })!;
     expect(Math.abs(v - (2.159 + 1.5))).toBeLessThan(0.001);
   });
-  it("is null when nothing is known", () => {
+  it("is null when nothing is known (interface contract, no published source)", () => {
     expect(systemVolumeLitres({})).toBeNull();
   });
-  it("rejects a negative length with LogError invalid_option", () => {
+  it("rejects a negative length with LogError invalid_option (interface contract, no published source)", () => {
     expect(() => systemVolumeLitres({ lineSet: [{ lengthFeet: -1, liquidOd: "1/4", suctionOd: "1/2" }] })).toThrow(LogError);
   });
 });

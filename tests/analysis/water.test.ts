@@ -75,7 +75,7 @@ describe("iceEquilibriumC / waterBoilingC", () => {
   it("boils water at 100 °C near one atmosphere, 760,000 microns, within 0.05 °C (steam tables, from memory)", () => {
     expect(Math.abs(waterBoilingC(760000) - 100)).toBeLessThan(0.05);
   });
-  it("is NaN for a vacuum beyond the equations' range (0 microns)", () => {
+  it("is NaN for a vacuum beyond the equations' range, 0 microns (PsychroLib's stated range)", () => {
     expect(iceEquilibriumC(0)).toBeNaN();
   });
 });
