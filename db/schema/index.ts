@@ -4,3 +4,4 @@ export * from "./tests";
 export * from "./review";
 export * from "./rigs";
 export * from "./pressure";
+export * from "./casebook";
