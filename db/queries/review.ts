@@ -1,6 +1,6 @@
-import { and, asc, eq, gte, inArray, lte, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gte, inArray, lte, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { analyses, member, sites, systems, testEvents, user, vacuumTests, type TestEventKind, type TestStatus } from "@/db/schema";
+import { analyses, member, organization, sites, systems, testEvents, user, vacuumTests, type TestEventKind, type TestStatus } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
 
 /** The review fields of one test of the organization, locked for update in this transaction. */
@@ -193,3 +193,21 @@ export async function countTestsWaitingReviewByOrganization(db: Db, params: { vi
   return row?.n ?? 0;
 }
 
+
+/** The organization's name (for the report heading). */
+export async function getOrganizationNameById(db: Db, params: { organizationId: string }): Promise<string | null> {
+  const [row] = await db.select({ name: organization.name }).from(organization).where(eq(organization.id, params.organizationId)).limit(1);
+  return row?.name ?? null;
+}
+
+/** The latest sign-off of a test with who and when, or null. */
+export async function getLatestSignOffByTest(db: Db, params: { organizationId: string; testId: string }) {
+  const [row] = await db
+    .select({ at: testEvents.createdAt, note: testEvents.note, actorName: user.name })
+    .from(testEvents)
+    .leftJoin(user, eq(user.id, testEvents.actorId))
+    .where(and(eq(testEvents.organizationId, params.organizationId), eq(testEvents.testId, params.testId), eq(testEvents.kind, "signed_off")))
+    .orderBy(desc(testEvents.createdAt))
+    .limit(1);
+  return row ?? null;
+}

@@ -9,21 +9,13 @@ import {
   claimOutboxMailById, insertOutboxMail, listUnsentOutboxMailIds, markOutboxMailFailed, markOutboxMailSent, type NewOutboxMail, type OutboxRow,
 } from "@/db/queries/outbox";
 import { log } from "@/lib/log";
-import { mailSender, type MailWithAttachments } from "./transport";
+import { mailSender } from "./transport";
 
 /** Automatic resends stop after this many attempts; a person's resend always tries. */
 export const MAX_MAIL_ATTEMPTS = 5;
 
 /** Longest a request waits for delivery before it answers anyway (the rows stay for resend). */
 const DELIVERY_WAIT_MS = 4000;
-
-export type AttachmentBuilder = (db: Database, row: OutboxRow) => Promise<MailWithAttachments["attachments"]>;
-const attachmentBuilders: Partial<Record<NonNullable<OutboxRow["attachment"]>, AttachmentBuilder>> = {};
-
-/** lib/reports registers the report PDF builder here (kept apart so notify does not import PDF code). */
-export function registerAttachmentBuilder(kind: NonNullable<OutboxRow["attachment"]>, build: AttachmentBuilder): void {
-  attachmentBuilders[kind] = build;
-}
 
 /** Queue messages in the caller's transaction; returns their ids for deliverMail after commit. */
 export async function queueMail(tx: Db, mails: NewOutboxMail[]): Promise<string[]> {
@@ -36,9 +28,8 @@ export interface DeliveryReport {
 }
 
 async function sendRow(db: Database, row: OutboxRow): Promise<void> {
-  const build = row.attachment ? attachmentBuilders[row.attachment] : undefined;
-  if (row.attachment && !build) throw new Error(`no builder for attachment ${row.attachment}`);
-  const attachments = build ? await build(db, row) : undefined;
+  // Loaded only when a row needs it, so notifications never pull in the PDF code.
+  const attachments = row.attachment === "report_pdf" ? await (await import("@/lib/reports/attach")).reportAttachments(db, row) : undefined;
   await mailSender()({ to: row.to, subject: row.subject, text: row.text, html: row.html, ...(attachments ? { attachments } : {}) });
 }
 
