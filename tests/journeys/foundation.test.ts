@@ -1,0 +1,98 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { randomUUID } from "node:crypto";
+import { chromium, type Browser, type BrowserContext } from "playwright-core";
+import { APP_URL, PHONE } from "./browser";
+import { uniqueEmail, PASSWORD } from "../helpers/members";
+
+/**
+ * The flags of ./browser.ts launch() without --user-data-dir, which playwright-core 1.65 refuses
+ * on launch(); each browser gets its own throw-away profile anyway.
+ */
+async function launchChromium() {
+  const browser: Browser = await chromium.launch({
+    executablePath: "/usr/bin/chromium",
+    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+  });
+  return {
+    newContext: (o?: Parameters<Browser["newContext"]>[0]): Promise<BrowserContext> => browser.newContext({ baseURL: APP_URL, ...o }),
+    close: () => browser.close(),
+  };
+}
+
+let s: Awaited<ReturnType<typeof launchChromium>>;
+beforeAll(async () => {
+  s = await launchChromium();
+});
+afterAll(async () => {
+  await s?.close();
+});
+
+describe("foundation journey on a 360 px phone (common practice, no published source)", () => {
+  it("starts a shop, invites a technician, and the technician joins from the mailed link", async () => {
+    const shopName = `Northwind Cooling ${randomUUID().slice(0, 4)}`;
+    const ownerEmail = uniqueEmail("journey-owner");
+    const techEmail = uniqueEmail("journey-tech");
+
+    // 1. The owner starts a shop.
+    const ownerCtx = await s.newContext(PHONE);
+    // A dev server compiles each page on first visit, which can take tens of seconds on a busy machine.
+    ownerCtx.setDefaultTimeout(90_000);
+    const page = await ownerCtx.newPage();
+    await page.goto("/sign-up");
+    await page.getByLabel("Your name").fill("Opal Owner");
+    await page.getByLabel("E-mail").fill(ownerEmail);
+    await page.getByLabel("Password").fill(PASSWORD);
+    await page.getByLabel("Shop name").fill(shopName);
+    await page.getByRole("button", { name: "Create account and shop" }).click();
+    await page.waitForURL(/\/home$/, { timeout: 90_000 });
+
+    // 2. Inside the shell: the bottom bar shows on a phone, the sidebar does not.
+    await expect.poll(() => page.getByTestId("bottom-nav").isVisible()).toBe(true);
+    expect(await page.getByTestId("sidebar").isVisible()).toBe(false);
+    expect(await page.getByTestId("member-role").filter({ visible: true }).first().textContent()).toBe("Owner");
+
+    // 3. Shop (behind "More" on a phone) → invite a technician.
+    await page.getByTestId("more-button").click();
+    await page.getByTestId("more-sheet").getByRole("link", { name: "Shop" }).click();
+    await page.waitForURL(/\/settings\/members$/);
+    await page.getByLabel("Their e-mail").fill(techEmail);
+    await page.getByLabel("Role", { exact: true }).selectOption("technician");
+    await page.getByRole("button", { name: "Send invitation" }).click();
+    await expect.poll(() => page.getByText(`Invitation sent to ${techEmail}.`).isVisible(), { timeout: 60_000 }).toBe(true);
+    await expect.poll(() => page.getByTestId("invitation-list").textContent()).toContain(techEmail);
+
+    // 4. The dev mailbox shows the invitation; its link is read from the page.
+    let inviteHref: string | null = null;
+    for (let i = 0; i < 20 && !inviteHref; i++) {
+      await page.goto("/dev/mailbox");
+      const item = page.getByTestId("mail-list").getByRole("link").filter({ hasText: techEmail }).first();
+      if (await item.count()) {
+        await item.click();
+        await page.getByTestId("mail-message").waitFor();
+        inviteHref = await page.getByTestId("mail-message").locator('a[href*="/invite/"]').first().getAttribute("href");
+      } else await page.waitForTimeout(500);
+    }
+    expect(inviteHref).toMatch(/\/invite\/[A-Za-z0-9_-]+$/);
+    await ownerCtx.close();
+
+    // 5. The technician opens the link in a fresh browser and creates the account.
+    const techCtx = await s.newContext(PHONE);
+    techCtx.setDefaultTimeout(90_000);
+    const tech = await techCtx.newPage();
+    await tech.goto(inviteHref!);
+    expect(await tech.getByRole("heading", { level: 1 }).textContent()).toBe(`Join ${shopName}`);
+    expect(await tech.getByLabel("E-mail").inputValue()).toBe(techEmail);
+    await tech.getByLabel("Your name").fill("Tomas Tech");
+    await tech.getByLabel("Choose a password").fill(PASSWORD);
+    await tech.getByRole("button", { name: "Create account and join" }).click();
+    await tech.waitForURL(/\/home$/, { timeout: 90_000 });
+
+    // 6. Signed in as the technician inside the shop.
+    await expect.poll(() => tech.getByTestId("bottom-nav").isVisible()).toBe(true);
+    expect(await tech.getByTestId("member-role").filter({ visible: true }).first().textContent()).toBe("Technician");
+    expect(await tech.getByTestId("shop-name").filter({ visible: true }).first().textContent()).toBe(shopName);
+    // A technician does not sign tests off, so Review is not among the places.
+    expect(await tech.getByTestId("bottom-nav").getByRole("link", { name: "Review" }).count()).toBe(0);
+    await techCtx.close();
+  });
+});
