@@ -162,7 +162,7 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
   }
   if (read.unitsSeen > 1) assumptions.push("the unit column changes between rows: each reading converted with its own unit");
   if (read.footerRows > 0) assumptions.push(`${read.footerRows} line${read.footerRows === 1 ? "" : "s"} at the end with no time ignored (footer)`);
-  if (read.ignoredLines > 0) assumptions.push(`${read.ignoredLines} line${read.ignoredLines === 1 ? "" : "s"} with a single cell ignored (not data)`);
+  if (read.ignoredLines > 0) assumptions.push(`${read.ignoredLines} line${read.ignoredLines === 1 ? "" : "s"} with a single cell or a repeated header ignored (not data)`);
   if (read.skipped > 0 && read.overRangeRaw.length > 0)
     assumptions.push(`${read.overRangeRaw.length} reading${read.overRangeRaw.length === 1 ? "" : "s"} marked over range (gauge above its range)`);
   if (read.underRange > 0)

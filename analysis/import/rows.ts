@@ -91,6 +91,11 @@ export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec,
       const trimmed = timeCell.trim();
       if (trimmed !== timeCell) t = parse(trimmed, dateIndex >= 0 ? (row[dateIndex] ?? "").trim() : "");
       if (t !== t) {
+        // The header again (logs joined from two exports): not data.
+        if (trimmed === (header[timeIndex] ?? "").trim()) {
+          ignoredLines++;
+          continue;
+        }
         if (firstBad < 0) firstBad = i;
         badRows++;
         continue;

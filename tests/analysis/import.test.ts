@@ -209,6 +209,13 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     expect(log.tSeconds).toEqual([0, 10, 20, 30, 40]);
   });
 
+  it("two exports joined: the repeated header row is skipped, not a bad time", () => {
+    const part = (from: number) => ["timestamp,microns", ...[0, 1, 2].map((i) => `2026-06-14T13:0${from + i}:00Z,${700 - from - i}`)];
+    const log = importLog([...part(0), ...part(3)].join("\n"));
+    expect(log.tSeconds).toEqual([0, 60, 120, 180, 240, 300]);
+    expect(log.summary.assumptions.join(" ")).toMatch(/repeated header/);
+  });
+
   it("Unix time in seconds: startedAt from the stamps", () => {
     const start = Date.UTC(2026, 5, 14, 13, 5, 0) / 1000;
     const text = ["unix_time,microns", ...Array.from({ length: 6 }, (_, i) => `${start + 10 * i},${800 - i}`)].join("\n");
