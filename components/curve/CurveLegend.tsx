@@ -16,8 +16,8 @@ export function CurveLegend({ hasFit, hasBand }: { hasFit: boolean; hasBand: boo
       {item(stroke("text-tide-600 dark:text-tide-300"), "Reading")}
       {hasFit && item(stroke("text-ink dark:text-white"), "Fitted hold")}
       {hasBand && item(<span aria-hidden="true" className="inline-block h-3 w-7 rounded-sm bg-flare-500/25 ring-1 ring-flare-700/50" />, "Forecast (95 %)")}
-      {item(stroke("text-verdict-leak", "6 4"), "Limit")}
-      {item(stroke("text-verdict-pass", "2 3"), "Target")}
+      {item(stroke("text-verdict-leak dark:text-[#fb8a5c]", "6 4"), "Limit")}
+      {item(stroke("text-verdict-pass dark:text-[#5fd39a]", "2 3"), "Target")}
       {item(<svg width="14" height="16" aria-hidden="true" className="text-fg-soft"><line x1="7" y1="1" x2="7" y2="15" stroke="currentColor" strokeWidth="2" strokeDasharray="4 3" /></svg>, "Isolated")}
     </ul>
   );

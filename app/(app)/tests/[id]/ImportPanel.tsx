@@ -34,6 +34,9 @@ export function ImportPanel({ analysis, test }: { analysis: AnalysisResult; test
             </div>
           ))}
       </dl>
+      {analysis.holds.some((h) => h.fit) && (
+        <p className="mt-2 text-caption text-fg-soft">Curve model: {analysis.holds.map((h) => h.fit?.rule).filter(Boolean).join("; ")}</p>
+      )}
       {s.assumptions.length > 0 && (
         <ul className="mt-2 list-disc pl-5 text-caption text-fg-soft">
           {s.assumptions.map((a) => <li key={a}>{a}</li>)}

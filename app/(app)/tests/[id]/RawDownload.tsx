@@ -5,9 +5,9 @@ import { Alert, Button } from "@/components/ui";
 import { getRawLink, type TestDetail } from "@/lib/client/api";
 
 function sizeWords(bytes: number): string {
-  if (bytes < 1024) return `${bytes} B`;
-  if (bytes < 1048576) return `${(bytes / 1024).toFixed(0)} kB`;
-  return `${(bytes / 1048576).toFixed(1)} MB`;
+  if (bytes < 1024) return `${bytes}\u00a0B`;
+  if (bytes < 1048576) return `${(bytes / 1024).toFixed(0)}\u00a0kB`;
+  return `${(bytes / 1048576).toFixed(1)}\u00a0MB`;
 }
 
 /** The file exactly as uploaded, through a short-lived link. */
@@ -36,7 +36,7 @@ export function RawDownload({ testId, upload }: { testId: string; upload: TestDe
       >
         Download the raw file
       </Button>
-      <p className="break-all text-caption text-fg-soft">
+      <p className="break-words text-caption text-fg-soft">
         {upload.filename} · {sizeWords(upload.sizeBytes)} · SHA-256 {upload.sha256.slice(0, 12)}…
       </p>
       {error && <Alert tone="error">{error}</Alert>}

@@ -107,9 +107,19 @@ export function ReanalyseForm({ testId, analysis, fromFile, pickedSeconds, onPic
             }}
             className="flex-1"
           />
-          <Select label="In" value={isoUnit} onChange={(e) => setIsoUnit(e.target.value as "min" | "s")} className="w-28">
-            <option value="min">minutes</option>
-            <option value="s">seconds</option>
+          <Select
+            label="In"
+            value={isoUnit}
+            onChange={(e) => {
+              const u = e.target.value as "min" | "s";
+              setIsoUnit(u);
+              const v = toNumber(isolation);
+              onPick(v === null ? null : u === "min" ? v * 60 : v);
+            }}
+            className="w-28"
+          >
+            <option value="min">min</option>
+            <option value="s">sec</option>
           </Select>
         </div>
         <fieldset className="grid grid-cols-2 gap-2">

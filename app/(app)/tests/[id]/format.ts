@@ -49,3 +49,12 @@ export function dateTimeWords(iso: string | null | undefined): string {
   if (Number.isNaN(d.getTime())) return iso;
   return d.toLocaleString("en-US", { dateStyle: "medium", timeStyle: "short" });
 }
+
+/** Compact for the numbers grid: "45 s", "26 min", "22.5 min", "1 h 05 min". */
+export function minutesShort(seconds: number): string {
+  if (!Number.isFinite(seconds)) return "—";
+  if (Math.abs(seconds) < 60) return `${Math.round(seconds)} s`;
+  if (Math.abs(seconds) >= 3600) return durationWords(seconds);
+  const m = Math.round((seconds / 60) * 10) / 10;
+  return `${m} min`;
+}

@@ -1,0 +1,69 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { Alert, Button, Card, EmptyState, LinkButton, Spinner } from "@/components/ui";
+import { listTests, type TestListItem } from "@/lib/client/api";
+import { TestRow } from "../tests/TestRow";
+
+/** Sent back first, then not passing or not decided, leaving out tests already signed off. */
+export function needsAttention(items: TestListItem[]): TestListItem[] {
+  const rank = (t: TestListItem) => (t.status === "sent_back" ? 0 : t.verdict === "inconclusive" || t.verdict == null ? 2 : 1);
+  return items
+    .filter((t) => t.status === "sent_back" || (t.status !== "signed_off" && t.verdict !== "pass"))
+    .sort((a, b) => rank(a) - rank(b));
+}
+
+/** My recent tests and what needs my attention. */
+export function HomeLists({ userId }: { userId: string }) {
+  const q = useQuery({
+    queryKey: ["tests", "mine", userId],
+    queryFn: ({ signal }) => listTests({ technicianId: userId, limit: 30 }, signal),
+  });
+  if (q.isPending)
+    return (
+      <div className="flex items-center gap-3 py-8 text-fg-soft" role="status">
+        <Spinner label="" /> Loading your tests…
+      </div>
+    );
+  if (q.isError)
+    return (
+      <Alert tone="error" title="Your tests could not be loaded" action={<Button onClick={() => q.refetch()}>Retry</Button>}>
+        {(q.error as Error).message}
+      </Alert>
+    );
+  const items = q.data.items;
+  if (items.length === 0)
+    return (
+      <EmptyState title="No tests yet">
+        After your next evacuation, upload the micron gauge’s log or type the readings. The verdict and the curve show in seconds.
+      </EmptyState>
+    );
+  const attention = needsAttention(items).slice(0, 5);
+  const recent = items.slice(0, 5);
+  return (
+    <div className="grid gap-5 lg:grid-cols-2">
+      <Card title={`Needs your attention${attention.length ? ` (${attention.length})` : ""}`} data-testid="attention">
+        {attention.length === 0 ? (
+          <p className="text-body text-fg-soft">Nothing waiting on you. Every recent test passed or is signed off.</p>
+        ) : (
+          <ul className="space-y-3">
+            {attention.map((t) => (
+              <li key={t.id}>
+                <TestRow item={t} showTechnician={false} />
+              </li>
+            ))}
+          </ul>
+        )}
+      </Card>
+      <Card title="Your recent tests" data-testid="recent" actions={<LinkButton href={`/tests?technicianId=${encodeURIComponent(userId)}`} variant="quiet">All</LinkButton>}>
+        <ul className="space-y-3">
+          {recent.map((t) => (
+            <li key={t.id}>
+              <TestRow item={t} showTechnician={false} />
+            </li>
+          ))}
+        </ul>
+      </Card>
+    </div>
+  );
+}
