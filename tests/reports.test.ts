@@ -101,3 +101,30 @@ describe("e-mailing the report to a customer (reports.share is owner + lead, DEV
     expect((await send(crew.lead, { to: "not-an-address" })).status).toBe(400);
   });
 });
+
+describe("a system's history (visibility rule, DEVELOPERS.md)", () => {
+  it("lists every test on the system newest first with a curve; apprentices see only their own; another shop 404", async () => {
+    const { GET: systemGet } = await import("@/app/api/systems/[id]/route");
+    const { POST: customerPost, GET: customersGet } = await import("@/app/api/customers/route");
+    const org = crew.owner.organizationId;
+    const site = await createSite(db(), { organizationId: org, name: "Maple Street duplex" });
+    const system = await createSystem(db(), { organizationId: org, siteId: site.id, name: "Upstairs heat pump" });
+    const old = await seedTest(crew.technician, { systemId: system.id, siteId: site.id, testedAt: new Date("2026-01-10T15:00:00Z") });
+    const mid = await seedTest(crew.apprentice, { systemId: system.id, siteId: site.id, testedAt: new Date("2026-02-10T15:00:00Z") });
+    const recent = await seedTest(crew.technician, { systemId: system.id, siteId: site.id, verdict: "leak", testedAt: new Date("2026-03-10T15:00:00Z") });
+    const asLead = await (await systemGet(appRequest(`/api/systems/${system.id}`, { as: crew.lead }), routeParams({ id: system.id }))).json();
+    expect(asLead.tests.map((t: { id: string }) => t.id)).toEqual([recent, mid, old]);
+    expect(asLead.tests[0].curve.isolationMinutes).toBe(20);
+    const asApprentice = await (await systemGet(appRequest(`/api/systems/${system.id}`, { as: crew.apprentice }), routeParams({ id: system.id }))).json();
+    expect(asApprentice.tests.map((t: { id: string }) => t.id)).toEqual([mid]);
+    const stranger = await createShop();
+    expect((await systemGet(appRequest(`/api/systems/${system.id}`, { as: stranger }), routeParams({ id: system.id }))).status).toBe(404);
+
+    const made = await customerPost(appRequest("/api/customers", { method: "POST", as: crew.technician, body: JSON.stringify({ name: "Maple Street Rentals", email: "" }), headers: { "content-type": "application/json" } }));
+    expect(made.status).toBe(201);
+    expect((await made.json()).customer.email).toBeNull();
+    expect((await customerPost(appRequest("/api/customers", { method: "POST", as: crew.trainer, body: JSON.stringify({ name: "x" }), headers: { "content-type": "application/json" } }))).status).toBe(403);
+    const names = (await (await customersGet(appRequest("/api/customers", { as: stranger }))).json()).items.map((c: { name: string }) => c.name);
+    expect(names).not.toContain("Maple Street Rentals");
+  });
+});
