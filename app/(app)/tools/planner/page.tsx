@@ -1,0 +1,18 @@
+import type { Metadata } from "next";
+import { pageActor } from "@/lib/session";
+import { Planner } from "./Planner";
+
+export const metadata: Metadata = { title: "Pull-down planner" };
+
+export default async function PlannerPage() {
+  await pageActor();
+  return (
+    <div className="mx-auto w-full max-w-3xl space-y-4 px-4 py-5 sm:py-8">
+      <div>
+        <h1 className="text-headline">Pull-down planner</h1>
+        <p className="text-body text-fg-soft">The system, the pump and the hoses: how long to the target, and what would make it faster.</p>
+      </div>
+      <Planner />
+    </div>
+  );
+}

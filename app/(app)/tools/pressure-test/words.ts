@@ -1,0 +1,4 @@
+import type { NitrogenPressureUnit, NitrogenVerdict } from "@/analysis/nitrogen";
+
+export const UNIT_WORDS: Record<NitrogenPressureUnit, string> = { psig: "psig", kpa_gauge: "kPa gauge", bar_gauge: "bar gauge" };
+export const VERDICT_WORDS: Record<NitrogenVerdict, string> = { holds: "Holds", drops: "Drops: leak", rises: "Rises: check" };
