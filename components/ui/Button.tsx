@@ -11,7 +11,7 @@ const base =
   "disabled:cursor-not-allowed disabled:opacity-55 aria-disabled:cursor-not-allowed aria-disabled:opacity-55";
 
 const variants: Record<ButtonVariant, string> = {
-  primary: "bg-tide-600 text-white hover:bg-tide-700 active:bg-tide-800 dark:bg-tide-500 dark:text-tide-900 dark:hover:bg-tide-400",
+  primary: "bg-tide-600 text-white hover:bg-tide-700 active:bg-tide-800 dark:bg-tide-300 dark:text-tide-900 dark:hover:bg-tide-200",
   secondary:
     "border-2 border-tide-600 text-tide-700 bg-surface-raised hover:bg-tide-50 dark:border-tide-300 dark:text-tide-200 dark:hover:bg-tide-900",
   quiet: "text-fg hover:bg-surface-sunken",

@@ -64,7 +64,7 @@ export function Input({ label, hint, error, className, id, ...rest }: InputProps
         id={fid}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
-        className={cx(control, error ? "border-verdict-leak" : "border-surface-line")}
+        className={cx(control, error ? "border-verdict-leak" : "border-fg-faint")}
         {...rest}
       />
     </Field>
@@ -84,7 +84,7 @@ export function Select({ label, hint, error, className, id, options, children, .
         id={fid}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
-        className={cx(control, "pr-8", error ? "border-verdict-leak" : "border-surface-line")}
+        className={cx(control, "pr-8", error ? "border-verdict-leak" : "border-fg-faint")}
         {...rest}
       >
         {options?.map((o) => (
@@ -109,7 +109,7 @@ export function Textarea({ label, hint, error, className, id, rows = 4, ...rest 
         rows={rows}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
-        className={cx(control, "py-2", error ? "border-verdict-leak" : "border-surface-line")}
+        className={cx(control, "py-2", error ? "border-verdict-leak" : "border-fg-faint")}
         {...rest}
       />
     </Field>

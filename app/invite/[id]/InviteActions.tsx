@@ -113,7 +113,7 @@ export function InviteActions({ invitationId, invitedEmail, shopName, signedInEm
             onClick={() => { setMode(m); setError(null); setFieldError({}); }}
             className={"min-h-tap rounded-lg px-2 text-body font-medium " + (mode === m ? "bg-surface-raised text-fg shadow-card" : "text-fg-soft")}
           >
-            {m === "create" ? "I am new here" : "I have an account"}
+            {m === "create" ? "New here" : "Have an account"}
           </button>
         ))}
       </div>

@@ -83,7 +83,7 @@ export function MembersManager({ members, invitations, canManage, selfUserId }: 
                   </Button>
                 </div>
               ) : (
-                <Badge tone={m.role === "owner" ? "brand" : "neutral"}>{roleLabel(m.role)}</Badge>
+                <Badge tone={m.role === "owner" ? "brand" : "neutral"} className="self-start sm:self-auto">{roleLabel(m.role)}</Badge>
               )}
             </li>
           ))}
