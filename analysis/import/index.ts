@@ -124,11 +124,12 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
   const n = read.microns.length;
   const t0 = read.firstRaw;
 
-  let tSeconds = new Array<number>(n);
+  // Seconds from the first data row, written over the raw stamps (one array fewer for a big log).
+  let tSeconds = read.rawSeconds;
   let reordered = 0;
   let runningMax = -Infinity;
   for (let i = 0; i < n; i++) {
-    const t = read.rawSeconds[i] - t0;
+    const t = tSeconds[i] - t0;
     tSeconds[i] = t;
     if (t < runningMax) reordered++;
     else runningMax = t;
