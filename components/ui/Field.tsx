@@ -5,7 +5,7 @@ import { cx } from "./cx";
 
 const control =
   "block w-full min-h-tap rounded-xl border-2 bg-surface-raised px-3 text-body text-fg placeholder:text-fg-faint " +
-  "focus:border-tide-600 focus:outline-none dark:focus:border-tide-300 disabled:opacity-60";
+  "focus:border-tide-600 dark:focus:border-tide-300 disabled:opacity-60";
 
 export interface FieldProps {
   label: ReactNode;

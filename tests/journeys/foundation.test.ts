@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { chromium, type Browser, type BrowserContext } from "playwright-core";
 import { APP_URL, PHONE } from "./browser";
-import { uniqueEmail, PASSWORD } from "../helpers/members";
+import { createShop, uniqueEmail, PASSWORD } from "../helpers/members";
+import { firstAppLink, waitForMail } from "../helpers/mailbox";
 
 /**
  * The flags of ./browser.ts launch() without --user-data-dir, which playwright-core 1.65 refuses
@@ -94,5 +95,38 @@ describe("foundation journey on a 360 px phone (common practice, no published so
     // A technician does not sign tests off, so Review is not among the places.
     expect(await tech.getByTestId("bottom-nav").getByRole("link", { name: "Review" }).count()).toBe(0);
     await techCtx.close();
+  });
+
+  it("resets a forgotten password from the e-mailed link and signs in with the new one", async () => {
+    const owner = await createShop("Cedar Service Co");
+    const ctx = await s.newContext(PHONE);
+    ctx.setDefaultTimeout(90_000);
+    const page = await ctx.newPage();
+    await page.goto("/sign-in");
+    await page.getByRole("link", { name: "Forgot password?" }).click();
+    await page.waitForURL(/\/forgot-password/);
+    await page.getByLabel("E-mail").fill(owner.email);
+    await page.getByRole("button", { name: "Send the reset link" }).click();
+    await expect.poll(() => page.getByText("Check your e-mail").isVisible(), { timeout: 60_000 }).toBe(true);
+
+    const mail = await waitForMail(owner.email, /reset/i, 30_000);
+    await page.goto(firstAppLink(mail));
+    await page.waitForURL(/\/reset-password\?token=/);
+    const newPassword = "a-fresh-password-for-cedar";
+    await page.getByLabel("New password", { exact: true }).fill(newPassword);
+    await page.getByLabel("New password again").fill(newPassword);
+    await page.getByRole("button", { name: "Save the new password" }).click();
+    await page.waitForURL(/\/sign-in\?reset=1/);
+
+    // The old password no longer works; the new one opens the shop.
+    await page.getByLabel("E-mail").fill(owner.email);
+    await page.getByLabel("Password").fill(PASSWORD);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await expect.poll(() => page.getByText("That e-mail and password do not match", { exact: false }).isVisible(), { timeout: 60_000 }).toBe(true);
+    await page.getByLabel("Password").fill(newPassword);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/home$/);
+    expect(await page.getByTestId("shop-name").filter({ visible: true }).first().textContent()).toBe("Cedar Service Co");
+    await ctx.close();
   });
 });
