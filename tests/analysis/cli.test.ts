@@ -8,12 +8,13 @@ const root = path.resolve(import.meta.dirname, "../..");
 const tsx = path.join(root, "node_modules/.bin/tsx");
 
 function cli(...args: string[]) {
-  const r = spawnSync(tsx, ["analysis/cli.ts", ...args], { cwd: root, encoding: "utf8", timeout: 60_000 });
+  const r = spawnSync(tsx, ["analysis/cli.ts", ...args], { cwd: root, encoding: "utf8", timeout: 100_000 });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
 // The CLI contract (stdout shape and exit codes) is ours: common practice, no published source.
-describe("analysis CLI (tsx analysis/cli.ts)", () => {
+// Each case starts tsx processes (a few seconds each on a loaded machine): allow 2 minutes per case.
+describe("analysis CLI (tsx analysis/cli.ts)", { timeout: 120_000 }, () => {
   it("--json prints exactly one AnalysisResult object with the required keys", () => {
     const r = cli("fixtures/samples/sample-1-iso-microns.csv", "--json");
     expect(r.stderr).toBe("");
