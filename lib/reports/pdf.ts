@@ -5,20 +5,15 @@
  */
 import PDFDocument from "pdfkit";
 import type { ReportCurve, ReportModel } from "./model";
+import { logAxisOf } from "./axis";
+
+export { logAxisOf };
 
 const INK = "#14232b";
 const MUTED = "#50616b";
 const ACCENT = "#0b6e69";
 const LIMIT = "#b3261e";
 const HOLD_FILL = "#e3f1ef";
-
-/** Decades of microns the y axis spans: from the decade below the lowest reading (≥ 10) to above the highest. */
-export function logAxisOf(curve: ReportCurve): { minLog: number; maxLog: number } {
-  const values = [...curve.microns.filter((v) => v > 0), curve.limitMicrons];
-  const lo = Math.max(1, Math.floor(Math.log10(Math.max(10, Math.min(...values)))));
-  const hi = Math.ceil(Math.log10(Math.max(...values) * 1.05));
-  return { minLog: lo, maxLog: Math.max(hi, lo + 1) };
-}
 
 function drawCurve(doc: PDFKit.PDFDocument, curve: ReportCurve, x0: number, y0: number, w: number, h: number) {
   const { minLog, maxLog } = logAxisOf(curve);

@@ -1,0 +1,37 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { db } from "@/db/client";
+import { LinkButton } from "@/components/ui";
+import { PrintButton } from "@/components/review/PrintButton";
+import { ReportView } from "@/components/review/ReportView";
+import { getTestById } from "@/db/queries/tests";
+import { buildReportModel } from "@/lib/reports/model";
+import { pageActor } from "@/lib/session";
+
+export const metadata: Metadata = { title: "Report" };
+export const dynamic = "force-dynamic";
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** The printable report of a test the member can see. */
+export default async function ReportPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const actor = await pageActor();
+  if (!UUID.test(id)) notFound();
+  const visible = await getTestById(db(), { viewer: { organizationId: actor.organizationId, userId: actor.userId, role: actor.role }, testId: id });
+  if (!visible) notFound();
+  const model = await buildReportModel(db(), { organizationId: actor.organizationId, testId: id });
+  if (!model) notFound();
+  return (
+    <div className="px-4 py-5 sm:py-8 print:p-0">
+      {/* Print only the report: the app's navigation and these buttons stay on screen. */}
+      <style>{"@media print{body *{visibility:hidden}.report,.report *{visibility:visible}.report{position:absolute;inset:0 auto auto 0;width:100%}@page{margin:14mm}}"}</style>
+      <div className="mx-auto mb-4 flex max-w-3xl flex-wrap gap-2 print:hidden">
+        <LinkButton href={`/tests/${id}`} variant="quiet">← Back to the test</LinkButton>
+        <PrintButton />
+        <LinkButton href={`/api/tests/${id}/report?download=1`} variant="secondary" prefetch={false}>Download PDF</LinkButton>
+      </div>
+      <ReportView model={model} />
+    </div>
+  );
+}

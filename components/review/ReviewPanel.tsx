@@ -1,0 +1,99 @@
+"use client";
+
+import { useState } from "react";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { Alert, Badge, Button, Card, Spinner, Textarea } from "@/components/ui";
+import type { ReviewAction } from "@/lib/review/state";
+import { getReviewState, postReviewAction, reviewKeys } from "./api";
+import { STATUS_LABEL } from "./words";
+
+export interface ReviewPanelProps {
+  testId: string;
+  /** Called after any change so the page can refetch the test (its status line). */
+  onChanged?: () => void;
+}
+
+const BUTTON: Record<ReviewAction, string> = {
+  request_review: "Ask for review",
+  ask_help: "Ask for help",
+  sign_off: "Sign off",
+  send_back: "Send back",
+  resubmit: "Resubmit after re-test",
+};
+
+const NOTE_LABEL: Partial<Record<ReviewAction, string>> = {
+  send_back: "What should the technician do?",
+  ask_help: "What do you need help with?",
+  resubmit: "What did you do? (optional)",
+  sign_off: "Note for the record (optional)",
+};
+
+/**
+ * Review of one test: its status and the actions the member may take now (the server decides
+ * which). Send back asks for a request such as "pull down again and hold 15 minutes".
+ */
+export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
+  const qc = useQueryClient();
+  const q = useQuery({ queryKey: reviewKeys.state(testId), queryFn: ({ signal }) => getReviewState(testId, signal) });
+  const [open, setOpen] = useState<ReviewAction | null>(null);
+  const [note, setNote] = useState("");
+  const m = useMutation({
+    mutationFn: ({ action, note }: { action: ReviewAction; note: string }) => postReviewAction(testId, action, note),
+    onSuccess: () => {
+      setOpen(null);
+      setNote("");
+      for (const k of [reviewKeys.state(testId), reviewKeys.events(testId), ["test", testId]]) void qc.invalidateQueries({ queryKey: k });
+      onChanged?.();
+    },
+  });
+
+  if (q.isPending) return <Card title="Review"><Spinner label="Loading the review state" /></Card>;
+  if (q.isError) return <Alert tone="error" title="Review state not loaded">{(q.error as Error).message}</Alert>;
+  const { status, helpRequested, actions } = q.data;
+
+  const start = (a: ReviewAction) => {
+    m.reset();
+    if (a === "request_review") m.mutate({ action: a, note: "" });
+    else {
+      setOpen(a);
+      setNote("");
+    }
+  };
+
+  return (
+    <Card title="Review" actions={<Badge tone={status === "signed_off" ? "pass" : status === "sent_back" ? "attention" : "brand"}>{STATUS_LABEL[status]}</Badge>} data-testid="review-panel">
+      <div className="space-y-3">
+        {helpRequested && <p className="text-body font-medium">The technician asked for help.</p>}
+        {actions.length === 0 && <p className="text-body text-fg-soft">{status === "signed_off" ? "Signed off: this record is final." : "Nothing to do here for your role."}</p>}
+        {open ? (
+          <form
+            className="space-y-3"
+            onSubmit={(e) => {
+              e.preventDefault();
+              m.mutate({ action: open, note });
+            }}
+          >
+            <Textarea label={NOTE_LABEL[open] ?? "Note"} value={note} onChange={(e) => setNote(e.target.value)} rows={3} required={open === "send_back" || open === "ask_help"} maxLength={2000} />
+            <div className="flex flex-wrap gap-2">
+              <Button type="submit" busy={m.isPending} variant={open === "send_back" ? "attention" : "primary"}>
+                {BUTTON[open]}
+              </Button>
+              <Button variant="quiet" onClick={() => setOpen(null)}>
+                Cancel
+              </Button>
+            </div>
+          </form>
+        ) : (
+          <div className="flex flex-wrap gap-2">
+            {actions.map((a) => (
+              <Button key={a} variant={a === "sign_off" || a === "resubmit" || a === "request_review" ? "primary" : a === "send_back" ? "attention" : "secondary"} onClick={() => start(a)} busy={m.isPending && m.variables?.action === a}>
+                {BUTTON[a]}
+              </Button>
+            ))}
+          </div>
+        )}
+        {m.isError && <Alert tone="error">{(m.error as Error).message}</Alert>}
+      </div>
+    </Card>
+  );
+}

@@ -1,0 +1,57 @@
+/** The browser's calls for review, comments, the audit trail, share links and report e-mail. */
+import { apiFetch } from "@/lib/client/api";
+import type { ReviewAction } from "@/lib/review/state";
+
+export type Status = "submitted" | "waiting_review" | "signed_off" | "sent_back";
+
+export interface ReviewState {
+  status: Status;
+  helpRequested: boolean;
+  actions: ReviewAction[];
+}
+export interface CommentItem {
+  id: string;
+  body: string;
+  atSeconds: number | null;
+  createdAt: string;
+  authorId: string;
+  authorName: string;
+}
+export interface EventItem {
+  id: string;
+  kind: string;
+  fromStatus: Status | null;
+  toStatus: Status | null;
+  note: string | null;
+  createdAt: string;
+  actorName: string;
+}
+export interface ShareLinkItem {
+  id: string;
+  state: "active" | "expired" | "revoked";
+  expiresAt: string;
+  revokedAt: string | null;
+  createdAt: string;
+  createdByName: string;
+}
+
+export const reviewKeys = {
+  state: (id: string) => ["review", id] as const,
+  comments: (id: string) => ["comments", id] as const,
+  events: (id: string) => ["events", id] as const,
+  links: (id: string) => ["share-links", id] as const,
+};
+
+export const getReviewState = (id: string, signal?: AbortSignal) => apiFetch<ReviewState>(`/api/tests/${id}/review`, {}, { signal });
+export const postReviewAction = (id: string, action: ReviewAction, note?: string) =>
+  apiFetch<{ status: Status }>(`/api/tests/${id}/review`, { method: "POST", body: JSON.stringify({ action, note: note || null }) });
+export const getComments = (id: string, signal?: AbortSignal) => apiFetch<{ comments: CommentItem[] }>(`/api/tests/${id}/comments`, {}, { signal });
+export const postComment = (id: string, body: string, atSeconds: number | null) =>
+  apiFetch<{ comment: CommentItem }>(`/api/tests/${id}/comments`, { method: "POST", body: JSON.stringify({ body, atSeconds }) });
+export const getEvents = (id: string, signal?: AbortSignal) => apiFetch<{ events: EventItem[] }>(`/api/tests/${id}/events`, {}, { signal });
+export const getShareLinks = (id: string, signal?: AbortSignal) => apiFetch<{ links: ShareLinkItem[] }>(`/api/tests/${id}/share-links`, {}, { signal });
+export const createShareLinkCall = (id: string, expiresInDays: number) =>
+  apiFetch<{ id: string; url: string; expiresAt: string }>(`/api/tests/${id}/share-links`, { method: "POST", body: JSON.stringify({ expiresInDays }) });
+export const revokeShareLinkCall = (id: string, linkId: string) => apiFetch<{ id: string }>(`/api/tests/${id}/share-links/${linkId}`, { method: "DELETE" });
+export const emailReportCall = (id: string, to: string, message: string) =>
+  apiFetch<{ outboxId: string }>(`/api/tests/${id}/email-report`, { method: "POST", body: JSON.stringify({ to, message: message || null }) });
