@@ -38,10 +38,11 @@ export const DEFAULT_GAUGE_RESOLUTION: Readonly<Record<NitrogenPressureUnit, num
 /** Default thermometer uncertainty in the temperature unit entered. */
 export const DEFAULT_THERMOMETER_UNCERTAINTY: Readonly<Record<TemperatureUnit, number>> = { F: 1, C: 0.5 };
 
-export const PRESSURE_UNIT_LABEL: Readonly<Record<NitrogenPressureUnit, { gauge: string; absolute: string }>> = {
-  psig: { gauge: "psig", absolute: "psia" },
-  kpa_gauge: { gauge: "kPa gauge", absolute: "kPa abs" },
-  bar_gauge: { gauge: "bar gauge", absolute: "bar abs" },
+/** Unit words: a gauge reading, an absolute one, and a difference between two readings. */
+export const PRESSURE_UNIT_LABEL: Readonly<Record<NitrogenPressureUnit, { gauge: string; absolute: string; difference: string }>> = {
+  psig: { gauge: "psig", absolute: "psia", difference: "psi" },
+  kpa_gauge: { gauge: "kPa gauge", absolute: "kPa abs", difference: "kPa" },
+  bar_gauge: { gauge: "bar gauge", absolute: "bar abs", difference: "bar" },
 };
 
 export const TEMPERATURE_LABEL: Readonly<Record<TemperatureUnit, { unit: string; absolute: string; offset: number }>> = {
@@ -87,6 +88,8 @@ export interface NitrogenStep {
   expression: string;
   value: number;
   unit: string;
+  /** Decimals to show the value with (enough to follow the arithmetic by hand). */
+  displayDigits: number;
 }
 
 export interface NitrogenWarning {
@@ -159,13 +162,13 @@ export function evaluateNitrogenTest(input: NitrogenTestInput): NitrogenResult {
   const verdict: NitrogenVerdict = differenceGauge < -tolerance ? "drops" : differenceGauge > tolerance ? "rises" : "holds";
 
   const steps: NitrogenStep[] = [
-    { key: "p1_abs", label: "Start pressure, absolute", expression: `${r(input.start.pressureGauge)} ${pl.gauge} + ${r(atm)}`, value: p1Abs, unit: pl.absolute },
-    { key: "t1_abs", label: "Start temperature, absolute", expression: `${r(input.start.temperature)} ${tl.unit} + ${tl.offset}`, value: t1Abs, unit: tl.absolute },
-    { key: "t2_abs", label: "End temperature, absolute", expression: `${r(input.end.temperature)} ${tl.unit} + ${tl.offset}`, value: t2Abs, unit: tl.absolute },
-    { key: "p2_abs", label: "Expected end pressure, absolute", expression: `${r(p1Abs)} × ${r(t2Abs, 2)} ÷ ${r(t1Abs, 2)}`, value: p2AbsExpected, unit: pl.absolute },
-    { key: "p2_gauge", label: "Expected end pressure, gauge", expression: `${r(p2AbsExpected)} − ${r(atm)}`, value: expectedEndGauge, unit: pl.gauge },
-    { key: "difference", label: "Measured minus expected", expression: `${r(input.end.pressureGauge)} − ${r(expectedEndGauge, 2)}`, value: differenceGauge, unit: pl.gauge },
-    { key: "tolerance", label: "Tolerance (gauge resolution + thermometer)", expression: `${r(resolution)} + ${r(p2AbsExpected)} × ${r(thermo)} ÷ ${r(t2Abs, 2)}`, value: tolerance, unit: pl.gauge },
+    { key: "p1_abs", label: "Start pressure, absolute", expression: `${r(input.start.pressureGauge)} ${pl.gauge} + ${r(atm)}`, value: p1Abs, unit: pl.absolute, displayDigits: 3 },
+    { key: "t1_abs", label: "Start temperature, absolute", expression: `${r(input.start.temperature)} ${tl.unit} + ${tl.offset}`, value: t1Abs, unit: tl.absolute, displayDigits: 2 },
+    { key: "t2_abs", label: "End temperature, absolute", expression: `${r(input.end.temperature)} ${tl.unit} + ${tl.offset}`, value: t2Abs, unit: tl.absolute, displayDigits: 2 },
+    { key: "p2_abs", label: "Expected end pressure, absolute", expression: `${r(p1Abs)} × ${r(t2Abs, 2)} ÷ ${r(t1Abs, 2)}`, value: p2AbsExpected, unit: pl.absolute, displayDigits: 3 },
+    { key: "p2_gauge", label: "Expected end pressure, gauge", expression: `${r(p2AbsExpected)} − ${r(atm)}`, value: expectedEndGauge, unit: pl.gauge, displayDigits: 2 },
+    { key: "difference", label: "Measured minus expected", expression: `${r(input.end.pressureGauge)} − ${r(expectedEndGauge, 2)}`, value: differenceGauge, unit: pl.difference, displayDigits: 2 },
+    { key: "tolerance", label: "Tolerance (gauge resolution + thermometer)", expression: `${r(resolution)} + ${r(p2AbsExpected)} × ${r(thermo)} ÷ ${r(t2Abs, 2)}`, value: tolerance, unit: pl.difference, displayDigits: 2 },
   ];
 
   const warnings: NitrogenWarning[] = [];
@@ -191,10 +194,10 @@ export function evaluateNitrogenTest(input: NitrogenTestInput): NitrogenResult {
   const explained = input.start.pressureGauge - expectedEndGauge;
   const summary =
     verdict === "holds"
-      ? `Holds: the end reading is within ${r(tolerance, 2)} ${pl.gauge} of the ${r(expectedEndGauge, 2)} ${pl.gauge} the temperature change explains.`
+      ? `Holds: the end reading is within ${r(tolerance, 2)} ${pl.difference} of the ${r(expectedEndGauge, 2)} ${pl.gauge} the temperature change explains.`
       : verdict === "drops"
-        ? `Drops: ${r(-differenceGauge, 2)} ${pl.gauge} lower than the temperature change explains. Look for a leak.`
-        : `Rises: ${r(differenceGauge, 2)} ${pl.gauge} higher than the temperature change explains. Check the thermometer and its placement, and that the regulator is closed off from the system.`;
+        ? `Drops: ${r(-differenceGauge, 2)} ${pl.difference} lower than the temperature change explains. Look for a leak.`
+        : `Rises: ${r(differenceGauge, 2)} ${pl.difference} higher than the temperature change explains. Check the thermometer and its placement, and that the regulator is closed off from the system.`;
 
   return {
     verdict,

@@ -16,7 +16,7 @@ function Steps({ result }: { result: NitrogenResult }) {
         <li key={s.key} className="flex flex-wrap justify-between gap-x-3 border-b border-surface-line py-1">
           <span className="text-fg-soft">{s.label}</span>
           <span className="font-mono text-caption sm:text-body">
-            {s.expression} = <strong>{s.value.toFixed(2)}</strong> {s.unit}
+            {s.expression} = <strong>{s.value.toFixed(s.displayDigits)}</strong> {s.unit}
           </span>
         </li>
       ))}
