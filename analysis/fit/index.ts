@@ -107,9 +107,10 @@ function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, ski
   mean /= n;
   let rss = 0;
   let tss = 0;
+  const hasRise = a !== 0;
   for (let i = 0; i < t.length; i++) {
     if (skip[i]) continue;
-    const r = p[i] - (params.p0 + a * -Math.expm1(-t[i] / tau) + l * t[i]);
+    const r = p[i] - (params.p0 + (hasRise ? a * -Math.expm1(-t[i] / tau) : 0) + l * t[i]);
     rss += r * r;
     tss += (p[i] - mean) ** 2;
   }

@@ -33,7 +33,6 @@ export interface ProjectionBasis {
   yPerp: Float64Array;
   yPerpNorm2: number;
   withClimb: boolean;
-  scratch: Float64Array;
 }
 
 function orthogonalise(v: Float64Array, q: Float64Array[], passes = 2): void {
@@ -62,31 +61,47 @@ export function projectionBasis(t: ArrayLike<number>, p: ArrayLike<number>, with
   orthogonalise(yPerp, q);
   let yPerpNorm2 = 0;
   for (let i = 0; i < n; i++) yPerpNorm2 += yPerp[i] * yPerp[i];
-  return { t: Float64Array.from(t), p: Float64Array.from(p), q, yPerp, yPerpNorm2, withClimb, scratch: new Float64Array(n) };
+  return { t: Float64Array.from(t), p: Float64Array.from(p), q, yPerp, yPerpNorm2, withClimb };
 }
 
 /**
- * Projected RSS (microns²) at a fixed τ and the plateau height a; rss = Infinity when the rise column is
- * (numerically) inside the span of the fixed columns, so τ cannot be separated from them.
+ * Projected RSS (microns²) at a fixed τ; Infinity when the rise column is (numerically) inside the span of
+ * the fixed columns, so τ cannot be separated from them.
+ *
+ * One O(n) pass, no allocation: with z = 1 − e^(−t/τ), q₁ = 1/√n and q₂ (the unit centred time column, with a
+ * climb), z⊥ = z − QQᵀz has ‖z⊥‖² = Σz² − (Σz)²/n − (z·q₂)², and because y⊥ is orthogonal to Q,
+ * z⊥·y⊥ = z·y⊥. So RSS(τ) = ‖y⊥‖² − (z·y⊥)²/‖z⊥‖² needs only the sums Σz, Σz², Σz·q₂ and Σz·y⊥.
+ * The subtraction in ‖z⊥‖² loses about log10(‖z‖²/‖z⊥‖²) digits; a z within 1e-9 of span(Q) is rejected.
  */
-function projectedRss(b: ProjectionBasis, tauSeconds: number): { rss: number; a: number } {
-  const z = b.scratch;
-  const n = z.length;
-  let zNorm2Raw = 0;
-  for (let i = 0; i < n; i++) {
-    z[i] = -Math.expm1(-b.t[i] / tauSeconds);
-    zNorm2Raw += z[i] * z[i];
+export function projectedRss(b: ProjectionBasis, tauSeconds: number): number {
+  const t = b.t;
+  const yPerp = b.yPerp;
+  const n = t.length;
+  const rate = 1 / tauSeconds;
+  let sz = 0;
+  let szz = 0;
+  let szy = 0;
+  let szq = 0;
+  if (b.withClimb) {
+    const q2 = b.q[1];
+    for (let i = 0; i < n; i++) {
+      const z = -Math.expm1(-t[i] * rate);
+      sz += z;
+      szz += z * z;
+      szy += z * yPerp[i];
+      szq += z * q2[i];
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const z = -Math.expm1(-t[i] * rate);
+      sz += z;
+      szz += z * z;
+      szy += z * yPerp[i];
+    }
   }
-  // One pass suffices here: Q is orthonormal to rounding, and a z nearly inside span(Q) is rejected below.
-  orthogonalise(z, b.q, 1);
-  let zz = 0;
-  let zy = 0;
-  for (let i = 0; i < n; i++) {
-    zz += z[i] * z[i];
-    zy += z[i] * b.yPerp[i];
-  }
-  if (!(zz > 1e-18 * zNorm2Raw)) return { rss: Infinity, a: 0 };
-  return { rss: Math.max(0, b.yPerpNorm2 - (zy * zy) / zz), a: zy / zz };
+  const zz = szz - (sz * sz) / n - szq * szq;
+  if (!(zz > 1e-18 * szz)) return Infinity;
+  return Math.max(0, b.yPerpNorm2 - (szy * szy) / zz);
 }
 
 /**
@@ -111,6 +126,34 @@ export function projectedFit(t: ArrayLike<number>, p: ArrayLike<number>, tauSeco
   return { tauSeconds, coef: ls.coef, rss };
 }
 
+/** Above this many points the τ grid runs on group means (the Brent refinement always uses every point). */
+export const GRID_FIT_POINTS = 256;
+
+/**
+ * Means of consecutive groups of ⌈n/maxPoints⌉ points (t ascending): at most maxPoints points that keep the
+ * shape of the projected-RSS profile over τ, for bracketing its minimum cheaply. O(n).
+ */
+function groupMeans(t: ArrayLike<number>, p: ArrayLike<number>, maxPoints: number): [Float64Array, Float64Array] {
+  const n = t.length;
+  const size = Math.ceil(n / maxPoints);
+  const m = Math.ceil(n / size);
+  const tm = new Float64Array(m);
+  const pm = new Float64Array(m);
+  for (let g = 0; g < m; g++) {
+    const from = g * size;
+    const to = Math.min(n, from + size);
+    let st = 0;
+    let sp = 0;
+    for (let i = from; i < to; i++) {
+      st += t[i];
+      sp += p[i];
+    }
+    tm[g] = st / (to - from);
+    pm[g] = sp / (to - from);
+  }
+  return [tm, pm];
+}
+
 export interface TimeConstantSearch {
   best: ProjectedFit;
   /** "low": best τ at the shortest tried (a step); "high": at the longest (no bend seen); null: inside. */
@@ -120,7 +163,9 @@ export interface TimeConstantSearch {
 
 /**
  * Minimise the projected RSS over ln τ: a grid of `gridPoints` values log-spaced from tauMinSeconds
- * to tauMaxSeconds brackets the minimum, then golden-section search refines it to 1e-5 in ln τ (the Levenberg–Marquardt polish does the rest); the
+ * to tauMaxSeconds brackets the minimum (with more than GRID_FIT_POINTS points: the grid on group means, then a
+ * downhill walk along the grid on every point to a grid minimum of the full profile), then Brent's method (golden section with parabolic steps) refines it to 1e-5 in
+ * ln τ (the Levenberg–Marquardt polish does the rest); the
  * linear coefficients at the best τ come from a full QR solve (projectedFit).
  */
 export function searchTimeConstant(
@@ -132,6 +177,8 @@ export function searchTimeConstant(
   gridPoints = 32,
 ): TimeConstantSearch {
   const basis = projectionBasis(t, p, withClimb);
+  // the grid only brackets the minimum: on a long hold it runs on ≤ GRID_FIT_POINTS group means
+  const coarse = t.length > GRID_FIT_POINTS ? projectionBasis(...groupMeans(t, p, GRID_FIT_POINTS), withClimb) : basis;
   const lo = Math.log(tauMinSeconds);
   const hi = Math.log(tauMaxSeconds);
   const gridU: number[] = [];
@@ -139,48 +186,110 @@ export function searchTimeConstant(
   for (let k = 0; k < gridPoints; k++) {
     const u = lo + ((hi - lo) * k) / (gridPoints - 1);
     gridU.push(u);
-    gridRss.push(projectedRss(basis, Math.exp(u)).rss);
+    gridRss.push(projectedRss(coarse, Math.exp(u)));
   }
   let iBest = 0;
   for (let k = 1; k < gridPoints; k++) if (gridRss[k] < gridRss[iBest]) iBest = k;
   let evaluations = gridPoints;
+  const f = (u: number) => {
+    evaluations++;
+    return projectedRss(basis, Math.exp(u));
+  };
   const finish = (u: number, atEdge: TimeConstantSearch["atEdge"]): TimeConstantSearch => ({
     best: projectedFit(t, p, Math.exp(u), withClimb),
     atEdge,
     evaluations: evaluations + 1,
   });
-  if (iBest === 0 || iBest === gridPoints - 1 || !Number.isFinite(gridRss[iBest])) {
+  let fBest = gridRss[iBest];
+  if (coarse !== basis) {
+    // confirm on every point: walk the grid downhill from the coarse minimum to a minimum of the full profile
+    const full = new Map<number, number>();
+    const at = (k: number) => {
+      let v = full.get(k);
+      if (v === undefined) full.set(k, (v = f(gridU[k])));
+      return v;
+    };
+    for (;;) {
+      if (iBest > 0 && at(iBest - 1) < at(iBest)) iBest--;
+      else if (iBest < gridPoints - 1 && at(iBest + 1) < at(iBest)) iBest++;
+      else break;
+    }
+    fBest = at(iBest);
+  }
+  if (iBest === 0 || iBest === gridPoints - 1 || !Number.isFinite(fBest)) {
     return finish(gridU[iBest], iBest === 0 ? "low" : "high");
   }
-  const f = (u: number) => {
-    evaluations++;
-    return projectedRss(basis, Math.exp(u)).rss;
-  };
-  const ratio = (Math.sqrt(5) - 1) / 2;
-  let a = gridU[iBest - 1];
-  let b = gridU[iBest + 1];
-  let c = b - ratio * (b - a);
-  let d = a + ratio * (b - a);
-  let fc = f(c);
-  let fd = f(d);
-  while (b - a > 1e-5) {
-    if (fc < fd) {
-      b = d;
-      d = c;
-      fd = fc;
-      c = b - ratio * (b - a);
-      fc = f(c);
+  const m = brentMinimum(f, gridU[iBest - 1], gridU[iBest + 1], gridU[iBest], fBest, 2.5e-6);
+  const uBest = m.x;
+  return finish(uBest, null);
+}
+
+/**
+ * Minimum of a function of one variable on [a, b], starting from x with f(x) = fx (a bracketing interior
+ * point), by Brent's method: parabolic interpolation through the three best points, falling back to a
+ * golden-section step when the parabola is not trusted; stops when the bracket is within 2·tol of x.
+ * Reference: R. P. Brent, Algorithms for Minimization without Derivatives (1973), ch. 5; Press et al.,
+ * Numerical Recipes (3rd ed.) §10.3.
+ */
+export function brentMinimum(f: (x: number) => number, a: number, b: number, x: number, fx: number, tol: number, maxIterations = 100): { x: number; fx: number } {
+  const golden = 0.381966011250105; // (3 − √5)/2
+  let w = x;
+  let v = x;
+  let fw = fx;
+  let fv = fx;
+  let d = 0;
+  let e = 0;
+  for (let it = 0; it < maxIterations; it++) {
+    const mid = 0.5 * (a + b);
+    const tol1 = tol + 1e-10 * Math.abs(x);
+    const tol2 = 2 * tol1;
+    if (Math.abs(x - mid) <= tol2 - 0.5 * (b - a)) break;
+    let useGolden = true;
+    if (Math.abs(e) > tol1) {
+      const r = (x - w) * (fx - fv);
+      let q = (x - v) * (fx - fw);
+      let p = (x - v) * q - (x - w) * r;
+      q = 2 * (q - r);
+      if (q > 0) p = -p;
+      else q = -q;
+      if (Math.abs(p) < Math.abs(0.5 * q * e) && p > q * (a - x) && p < q * (b - x)) {
+        e = d;
+        d = p / q;
+        const u = x + d;
+        if (u - a < tol2 || b - u < tol2) d = mid >= x ? tol1 : -tol1;
+        useGolden = false;
+      }
+    }
+    if (useGolden) {
+      e = x >= mid ? a - x : b - x;
+      d = golden * e;
+    }
+    const u = Math.abs(d) >= tol1 ? x + d : x + (d > 0 ? tol1 : -tol1);
+    const fu = f(u);
+    if (fu <= fx) {
+      if (u >= x) a = x;
+      else b = x;
+      v = w;
+      fv = fw;
+      w = x;
+      fw = fx;
+      x = u;
+      fx = fu;
     } else {
-      a = c;
-      c = d;
-      fc = fd;
-      d = a + ratio * (b - a);
-      fd = f(d);
+      if (u < x) a = u;
+      else b = u;
+      if (fu <= fw || w === x) {
+        v = w;
+        fv = fw;
+        w = u;
+        fw = fu;
+      } else if (fu <= fv || v === x || v === w) {
+        v = u;
+        fv = fu;
+      }
     }
   }
-  let uBest = fc < fd ? c : d;
-  if (gridRss[iBest] < Math.min(fc, fd)) uBest = gridU[iBest];
-  return finish(uBest, null);
+  return { x, fx };
 }
 
 export interface PlateauFitOutcome {
