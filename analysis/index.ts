@@ -45,10 +45,23 @@ function median(values: number[]): number | null {
 /** Highest running median (5 readings, 3 for short holds) of p[from..to] up to time `untilSeconds`. */
 function robustMax(p: number[], from: number, to: number, untilSeconds: number, t: number[]): number {
   const half = to - from + 1 >= 15 ? 2 : 1;
+  const w = new Float64Array(5);
   let best = 0;
   for (let i = from; i <= to && t[i] <= untilSeconds; i++) {
-    const w = p.slice(Math.max(i - half, from), Math.min(i + half, to) + 1).sort((a, b) => a - b);
-    best = Math.max(best, w[w.length >> 1]);
+    // the window's median by insertion sort into a fixed buffer (at most 5 readings), no allocation
+    const lo = Math.max(i - half, from);
+    const hi = Math.min(i + half, to);
+    let m = 0;
+    for (let j = lo; j <= hi; j++) {
+      const v = p[j];
+      let k = m++;
+      while (k > 0 && w[k - 1] > v) {
+        w[k] = w[k - 1];
+        k--;
+      }
+      w[k] = v;
+    }
+    best = Math.max(best, w[m >> 1]);
   }
   return best;
 }

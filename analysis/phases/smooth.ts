@@ -4,6 +4,7 @@
  * median of five bins removes single-bin spikes. Pressure is smoothed in log10 because a log spans
  * decades and gauge noise is proportional to the reading.
  */
+import { medianInPlace } from "../fit/median";
 
 export interface Bins {
   /** Index of the first reading in each bin; bin j holds readings [start[j], start[j+1]). */
@@ -15,15 +16,27 @@ export interface Bins {
   count: number;
 }
 
-/** Median of a copy of values[from, to). */
+let scratch = new Float64Array(64);
+
+/**
+ * Median of values[from, to) (mean of the two middle values for an even count), by quickselect on a reused
+ * scratch copy, so the values are left as they are and nothing is allocated per call. Expected O(to − from).
+ */
 export function medianOf(values: ArrayLike<number>, from: number, to: number): number {
   const n = to - from;
   if (n <= 0) return NaN;
   if (n === 1) return values[from];
-  const copy = new Float64Array(n);
-  for (let i = 0; i < n; i++) copy[i] = values[from + i];
-  copy.sort();
-  return n % 2 ? copy[n >> 1] : 0.5 * (copy[n / 2 - 1] + copy[n / 2]);
+  if (scratch.length < n) scratch = new Float64Array(Math.max(n, 2 * scratch.length));
+  for (let i = 0; i < n; i++) scratch[i] = values[from + i];
+  return medianInPlace(scratch, 0, n);
+}
+
+/** Median of values[from, to) when they are known to be ascending: the middle one (or the mean of the two). */
+function medianOfAscending(values: ArrayLike<number>, from: number, to: number): number {
+  const n = to - from;
+  if (n <= 0) return NaN;
+  const k = from + (n >> 1);
+  return n % 2 ? values[k] : (values[k - 1] + values[k]) / 2;
 }
 
 /** Median positive step between consecutive times (seconds), from at most ~20,000 steps. */
@@ -77,12 +90,14 @@ export function binReadings(t: ArrayLike<number>, microns: ArrayLike<number>, ma
   }
   const count = starts.length;
   const start = new Int32Array(count + 1);
-  starts.forEach((s, j) => (start[j] = s));
+  for (let j = 0; j < count; j++) start[j] = starts[j];
   start[count] = n;
+  let ascending = true;
+  for (let i = 1; i < n && ascending; i++) if (!(t[i] >= t[i - 1])) ascending = false;
   const tMid = new Float64Array(count);
   const raw = new Float64Array(count);
   for (let j = 0; j < count; j++) {
-    tMid[j] = medianOf(t, start[j], start[j + 1]);
+    tMid[j] = ascending ? medianOfAscending(t, start[j], start[j + 1]) : medianOf(t, start[j], start[j + 1]);
     raw[j] = Math.log10(medianOf(microns, start[j], start[j + 1]));
   }
   return { start, tSeconds: tMid, logMicrons: runningMedian(raw, count >= 60 ? 5 : 3), count };
