@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useSyncExternalStore } from "react";
 import { cx } from "./cx";
 
 export const THEME_KEY = "rl-theme";
@@ -15,12 +15,20 @@ function applyTheme(theme: Theme) {
   }
 }
 
+/** The theme is the `dark` class on <html>; watch it so every toggle on the page agrees. */
+function subscribeToTheme(onChange: () => void) {
+  const observer = new MutationObserver(onChange);
+  observer.observe(document.documentElement, { attributes: true, attributeFilter: ["class"] });
+  return () => observer.disconnect();
+}
+
+function readTheme(): Theme {
+  return document.documentElement.classList.contains("dark") ? "dark" : "light";
+}
+
 /** Switches light/dark and remembers it in localStorage "rl-theme" (read before paint by app/layout.tsx). */
 export function ThemeToggle({ className, showLabel = true }: { className?: string; showLabel?: boolean }) {
-  const [theme, setTheme] = useState<Theme | null>(null);
-  useEffect(() => {
-    setTheme(document.documentElement.classList.contains("dark") ? "dark" : "light");
-  }, []);
+  const theme = useSyncExternalStore(subscribeToTheme, readTheme, () => null);
   const next: Theme = theme === "dark" ? "light" : "dark";
   const label = theme === "dark" ? "Light screen" : "Dark screen";
   return (
@@ -31,7 +39,6 @@ export function ThemeToggle({ className, showLabel = true }: { className?: strin
       aria-pressed={theme === "dark"}
       onClick={() => {
         applyTheme(next);
-        setTheme(next);
       }}
       className={cx("inline-flex min-h-tap min-w-tap items-center justify-center gap-2 rounded-xl px-3 text-body text-fg hover:bg-surface-sunken", className)}
     >

@@ -1,11 +1,8 @@
 /**
- * Debian's Chromium driven by playwright-core. Each journey gets a fresh profile directory.
+ * Debian's Chromium driven by playwright-core (which gives every launch a fresh, temporary profile).
  * APP_URL is where Riseline runs (scripts/test.sh starts `next start` there).
  */
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import { mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { env } from "@/lib/env";
 
 export const APP_URL = env().BETTER_AUTH_URL;
@@ -21,22 +18,17 @@ export interface Session {
 }
 
 export async function launch(): Promise<Session> {
-  const profile = mkdtempSync(join(tmpdir(), "rl-chromium-"));
   const browser = await chromium.launch({
     executablePath: "/usr/bin/chromium",
     args: [
       "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
       "--disable-background-networking", "--disable-component-update", "--disable-sync",
-      `--user-data-dir=${profile}`,
     ],
   });
   return {
     browser,
     newContext: (opts) => browser.newContext({ baseURL: APP_URL, ...opts }),
-    close: async () => {
-      await browser.close();
-      rmSync(profile, { recursive: true, force: true });
-    },
+    close: () => browser.close(),
   };
 }
 
