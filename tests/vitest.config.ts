@@ -7,7 +7,7 @@ export default defineConfig({
   test: {
     include: ["tests/**/*.test.ts", "analysis/**/*.test.ts"],
     exclude: ["tests/journeys/**", "node_modules/**"],
-    testTimeout: 30_000,
+    testTimeout: 120_000,
     hookTimeout: 60_000,
     pool: "forks",
   },
