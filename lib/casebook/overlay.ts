@@ -12,7 +12,9 @@ import { AppError } from "@/lib/errors";
 import { hiddenPracticeTestIds } from "@/lib/practice/gate";
 import { alignAtIsolation } from "./align";
 
-export const OVERLAY_MAX_TESTS = 8;
+import { OVERLAY_MAX_TESTS } from "./limits";
+
+export { OVERLAY_MAX_TESTS };
 
 /** ?tests=id1,id2,… — 1 to 8 distinct test ids. */
 export const overlayQuery = z.object({

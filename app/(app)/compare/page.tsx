@@ -1,0 +1,22 @@
+import type { Metadata } from "next";
+import { CompareView } from "@/components/overlay/CompareView";
+import { OVERLAY_MAX_TESTS } from "@/lib/casebook/limits";
+import { pageActor } from "@/lib/session";
+
+export const metadata: Metadata = { title: "Compare curves" };
+
+/** /compare?tests=id1,id2,… — up to eight curves on one chart, aligned at isolation. */
+export default async function ComparePage({ searchParams }: { searchParams: Promise<{ tests?: string | string[] }> }) {
+  await pageActor();
+  const raw = (await searchParams).tests;
+  const ids = [...new Set((Array.isArray(raw) ? raw.join(",") : raw ?? "").split(",").map((s) => s.trim()).filter((s) => /^[0-9a-f-]{36}$/i.test(s)))].slice(0, OVERLAY_MAX_TESTS);
+  return (
+    <div className="mx-auto w-full max-w-5xl space-y-5 px-4 py-5 sm:py-8">
+      <header className="space-y-1">
+        <h1 className="text-headline">Compare curves</h1>
+        <p className="text-body text-fg-soft">Up to {OVERLAY_MAX_TESTS} tests, time zero at each one’s isolation. Share this page’s address with anyone in your shop.</p>
+      </header>
+      <CompareView ids={ids} />
+    </div>
+  );
+}

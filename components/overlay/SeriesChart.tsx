@@ -1,0 +1,163 @@
+"use client";
+
+/**
+ * Curves on one chart for the trainer's bench: one or more series (minutes on x, microns on y,
+ * log or linear), optional vertical markers (isolation at zero, pins with their notes), and a
+ * tap that reports the time (for pinning). Loaded with next/dynamic only (LazySeriesChart).
+ */
+import { useEffect, useRef } from "react";
+import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, type ChartConfiguration, type Plugin } from "chart.js";
+import { decimateMinMax, durationWords, microns } from "@/components/curve/model";
+import { SERIES_COLOURS, SERIES_DASHES } from "./colours";
+
+Chart.register(LineController, LineElement, PointElement, LinearScale, LogarithmicScale, Tooltip);
+
+export interface ChartSeries {
+  label: string;
+  /** Seconds (from the first reading, or from isolation when aligned). */
+  t: number[];
+  p: number[];
+}
+
+export interface ChartMarker {
+  atSeconds: number;
+  label: string;
+  kind: "isolation" | "pin";
+}
+
+export interface SeriesChartProps {
+  series: ChartSeries[];
+  markers?: ChartMarker[];
+  yScale?: "log" | "linear";
+  xTitle: string;
+  yTitle?: string;
+  onPickSeconds?: (seconds: number) => void;
+  ariaLabel: string;
+  testId?: string;
+  heightClass?: string;
+}
+
+function logTick(value: number | string): string {
+  const v = Number(value);
+  const mant = v / 10 ** Math.floor(Math.log10(v) + 1e-9);
+  return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
+}
+
+function markersPlugin(markers: ChartMarker[], soft: string, pinColour: string): Plugin<"line"> {
+  return {
+    id: "riselineMarkers",
+    afterDatasetsDraw(chart) {
+      const { ctx, chartArea, scales } = chart;
+      ctx.save();
+      ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
+      markers.forEach((m, i) => {
+        const x = scales.x.getPixelForValue(m.atSeconds / 60);
+        if (x < chartArea.left || x > chartArea.right) return;
+        const colour = m.kind === "pin" ? pinColour : soft;
+        ctx.strokeStyle = colour;
+        ctx.lineWidth = 2;
+        ctx.setLineDash(m.kind === "pin" ? [] : [6, 4]);
+        ctx.beginPath();
+        ctx.moveTo(x, chartArea.top);
+        ctx.lineTo(x, chartArea.bottom);
+        ctx.stroke();
+        ctx.setLineDash([]);
+        const label = m.kind === "pin" ? `${i + 1}` : m.label;
+        const w = ctx.measureText(label).width;
+        const y = chartArea.top + 14 + (m.kind === "pin" ? 16 * (i % 3) : 0);
+        if (m.kind === "pin") {
+          ctx.fillStyle = colour;
+          ctx.beginPath();
+          ctx.arc(x, y - 4, 9, 0, Math.PI * 2);
+          ctx.fill();
+          ctx.fillStyle = "#14232b";
+          ctx.fillText(label, x - w / 2, y);
+        } else {
+          ctx.fillStyle = colour;
+          ctx.fillText(label, x + 4 + w > chartArea.right ? x - 4 - w : x + 4, y);
+        }
+      });
+      ctx.restore();
+    },
+  };
+}
+
+export default function SeriesChart({ series, markers = [], yScale = "log", xTitle, yTitle = "microns", onPickSeconds, ariaLabel, testId = "series-chart", heightClass = "h-64 sm:h-80" }: SeriesChartProps) {
+  const canvasRef = useRef<HTMLCanvasElement | null>(null);
+  const pickRef = useRef(onPickSeconds);
+  pickRef.current = onPickSeconds;
+
+  useEffect(() => {
+    const canvas = canvasRef.current;
+    if (!canvas) return;
+    const dark = document.documentElement.classList.contains("dark");
+    const css = getComputedStyle(document.documentElement);
+    const soft = css.getPropertyValue("--rl-fg-soft").trim() || "#46565f";
+    const grid = dark ? "rgba(232,240,238,0.12)" : "rgba(20,35,43,0.10)";
+    const floor = yScale === "log" ? 1 : -Infinity;
+    const points = (s: ChartSeries) => {
+      if (yScale === "log") return decimateMinMax(s.t, s.p, 500); // floors at 1 micron for the log axis
+      const stride = Math.max(1, Math.ceil(s.t.length / 1000));
+      return s.t.filter((_, k) => k % stride === 0).map((t, k) => ({ x: t / 60, y: s.p[k * stride] }));
+    };
+    const datasets = series.map((s, i) => ({
+      label: s.label,
+      data: points(s),
+      borderColor: SERIES_COLOURS[i % SERIES_COLOURS.length][dark ? 1 : 0],
+      borderDash: SERIES_DASHES[i % SERIES_DASHES.length],
+      borderWidth: 2.25,
+      pointRadius: 0,
+      pointHitRadius: 6,
+      tension: 0,
+    }));
+    const xs = datasets.flatMap((d) => d.data.map((v) => v.x));
+    const ys = datasets.flatMap((d) => d.data.map((v) => v.y)).filter((y) => y > floor);
+    const config: ChartConfiguration<"line", { x: number; y: number }[]> = {
+      type: "line",
+      data: { datasets },
+      options: {
+        animation: false,
+        responsive: true,
+        maintainAspectRatio: false,
+        parsing: false,
+        interaction: { mode: "nearest", axis: "x", intersect: false },
+        scales: {
+          x: {
+            type: "linear",
+            min: xs.length ? Math.min(...xs) : 0,
+            max: xs.length ? Math.max(...xs) : 1,
+            title: { display: true, text: xTitle, color: soft, font: { size: 12 } },
+            ticks: { color: soft, font: { size: 12 }, maxTicksLimit: 7 },
+            grid: { color: grid },
+          },
+          y:
+            yScale === "log"
+              ? { type: "logarithmic", min: ys.length ? Math.max(1, Math.min(...ys) * 0.7) : 1, max: ys.length ? Math.max(...ys) * 1.4 : 1000, title: { display: true, text: yTitle, color: soft }, ticks: { color: soft, callback: logTick }, grid: { color: grid } }
+              : { type: "linear", title: { display: true, text: yTitle, color: soft }, ticks: { color: soft }, grid: { color: grid } },
+        },
+        plugins: {
+          tooltip: {
+            callbacks: {
+              title: (items) => (items[0] ? `${items[0].parsed.x! < 0 ? "−" : ""}${durationWords(items[0].parsed.x! * 60)}` : ""),
+              label: (item) => `${item.dataset.label}: ${microns(item.parsed.y)} microns`,
+            },
+          },
+        },
+        onClick: (event, _els, chart) => {
+          if (!pickRef.current || event.x == null) return;
+          const minutes = chart.scales.x.getValueForPixel(event.x);
+          if (minutes != null && Number.isFinite(minutes)) pickRef.current(Math.max(0, Math.round(minutes * 60)));
+        },
+      },
+      plugins: [markersPlugin(markers, soft, dark ? "#f7cd6b" : "#e8a317")],
+    };
+    const chart = new Chart(canvas, config);
+    return () => chart.destroy();
+  }, [series, markers, yScale, xTitle, yTitle]);
+
+  return (
+    <div className={`relative w-full ${heightClass}`} data-testid={testId}>
+      <canvas ref={canvasRef} role="img" aria-label={ariaLabel} className={onPickSeconds ? "cursor-crosshair" : undefined} />
+    </div>
+  );
+}
