@@ -13,14 +13,23 @@ import {
   type CreatedTest,
   type ImportPreview,
 } from "@/lib/client/api";
-import { ColumnChooser, type ColumnChoice } from "./ColumnChooser";
+import dynamic from "next/dynamic";
+import type { ColumnChoice } from "./ColumnChooser";
 import { ContextFields } from "./ContextFields";
 import { EMPTY_CONTEXT, appendContext, contextFields, type TestContext } from "./context";
 import { DropZone, MAX_UPLOAD_BYTES } from "./DropZone";
 import { adviseOnError } from "./errors";
-import { TypedReadings } from "./TypedReadings";
-import { UploadResult } from "./UploadResult";
 import type { TimeMode } from "./readings";
+
+// Loaded when needed, to keep this page's first load small for a weak signal.
+const Loading = () => (
+  <div className="py-6 text-fg-soft" role="status">
+    Loading…
+  </div>
+);
+const ColumnChooser = dynamic(() => import("./ColumnChooser").then((m) => m.ColumnChooser), { loading: Loading });
+const TypedReadings = dynamic(() => import("./TypedReadings").then((m) => m.TypedReadings), { loading: Loading });
+const UploadResult = dynamic(() => import("./UploadResult").then((m) => m.UploadResult), { loading: Loading });
 
 type Phase =
   | { kind: "pick" }

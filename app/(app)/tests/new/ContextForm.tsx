@@ -1,0 +1,112 @@
+"use client";
+
+import { useId } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { Input, Select, Textarea } from "@/components/ui";
+import { listJobs, listSites, listSystems, type NamedRecord } from "@/lib/client/api";
+import { REFRIGERANTS, TUBE_SIZES, type TestContext } from "./context";
+
+interface Props {
+  value: TestContext;
+  onChange: (next: TestContext) => void;
+}
+
+function jobLabel(j: NamedRecord): string {
+  const r = j as NamedRecord & { reference?: string | null; visitedOn?: string | null; reason?: string | null };
+  return r.name || [r.reference, r.visitedOn, r.reason].filter(Boolean).join(" · ") || "Job";
+}
+
+function match(list: NamedRecord[] | undefined, name: string): string {
+  const n = name.trim().toLowerCase();
+  return list?.find((x) => x.name.trim().toLowerCase() === n)?.id ?? "";
+}
+
+/**
+ * The optional context fields (never required). Sites and systems are picked from the shop's
+ * list or created by typing a new name.
+ */
+export function ContextForm({ value, onChange }: Props) {
+  const ids = useId();
+  const set = <K extends keyof TestContext>(k: K, v: TestContext[K]) => onChange({ ...value, [k]: v });
+  const sites = useQuery({ queryKey: ["sites"], queryFn: listSites, retry: 1 });
+  const jobs = useQuery({ queryKey: ["jobs"], queryFn: listJobs, retry: 1 });
+  const systems = useQuery({
+    queryKey: ["systems", value.siteId],
+    queryFn: () => listSystems(value.siteId),
+    enabled: !!value.siteId,
+    retry: 1,
+  });
+  const isNewSite = value.siteName.trim() !== "" && !value.siteId;
+  const isNewSystem = value.systemName.trim() !== "" && !value.systemId;
+
+  return (
+    <div className="grid gap-4 border-t border-surface-line px-4 py-4 sm:grid-cols-2">
+      <Input label="Title" placeholder="e.g. Heat pump, new line set" value={value.title} onChange={(e) => set("title", e.target.value)} className="sm:col-span-2" />
+      <Select label="Job" value={value.jobId} onChange={(e) => set("jobId", e.target.value)} hint={jobs.isError ? "Jobs could not be loaded; you can add one later." : undefined}>
+        <option value="">No job</option>
+        {jobs.data?.map((j) => (
+          <option key={j.id} value={j.id}>{jobLabel(j)}</option>
+        ))}
+      </Select>
+      <div>
+        <Input
+          label="Site"
+          list={`${ids}-sites`}
+          autoComplete="off"
+          placeholder="Pick or type a new site"
+          value={value.siteName}
+          onChange={(e) => {
+            const siteId = match(sites.data, e.target.value);
+            onChange({ ...value, siteName: e.target.value, siteId, systemId: siteId === value.siteId ? value.systemId : "" });
+          }}
+          hint={isNewSite ? `A new site “${value.siteName.trim()}” will be created.` : undefined}
+        />
+        <datalist id={`${ids}-sites`}>
+          {sites.data?.map((s) => <option key={s.id} value={s.name} />)}
+        </datalist>
+      </div>
+      <div>
+        <Input
+          label="System"
+          list={`${ids}-systems`}
+          autoComplete="off"
+          placeholder="e.g. Upstairs heat pump"
+          value={value.systemName}
+          disabled={!value.siteName.trim()}
+          onChange={(e) => onChange({ ...value, systemName: e.target.value, systemId: match(systems.data, e.target.value) })}
+          hint={!value.siteName.trim() ? "Choose a site first." : isNewSystem ? `A new system “${value.systemName.trim()}” will be created.` : undefined}
+        />
+        <datalist id={`${ids}-systems`}>
+          {systems.data?.map((s) => <option key={s.id} value={s.name} />)}
+        </datalist>
+      </div>
+      <Select label="Refrigerant" value={value.refrigerant} onChange={(e) => set("refrigerant", e.target.value)}>
+        <option value="">Not set</option>
+        {REFRIGERANTS.map((r) => <option key={r} value={r}>{r}</option>)}
+      </Select>
+      <Input label="Line-set length (feet)" inputMode="decimal" value={value.lineSetFeet} onChange={(e) => set("lineSetFeet", e.target.value)} hint="With the tube sizes, gives the volume for a leak rate." />
+      <Select label="Liquid line (OD, inch)" value={value.liquidOd} onChange={(e) => set("liquidOd", e.target.value)}>
+        <option value="">Not set</option>
+        {TUBE_SIZES.map((s) => <option key={s} value={s}>{s}″</option>)}
+      </Select>
+      <Select label="Suction line (OD, inch)" value={value.suctionOd} onChange={(e) => set("suctionOd", e.target.value)}>
+        <option value="">Not set</option>
+        {TUBE_SIZES.map((s) => <option key={s} value={s}>{s}″</option>)}
+      </Select>
+      <Input label="System volume (litres), if known" inputMode="decimal" value={value.volumeLitres} onChange={(e) => set("volumeLitres", e.target.value)} />
+      <div className="flex items-end gap-2">
+        <Input label="Ambient temperature" inputMode="decimal" value={value.ambient} onChange={(e) => set("ambient", e.target.value)} className="flex-1" />
+        <Select label="Unit" value={value.ambientUnit} onChange={(e) => set("ambientUnit", e.target.value as "C" | "F")} className="w-24">
+          <option value="F">°F</option>
+          <option value="C">°C</option>
+        </Select>
+      </div>
+      <Textarea label="Notes" rows={3} value={value.notes} onChange={(e) => set("notes", e.target.value)} className="sm:col-span-2" />
+      <Input label="Rig note" placeholder="e.g. core tools both sides, 3/8″ hoses, no manifold" value={value.rigNote} onChange={(e) => set("rigNote", e.target.value)} className="sm:col-span-2" />
+      <label className="flex min-h-tap items-center gap-3 text-body sm:col-span-2">
+        <input type="checkbox" className="h-6 w-6 accent-tide-600" checked={value.isPractice} onChange={(e) => set("isPractice", e.target.checked)} />
+        Practice run (kept out of job records)
+      </label>
+    </div>
+  );
+}
