@@ -86,11 +86,14 @@ export function comparePlanWithPullDown(plan: Plan, real: { tSeconds: number[]; 
     upperFactor = ratio(r5, p5);
     if (r5 !== null && p5 !== null && realTarget !== null && planTarget !== null) lowerFactor = ratio(realTarget - r5, planTarget - p5);
   }
-  const shift = tRealA - tPlanA;
-  const planOnRealTime = {
-    tSeconds: plan.curve.tSeconds.map((t) => t + shift).filter((t) => t >= tRealA - 1e-9 || shift < 0),
-    microns: plan.curve.microns.filter((_, i) => plan.curve.tSeconds[i] + shift >= tRealA - 1e-9 || shift < 0),
-  };
+  // The plan from the alignment pressure on, moved onto the real log's clock.
+  const planOnRealTime = { tSeconds: [tRealA], microns: [pA] };
+  plan.curve.tSeconds.forEach((t, i) => {
+    if (t > tPlanA) {
+      planOnRealTime.tSeconds.push(t - tPlanA + tRealA);
+      planOnRealTime.microns.push(plan.curve.microns[i]);
+    }
+  });
 
   const findings: Finding[] = [];
   const realSpan = real.tSeconds[real.tSeconds.length - 1] - tRealA;

@@ -129,11 +129,27 @@ describe("plan against a real pull-down", () => {
     const tPlan = plan.timeToTargetSeconds!;
     const tracks = comparePlanWithPullDown(plan, { tSeconds: plan.curve.tSeconds.map((t) => t * 1.2), microns: plan.curve.microns });
     expect(tracks.findings).toEqual([]);
+    // The overlay starts where the real log was aligned, on the real clock.
+    expect(tracks.planOnRealTime!.microns[0]).toBe(tracks.alignedAtMicrons);
+    expect(tracks.planOnRealTime!.microns.every((m, i, a) => i === 0 || m < a[i - 1])).toBe(true);
     const slow = comparePlanWithPullDown(plan, { tSeconds: plan.curve.tSeconds.map((t) => t * 6), microns: plan.curve.microns });
     expect(slow.slowdownFactor!).toBeGreaterThan(5);
     expect(slow.findings.map((f) => f.code)).toContain("pull_down_much_slower_than_plan");
     // Stuck above the target: never gets there.
     const stuck = comparePlanWithPullDown(plan, { tSeconds: [0, tPlan, 3 * tPlan], microns: [760_000, 2000, 1900] });
     expect(stuck.findings.map((f) => f.code)).toContain("target_not_reached_planned");
+  });
+
+  it("points to moisture when it keeps up above 5,000 microns and lags below; to restrictions when it lags from the start (our rule, common practice, no published source)", () => {
+    const plan = planPullDown({ ...base, coresRemoved: true, manifold: false });
+    const { tSeconds, microns } = plan.curve;
+    const t5 = tSeconds[microns.findIndex((m) => m <= 5000)];
+    // Same clock above 5,000 microns; 8 × slower below it.
+    const wet = comparePlanWithPullDown(plan, { tSeconds: tSeconds.map((t) => (t <= t5 ? t : t5 + (t - t5) * 8)), microns });
+    expect(wet.upperFactor!).toBeLessThan(1.01);
+    expect(wet.lowerFactor!).toBeGreaterThan(7);
+    expect(wet.findings[0].checks[0]).toMatch(/water/);
+    const restricted = comparePlanWithPullDown(plan, { tSeconds: tSeconds.map((t) => t * 8), microns });
+    expect(restricted.findings[0].checks[0]).toMatch(/restrictions/);
   });
 });
