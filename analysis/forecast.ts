@@ -17,6 +17,19 @@ function meanObservedMicrons(fit: ModelFit, observedSeconds: number): number {
   return sum / 64;
 }
 
+const quantileByDof = new Map<number, number>();
+
+/** studentTQuantile(0.975, dof), remembered per dof (the band asks for the same few dof many times). */
+function tQuantile975(dof: number): number {
+  let q = quantileByDof.get(dof);
+  if (q === undefined) {
+    q = studentTQuantile(0.975, dof);
+    if (quantileByDof.size > 1000) quantileByDof.clear();
+    quantileByDof.set(dof, q);
+  }
+  return q;
+}
+
 /**
  * Approximate 95 % prediction interval (microns) for one reading at tSeconds from one model fit.
  * Delta method: Var = gᵀ·C·g + s_t², g = ∂model/∂(p0, a, τ, l) at t, C the fit's covariance; s_t is the
@@ -32,7 +45,7 @@ function modelInterval(fit: ModelFit, tSeconds: number, observedSeconds: number)
   for (let i = 0; i < g.length; i++) for (let j = 0; j < g.length; j++) paramVar += g[i] * (fit.covariance[i]?.[j] ?? NaN) * g[j];
   const levelRatio = Math.max(1, mid / Math.max(meanObservedMicrons(fit, observedSeconds), 1));
   const noiseSd = fit.residualSd * levelRatio;
-  const q = studentTQuantile(0.975, fit.dof);
+  const q = tQuantile975(fit.dof);
   const half = q * Math.sqrt(Math.max(0, paramVar) + noiseSd * noiseSd);
   if (!Number.isFinite(half)) return { mid, low: 0, high: Infinity };
   return { mid, low: Math.max(0, mid - half), high: mid + half };
