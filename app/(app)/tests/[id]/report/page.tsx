@@ -6,7 +6,9 @@ import { PrintButton } from "@/components/review/PrintButton";
 import { ReportView } from "@/components/review/ReportView";
 import { getTestById } from "@/db/queries/tests";
 import { buildReportModel } from "@/lib/reports/model";
+import { can } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
+import { TestReviewSection } from "@/components/review/TestReviewSection";
 
 export const metadata: Metadata = { title: "Report" };
 export const dynamic = "force-dynamic";
@@ -32,6 +34,10 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
         <LinkButton href={`/api/tests/${id}/report?download=1`} variant="secondary" prefetch={false}>Download PDF</LinkButton>
       </div>
       <ReportView model={model} />
+      {/* The lead's desk for this test, on screen only (until the test page mounts it too). */}
+      <div className="mx-auto mt-8 max-w-3xl print:hidden">
+        <TestReviewSection testId={id} canShare={can(actor.role, "reports.share")} />
+      </div>
     </div>
   );
 }
