@@ -97,6 +97,12 @@ describe("tools journey on a 360 px phone (common practice, no published source)
     await page.getByTestId("rig-history").getByText(/Oil changed/).waitFor();
     await expect(page.getByTestId("rig-history").getByText(/oil cloudy or yellow/).count()).resolves.toBe(1);
     await shot("rig");
+  });
+
+  it("fills the planner's pump from the rig in the register", async () => {
+    await page.goto("/tools/planner");
+    await page.getByLabel("Use a rig from the register").selectOption({ label: "Van 7 kit" });
+    await expect.poll(() => page.getByLabel("Pump free-air displacement").inputValue(), { timeout: 30_000 }).toBe("8");
     expect(errors).toEqual([]);
   });
 });

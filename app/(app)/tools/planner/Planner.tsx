@@ -6,6 +6,7 @@ import { ACR_TUBE_ID_INCHES, systemVolumeLitres } from "@/analysis/volume";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
 import { LazyPlanChart } from "@/components/planner/LazyPlanChart";
 import { durationWords } from "@/components/planner/format";
+import { RigPicker, type RigSetup } from "@/components/planner/RigPicker";
 
 const SIZES = Object.keys(ACR_TUBE_ID_INCHES).map((s) => ({ value: s, label: `${s} in` }));
 const HOSE_IDS = [
@@ -37,6 +38,17 @@ export function Planner() {
   const [result, setResult] = useState<{ whatIfs: WhatIf[]; volume: number } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+
+  function applyRig(r: RigSetup) {
+    if (r.displacementCfm) {
+      setDisplacement(String(r.displacementCfm));
+      setDispUnit("cfm");
+    }
+    if (r.blankOffMicrons) setBlankOff(String(r.blankOffMicrons));
+    if (r.hoseCount) setHoseCount(String(r.hoseCount));
+    if (r.hoseInsideDiameterIn) setHoseId(String(r.hoseInsideDiameterIn));
+    if (r.hoseLengthFt) setHoseFt(String(r.hoseLengthFt));
+  }
 
   function plan() {
     setError(null);
@@ -95,13 +107,16 @@ export function Planner() {
         )}
       </Card>
       <Card title="Pump and hoses">
+        <div className="mb-3">
+          <RigPicker onPick={applyRig} />
+        </div>
         <div className="grid gap-3 sm:grid-cols-2">
           <Input label="Pump free-air displacement" inputMode="decimal" value={displacement} onChange={(e) => setDisplacement(e.target.value)} />
           <Select label="Displacement unit" value={dispUnit} onChange={(e) => setDispUnit(e.target.value as "cfm" | "m3h")} options={[{ value: "cfm", label: "CFM" }, { value: "m3h", label: "m³/h" }]} />
           <Input label="Pump blank-off (microns)" inputMode="decimal" value={blankOff} onChange={(e) => setBlankOff(e.target.value)} hint="Its lowest reading with the gauge on the pump alone" />
           <Input label="Target (microns)" inputMode="decimal" value={target} onChange={(e) => setTarget(e.target.value)} />
           <Input label="Number of hoses" inputMode="numeric" value={hoseCount} onChange={(e) => setHoseCount(e.target.value)} />
-          <Select label="Hose inside diameter" value={hoseId} onChange={(e) => setHoseId(e.target.value)} options={HOSE_IDS} />
+          <Select label="Hose inside diameter" value={hoseId} onChange={(e) => setHoseId(e.target.value)} options={HOSE_IDS.some((h) => h.value === hoseId) ? HOSE_IDS : [...HOSE_IDS, { value: hoseId, label: `${hoseId} in` }]} />
           <Input label="Hose length (ft)" inputMode="decimal" value={hoseFt} onChange={(e) => setHoseFt(e.target.value)} />
         </div>
         <div className="mt-3 space-y-2">
