@@ -143,6 +143,7 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
   const pickedRef = useRef<number | null>(pickedSeconds);
   const pickRef = useRef(onPickSeconds);
   const [themeTick, setThemeTick] = useState(0);
+  const [logScale, setLogScale] = useState(true);
   const model = useMemo(() => buildCurve(analysis, series), [analysis, series]);
   const summary = useMemo(() => curveSummary(analysis, series), [analysis, series]);
 
@@ -198,11 +199,11 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
             grid: { color: colors.grid },
           },
           y: {
-            type: "logarithmic",
-            min: model.yMinMicrons,
-            max: model.yMaxMicrons,
+            type: logScale ? "logarithmic" : "linear",
+            min: logScale ? model.yMinMicrons : 0,
+            max: logScale ? model.yMaxMicrons : model.yMaxMicrons / 1.4 * 1.08,
             title: { display: true, text: "microns", color: colors.soft, font: { size: 12 } },
-            ticks: { color: colors.soft, font: { size: 12 }, callback: logTick, autoSkip: true },
+            ticks: { color: colors.soft, font: { size: 12 }, callback: logScale ? logTick : (v) => Number(v).toLocaleString("en-US"), autoSkip: true },
             grid: { color: colors.grid },
           },
         },
@@ -231,7 +232,7 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
       chart.destroy();
       chartRef.current = null;
     };
-  }, [model, series, themeTick]);
+  }, [model, series, themeTick, logScale]);
 
   useEffect(() => {
     pickedRef.current = pickedSeconds;
@@ -240,6 +241,24 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
 
   return (
     <figure data-testid="decay-chart" className={`rounded-card border border-surface-line bg-surface-raised p-2 shadow-card sm:p-4 ${className}`}>
+      <div className="mb-1 flex justify-end">
+        <div role="group" aria-label="Pressure scale" className="inline-flex rounded-lg bg-surface-sunken p-0.5 text-caption font-semibold">
+          {([
+            [true, "Log scale"],
+            [false, "Linear"],
+          ] as const).map(([isLog, label]) => (
+            <button
+              key={label}
+              type="button"
+              aria-pressed={logScale === isLog}
+              onClick={() => setLogScale(isLog)}
+              className={`min-h-tap rounded-md px-3 ${logScale === isLog ? "bg-surface-raised text-fg shadow-card" : "text-fg-soft"}`}
+            >
+              {label}
+            </button>
+          ))}
+        </div>
+      </div>
       <div className="relative h-72 w-full sm:h-96">
         <canvas ref={canvasRef} role="img" aria-label={`Decay curve. ${summary}`} className={onPickSeconds ? "cursor-crosshair" : undefined} />
       </div>

@@ -15,7 +15,7 @@ export interface CurveModel {
   band: { low: XY[]; high: XY[]; mid: XY[] };
   pulldown: [number, number] | null;
   hold: [number, number] | null;
-  /** Minutes from the first data row, or null when no isolation was found. */
+  /** Minutes from the first data row, or null when the log has no isolation (it starts in the hold). */
   isolationMinutes: number | null;
   limitMicrons: number;
   targetMicrons: number;
@@ -85,6 +85,7 @@ export function decimateMinMax(t: number[], p: number[], buckets = 700): XY[] {
 export function buildCurve(analysis: AnalysisResult, series: { t: number[]; p: number[] }): CurveModel {
   const measured = decimateMinMax(series.t, series.p);
   const hold = primaryHold(analysis);
+  // The fit and the forecast count from the hold's start; the marker only shows a real isolation.
   const isolationSeconds = analysis.isolationAt ?? hold?.isolatedAtSeconds ?? null;
   const fit = chosenFit(hold);
   const fitted: XY[] = [];
@@ -117,7 +118,7 @@ export function buildCurve(analysis: AnalysisResult, series: { t: number[]; p: n
     band,
     pulldown: pd ? [pd.startSeconds / 60, pd.endSeconds / 60] : null,
     hold: hold ? [hold.isolatedAtSeconds / 60, hold.endSeconds / 60] : null,
-    isolationMinutes: isolationSeconds != null ? isolationSeconds / 60 : null,
+    isolationMinutes: analysis.isolationAt != null ? analysis.isolationAt / 60 : null,
     limitMicrons: limit,
     targetMicrons: target,
     xMaxMinutes: xMax,

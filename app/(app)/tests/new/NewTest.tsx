@@ -204,7 +204,18 @@ export function NewTest() {
         {(phase.kind === "checking" || (phase.kind === "sending" && tab === "file")) && (
           <Progress label={phase.kind === "checking" ? `Checking ${phase.file.name}…` : `Sending ${phase.file?.name ?? "readings"}…`} fraction={phase.kind === "sending" ? phase.progress : null} />
         )}
-        {phase.kind === "error" && <ErrorPanel error={phase.error} onRetry={phase.retry} onReset={reset} tab={tab} />}
+        {phase.kind === "error" && (
+          <ErrorPanel
+            error={phase.error}
+            onRetry={phase.retry}
+            onReset={reset}
+            tab={tab}
+            onTyped={() => {
+              reset();
+              setTab("typed");
+            }}
+          />
+        )}
       </div>
 
       <ContextFields value={context} onChange={setContext} />
@@ -228,7 +239,7 @@ function Progress({ label, fraction }: { label: string; fraction: number | null 
   );
 }
 
-function ErrorPanel({ error, onRetry, onReset, tab }: { error: unknown; onRetry: () => void; onReset: () => void; tab: "file" | "typed" }) {
+function ErrorPanel({ error, onRetry, onReset, onTyped, tab }: { error: unknown; onRetry: () => void; onReset: () => void; onTyped: () => void; tab: "file" | "typed" }) {
   const a = adviseOnError(error);
   return (
     <div data-testid="upload-error">
@@ -240,6 +251,9 @@ function ErrorPanel({ error, onRetry, onReset, tab }: { error: unknown; onRetry:
             {a.canRetry && <Button onClick={onRetry}>Retry</Button>}
             {a.signIn && <LinkButton href="/sign-in">Sign in</LinkButton>}
             <Button variant="secondary" onClick={onReset}>{tab === "file" ? "Choose another file" : "Back to the readings"}</Button>
+            {tab === "file" && error instanceof ApiError && error.status === 422 && (
+              <Button variant="quiet" onClick={onTyped}>Type the readings instead</Button>
+            )}
           </div>
         }
       >
