@@ -59,7 +59,9 @@ function parseReadingSlow(cell: string, decimalComma: boolean): number {
   let s = cell.trim();
   if (s.length === 0) return NaN;
   if (decimalComma) {
-    if (s.indexOf(".") !== -1 && s.indexOf(",") !== -1) s = s.split(".").join("");
+    const point = s.indexOf(".");
+    // Points are thousands groups when a comma follows or when there are several ("1.234.567").
+    if (point !== -1 && (s.indexOf(",") !== -1 || s.indexOf(".", point + 1) !== -1)) s = s.split(".").join("");
     s = s.replace(",", ".");
     return parsePlainNumber(s);
   }

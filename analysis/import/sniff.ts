@@ -5,6 +5,7 @@
  */
 import { LogError } from "../errors";
 import { parsePressureUnit } from "../units";
+import { addEvidence, decideDecimalComma, emptyEvidence } from "./decimal";
 
 /** Lines looked at to find the header (preamble included). */
 const HEADER_SEARCH_LINES = 100;
@@ -136,24 +137,11 @@ function delimiterScore(lines: string[], delimiter: string): { fields: number; s
   return { fields, score };
 }
 
-/**
- * Decimal comma: more cells like "25,20" than like "25.20". In a comma-delimited file a decimal
- * comma can only sit inside quotes; there "1,250" (three digits after the comma) is read as a
- * thousands separator, so only other digit counts ("25,2", "0,1234") count as decimal commas.
- */
+/** Decimal comma for the whole file, from every cell of the sample (rule in decimal.ts). */
 function detectDecimalComma(rows: string[][], delimiter: string): boolean {
-  let comma = 0;
-  let point = 0;
-  for (const row of rows)
-    for (const cell of row) {
-      const s = cell.trim();
-      if (delimiter === ",") {
-        if (/^[+-]?\d+,(\d{1,2}|\d{4,})$/.test(s)) comma++;
-        else if (/^[+-]?\d*\.\d+$/.test(s)) point++;
-      } else if (/^[+-]?\d+,\d+$/.test(s) || /^[+-]?\d{1,3}(\.\d{3})+,\d+$/.test(s)) comma++;
-      else if (/^[+-]?\d*\.\d+$/.test(s)) point++;
-    }
-  return comma > 0 && comma >= point;
+  const evidence = emptyEvidence();
+  for (const row of rows) for (const cell of row) addEvidence(evidence, cell);
+  return decideDecimalComma(evidence, delimiter);
 }
 
 /**

@@ -232,6 +232,41 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     expect(log.tSeconds).toHaveLength(86_400);
     expect(log.tSeconds.at(-1)).toBe(86_399);
   });
+
+  it("semicolon file, decimal comma with three decimals beside an unlocalised '21.5' column: '33,199' mbar is 33.199, not 33199 (rule in decimal.ts, common practice, no published source)", () => {
+    const log = importLog(layout("semicolon-mbar-three-decimals.csv"));
+    expect(log.summary).toMatchObject({ delimiter: ";", decimalComma: true, unit: "mbar", rows: 7, skipped: 1, overRange: 1 });
+    // mbar → microns is exact by definition (1 mbar = 100 Pa); close() allows 1e-9 relative for float rounding.
+    close(log.microns[0], toMicrons(33.199, "mbar"));
+    close(log.microns[2], toMicrons(12.004, "mbar"));
+    close(log.microns.at(-1)!, toMicrons(0.533, "mbar"));
+    expect(log.microns.every((m) => m < 25000)).toBe(true); // none read as thousands
+    expect(log.temperatureC![0]).toBe(21.5); // the point-decimal column is still read with a point
+  });
+
+  it("comma-delimited file, quoted decimal-comma cells: one '5,5' proves the convention for the whole file, so '33,199' is 33.199 (common practice, no published source)", () => {
+    const log = importLog(layout("quoted-comma-three-decimals.csv"));
+    expect(log.summary).toMatchObject({ delimiter: ",", decimalComma: true, unit: "mbar", rows: 6, skipped: 0 });
+    close(log.microns[0], toMicrons(33.199, "mbar"));
+    close(log.microns[3], toMicrons(1.067, "mbar"));
+    close(log.microns[2], toMicrons(5.5, "mbar"));
+    expect(log.temperatureC![0]).toBe(21.5);
+  });
+
+  it("the decimal convention is decided per file, not per cell: '33,199' in later rows follows a '0,5' in an earlier one, in a tab file with no other evidence (common practice, no published source)", () => {
+    const rows = ["0,5", ...Array.from({ length: 80 }, (_, i) => `${10 + i},${String(100 + i).padStart(3, "0")}`)];
+    const text = "Time\tPressure (Torr)\n" + rows.map((v, i) => `2026-06-14 13:${String(Math.floor(i / 60)).padStart(2, "0")}:${String(i % 60).padStart(2, "0")}\t${v}`).join("\n");
+    const log = importLog(text);
+    expect(log.summary.decimalComma).toBe(true);
+    close(log.microns[1], toMicrons(10.1, "torr"));
+    close(log.microns.at(-1)!, toMicrons(89.179, "torr"));
+  });
+
+  it("quoted '1,250' with no decimal-comma evidence in a comma-delimited file stays a thousands separator (common practice, no published source)", () => {
+    const log = importLog(layout("quoted.csv"));
+    expect(log.summary.decimalComma).toBe(false);
+    expect(log.microns[0]).toBe(1250);
+  });
 });
 
 describe("cell parsers", () => {
@@ -279,6 +314,8 @@ describe("cell parsers", () => {
     expect(parseReading("25,20", true)).toBe(25.2);
     expect(parseReading("1.234,5", true)).toBe(1234.5);
     expect(parseReading("1,234", false)).toBe(1234);
+    expect(parseReading("33,199", true)).toBe(33.199);
+    expect(parseReading("1.234.567", true)).toBe(1234567);
     for (const bad of ["0x1F", "Infinity", "1e309", "", "OR", ">25000", "12a"]) expect(Number.isNaN(parseReading(bad, false))).toBe(true);
   });
 
