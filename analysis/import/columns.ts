@@ -5,7 +5,7 @@
 import { LogError } from "../errors";
 import type { ImportOptions, PressureUnit } from "../types";
 import { type GaugeUnit, namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../units";
-import { parseReading } from "./numbers";
+import { classifyNonNumber, parseReading } from "./numbers";
 import type { Layout } from "./sniff";
 import { detectTimeSpec, type TimeSpec } from "./timespec";
 
@@ -46,11 +46,20 @@ function columnCells(layout: Layout, index: number): string[] {
   return out;
 }
 
+/**
+ * At least half the cells are numbers, gauge markers (">25000", "OR", "---", "<20") left out of
+ * the count: a column of readings that starts above the gauge's range is still numeric.
+ */
 function mostlyNumeric(cells: string[], decimalComma: boolean): boolean {
-  if (cells.length === 0) return false;
   let n = 0;
-  for (const c of cells) if (parseReading(c, decimalComma) === parseReading(c, decimalComma)) n++;
-  return n * 2 >= cells.length;
+  let counted = 0;
+  for (const c of cells) {
+    const v = parseReading(c, decimalComma);
+    if (v === v) { n++; counted++; continue; }
+    const kind = classifyNonNumber(c);
+    if (kind !== "over_range" && kind !== "dashes" && kind !== "under_range") counted++;
+  }
+  return n > 0 && n * 2 >= counted;
 }
 
 function describeColumns(header: string[]): string {

@@ -1,16 +1,26 @@
 /**
- * Sniffing the layout of a log from its first lines only: line ending, delimiter, where the
- * header row is (after any free-text preamble) and whether numbers use a decimal comma.
- * The whole file is parsed once, later, with what is decided here.
+ * Sniffing the layout of a log from its first lines: line ending, delimiter, where the header
+ * row is (after any free-text preamble), a sample of data rows, and whether numbers use a
+ * decimal comma. The whole file is parsed once, later, with what is decided here.
+ *
+ * The sample is the first SAMPLE_ROWS data rows, and, when some of those are gauge markers
+ * (">25000", "OR", "---": a log that starts above the gauge's range), the rows with readings
+ * that follow, until SAMPLE_ROWS such rows are in hand or MAX_SAMPLE_SCAN_LINES lines after the
+ * header have been looked at. Columns, units and the decimal convention are judged from it.
  */
 import { LogError } from "../errors";
 import { parsePressureUnit } from "../units";
 import { addEvidence, decideDecimalComma, emptyEvidence } from "./decimal";
+import { classifyNonNumber } from "./numbers";
 
 /** Lines looked at to find the header (preamble included). */
 const HEADER_SEARCH_LINES = 100;
 /** Data rows after the header used to decide columns, units and time format. */
 export const SAMPLE_ROWS = 50;
+/** Lines after the header looked at, at most, to find SAMPLE_ROWS rows free of gauge markers. */
+export const MAX_SAMPLE_SCAN_LINES = 5000;
+/** Lines read at a time past the first window when the sample must look further. */
+const SCAN_CHUNK_LINES = 512;
 
 const DELIMITERS = ["\t", ";", ",", "|"] as const;
 
@@ -22,7 +32,10 @@ export interface Layout {
   /** Character offset of the header row in the text (BOM already removed). */
   headerOffset: number;
   header: string[];
-  /** Up to SAMPLE_ROWS non-blank data rows after the header, split into cells. */
+  /**
+   * Non-blank data rows after the header, split into cells: the first SAMPLE_ROWS, then (when
+   * those hold gauge markers) up to SAMPLE_ROWS more rows free of markers, in file order.
+   */
   sampleRows: string[][];
   /** 1-based file line of each sample row. */
   sampleLines: number[];
@@ -40,12 +53,13 @@ export function detectNewline(text: string): Layout["newline"] {
   return "\n";
 }
 
-/** First `maxLines` lines with their start offsets. */
-function headLines(text: string, newline: string, maxLines: number): { lines: string[]; offsets: number[] } {
-  const lines: string[] = [];
-  const offsets: number[] = [];
-  let start = 0;
-  while (lines.length < maxLines && start <= text.length) {
+/**
+ * Up to `maxLines` lines from offset `from`, appended to `lines` / `offsets`. Returns the offset
+ * of the next unread line, or -1 when the text is exhausted.
+ */
+function readLines(text: string, newline: string, from: number, maxLines: number, lines: string[], offsets: number[]): number {
+  let start = from;
+  for (let k = 0; k < maxLines; k++) {
     let end = text.indexOf(newline, start);
     if (end === -1) end = text.length;
     let line = text.slice(start, end);
@@ -53,10 +67,26 @@ function headLines(text: string, newline: string, maxLines: number): { lines: st
     if (line.endsWith("\r")) line = line.slice(0, -1);
     lines.push(line);
     offsets.push(start);
-    if (end === text.length) break;
+    if (end === text.length) return -1;
     start = end + newline.length;
   }
-  return { lines, offsets };
+  return start;
+}
+
+/** A cell that is a gauge marker in place of a reading (">25000", "OR", "---", "<20"). */
+function isMarkerCell(cell: string): boolean {
+  const n = cell.length;
+  if (n === 0) return false;
+  const c = cell.charCodeAt(0);
+  if (c >= 48 && c <= 57) return false; // digit first: a number or a time
+  const kind = classifyNonNumber(cell);
+  return kind === "over_range" || kind === "dashes" || kind === "under_range";
+}
+
+/** A data row none of whose cells is a gauge marker. */
+function isPlainRow(cells: string[]): boolean {
+  for (const c of cells) if (isMarkerCell(c)) return false;
+  return true;
 }
 
 /** Split one line on a delimiter, honouring double quotes ("a,b" is one cell; "" is a quote). */
@@ -152,7 +182,9 @@ export function sniffLayout(text: string): Layout {
   if (text.slice(0, 4096).indexOf("\u0000") !== -1)
     throw new LogError("no_header", "the file is not text (it holds binary data); export the log as CSV");
   const newline = detectNewline(text);
-  const { lines, offsets } = headLines(text, newline, HEADER_SEARCH_LINES + SAMPLE_ROWS);
+  const lines: string[] = [];
+  const offsets: number[] = [];
+  let nextOffset = readLines(text, newline, 0, HEADER_SEARCH_LINES + SAMPLE_ROWS, lines, offsets);
   const searchLines = lines.slice(0, HEADER_SEARCH_LINES);
 
   let delimiter: string = ",";
@@ -206,10 +238,23 @@ export function sniffLayout(text: string): Layout {
 
   const sampleRows: string[][] = [];
   const sampleLines: number[] = [];
-  for (let i = headerLine + 1; i < lines.length && sampleRows.length < SAMPLE_ROWS; i++) {
+  let plainRows = 0;
+  const scanEnd = headerLine + 1 + MAX_SAMPLE_SCAN_LINES;
+  for (let i = headerLine + 1; i < scanEnd; i++) {
+    if (i >= lines.length) {
+      if (nextOffset < 0) break;
+      nextOffset = readLines(text, newline, nextOffset, SCAN_CHUNK_LINES, lines, offsets);
+      if (i >= lines.length) break;
+    }
     if (isBlank(lines[i])) continue;
-    sampleRows.push(split[i]);
-    sampleLines.push(i + 1);
+    const cells = i < split.length ? split[i] : splitLine(lines[i], delimiter);
+    const plain = isPlainRow(cells);
+    if (plain) plainRows++;
+    if (sampleRows.length < SAMPLE_ROWS || plain) {
+      sampleRows.push(cells);
+      sampleLines.push(i + 1);
+    }
+    if (sampleRows.length >= SAMPLE_ROWS && plainRows >= SAMPLE_ROWS) break;
   }
   return {
     newline,

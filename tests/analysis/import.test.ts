@@ -262,6 +262,26 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     close(log.microns.at(-1)!, toMicrons(89.179, "torr"));
   });
 
+  it("a 2 s log starting with 300 over-range rows ('>25000', 'OR', '----'): the pressure column is still found from the readings after them (common practice, no published source)", () => {
+    const log = importLog(layout("over-range-start.csv"));
+    // 'CH1' names neither pressure nor unit: chosen as the only numeric column, microns assumed.
+    expect(log.summary).toMatchObject({ rows: 360, skipped: 300, overRange: 300, pressureColumn: "CH1", unit: "micron", timeFormat: "clock" });
+    expect(log.microns).toHaveLength(60);
+    expect(log.microns[0]).toBe(24000);
+    expect(log.microns.at(-1)).toBe(18100);
+    expect(log.tSeconds[0]).toBe(600); // 13:15:00, 300 rows × 2 s after the first row
+    expect(log.overRangeSeconds).toHaveLength(300);
+  });
+
+  it("a semicolon kPa log starting with 250 '>3,3331' rows: decimal comma from the markers, readings '3,200' kPa (common practice, no published source)", () => {
+    const log = importLog(layout("over-range-start-semicolon.csv"));
+    expect(log.summary).toMatchObject({ rows: 280, skipped: 250, overRange: 250, unit: "kpa", decimalComma: true });
+    expect(log.microns).toHaveLength(30);
+    // kPa → microns exact by definition; 1e-9 relative for float rounding.
+    close(log.microns[0], toMicrons(3.2, "kpa"));
+    close(log.microns.at(-1)!, toMicrons(3.055, "kpa"));
+  });
+
   it("quoted '1,250' with no decimal-comma evidence in a comma-delimited file stays a thousands separator (common practice, no published source)", () => {
     const log = importLog(layout("quoted.csv"));
     expect(log.summary.decimalComma).toBe(false);
