@@ -61,7 +61,7 @@ export interface ImportOptions {
   pressureColumn?: string | number;
   unit?: PressureUnit;
   timeUnit?: "s" | "min";
-  /** Defaults: 64 MiB and 200,000 + … rows (see import.ts). */
+  /** Defaults: 64 MiB (maxBytes, counted in characters) and 1,000,000 data rows (see DEFAULT_MAX_BYTES and DEFAULT_MAX_ROWS in import/index.ts). */
   maxBytes?: number;
   maxRows?: number;
 }
