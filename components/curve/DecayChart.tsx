@@ -201,9 +201,10 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
           y: {
             type: logScale ? "logarithmic" : "linear",
             min: logScale ? model.yMinMicrons : 0,
-            max: logScale ? model.yMaxMicrons : model.yMaxMicrons / 1.4 * 1.08,
+            max: logScale ? model.yMaxMicrons : undefined,
+            suggestedMax: logScale ? undefined : model.limitMicrons * 1.1,
             title: { display: true, text: "microns", color: colors.soft, font: { size: 12 } },
-            ticks: { color: colors.soft, font: { size: 12 }, callback: logScale ? logTick : (v) => Number(v).toLocaleString("en-US"), autoSkip: true },
+            ticks: { color: colors.soft, font: { size: 12 }, callback: logScale ? logTick : (v) => Number(v).toLocaleString("en-US"), autoSkip: !logScale },
             grid: { color: colors.grid },
           },
         },
@@ -262,7 +263,7 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
       <div className="relative h-72 w-full sm:h-96">
         <canvas ref={canvasRef} role="img" aria-label={`Decay curve. ${summary}`} className={onPickSeconds ? "cursor-crosshair" : undefined} />
       </div>
-      <CurveLegend hasFit={model.fitted.length > 0} hasBand={model.band.mid.length > 0} />
+      <CurveLegend hasFit={model.fitted.length > 0} hasBand={model.band.mid.length > 0} hasIsolation={model.isolationMinutes != null} />
       <figcaption className="sr-only" data-testid="chart-summary">{summary}</figcaption>
     </figure>
   );
