@@ -73,14 +73,20 @@ function readLines(text: string, newline: string, from: number, maxLines: number
   return start;
 }
 
+/** The last cell found to be a marker: runs of marker rows repeat the same text. */
+let lastMarker = "";
+
 /** A cell that is a gauge marker in place of a reading (">25000", "OR", "---", "<20"). */
 function isMarkerCell(cell: string): boolean {
   const n = cell.length;
   if (n === 0) return false;
   const c = cell.charCodeAt(0);
   if (c >= 48 && c <= 57) return false; // digit first: a number or a time
+  if (cell === lastMarker) return true;
   const kind = classifyNonNumber(cell);
-  return kind === "over_range" || kind === "dashes" || kind === "under_range";
+  const marker = kind === "over_range" || kind === "dashes" || kind === "under_range";
+  if (marker) lastMarker = cell;
+  return marker;
 }
 
 /** A data row none of whose cells is a gauge marker. */
