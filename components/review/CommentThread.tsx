@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Alert, Button, Card, Input, Spinner, Textarea } from "@/components/ui";
 import { getComments, postComment, reviewKeys } from "./api";
@@ -22,9 +22,12 @@ export function CommentThread({ testId, pickedSeconds = null, onShowSeconds, can
   const q = useQuery({ queryKey: reviewKeys.comments(testId), queryFn: ({ signal }) => getComments(testId, signal) });
   const [body, setBody] = useState("");
   const [atMinutes, setAtMinutes] = useState("");
-  useEffect(() => {
+  // A new tap on the curve fills the minute field (state adjusted during render, not in an effect).
+  const [seenPick, setSeenPick] = useState<number | null>(pickedSeconds);
+  if (pickedSeconds !== seenPick) {
+    setSeenPick(pickedSeconds);
     if (pickedSeconds != null) setAtMinutes((pickedSeconds / 60).toFixed(1));
-  }, [pickedSeconds]);
+  }
   const m = useMutation({
     mutationFn: () => {
       const minutes = atMinutes.trim() === "" ? null : Number(atMinutes.replace(",", "."));
