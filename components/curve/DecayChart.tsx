@@ -147,7 +147,9 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
   const model = useMemo(() => buildCurve(analysis, series), [analysis, series]);
   const summary = useMemo(() => curveSummary(analysis, series), [analysis, series]);
 
-  pickRef.current = onPickSeconds;
+  useEffect(() => {
+    pickRef.current = onPickSeconds;
+  }, [onPickSeconds]);
 
   useEffect(() => {
     const obs = new MutationObserver(() => setThemeTick((n) => n + 1));

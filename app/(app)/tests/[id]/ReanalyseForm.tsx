@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useRef, useState } from "react";
+import { useRef, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { AnalysisResult, PressureUnit } from "@/analysis/types";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
@@ -40,12 +40,15 @@ export function ReanalyseForm({ testId, analysis, fromFile, pickedSeconds, onPic
   const lastAttempt = useRef<{ body: string; key: string } | null>(null);
   const profiles = useQuery({ queryKey: ["profiles"], queryFn: listProfiles, retry: 1 });
 
-  // A tap on the chart fills the isolation field.
-  useEffect(() => {
-    if (pickedSeconds == null) return;
-    setIsolation(isoUnit === "min" ? String(Math.round((pickedSeconds / 60) * 100) / 100) : String(Math.round(pickedSeconds)));
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [pickedSeconds]);
+  // A tap on the chart fills the isolation field (unless it already says that time).
+  const [seenPick, setSeenPick] = useState(pickedSeconds);
+  if (pickedSeconds !== seenPick) {
+    setSeenPick(pickedSeconds);
+    const typed = toNumber(isolation);
+    const typedSeconds = typed === null ? null : isoUnit === "min" ? typed * 60 : typed;
+    if (pickedSeconds != null && typedSeconds !== pickedSeconds)
+      setIsolation(isoUnit === "min" ? String(Math.round((pickedSeconds / 60) * 100) / 100) : String(Math.round(pickedSeconds)));
+  }
 
   const mutation = useMutation({
     mutationFn: ({ body, key }: { body: ReanalyseBody; key: string }) => reanalyse(testId, body, key),
