@@ -85,7 +85,9 @@ function markersPlugin(markers: ChartMarker[], soft: string, pinColour: string):
 export default function SeriesChart({ series, markers = [], yScale = "log", xTitle, yTitle = "microns", onPickSeconds, ariaLabel, testId = "series-chart", heightClass = "h-64 sm:h-80" }: SeriesChartProps) {
   const canvasRef = useRef<HTMLCanvasElement | null>(null);
   const pickRef = useRef(onPickSeconds);
-  pickRef.current = onPickSeconds;
+  useEffect(() => {
+    pickRef.current = onPickSeconds;
+  }, [onPickSeconds]);
 
   useEffect(() => {
     const canvas = canvasRef.current;

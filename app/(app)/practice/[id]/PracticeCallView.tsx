@@ -90,9 +90,6 @@ export function PracticeCallView({ id, canCall }: { id: string; canCall: boolean
           {v.analysis && (
             <div className="space-y-3" data-testid="practice-analysis">
               <VerdictBanner analysis={v.analysis} />
-              {v.analysis.reasons.length > 0 && (
-                <ul className="list-disc space-y-1 pl-5 text-body">{v.analysis.reasons.map((r) => <li key={r}>{r}</li>)}</ul>
-              )}
               <Link className="text-body underline" href={`/tests/${v.test.id}`}>Open the full test</Link>
             </div>
           )}
