@@ -1,7 +1,7 @@
 import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
-  serverExternalPackages: ["pg", "psychrolib"],
+  serverExternalPackages: ["pg", "psychrolib", "pdfkit"],
   poweredByHeader: false,
   devIndicators: false,
   typedRoutes: false,

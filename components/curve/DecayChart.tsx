@@ -31,6 +31,10 @@ export interface DecayChartProps {
   onPickSeconds?: (seconds: number) => void;
   /** A chosen (not yet analysed) isolation point, seconds from the first row. */
   pickedSeconds?: number | null;
+  /** Points people refer to (comments at a time on the curve), seconds from the first row. */
+  markers?: { seconds: number; label: string }[];
+  /** A marker to emphasise (e.g. the comment just tapped). */
+  highlightSeconds?: number | null;
   className?: string;
 }
 
@@ -68,7 +72,38 @@ function palette(): Palette {
   };
 }
 
-function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number | null): Plugin<"line"> {
+type Marks = { markers: { seconds: number; label: string }[]; highlight: number | null };
+
+/** A small flag at the top of the plot for each comment's time (numbered like the thread). */
+function drawMarkers(chart: Chart, marks: Marks, colors: Palette) {
+  const { ctx, chartArea, scales } = chart;
+  marks.markers.forEach((m, i) => {
+    const x = scales.x.getPixelForValue(m.seconds / 60);
+    if (x < chartArea.left || x > chartArea.right) return;
+    const on = marks.highlight != null && Math.abs(marks.highlight - m.seconds) < 0.5;
+    ctx.save();
+    ctx.strokeStyle = colors.pick;
+    ctx.globalAlpha = on ? 1 : 0.6;
+    ctx.lineWidth = on ? 2.5 : 1.5;
+    ctx.setLineDash([2, 3]);
+    ctx.beginPath();
+    ctx.moveTo(x, chartArea.top + 18);
+    ctx.lineTo(x, chartArea.bottom);
+    ctx.stroke();
+    ctx.setLineDash([]);
+    ctx.fillStyle = colors.pick;
+    ctx.beginPath();
+    ctx.arc(x, chartArea.top + 10, on ? 9 : 8, 0, Math.PI * 2);
+    ctx.fill();
+    ctx.fillStyle = "#ffffff";
+    ctx.font = "600 11px 'IBM Plex Sans', system-ui, sans-serif";
+    const label = String(i + 1);
+    ctx.fillText(label, x - ctx.measureText(label).width / 2, chartArea.top + 14);
+    ctx.restore();
+  });
+}
+
+function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number | null, marks: () => Marks): Plugin<"line"> {
   const vline = (chart: Chart, xMinutes: number, color: string, label: string, dash: number[]) => {
     const { ctx, chartArea, scales } = chart;
     const x = scales.x.getPixelForValue(xMinutes);
@@ -126,6 +161,7 @@ function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number |
       if (model.isolationMinutes != null) vline(chart, model.isolationMinutes, colors.soft, "Isolated", [6, 4]);
       const p = picked();
       if (p != null) vline(chart, p / 60, colors.pick, "New isolation", []);
+      drawMarkers(chart, marks(), colors);
     },
   };
 }
@@ -137,11 +173,12 @@ function logTick(value: number | string): string {
   return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
 }
 
-export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, className = "" }: DecayChartProps) {
+export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, markers = [], highlightSeconds = null, className = "" }: DecayChartProps) {
   const canvasRef = useRef<HTMLCanvasElement | null>(null);
   const chartRef = useRef<Chart<"line"> | null>(null);
   const pickedRef = useRef<number | null>(pickedSeconds);
   const pickRef = useRef(onPickSeconds);
+  const marksRef = useRef<Marks>({ markers, highlight: highlightSeconds });
   const [themeTick, setThemeTick] = useState(0);
   const [logScale, setLogScale] = useState(true);
   const model = useMemo(() => buildCurve(analysis, series), [analysis, series]);
@@ -227,7 +264,7 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
           pickRef.current(Math.round(Math.min(Math.max(0, minutes * 60), lastSeconds)));
         },
       },
-      plugins: [phasesPlugin(model, colors, () => pickedRef.current)],
+      plugins: [phasesPlugin(model, colors, () => pickedRef.current, () => marksRef.current)],
     };
     const chart = new Chart(canvas, config);
     chartRef.current = chart;
@@ -241,6 +278,11 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
     pickedRef.current = pickedSeconds;
     chartRef.current?.draw();
   }, [pickedSeconds]);
+
+  useEffect(() => {
+    marksRef.current = { markers, highlight: highlightSeconds };
+    chartRef.current?.draw();
+  }, [markers, highlightSeconds]);
 
   return (
     <figure data-testid="decay-chart" className={`rounded-card border border-surface-line bg-surface-raised p-2 shadow-card sm:p-4 ${className}`}>
@@ -266,7 +308,10 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
         <canvas ref={canvasRef} role="img" aria-label={`Decay curve. ${summary}`} className={onPickSeconds ? "cursor-crosshair" : undefined} />
       </div>
       <CurveLegend hasFit={model.fitted.length > 0} hasBand={model.band.mid.length > 0} hasIsolation={model.isolationMinutes != null} />
-      <figcaption className="sr-only" data-testid="chart-summary">{summary}</figcaption>
+      <figcaption className="sr-only" data-testid="chart-summary">
+        {summary}
+        {markers.length > 0 && ` Comments at: ${markers.map((m, i) => `${i + 1}) minute ${(m.seconds / 60).toFixed(1)}`).join(", ")}.`}
+      </figcaption>
     </figure>
   );
 }

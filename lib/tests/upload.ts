@@ -8,6 +8,8 @@
  *    concurrent requests race on the idempotency_keys primary key inside the transaction, the
  *    loser rolls back, deletes its object and returns the winner's test.
  */
+import { queueNewTestForReview } from "@/lib/review/auto";
+import { deliverMail } from "@/lib/notify/outbox";
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
@@ -131,6 +133,7 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
     throw new AppError("storage_unavailable");
   }
 
+  let reviewMailIds: string[] = [];
   try {
     await db.transaction(async (tx) => {
       const { siteId, systemId } = await checkRecords(tx, org, input.metadata);
@@ -139,6 +142,8 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
         const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: who.userId, testId });
         if (!claimed) throw new KeyTaken();
       }
+      // Not a pass, misses the profile or help asked: into the lead's queue in the same commit.
+      reviewMailIds = (await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId })).mailIds;
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
     });
   } catch (err) {
@@ -152,6 +157,8 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
     log.error("upload transaction failed; raw log removed", { testId, err: String((err as { cause?: unknown })?.cause ?? err) });
     throw new AppError("database_unavailable");
   }
+  // The leads' e-mail goes after commit and never holds up the verdict; the outbox keeps failures.
+  void deliverMail(db, reviewMailIds).catch((err) => log.error("review mail not sent yet", { testId, err: String(err) }));
   return { testId, created: true };
 }
 

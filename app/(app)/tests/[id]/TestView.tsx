@@ -1,6 +1,6 @@
 "use client";
 
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
 import { VerdictBanner } from "@/components/verdict/VerdictBanner";
@@ -15,11 +15,20 @@ import { RawDownload } from "./RawDownload";
 import { ReanalyseForm } from "./ReanalyseForm";
 import { STATUS_WORDS, dateTimeWords } from "./format";
 import { ImportPanel } from "./ImportPanel";
+import { TestReviewSection } from "@/components/review";
+import { getComments, reviewKeys } from "@/components/review/api";
+import { RigForTest } from "@/components/planner/RigForTest";
 
 /** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
-export function TestView({ id, canReanalyse }: { id: string; canReanalyse: boolean }) {
+export function TestView({ id, canReanalyse, canShare }: { id: string; canReanalyse: boolean; canShare: boolean }) {
   const q = useQuery({ queryKey: ["test", id], queryFn: ({ signal }) => getTest(id, signal) });
+  const comments = useQuery({ queryKey: reviewKeys.comments(id), queryFn: ({ signal }) => getComments(id, signal) });
   const [picked, setPicked] = useState<number | null>(null);
+  const [shown, setShown] = useState<number | null>(null);
+  const markers = useMemo(
+    () => (comments.data?.comments ?? []).filter((c) => c.atSeconds != null).map((c) => ({ seconds: c.atSeconds!, label: c.body })),
+    [comments.data],
+  );
 
   if (q.isPending)
     return (
@@ -53,8 +62,10 @@ export function TestView({ id, canReanalyse }: { id: string; canReanalyse: boole
       <VerdictBanner analysis={analysis} />
       <div>
         <h2 className="sr-only">Curve</h2>
-        <LazyDecayChart analysis={analysis} series={series} onPickSeconds={canReanalyse ? setPicked : undefined} pickedSeconds={picked} />
-        {canReanalyse && <p className="mt-1 text-caption text-fg-soft">Tap the chart to move the isolation point, then “Analyse again” below.</p>}
+        <LazyDecayChart analysis={analysis} series={series} onPickSeconds={setPicked} pickedSeconds={picked} markers={markers} highlightSeconds={shown} />
+        <p className="mt-1 text-caption text-fg-soft">
+          Tap the chart to pick a time: {canReanalyse ? "move the isolation point (“Analyse again” below) or " : ""}comment at that minute.
+        </p>
       </div>
       <div className="grid gap-5 lg:grid-cols-2">
         <NumbersPanel analysis={analysis} />
@@ -64,6 +75,8 @@ export function TestView({ id, canReanalyse }: { id: string; canReanalyse: boole
         </div>
       </div>
       <FindingsList findings={analysis.findings} />
+      <RigForTest testId={id} targetNotReached={analysis.findings.some((f) => f.code === "target_not_reached")} />
+      <TestReviewSection testId={id} canShare={canShare} pickedSeconds={picked} onShowSeconds={setShown} onChanged={() => void q.refetch()} />
       <div className="grid gap-5 lg:grid-cols-2">
         {canReanalyse && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
         <div className="space-y-5">
