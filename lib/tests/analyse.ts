@@ -13,7 +13,7 @@ import { getObjectBytes } from "@/lib/storage";
 import { runAnalysis } from "./engine";
 import { decodeLogText } from "./files";
 import { compactOptions, importOptionsOf, resolveProfile } from "./options";
-import { requireVisibleTest } from "./read";
+import { requireRevealedTest } from "./read";
 import type { ReanalysisInput } from "./schemas";
 
 /** Owners and leads re-analyse any test they see; everyone else only their own. */
@@ -27,7 +27,7 @@ export async function reanalyseTest(
   testId: string,
   input: ReanalysisInput,
 ): Promise<{ analysis: AnalysisResult; version: number; analysisId: string }> {
-  const row = await requireVisibleTest(db, viewer, testId);
+  const row = await requireRevealedTest(db, viewer, testId);
   if (!mayReanalyse(viewer, row.test.createdById))
     throw new AppError("forbidden", "Only the technician who uploaded this test, a lead or the owner can re-analyse it.");
   const org = viewer.organizationId;

@@ -5,6 +5,7 @@ import { getAnalysisById, listAnalysesByTest } from "@/db/queries/analyses";
 import { getTestById, getUploadByTest, listTestsByOrganization } from "@/db/queries/tests";
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
+import { hiddenPracticeTestIds, practiceGate } from "@/lib/practice/gate";
 import { toTestDto, type AnalysisHistoryEntry, type TestDto, type TestListItem } from "./dto";
 import type { ListTestsQuery } from "./schemas";
 
@@ -23,8 +24,21 @@ export async function requireVisibleTest(db: Db, viewer: Viewer, testId: string)
   return row;
 }
 
-export async function loadTestDetail(db: Db, viewer: Viewer, testId: string): Promise<TestDetail> {
+/**
+ * A visible test whose analysis the viewer may see. An apprentice's practice test stays closed
+ * until they have made their own call (403 naming where to make it), so no verdict leaks first.
+ */
+export async function requireRevealedTest(db: Db, viewer: Viewer, testId: string) {
   const row = await requireVisibleTest(db, viewer, testId);
+  const gate = await practiceGate(db, { organizationId: viewer.organizationId, testId, userId: viewer.userId, role: viewer.role });
+  if (gate === "hidden") {
+    throw new AppError("forbidden", "Make your practice call first; the analysis shows once you have.", { practiceCallUrl: `/practice/${testId}` });
+  }
+  return row;
+}
+
+export async function loadTestDetail(db: Db, viewer: Viewer, testId: string): Promise<TestDetail> {
+  const row = await requireRevealedTest(db, viewer, testId);
   const org = viewer.organizationId;
   const [current, history, upload] = await Promise.all([
     row.test.currentAnalysisId ? getAnalysisById(db, { organizationId: org, analysisId: row.test.currentAnalysisId }) : null,
@@ -82,23 +96,33 @@ export async function listTests(db: Db, viewer: Viewer, q: ListTestsQuery): Prom
   });
   const page = rows.slice(0, q.limit);
   const last = page[page.length - 1];
+  const hidden = await hiddenPracticeTestIds(db, { organizationId: viewer.organizationId, userId: viewer.userId, role: viewer.role, testIds: page.filter((r) => r.isPractice).map((r) => r.id) });
   return {
-    items: page.map((r) => ({
-      id: r.id,
-      title: r.title,
-      verdict: r.verdict,
-      confidence: r.confidence,
-      status: r.status,
-      testedAt: r.testedAt.toISOString(),
-      technician: { id: r.technicianId, name: r.technicianName },
-      site: r.siteId && r.siteName !== null ? { id: r.siteId, name: r.siteName } : null,
-      systemName: r.systemName,
-      isPractice: r.isPractice,
-      startMicrons: r.startMicrons,
-      endMicrons: r.endMicrons,
-      leakRateMicronsPerMinute: r.leakRateMicronsPerMinute,
-      findingCodes: r.findingCodes,
-    })),
+    items: page.map((r) => hidden.has(r.id) ? withoutAnalysis(toListItem(r)) : toListItem(r)),
     nextCursor: rows.length > q.limit && last ? encodeCursor(last.testedAtKey, last.id) : null,
+  };
+}
+
+/** A practice test in an apprentice's list before their call: the row, but nothing of the analysis. */
+function withoutAnalysis(item: TestListItem): TestListItem {
+  return { ...item, verdict: null, confidence: null, startMicrons: null, endMicrons: null, leakRateMicronsPerMinute: null, findingCodes: [] };
+}
+
+function toListItem(r: Awaited<ReturnType<typeof listTestsByOrganization>>[number]): TestListItem {
+  return {
+    id: r.id,
+    title: r.title,
+    verdict: r.verdict,
+    confidence: r.confidence,
+    status: r.status,
+    testedAt: r.testedAt.toISOString(),
+    technician: { id: r.technicianId, name: r.technicianName },
+    site: r.siteId && r.siteName !== null ? { id: r.siteId, name: r.siteName } : null,
+    systemName: r.systemName,
+    isPractice: r.isPractice,
+    startMicrons: r.startMicrons,
+    endMicrons: r.endMicrons,
+    leakRateMicronsPerMinute: r.leakRateMicronsPerMinute,
+    findingCodes: r.findingCodes,
   };
 }

@@ -39,6 +39,13 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
   if (q.isError) {
     const e = q.error;
     const notFound = e instanceof ApiError && e.status === 404;
+    const practiceUrl = e instanceof ApiError ? (e.details?.practiceCallUrl as string | undefined) : undefined;
+    if (practiceUrl)
+      return (
+        <Alert tone="info" title="Practice test: your call first" action={<LinkButton href={practiceUrl}>Make my call</LinkButton>}>
+          Look at the curve and say what you think it shows; the analysis appears once you have.
+        </Alert>
+      );
     return (
       <Alert tone="error" title={notFound ? "Test not found" : "The test could not be loaded"} action={notFound ? <LinkButton href="/tests">All tests</LinkButton> : <Button onClick={() => q.refetch()}>Retry</Button>}>
         {notFound ? "It may have been removed, or it is not shared with you." : (e as Error).message}

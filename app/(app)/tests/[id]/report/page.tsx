@@ -1,10 +1,11 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
+import { notFound, redirect } from "next/navigation";
 import { db } from "@/db/client";
 import { LinkButton } from "@/components/ui";
 import { PrintButton } from "@/components/review/PrintButton";
 import { ReportView } from "@/components/review/ReportView";
 import { getTestById } from "@/db/queries/tests";
+import { practiceGate } from "@/lib/practice/gate";
 import { buildReportModel } from "@/lib/reports/model";
 import { can } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
@@ -22,6 +23,8 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
   if (!UUID.test(id)) notFound();
   const visible = await getTestById(db(), { viewer: { organizationId: actor.organizationId, userId: actor.userId, role: actor.role }, testId: id });
   if (!visible) notFound();
+  const gate = await practiceGate(db(), { organizationId: actor.organizationId, testId: id, userId: actor.userId, role: actor.role });
+  if (gate === "hidden") redirect(`/practice/${id}`);
   const model = await buildReportModel(db(), { organizationId: actor.organizationId, testId: id });
   if (!model) notFound();
   return (

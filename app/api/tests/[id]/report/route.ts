@@ -2,7 +2,7 @@ import { z } from "zod";
 import { db } from "@/db/client";
 import { route } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { requireVisibleTest } from "@/lib/review/actions";
+import { requireRevealedTest } from "@/lib/tests/read";
 import { buildReportModel } from "@/lib/reports/model";
 import { pdfResponse } from "@/lib/reports/respond";
 
@@ -10,7 +10,7 @@ import { pdfResponse } from "@/lib/reports/respond";
 export const GET = route(
   { permission: "member", params: z.object({ id: z.string().uuid("not a valid id") }), query: z.object({ download: z.enum(["1", "0"]).optional() }) },
   async ({ actor, params, query }) => {
-    await requireVisibleTest(db(), actor, params.id);
+    await requireRevealedTest(db(), actor, params.id);
     const model = await buildReportModel(db(), { organizationId: actor.organizationId, testId: params.id });
     if (!model) throw new AppError("not_found", "No such test.");
     return pdfResponse(model, query.download !== "1");
