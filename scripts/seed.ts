@@ -34,7 +34,11 @@ async function main() {
   ]);
   const { seedDemoTests } = await import("./seed-tests");
   const { created: count } = await seedDemoTests(db(), { organizationId: org.id, members: people });
-  console.log(`• Seeded "${DEMO_COMPANY.name}" with ${people.length} people and ${count} tests.`);
+  // After the month of tests: seedDemoTests skips an organization that already has tests.
+  const { seedStarterCasebook } = await import("./seed-casebook");
+  const trainer = people.find((p) => p.role === "trainer")!;
+  const casebook = await seedStarterCasebook(db(), { organizationId: org.id, trainerId: trainer.userId });
+  console.log(`• Seeded "${DEMO_COMPANY.name}" with ${people.length} people, ${count} tests and a starter casebook of ${casebook.created} simulated curves.`);
   printPeople();
 }
 

@@ -17,11 +17,12 @@ export function navItemsFor(role: Role): NavItem[] {
     { href: "/tests/new", label: "New test", icon: "new", prominent: true },
   ];
   if (can(role, "tests.review")) items.push({ href: "/review", label: "Review", icon: "review" });
-  items.push(
-    { href: "/casebook", label: "Casebook", icon: "casebook" },
-    { href: "/tools", label: "Tools", icon: "tools" },
-    { href: "/settings/members", label: "Shop", icon: "shop" },
-  );
+  items.push({ href: "/casebook", label: "Casebook", icon: "casebook" });
+  if (role === "apprentice" || role === "trainer") items.push({ href: "/practice", label: "Practice", icon: "casebook" });
+  if (can(role, "records.manage") || can(role, "tests.read_all")) items.push({ href: "/records", label: "Customers", icon: "shop" });
+  items.push({ href: "/tools", label: "Tools", icon: "tools" });
+  if (can(role, "profiles.manage")) items.push({ href: "/settings/profiles", label: "Acceptance", icon: "review" });
+  items.push({ href: "/settings/members", label: "Shop", icon: "shop" });
   return items;
 }
 
