@@ -4,7 +4,6 @@
  * deliver the e-mails. An illegal transition is a 409 with the state machine's words.
  */
 import type { Database, Tx } from "@/db/client";
-import { getTestById } from "@/db/queries/tests";
 import {
   getUserEmailById, insertTestEvent, listReviewerEmailsByOrganization, lockTestReviewStateById, updateTestStatusById,
 } from "@/db/queries/review";
@@ -12,6 +11,7 @@ import type { TestStatus } from "@/db/schema";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
+import { requireVisibleTest } from "@/lib/tests/read";
 import { reviewRequestedMail, sentBackMail, signedOffMail, type TestSummary } from "@/lib/notify/messages";
 import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
 import type { OutgoingMail } from "@/lib/mail";
@@ -33,13 +33,6 @@ const EVENT_KIND = {
   send_back: "sent_back",
   resubmit: "resubmitted",
 } as const;
-
-/** The test as a member sees it, or 404 (unknown, other organization, or not visible to them). */
-export async function requireVisibleTest(db: Database | Tx, actor: Actor, testId: string) {
-  const row = await getTestById(db, { viewer: { organizationId: actor.organizationId, userId: actor.userId, role: actor.role }, testId });
-  if (!row) throw new AppError("not_found", "No such test.");
-  return row;
-}
 
 async function mailsFor(tx: Tx, actor: Actor, action: ReviewAction, summary: TestSummary, createdById: string, note: string | null): Promise<OutgoingMail[]> {
   const org = actor.organizationId;

@@ -2,7 +2,7 @@ import { db } from "@/db/client";
 import { insertTestComment, listTestCommentsByTest } from "@/db/queries/comments";
 import { insertTestEvent } from "@/db/queries/review";
 import { route, uuidParam } from "@/lib/api/handler";
-import { requireVisibleTest } from "@/lib/review/actions";
+import { requireVisibleTest } from "@/lib/tests/read";
 import { commentSchema } from "@/lib/review/schemas";
 
 export const GET = route({ permission: "tests.comment", params: uuidParam }, async ({ actor, params }) => {

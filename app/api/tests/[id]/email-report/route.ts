@@ -3,7 +3,7 @@ import { getOrganizationNameById, insertTestEvent } from "@/db/queries/review";
 import { route, uuidParam } from "@/lib/api/handler";
 import { reportMail } from "@/lib/notify/messages";
 import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
-import { requireVisibleTest } from "@/lib/review/actions";
+import { requireVisibleTest } from "@/lib/tests/read";
 import { emailReportSchema } from "@/lib/review/schemas";
 
 /** E-mail the report (PDF attached, built at send time) to a customer address. */

@@ -1,7 +1,7 @@
 import { db } from "@/db/client";
 import { listTestEventsByTest } from "@/db/queries/review";
 import { route, uuidParam } from "@/lib/api/handler";
-import { requireVisibleTest } from "@/lib/review/actions";
+import { requireVisibleTest } from "@/lib/tests/read";
 
 /** The audit trail: every state change and comment, oldest first, with who and when. */
 export const GET = route({ permission: "member", params: uuidParam }, async ({ actor, params }) => {

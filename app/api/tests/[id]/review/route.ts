@@ -1,7 +1,8 @@
 import { db } from "@/db/client";
 import { route, uuidParam } from "@/lib/api/handler";
 import { can } from "@/lib/permissions";
-import { applyReviewAction, requireVisibleTest } from "@/lib/review/actions";
+import { applyReviewAction } from "@/lib/review/actions";
+import { requireVisibleTest } from "@/lib/tests/read";
 import { reviewActionSchema } from "@/lib/review/schemas";
 import { availableActions } from "@/lib/review/state";
 

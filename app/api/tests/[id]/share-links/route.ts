@@ -1,7 +1,7 @@
 import { db } from "@/db/client";
 import { listShareLinksByTest } from "@/db/queries/share-links";
 import { route, uuidParam } from "@/lib/api/handler";
-import { requireVisibleTest } from "@/lib/review/actions";
+import { requireVisibleTest } from "@/lib/tests/read";
 import { shareLinkCreateSchema } from "@/lib/review/schemas";
 import { createShareLink } from "@/lib/reports/share";
 

@@ -4,7 +4,7 @@ import { revokeShareLinkById } from "@/db/queries/share-links";
 import { insertTestEvent } from "@/db/queries/review";
 import { route } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { requireVisibleTest } from "@/lib/review/actions";
+import { requireVisibleTest } from "@/lib/tests/read";
 
 const params = z.object({ id: z.string().uuid("not a valid id"), linkId: z.string().uuid("not a valid id") });
 
