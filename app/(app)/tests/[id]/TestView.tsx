@@ -18,6 +18,7 @@ import { ImportPanel } from "./ImportPanel";
 import { TestReviewSection } from "@/components/review";
 import { getComments, reviewKeys } from "@/components/review/api";
 import { RigForTest } from "@/components/planner/RigForTest";
+import { PlanCompare } from "./PlanCompare";
 
 /** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
 export function TestView({ id, canReanalyse, canShare }: { id: string; canReanalyse: boolean; canShare: boolean }) {
@@ -82,6 +83,7 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
         </div>
       </div>
       <FindingsList findings={analysis.findings} />
+      <PlanCompare analysis={analysis} series={series} volumeLitres={test.volumeLitres ?? null} />
       <RigForTest testId={id} targetNotReached={analysis.findings.some((f) => f.code === "target_not_reached")} />
       <TestReviewSection testId={id} canShare={canShare} pickedSeconds={picked} onShowSeconds={setShown} onChanged={() => void q.refetch()} />
       <div className="grid gap-5 lg:grid-cols-2">
