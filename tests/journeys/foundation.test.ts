@@ -1,28 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
-import { chromium, type Browser, type BrowserContext } from "playwright-core";
-import { APP_URL, PHONE } from "./browser";
+import { launch, PHONE, type Session } from "./browser";
 import { createShop, uniqueEmail, PASSWORD } from "../helpers/members";
 import { firstAppLink, waitForMail } from "../helpers/mailbox";
 
-/**
- * The flags of ./browser.ts launch() without --user-data-dir, which playwright-core 1.65 refuses
- * on launch(); each browser gets its own throw-away profile anyway.
- */
-async function launchChromium() {
-  const browser: Browser = await chromium.launch({
-    executablePath: "/usr/bin/chromium",
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
-  });
-  return {
-    newContext: (o?: Parameters<Browser["newContext"]>[0]): Promise<BrowserContext> => browser.newContext({ baseURL: APP_URL, ...o }),
-    close: () => browser.close(),
-  };
-}
-
-let s: Awaited<ReturnType<typeof launchChromium>>;
+let s: Session;
 beforeAll(async () => {
-  s = await launchChromium();
+  s = await launch();
 });
 afterAll(async () => {
   await s?.close();

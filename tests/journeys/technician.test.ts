@@ -8,8 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import { APP_URL, PHONE, signInThroughPage } from "./browser";
+import type { BrowserContext, Page } from "playwright-core";
+import { launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
 
 const SAMPLE_PASS = "fixtures/samples/sample-1-iso-microns.csv";
@@ -17,24 +17,12 @@ const SAMPLE_LEAK = "fixtures/samples/sample-2-elapsed-mtorr.csv";
 const BAD_TIME = "fixtures/bad/bad-time.csv";
 const SHOTS = process.env.JOURNEY_SHOTS === "1";
 
-/**
- * Same Chromium and flags as ./browser.ts launch(), without --user-data-dir: playwright-core
- * 1.65 refuses that flag on launch() and keeps its own throw-away profile per browser.
- */
-async function launchChromium(): Promise<{ newContext: (o: Parameters<Browser["newContext"]>[0]) => Promise<BrowserContext>; close: () => Promise<void> }> {
-  const browser = await chromium.launch({
-    executablePath: "/usr/bin/chromium",
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
-  });
-  return { newContext: (o) => browser.newContext({ baseURL: APP_URL, ...o }), close: () => browser.close() };
-}
-
-let session: Awaited<ReturnType<typeof launchChromium>>;
+let session: Session;
 let tech: TestMember;
 const scratch = mkdtempSync(join(tmpdir(), "rl-tech-"));
 
 beforeAll(async () => {
-  session = await launchChromium();
+  session = await launch();
   const owner = await createShop();
   tech = await addMember(owner.organizationId, "technician", "Tess Tech");
 });

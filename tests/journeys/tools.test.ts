@@ -6,23 +6,14 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mkdirSync } from "node:fs";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import { APP_URL, PHONE, signInThroughPage } from "./browser";
+import type { Page } from "playwright-core";
+import { launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
 
 const SHOTS = process.env.JOURNEY_SHOTS === "1";
 const SHOTS_DIR = process.env.JOURNEY_SHOTS_DIR ?? "/tmp/rl-tools-shots";
 
-/** Same Chromium and flags as ./browser.ts launch(), without --user-data-dir (playwright-core 1.65 refuses it on launch()). */
-async function launchChromium() {
-  const browser: Browser = await chromium.launch({
-    executablePath: "/usr/bin/chromium",
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
-  });
-  return { newContext: (o: Parameters<Browser["newContext"]>[0]): Promise<BrowserContext> => browser.newContext({ baseURL: APP_URL, ...o }), close: () => browser.close() };
-}
-
-let session: Awaited<ReturnType<typeof launchChromium>>;
+let session: Session;
 let tech: TestMember;
 let page: Page;
 const errors: string[] = [];
@@ -34,7 +25,7 @@ async function shot(name: string) {
 }
 
 beforeAll(async () => {
-  session = await launchChromium();
+  session = await launch();
   const owner = await createShop();
   tech = await addMember(owner.organizationId, "technician", "Tomas Tech");
   const context = await session.newContext(PHONE);

@@ -5,31 +5,22 @@
  * Screenshots at 360 px and 1280 px when JOURNEY_SHOTS=1 (written to $JOURNEY_SHOTS_DIR or /tmp).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
-import { APP_URL, DESKTOP, PHONE, signInThroughPage } from "./browser";
+import type { Page } from "playwright-core";
+import { DESKTOP, launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
 import { seedTest } from "@/tests/helpers/seed-test";
 
 const SHOTS = process.env.JOURNEY_SHOTS === "1";
 const SHOTS_DIR = process.env.JOURNEY_SHOTS_DIR ?? "/tmp";
 
-/** Same Chromium and flags as ./browser.ts launch(), without --user-data-dir (playwright-core keeps its own profile). */
-async function launchChromium(): Promise<{ newContext: (o: Parameters<Browser["newContext"]>[0]) => Promise<BrowserContext>; close: () => Promise<void> }> {
-  const browser = await chromium.launch({
-    executablePath: "/usr/bin/chromium",
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
-  });
-  return { newContext: (o) => browser.newContext({ baseURL: APP_URL, ...o }), close: () => browser.close() };
-}
-
-let session: Awaited<ReturnType<typeof launchChromium>>;
+let session: Session;
 let trainer: TestMember;
 let apprentice: TestMember;
 let practiceId: string;
 const titles = ["Bench: tight and dry", "Bench: steady leak", "Bench: second leak"];
 
 beforeAll(async () => {
-  session = await launchChromium();
+  session = await launch();
   const owner = await createShop();
   trainer = await addMember(owner.organizationId, "trainer", "Tamsin Trainer");
   apprentice = await addMember(owner.organizationId, "apprentice", "Arlo Apprentice");
