@@ -9,8 +9,8 @@
  * tell analysis errors from import errors.
  */
 import { analyzeLog, analyzeReadings } from "../analysis";
-import { SCENARIOS, simulateLog, type Scenario, type SimulatedLog } from "../analysis/simulate";
-import type { AnalysisResult, ImportedLog, Verdict } from "../analysis/types";
+import { SCENARIOS, simulateLog, simulatedAsImported, type Scenario, type SimulatedLog } from "../analysis/simulate";
+import type { AnalysisResult, Verdict } from "../analysis/types";
 import { DEFAULT_PROFILE } from "../analysis/profile";
 
 const count = Number(process.argv[2] ?? 500);
@@ -34,35 +34,10 @@ function truncate(sim: SimulatedLog, cutSeconds: number): string {
 
 const viaReadings = process.argv.includes("--readings");
 
-/** The simulated readings as an ImportedLog (what a perfect importer would return). */
-function asImported(sim: SimulatedLog): ImportedLog {
-  const log: ImportedLog = {
-    tSeconds: [],
-    microns: [],
-    overRangeSeconds: [],
-    temperatureC: null,
-    startedAt: null,
-    findings: [],
-    summary: {
-      rows: sim.tSeconds.length, skipped: 0, overRange: 0, unit: "micron", timeFormat: "typed", delimiter: ",", decimalComma: false,
-      headerLine: 0, columns: ["t", "p"], timeColumn: "t", pressureColumn: "p", temperatureColumn: null, unsure: false, assumptions: [],
-    },
-  };
-  sim.tSeconds.forEach((t, i) => {
-    const v = sim.microns[i];
-    if (v === null) log.overRangeSeconds.push(t);
-    else {
-      log.tSeconds.push(t);
-      log.microns.push(v);
-    }
-  });
-  return log;
-}
-
 function analyse(sim: SimulatedLog, cutSeconds = Infinity): AnalysisResult {
   if (!viaReadings) return analyzeLog(Number.isFinite(cutSeconds) ? truncate(sim, cutSeconds) : sim.text);
   const keep = sim.tSeconds.map((t) => t <= cutSeconds);
-  return analyzeReadings(asImported({ ...sim, tSeconds: sim.tSeconds.filter((_, i) => keep[i]), microns: sim.microns.filter((_, i) => keep[i]) }));
+  return analyzeReadings(simulatedAsImported({ ...sim, tSeconds: sim.tSeconds.filter((_, i) => keep[i]), microns: sim.microns.filter((_, i) => keep[i]) }));
 }
 
 const confusion = new Map<string, number>();

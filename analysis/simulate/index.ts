@@ -16,6 +16,7 @@ export { SCENARIOS, scenarioParams, type Scenario, type ScenarioOptions } from "
 export { LAYOUTS, UNITS, renderLog, type Layout, type RenderRow } from "./render";
 export { makeRng, type Rng } from "./prng";
 export { holdMicrons, makePulldownCurve } from "./curve";
+export { simulatedAsImported } from "./imported";
 export type * from "./params";
 
 /** Simulate one log of a named scenario; the same options and seed always give the same log. */
