@@ -4,6 +4,7 @@
  * second test. Uploads go through XMLHttpRequest for progress.
  */
 import type { AnalysisResult, PressureUnit, Verdict } from "@/analysis/types";
+import type { TestListItem as ServerTestListItem } from "@/lib/tests/dto";
 
 export type TestStatus = "submitted" | "waiting_review" | "signed_off" | "sent_back";
 
@@ -39,22 +40,8 @@ export interface CreatedTest {
   analysis: AnalysisResult;
 }
 
-export interface TestListItem {
-  id: string;
-  title: string;
-  verdict: Verdict | null;
-  confidence: number | null;
-  status: TestStatus;
-  testedAt: string;
-  technician: { id: string; name: string };
-  site: { id: string; name: string } | null;
-  systemName: string | null;
-  isPractice: boolean;
-  startMicrons: number | null;
-  endMicrons: number | null;
-  leakRateMicronsPerMinute: number | null;
-  findingCodes: string[];
-}
+/** A row of the tests list: the server's shape, with the verdict typed as the analysis' Verdict. */
+export type TestListItem = Omit<ServerTestListItem, "verdict"> & { verdict: Verdict | null };
 
 export interface TestPage {
   items: TestListItem[];
