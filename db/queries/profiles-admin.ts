@@ -6,16 +6,7 @@ import { and, eq, ne, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { acceptanceProfiles } from "@/db/schema";
 import type { AcceptanceProfile } from "@/analysis/types";
-
-const columns = {
-  id: acceptanceProfiles.id,
-  name: acceptanceProfiles.name,
-  targetMicrons: acceptanceProfiles.targetMicrons,
-  holdMinutes: acceptanceProfiles.holdMinutes,
-  limitMicrons: acceptanceProfiles.limitMicrons,
-  leakRateMicronsPerMinute: acceptanceProfiles.leakRateMicronsPerMinute,
-  isDefault: acceptanceProfiles.isDefault,
-};
+import { profileColumns } from "./profiles";
 
 /** Serialise default changes within one organization (call first in the transaction). */
 async function lockProfilesOfOrganization(db: Db, organizationId: string) {
@@ -42,7 +33,7 @@ export async function createProfileForOrganization(db: Db, params: { organizatio
   const { organizationId, makeDefault, ...profile } = params;
   await lockProfilesOfOrganization(db, organizationId);
   const isDefault = makeDefault || (await countProfiles(db, organizationId)) === 0;
-  const [row] = await db.insert(acceptanceProfiles).values({ organizationId, ...profile, isDefault }).returning(columns);
+  const [row] = await db.insert(acceptanceProfiles).values({ organizationId, ...profile, isDefault }).returning(profileColumns);
   if (isDefault) await clearOtherDefaults(db, organizationId, row.id);
   return row;
 }
@@ -54,7 +45,7 @@ export async function updateProfileById(db: Db, params: { organizationId: string
     .update(acceptanceProfiles)
     .set(profile)
     .where(and(eq(acceptanceProfiles.organizationId, organizationId), eq(acceptanceProfiles.id, profileId)))
-    .returning(columns);
+    .returning(profileColumns);
   return row ?? null;
 }
 
@@ -65,7 +56,7 @@ export async function setDefaultProfileById(db: Db, params: { organizationId: st
     .update(acceptanceProfiles)
     .set({ isDefault: true })
     .where(and(eq(acceptanceProfiles.organizationId, params.organizationId), eq(acceptanceProfiles.id, params.profileId)))
-    .returning(columns);
+    .returning(profileColumns);
   if (!row) return null;
   await clearOtherDefaults(db, params.organizationId, row.id);
   return row;

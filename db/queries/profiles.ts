@@ -13,7 +13,8 @@ export interface ProfileRow extends AcceptanceProfile {
 /** Name shown for the engine's default when an organization has no profiles of its own. */
 export const BUILT_IN_PROFILE_NAME = "Common practice (default)";
 
-const columns = {
+/** The columns every profile read and write returns (the ProfileRow shape less the built-in case). */
+export const profileColumns = {
   id: acceptanceProfiles.id,
   name: acceptanceProfiles.name,
   targetMicrons: acceptanceProfiles.targetMicrons,
@@ -30,7 +31,7 @@ export function builtInProfile(): ProfileRow {
 /** The organization's profiles (default first); the built-in default when it has none. */
 export async function listProfilesByOrganization(db: Db, params: { organizationId: string }): Promise<ProfileRow[]> {
   const rows = await db
-    .select(columns)
+    .select(profileColumns)
     .from(acceptanceProfiles)
     .where(eq(acceptanceProfiles.organizationId, params.organizationId))
     .orderBy(desc(acceptanceProfiles.isDefault), asc(acceptanceProfiles.name));
@@ -39,7 +40,7 @@ export async function listProfilesByOrganization(db: Db, params: { organizationI
 
 export async function getProfileById(db: Db, params: { organizationId: string; profileId: string }): Promise<ProfileRow | null> {
   const [row] = await db
-    .select(columns)
+    .select(profileColumns)
     .from(acceptanceProfiles)
     .where(and(eq(acceptanceProfiles.organizationId, params.organizationId), eq(acceptanceProfiles.id, params.profileId)))
     .limit(1);
@@ -49,7 +50,7 @@ export async function getProfileById(db: Db, params: { organizationId: string; p
 /** The organization's default profile, or the built-in one. */
 export async function getDefaultProfileByOrganization(db: Db, params: { organizationId: string }): Promise<ProfileRow> {
   const [row] = await db
-    .select(columns)
+    .select(profileColumns)
     .from(acceptanceProfiles)
     .where(and(eq(acceptanceProfiles.organizationId, params.organizationId), eq(acceptanceProfiles.isDefault, true)))
     .limit(1);
@@ -61,6 +62,6 @@ export async function createProfile(db: Db, params: { organizationId: string; is
   const [row] = await db
     .insert(acceptanceProfiles)
     .values({ ...params, isDefault: params.isDefault ?? false })
-    .returning(columns);
+    .returning(profileColumns);
   return row;
 }
