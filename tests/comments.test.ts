@@ -1,21 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { GET as commentsGet, POST as commentsPost } from "@/app/api/tests/[id]/comments/route";
 import { GET as eventsGet } from "@/app/api/tests/[id]/events/route";
-import { appRequest, createCrew, createShop, routeParams, type TestMember } from "./helpers/members";
+import { appRequest, createShop, routeParams, type TestMember } from "./helpers/members";
+import { jsonInit, crewForFile } from "./helpers/crew";
 import { seedTest } from "./helpers/seed-test";
-import type { Role } from "@/lib/permissions";
 
 const post = (id: string, as: TestMember, body: unknown) =>
-  commentsPost(appRequest(`/api/tests/${id}/comments`, { method: "POST", as, body: JSON.stringify(body), headers: { "content-type": "application/json" } }), routeParams({ id }));
+  commentsPost(appRequest(`/api/tests/${id}/comments`, jsonInit(as, body)), routeParams({ id }));
 
-let crew: Record<Role, TestMember>;
-beforeAll(async () => {
-  crew = await createCrew();
-});
-afterAll(async () => {
-  const { closeDb } = await import("@/db/client");
-  await closeDb();
-});
+const crew = crewForFile();
 
 describe("comments on a test (tests.comment: everyone on tests they can see, DEVELOPERS.md)", () => {
   it("stores a comment at a time on the curve and one about the whole test, oldest first, in the audit trail too", async () => {

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { vacuumTests, testEvents } from "@/db/schema";
@@ -8,22 +8,15 @@ import { GET as queueGet } from "@/app/api/review/route";
 import { routeNewTestToReview } from "@/lib/review/auto";
 import { checkTransition, TRANSITIONS } from "@/lib/review/state";
 import { TEST_STATUSES } from "@/db/schema";
-import { appRequest, createCrew, createShop, routeParams, type TestMember } from "./helpers/members";
+import { appRequest, createShop, routeParams, type TestMember } from "./helpers/members";
+import { jsonInit, crewForFile } from "./helpers/crew";
 import { firstAppLink, waitForMail } from "./helpers/mailbox";
 import { seedTest } from "./helpers/seed-test";
-import type { Role } from "@/lib/permissions";
 
 const post = (id: string, as: TestMember, body: unknown) =>
-  reviewPost(appRequest(`/api/tests/${id}/review`, { method: "POST", as, body: JSON.stringify(body), headers: { "content-type": "application/json" } }), routeParams({ id }));
+  reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(as, body)), routeParams({ id }));
 
-let crew: Record<Role, TestMember>;
-beforeAll(async () => {
-  crew = await createCrew();
-});
-afterAll(async () => {
-  const { closeDb } = await import("@/db/client");
-  await closeDb();
-});
+const crew = crewForFile();
 
 describe("review state machine (product rule, lib/review/state.ts)", () => {
   it("allows exactly the documented transitions and names the status in every refusal (product rule)", () => {
