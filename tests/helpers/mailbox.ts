@@ -1,16 +1,11 @@
 /** Reads what the real SMTP catcher (scripts/fakes.mjs) stored, as a person would read mail. */
 import { readdirSync, readFileSync, existsSync } from "node:fs";
 import { join } from "node:path";
+import type { CaughtMessage } from "@/app/dev/mailbox/read-mailbox";
 import { env } from "@/lib/env";
 
-export interface CaughtMail {
-  id: string;
-  receivedAt: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-  html: string;
+/** A stored message as the dev mailbox page reads it, plus the attachments the catcher records. */
+export interface CaughtMail extends CaughtMessage {
   attachments: { filename?: string; contentType: string; size: number }[];
 }
 
