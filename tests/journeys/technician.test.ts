@@ -110,8 +110,11 @@ describe("technician on a phone", () => {
     // 0–14 min, 300 microns rising 60 per minute: a steady climb with no levelling off.
     const readings = Array.from({ length: 15 }, (_, m) => 300 + 60 * m);
     await page.getByLabel("Row 1 microns").fill(String(readings[0]));
-    for (const v of readings.slice(1)) {
+    for (const [i, v] of readings.slice(1).entries()) {
       await page.keyboard.press("Enter");
+      // Enter moves the focus to the next row's microns cell (on the next frame): type only once it is there.
+      const next = page.getByLabel(`Row ${i + 2} microns`);
+      await expect.poll(() => next.evaluate((el) => el === document.activeElement)).toBe(true);
       await page.keyboard.type(String(v));
     }
     await expect.poll(() => page.getByLabel("Row 15 minutes since isolation").inputValue()).toBe("14");
