@@ -19,6 +19,7 @@ const detailColumns = {
   systemName: systems.name,
   jobReference: jobs.reference,
   jobVisitedOn: jobs.visitedOn,
+  jobReason: jobs.reason,
 };
 
 /** One test the viewer may see, with its names; null when unknown, other org or not visible. */

@@ -29,7 +29,7 @@ export interface TestRecord {
   technician?: { id: string; name: string } | null;
   site?: { id: string; name: string } | null;
   system?: { id: string; name: string } | null;
-  job?: { id: string; reference: string | null; visitedOn: string | null } | null;
+  job?: { id: string; reference: string | null; visitedOn: string | null; reason?: string | null } | null;
   helpRequested?: boolean;
   currentAnalysisId?: string | null;
   [key: string]: unknown;

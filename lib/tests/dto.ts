@@ -13,7 +13,7 @@ export interface TestDto {
   testedAt: string;
   createdAt: string;
   technician: { id: string; name: string };
-  job: { id: string; reference: string | null; visitedOn: string | null } | null;
+  job: { id: string; reference: string | null; visitedOn: string | null; reason: string | null } | null;
   site: { id: string; name: string } | null;
   system: { id: string; name: string } | null;
   refrigerant: string | null;
@@ -68,7 +68,7 @@ export function toTestDto(row: TestDetailRow): TestDto {
     testedAt: t.testedAt.toISOString(),
     createdAt: t.createdAt.toISOString(),
     technician: { id: t.createdById, name: row.createdByName },
-    job: t.jobId ? { id: t.jobId, reference: row.jobReference, visitedOn: row.jobVisitedOn } : null,
+    job: t.jobId ? { id: t.jobId, reference: row.jobReference, visitedOn: row.jobVisitedOn, reason: row.jobReason } : null,
     site: t.siteId && row.siteName !== null ? { id: t.siteId, name: row.siteName } : null,
     system: t.systemId && row.systemName !== null ? { id: t.systemId, name: row.systemName } : null,
     refrigerant: t.refrigerant,

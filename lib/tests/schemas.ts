@@ -49,6 +49,12 @@ export const testMetadataSchema = z
     systemId: optionalUuid,
     newSiteName: optionalText(200),
     newSystemName: optionalText(200),
+    /** Create a job (a visit) for this test in the same transaction: today, the uploader, the site and system above. */
+    newJob: formBoolean.default(false),
+    /** Why the visit was made ("Leak repair"); only with newJob. */
+    newJobReason: optionalText(120),
+    /** The visit's date as the technician's calendar says (YYYY-MM-DD); only with newJob. Default: the test's date (UTC). */
+    newJobVisitedOn: z.preprocess((v) => (v === "" ? undefined : v), z.iso.date("not a date (YYYY-MM-DD)").optional()),
     refrigerant: optionalText(40),
     lineSetFeet: optionalNumber(0.1, 1000),
     liquidOd: z.preprocess((v) => (v === "" ? undefined : v), z.enum(TUBE_ODS).optional()),
@@ -68,6 +74,10 @@ export const testMetadataSchema = z
     if (m.systemId && m.newSystemName) ctx.addIssue({ code: "custom", path: ["newSystemName"], message: "give either systemId or newSystemName" });
     if (m.newSystemName && !m.siteId && !m.newSiteName)
       ctx.addIssue({ code: "custom", path: ["newSystemName"], message: "a new system needs a site (siteId or newSiteName)" });
+    if (m.jobId && m.newJob) ctx.addIssue({ code: "custom", path: ["newJob"], message: "give either jobId or newJob, not both" });
+    if (!m.newJob && m.newJobReason) ctx.addIssue({ code: "custom", path: ["newJobReason"], message: "a reason goes with newJob" });
+    if (!m.newJob && m.newJobVisitedOn) ctx.addIssue({ code: "custom", path: ["newJobVisitedOn"], message: "a visit date goes with newJob" });
+    if (m.newJob && m.isPractice) ctx.addIssue({ code: "custom", path: ["newJob"], message: "a practice run is kept out of job records" });
     if (m.lineSetFeet !== undefined && (!m.liquidOd || !m.suctionOd))
       ctx.addIssue({ code: "custom", path: ["liquidOd"], message: "a line set needs liquidOd and suctionOd" });
   });

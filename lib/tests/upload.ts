@@ -7,17 +7,20 @@
  *  - An Idempotency-Key already used in the organization returns the first test; two identical
  *    concurrent requests race on the idempotency_keys primary key inside the transaction, the
  *    loser rolls back, deletes its object and returns the winner's test.
+ *  - newJob creates the visit inside that same transaction, so a retry never makes a second job
+ *    and a failed upload leaves none behind. It needs records.manage (403 before anything runs).
  */
 import { queueNewTestForReview } from "@/lib/review/auto";
 import { deliverMail } from "@/lib/notify/outbox";
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
-import { getJobById, getSiteById, getSystemById, createSite, createSystem } from "@/db/queries/records";
+import { getJobById, getSiteById, getSystemById, createJob, createSite, createSystem } from "@/db/queries/records";
 import { getIdempotencyKeyByKey, insertIdempotencyKey, insertTest, insertUpload, updateTestCurrentAnalysis } from "@/db/queries/tests";
 import { insertAnalysis } from "@/db/queries/analyses";
 import { AppError } from "@/lib/errors";
 import { log } from "@/lib/log";
+import { can, type Role } from "@/lib/permissions";
 import { deleteObject, putObject, rawLogKey } from "@/lib/storage";
 import { runAnalysis } from "./engine";
 import { sha256Hex } from "./files";
@@ -27,6 +30,8 @@ import type { TestMetadata } from "./schemas";
 export interface Uploader {
   organizationId: string;
   userId: string;
+  /** Needed for newJob (records.manage); scripts that never ask for a job may leave it out. */
+  role?: Role;
 }
 
 export interface UploadInput {
@@ -74,7 +79,13 @@ function testedAtOf(m: TestMetadata, startedAt: string | null): Date {
   return new Date();
 }
 
-async function checkRecords(tx: Tx, org: string, m: TestMetadata) {
+/** The visit's date: the technician's own calendar date if sent, else the test's date in UTC. */
+function visitedOnOf(m: TestMetadata, testedAt: Date): string {
+  return m.newJobVisitedOn ?? testedAt.toISOString().slice(0, 10);
+}
+
+async function checkRecords(tx: Tx, who: Uploader, m: TestMetadata, testedAt: Date) {
+  const org = who.organizationId;
   if (m.jobId && !(await getJobById(tx, { organizationId: org, jobId: m.jobId })))
     throw new AppError("invalid_input", "jobId: no such job in your organization", { field: "jobId" });
   let siteId = m.siteId ?? null;
@@ -100,7 +111,16 @@ async function checkRecords(tx: Tx, org: string, m: TestMetadata) {
         suctionOd: m.suctionOd ?? null,
       })
     ).id;
-  return { siteId, systemId };
+  const jobId = m.newJob
+    ? (await createJob(tx, { organizationId: org, visitedOn: visitedOnOf(m, testedAt), siteId, systemId, technicianId: who.userId, reason: m.newJobReason ?? null })).id
+    : (m.jobId ?? null);
+  return { siteId, systemId, jobId };
+}
+
+/** newJob needs records.manage (owner, lead, technician): checked before anything is analysed or stored. */
+function assertMayCreateJob(who: Uploader, m: TestMetadata): void {
+  if (m.newJob && !(who.role && can(who.role, "records.manage")))
+    throw new AppError("forbidden", `newJob: your role (${who.role ?? "unknown"}) cannot create jobs; upload without a new visit, or ask a technician or lead to add it.`, { field: "newJob" });
 }
 
 /** The engine options of a new test: importer choices, the profile, the volume, the ambient. */
@@ -119,6 +139,7 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
     const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
     if (seen) return { testId: seen.testId, created: false };
   }
+  assertMayCreateJob(who, input.metadata);
   const options = await uploadOptionsOf(db, org, input);
   const run = runAnalysis(input.text, options); // LogError → 422 before anything is stored
 
@@ -136,8 +157,9 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
   let reviewMailIds: string[] = [];
   try {
     await db.transaction(async (tx) => {
-      const { siteId, systemId } = await checkRecords(tx, org, input.metadata);
-      await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, options, result: run.result, series: run.series, startedAt: run.startedAt });
+      const testedAt = testedAtOf(input.metadata, run.startedAt);
+      const { siteId, systemId, jobId } = await checkRecords(tx, who, input.metadata, testedAt);
+      await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt });
       if (input.idempotencyKey) {
         const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: who.userId, testId });
         if (!claimed) throw new KeyTaken();
@@ -171,10 +193,11 @@ interface PersistArgs {
   sha256: string;
   siteId: string | null;
   systemId: string | null;
+  jobId: string | null;
   options: AnalyzeOptions;
   result: AnalysisResult;
   series: { t: number[]; p: number[] };
-  startedAt: string | null;
+  testedAt: Date;
 }
 
 async function persistNewTest(tx: Tx, a: PersistArgs) {
@@ -184,7 +207,7 @@ async function persistNewTest(tx: Tx, a: PersistArgs) {
     id: a.testId,
     organizationId: org,
     createdById: a.who.userId,
-    jobId: m.jobId ?? null,
+    jobId: a.jobId,
     siteId: a.siteId,
     systemId: a.systemId,
     title: titleOf(m, a.input.filename, a.input.source),
@@ -200,7 +223,7 @@ async function persistNewTest(tx: Tx, a: PersistArgs) {
     isPractice: m.isPractice,
     verdict: a.result.verdict,
     currentAnalysisId: a.analysisId,
-    testedAt: testedAtOf(m, a.startedAt),
+    testedAt: a.testedAt,
   });
   await insertUpload(tx, {
     organizationId: org,
