@@ -36,20 +36,36 @@ export function solveLinearLeastSquares(
   y: ArrayLike<number>,
   rankTolerance = 1e-10,
 ): LinearLeastSquares {
-  const p = columns.length;
-  const n = y.length;
   const a: Float64Array[] = [];
+  for (let j = 0; j < columns.length; j++) a.push(copyOf(columns[j]));
+  return solveLinearLeastSquaresInPlace(a, copyOf(y), rankTolerance);
+}
+
+function copyOf(v: ArrayLike<number>): Float64Array {
+  if (v instanceof Float64Array) return v.slice();
+  const out = new Float64Array(v.length);
+  for (let i = 0; i < v.length; i++) out[i] = v[i];
+  return out;
+}
+
+/**
+ * solveLinearLeastSquares on work arrays it may overwrite: the columns `a` (each of length ≥ y's) and `qty`
+ * (y on entry, Qᵀy on return). Same method and the same floating-point operations in the same order, so the
+ * same bits; the Householder vector of each column is kept in the column's own lower part instead of a
+ * fresh array. For callers that solve many systems of one size (the Levenberg–Marquardt steps).
+ */
+export function solveLinearLeastSquaresInPlace(a: Float64Array[], qty: Float64Array, rankTolerance = 1e-10): LinearLeastSquares {
+  const p = a.length;
+  const n = qty.length;
   const scale: number[] = [];
   for (let j = 0; j < p; j++) {
-    const col = Float64Array.from(columns[j] as ArrayLike<number>);
+    const col = a[j];
     let s = 0;
     for (let i = 0; i < n; i++) s += col[i] * col[i];
     s = Math.sqrt(s);
     scale.push(s > 0 ? s : 1);
     if (s > 0) for (let i = 0; i < n; i++) col[i] /= s;
-    a.push(col);
   }
-  const qty = Float64Array.from(y);
   const kept: number[] = [];
   const dropped: number[] = [];
   const rDiag: number[] = [];
@@ -68,21 +84,20 @@ export function solveLinearLeastSquares(
       continue;
     }
     const alpha = col[row] > 0 ? -norm : norm;
-    // v = x − alpha·e1, stored in place of col[row..]
-    const v = new Float64Array(n - row);
-    for (let i = row; i < n; i++) v[i - row] = col[i];
-    v[0] -= alpha;
+    // v = x − alpha·e1, kept in place of col[row..n) (R's part of the column, above row, is untouched)
+    const r0 = row;
+    col[r0] -= alpha;
     let vNorm2 = 0;
-    for (let i = 0; i < v.length; i++) vNorm2 += v[i] * v[i];
-    const reflect = (target: Float64Array) => {
-      if (vNorm2 === 0) return;
-      let dot = 0;
-      for (let i = 0; i < v.length; i++) dot += v[i] * target[row + i];
-      const f = (2 * dot) / vNorm2;
-      for (let i = 0; i < v.length; i++) target[row + i] -= f * v[i];
-    };
-    for (let k = j + 1; k < p; k++) reflect(a[k]);
-    reflect(qty);
+    for (let i = r0; i < n; i++) vNorm2 += col[i] * col[i];
+    if (vNorm2 !== 0) {
+      for (let k = j + 1; k <= p; k++) {
+        const target = k < p ? a[k] : qty;
+        let dot = 0;
+        for (let i = r0; i < n; i++) dot += col[i] * target[i];
+        const f = (2 * dot) / vNorm2;
+        for (let i = r0; i < n; i++) target[i] -= f * col[i];
+      }
+    }
     const rCol: number[] = [];
     for (let k = 0; k < kept.length; k++) rCol.push(col[k]);
     rCol.push(alpha);

@@ -66,6 +66,7 @@ export function vectorFromParams(kind: HoldModelKind, params: HoldParams): numbe
 /**
  * The hold model as a generic NonlinearModel over its parameter vector (for fitNonlinear), written out
  * per kind so the solver's inner loops make no objects: b = [p0, a, τ, l] with absent ones left out.
+ * The batch forms (values, jacobian) repeat the point forms' arithmetic exactly, one loop per call.
  */
 export function holdNonlinearModel(kind: HoldModelKind): NonlinearModel {
   const hasPlateau = kind === "plateau" || kind === "plateau_climb";
@@ -85,6 +86,40 @@ export function holdNonlinearModel(kind: HoldModelKind): NonlinearModel {
         out[2] = (-b[1] * t * e) / (b[2] * b[2]);
       }
       if (lIndex > 0) out[lIndex] = t;
+    },
+    values: (x, b, out) => {
+      const p0 = b[0];
+      const a = hasPlateau ? b[1] : 0;
+      const tau = hasPlateau ? b[2] : 1;
+      const l = lIndex > 0 ? b[lIndex] : 0;
+      for (let i = 0; i < x.length; i++) {
+        const t = x[i];
+        let p = p0;
+        if (hasPlateau) p += a * -Math.expm1(-t / tau);
+        if (lIndex > 0) p += l * t;
+        out[i] = p;
+      }
+    },
+    jacobian: (x, b, cols) => {
+      const c0 = cols[0];
+      for (let i = 0; i < x.length; i++) c0[i] = 1;
+      if (hasPlateau) {
+        const a = b[1];
+        const tau = b[2];
+        const tau2 = tau * tau;
+        const ca = cols[1];
+        const ct = cols[2];
+        for (let i = 0; i < x.length; i++) {
+          const t = x[i];
+          const e = Math.exp(-t / tau);
+          ca[i] = -Math.expm1(-t / tau);
+          ct[i] = (-a * t * e) / tau2;
+        }
+      }
+      if (lIndex > 0) {
+        const cl = cols[lIndex];
+        for (let i = 0; i < x.length; i++) cl[i] = x[i];
+      }
     },
   };
 }

@@ -3,13 +3,20 @@
  * in Riseline: the NIST StRD checks call it directly and the plateau hold models use it to polish the
  * variable-projection solution (see models.ts).
  */
-import { solveLinearLeastSquares } from "./linear";
+import { solveLinearLeastSquares, solveLinearLeastSquaresInPlace } from "./linear";
 
 export interface NonlinearModel {
   /** Model value at x for parameters b. */
   value(x: number, b: readonly number[]): number;
   /** Partial derivatives ∂f/∂b_j at x, written into out (length = b.length). Optional: central differences otherwise. */
   gradient?(x: number, b: readonly number[], out: number[]): void;
+  /**
+   * Optional batch form of value: out[i] = value(x[i], b) for every i, by the same arithmetic (so the same
+   * bits); saves a call per point in the solver's loops.
+   */
+  values?(x: ArrayLike<number>, b: readonly number[], out: Float64Array): void;
+  /** Optional batch form of gradient: cols[j][i] = ∂f(x_i)/∂b_j, the same arithmetic as gradient. */
+  jacobian?(x: ArrayLike<number>, b: readonly number[], cols: Float64Array[]): void;
 }
 
 export interface NonlinearOptions {
@@ -45,8 +52,18 @@ export interface NonlinearFit {
   stopReason: StopReason;
 }
 
-function sumSquares(model: NonlinearModel, x: ArrayLike<number>, y: ArrayLike<number>, b: readonly number[]): number {
+/** Σ (y − f(x; b))²; `work` (length ≥ y's) is scratch for the batch form when the model has one. */
+function sumSquares(model: NonlinearModel, x: ArrayLike<number>, y: ArrayLike<number>, b: readonly number[], work?: Float64Array): number {
   let s = 0;
+  if (model.values) {
+    const f = work ?? new Float64Array(y.length);
+    model.values(x, b, f);
+    for (let i = 0; i < y.length; i++) {
+      const r = y[i] - f[i];
+      s += r * r;
+    }
+    return s;
+  }
   for (let i = 0; i < y.length; i++) {
     const r = y[i] - model.value(x[i], b);
     s += r * r;
@@ -54,11 +71,18 @@ function sumSquares(model: NonlinearModel, x: ArrayLike<number>, y: ArrayLike<nu
   return s;
 }
 
-/** Jacobian columns J[j][i] = ∂f(x_i)/∂b_j (analytic when the model gives one, else central differences). */
-function jacobianColumns(model: NonlinearModel, x: ArrayLike<number>, b: readonly number[]): Float64Array[] {
+/**
+ * Jacobian columns J[j][i] = ∂f(x_i)/∂b_j (analytic when the model gives one, else central differences),
+ * written into `cols` when given (p arrays of length ≥ n), else into fresh arrays.
+ */
+function jacobianColumns(model: NonlinearModel, x: ArrayLike<number>, b: readonly number[], cols?: Float64Array[]): Float64Array[] {
   const n = x.length;
   const p = b.length;
-  const cols = Array.from({ length: p }, () => new Float64Array(n));
+  cols ??= Array.from({ length: p }, () => new Float64Array(n));
+  if (model.jacobian) {
+    model.jacobian(x, b, cols);
+    return cols;
+  }
   if (model.gradient) {
     const g = new Array<number>(p).fill(0);
     for (let i = 0; i < n; i++) {
@@ -112,7 +136,13 @@ export function fitNonlinear(
   const n = y.length;
   const p = start.length;
   let b = start.slice();
-  let rss = sumSquares(model, x, y, b);
+  // work arrays reused by every iteration and trial (the solver overwrites aug and qty)
+  const work = new Float64Array(n);
+  const jac = Array.from({ length: p }, () => new Float64Array(n));
+  const aug = Array.from({ length: p }, () => new Float64Array(n + p));
+  const resid = new Float64Array(n + p);
+  const qty = new Float64Array(n + p);
+  let rss = sumSquares(model, x, y, b, work);
   let stopReason: StopReason = "iteration_limit";
   let iterations = 0;
   if (!Number.isFinite(rss)) return finish(model, x, y, b, rss, 0, "non_finite");
@@ -120,17 +150,20 @@ export function fitNonlinear(
   const d = new Array<number>(p).fill(0);
   outer: for (; iterations < maxIterations; ) {
     iterations++;
-    const jac = jacobianColumns(model, x, b);
-    const resid = new Float64Array(n + p);
-    for (let i = 0; i < n; i++) resid[i] = y[i] - model.value(x[i], b);
+    jacobianColumns(model, x, b, jac);
+    if (model.values) {
+      model.values(x, b, work);
+      for (let i = 0; i < n; i++) resid[i] = y[i] - work[i];
+    } else for (let i = 0; i < n; i++) resid[i] = y[i] - model.value(x[i], b);
     let worstCosine = 0;
     const residNorm = Math.sqrt(rss);
     for (let j = 0; j < p; j++) {
+      const col = jac[j];
       let s = 0;
       let g = 0;
       for (let i = 0; i < n; i++) {
-        s += jac[j][i] * jac[j][i];
-        g += jac[j][i] * resid[i];
+        s += col[i] * col[i];
+        g += col[i] * resid[i];
       }
       d[j] = Math.max(d[j], Math.sqrt(s));
       if (!Number.isFinite(d[j])) {
@@ -145,16 +178,17 @@ export function fitNonlinear(
     }
     for (;;) {
       const sqrtLambda = Math.sqrt(lambda);
-      const augmented = jac.map((col, j) => {
-        const a = new Float64Array(n + p);
-        a.set(col);
+      for (let j = 0; j < p; j++) {
+        const a = aug[j];
+        a.set(jac[j]);
+        a.fill(0, n);
         a[n + j] = sqrtLambda * (d[j] > 0 ? d[j] : 1);
-        return a;
-      });
-      const step = solveLinearLeastSquares(augmented, resid, 1e-14).coef;
+      }
+      qty.set(resid);
+      const step = solveLinearLeastSquaresInPlace(aug, qty, 1e-14).coef;
       const trial = b.map((v, j) => v + step[j]);
       const tooFar = step.some((s, j) => b[j] !== 0 && Math.abs(s) > maxRelStep * Math.abs(b[j]));
-      const trialRss = tooFar ? NaN : sumSquares(model, x, y, trial);
+      const trialRss = tooFar ? NaN : sumSquares(model, x, y, trial, work);
       if (Number.isFinite(trialRss) && trialRss <= rss) {
         const smallStep = step.every((s, j) => Math.abs(s) <= stepTol * (Math.abs(b[j]) + stepTol));
         const smallDecrease = rss - trialRss <= rssTol * rss;
