@@ -10,7 +10,7 @@ import { reduceHold, type ReducedHold } from "./reduce";
 import { medianInPlace } from "./median";
 import { findSpikes } from "./robust";
 import { aiccLeastSquares, chooseHoldModel } from "./select";
-import { fitPlateauModel } from "./varpro";
+import { fitPlateauModel, type PlateauFitOutcome } from "./varpro";
 
 export { fitNonlinear } from "./nls";
 export type { NonlinearFit, NonlinearModel, NonlinearOptions } from "./nls";
@@ -54,43 +54,70 @@ interface RawFit {
   fit: NonlinearFit;
 }
 
-function fitOnReduced(r: ReducedHold, holdSeconds: number, sampleSeconds: number, notes: string[]): RawFit[] {
+/** The τ range searched for the plateau models: [min(1 s, half a sample), 10× the hold], seconds. */
+function tauRange(holdSeconds: number, sampleSeconds: number): [number, number] {
+  return [Math.min(1, sampleSeconds / 2), 10 * holdSeconds];
+}
+
+/** plateau (withClimb false) or plateau_climb on the reduced points; null when the hold is too short to try. */
+function plateauOutcome(r: ReducedHold, withClimb: boolean, holdSeconds: number, sampleSeconds: number): PlateauFitOutcome | null {
+  const [tauMin, tauMax] = tauRange(holdSeconds, sampleSeconds);
+  return tauMax > tauMin ? fitPlateauModel(r.tSeconds, r.microns, withClimb, tauMin, tauMax) : null;
+}
+
+function fitFlat(r: ReducedHold): NonlinearFit {
+  const n = r.tSeconds.length;
+  let mean = 0;
+  for (let i = 0; i < n; i++) mean += r.microns[i];
+  mean /= n;
+  let rss = 0;
+  for (let i = 0; i < n; i++) rss += (r.microns[i] - mean) ** 2;
+  const s2 = rss / (n - 1);
+  return { params: [mean], stdErrors: [Math.sqrt(s2 / n)], covariance: [[s2 / n]], rss, dof: n - 1, residualSd: Math.sqrt(s2), iterations: 0, stopReason: "closed_form" };
+}
+
+function fitClimb(r: ReducedHold): NonlinearFit {
+  const line = fitStraightLine(r.tSeconds, r.microns);
+  return { params: [line.b0, line.b1], stdErrors: [line.sdB0, line.sdB1], covariance: line.covariance, rss: line.rss, dof: line.dof, residualSd: line.residualSd, iterations: 0, stopReason: "closed_form" };
+}
+
+/**
+ * The four models on the reduced points, simplest first. `plateauClimb`, when given, is the plateau_climb
+ * outcome already computed on these same points (the spike search's first fit), reused rather than redone.
+ */
+function fitOnReduced(r: ReducedHold, holdSeconds: number, sampleSeconds: number, notes: string[], plateauClimb?: PlateauFitOutcome | null): RawFit[] {
   const n = r.tSeconds.length;
   const out: RawFit[] = [];
-  if (n >= 2) {
-    let mean = 0;
-    for (let i = 0; i < n; i++) mean += r.microns[i];
-    mean /= n;
-    let rss = 0;
-    for (let i = 0; i < n; i++) rss += (r.microns[i] - mean) ** 2;
-    const s2 = rss / (n - 1);
-    out.push({
-      kind: "flat",
-      fit: { params: [mean], stdErrors: [Math.sqrt(s2 / n)], covariance: [[s2 / n]], rss, dof: n - 1, residualSd: Math.sqrt(s2), iterations: 0, stopReason: "closed_form" },
-    });
-  }
-  if (n >= 3) {
-    const line = fitStraightLine(r.tSeconds, r.microns);
-    out.push({
-      kind: "climb",
-      fit: { params: [line.b0, line.b1], stdErrors: [line.sdB0, line.sdB1], covariance: line.covariance, rss: line.rss, dof: line.dof, residualSd: line.residualSd, iterations: 0, stopReason: "closed_form" },
-    });
-  }
-  const tauMin = Math.min(1, sampleSeconds / 2);
-  const tauMax = 10 * holdSeconds;
+  if (n >= 2) out.push({ kind: "flat", fit: fitFlat(r) });
+  if (n >= 3) out.push({ kind: "climb", fit: fitClimb(r) });
+  const [tauMin] = tauRange(holdSeconds, sampleSeconds);
   for (const withClimb of [false, true]) {
     const kind: HoldModelKind = withClimb ? "plateau_climb" : "plateau";
-    if (!(tauMax > tauMin)) {
+    const outcome = withClimb && plateauClimb !== undefined ? plateauClimb : plateauOutcome(r, withClimb, holdSeconds, sampleSeconds);
+    if (!outcome) {
       notes.push(`${kind} not fitted: hold too short`);
       continue;
     }
-    const outcome = fitPlateauModel(r.tSeconds, r.microns, withClimb, tauMin, tauMax);
     if (outcome.fit) out.push({ kind, fit: outcome.fit });
     else if (outcome.notIdentified === "step") notes.push(`${kind} not identified: best τ under ${tauMin} s (a step at isolation)`);
     else if (outcome.notIdentified === "no_bend") notes.push(`${kind} not identified: no bend within τ ≤ 10× the hold`);
     else notes.push(`${kind} not fitted: too few points`);
   }
   return out;
+}
+
+/**
+ * The most flexible model that fits the reduced points (plateau_climb, else climb, else flat), for the
+ * spike search; also returns the plateau_climb outcome so a pass without spikes need not refit it.
+ */
+function firstFit(r: ReducedHold, holdSeconds: number, sampleSeconds: number): { kind: HoldModelKind; fit: NonlinearFit; plateauClimb: PlateauFitOutcome | null } | null {
+  const n = r.tSeconds.length;
+  const plateauClimb = plateauOutcome(r, true, holdSeconds, sampleSeconds);
+  if (plateauClimb?.fit) return { kind: "plateau_climb", fit: plateauClimb.fit, plateauClimb };
+  if (n >= 3) return { kind: "climb", fit: fitClimb(r), plateauClimb };
+  // plateau needs at least 5 points, so with under 3 only flat is left
+  if (n >= 2) return { kind: "flat", fit: fitFlat(r), plateauClimb };
+  return null;
 }
 
 /** Turn a solver result into the shared ModelFit: rss, residual sd and R² over the raw kept readings. */
@@ -159,21 +186,20 @@ export function fitHoldModels(tSeconds: number[], microns: number[], options: { 
   const sampleSeconds = medianPositiveStep(tSeconds);
   const ctx = { holdSeconds, sampleSeconds };
 
-  const run = (excluded: number[]) => {
+  const run = (excluded: number[], reduced = reduceHold(tSeconds, microns, maskOf(excluded, tSeconds.length)), plateauClimb?: PlateauFitOutcome | null) => {
     const notes: string[] = [];
-    const reduced = reduceHold(tSeconds, microns, maskOf(excluded, tSeconds.length));
-    const raws = fitOnReduced(reduced, holdSeconds, sampleSeconds, notes);
+    const raws = fitOnReduced(reduced, holdSeconds, sampleSeconds, notes, plateauClimb);
     return { notes, reduced, raws };
   };
   let excluded: number[] = [];
-  let pass = run(excluded);
+  let pass: ReturnType<typeof run>;
   if (robust) {
-    const flexible = ["plateau_climb", "climb", "plateau", "flat"].map((k) => pass.raws.find((r) => r.kind === k)).find((r) => r);
-    if (flexible) {
-      excluded = findSpikes(microns, modelCurve(paramsFromVector(flexible.kind, flexible.fit.params), tSeconds));
-      if (excluded.length > 0) pass = run(excluded);
-    }
-  }
+    // the spike search needs only the most flexible fit; the rest are fitted once the spikes are known
+    const reduced = reduceHold(tSeconds, microns, maskOf(excluded, tSeconds.length));
+    const flexible = firstFit(reduced, holdSeconds, sampleSeconds);
+    if (flexible) excluded = findSpikes(microns, modelCurve(paramsFromVector(flexible.kind, flexible.fit.params), tSeconds));
+    pass = excluded.length > 0 ? run(excluded) : run(excluded, reduced, flexible ? flexible.plateauClimb : undefined);
+  } else pass = run(excluded);
   const fits: Partial<Record<HoldModelKind, ModelFit>> = {};
   const skip = maskOf(excluded, tSeconds.length);
   for (const raw of pass.raws) fits[raw.kind] = toModelFit(raw, tSeconds, microns, skip, excluded, pass.reduced.tSeconds.length);

@@ -14,6 +14,15 @@ export function medianInPlace(v: Float64Array, from = 0, to = v.length): number 
   return (lo + hi) / 2;
 }
 
+/**
+ * The k-th smallest of v[from, to) (k counted from 0 within the range), by the same quickselect; reorders
+ * the range in place. The value is the one a full ascending sort would put at position from + k.
+ */
+export function kthSmallestInPlace(v: Float64Array, k: number, from = 0, to = v.length): number {
+  if (k < 0 || k >= to - from) return NaN;
+  return select(v, from, to - 1, from + k);
+}
+
 function select(v: Float64Array, left: number, right: number, k: number): number {
   while (right > left) {
     const pivot = v[(left + right) >> 1];

@@ -4,7 +4,7 @@
  * median of five bins removes single-bin spikes. Pressure is smoothed in log10 because a log spans
  * decades and gauge noise is proportional to the reading.
  */
-import { medianInPlace } from "../fit/median";
+import { kthSmallestInPlace, medianInPlace } from "../fit/median";
 
 export interface Bins {
   /** Index of the first reading in each bin; bin j holds readings [start[j], start[j+1]). */
@@ -65,12 +65,23 @@ export function relativeNoise(microns: ArrayLike<number>): number {
   const n = microns.length;
   if (n < 4) return 0.02;
   const stride = Math.max(1, Math.floor(n / 20000));
-  const d: number[] = [];
-  for (let i = 2; i < n; i += stride) {
-    d.push(Math.abs(Math.log10(microns[i]) - 2 * Math.log10(microns[i - 1]) + Math.log10(microns[i - 2])));
+  const d = new Float64Array(Math.ceil((n - 2) / stride));
+  let m = 0;
+  if (stride === 1) {
+    // each log10 once (the same values as taking them afresh for every difference)
+    let l2 = Math.log10(microns[0]);
+    let l1 = Math.log10(microns[1]);
+    for (let i = 2; i < n; i++) {
+      const l0 = Math.log10(microns[i]);
+      d[m++] = Math.abs(l0 - 2 * l1 + l2);
+      l2 = l1;
+      l1 = l0;
+    }
+  } else {
+    for (let i = 2; i < n; i += stride) d[m++] = Math.abs(Math.log10(microns[i]) - 2 * Math.log10(microns[i - 1]) + Math.log10(microns[i - 2]));
   }
-  d.sort((a, b) => a - b);
-  const q25 = d[d.length >> 2];
+  // the lower quartile as the element a full sort would put at index ⌊m/4⌋, by quickselect (O(m))
+  const q25 = kthSmallestInPlace(d, m >> 2, 0, m);
   return Math.min(Math.max((Math.LN10 * q25) / (0.3186 * Math.sqrt(6)), 0.001), 0.2);
 }
 
