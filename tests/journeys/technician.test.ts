@@ -126,6 +126,25 @@ describe("technician on a phone", () => {
     await context.close();
   });
 
+  it("makes a new visit in two taps (New visit, then a reason) before sending the log, and the test page shows that visit (our own product rule, no published source)", async () => {
+    const { context, page, errors } = await phonePage();
+    await page.goto("/tests/new");
+    const visit = page.getByTestId("new-visit");
+    await visit.getByRole("button", { name: "New visit" }).tap(); // tap 1: the reasons
+    await visit.getByRole("button", { name: "Leak repair" }).tap(); // tap 2: confirmed
+    await expect.poll(() => visit.getByRole("status").textContent()).toContain("New visit today — Leak repair · Tess Tech");
+    await page.getByLabel("Gauge log file (CSV)").setInputFiles(SAMPLE_PASS);
+    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Tight and dry");
+    await page.getByRole("link", { name: "Open the test page" }).click();
+    await page.waitForURL(/\/tests\/[0-9a-f-]{36}$/);
+    const now = new Date();
+    const today = `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, "0")}-${String(now.getDate()).padStart(2, "0")}`;
+    await expect.poll(() => page.getByTestId("test-job").textContent(), { timeout: 30_000 }).toBe(`Visit ${today} · Leak repair`);
+    if (SHOTS) await page.screenshot({ path: "/tmp/tech-new-visit-360.png", fullPage: true });
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it("shows the importer's own message for a bad file, naming the line, and saves no test", async () => {
     const { context, page, errors } = await phonePage();
     const before = await myTestCount(page);

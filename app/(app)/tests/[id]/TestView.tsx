@@ -66,6 +66,11 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
         </p>
         <h1 className="text-headline break-words">{test.title}</h1>
         {where && <p className="text-body">{where}</p>}
+        {test.job && (
+          <p className="text-body" data-testid="test-job">
+            Visit {[test.job.visitedOn, test.job.reason, test.job.reference].filter(Boolean).join(" · ")}
+          </p>
+        )}
       </header>
       <VerdictBanner analysis={analysis} />
       <div>

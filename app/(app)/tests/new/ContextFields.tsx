@@ -15,10 +15,11 @@ const ContextForm = dynamic(() => import("./ContextForm").then((m) => m.ContextF
 interface Props {
   value: TestContext;
   onChange: (next: TestContext) => void;
+  canCreateJob: boolean;
 }
 
 /** Optional context, collapsed by default; the fields (and the shop's lists) load when opened. */
-export function ContextFields({ value, onChange }: Props) {
+export function ContextFields({ value, onChange, canCreateJob }: Props) {
   const [open, setOpen] = useState(false);
   return (
     <details
@@ -31,7 +32,7 @@ export function ContextFields({ value, onChange }: Props) {
         </span>
         <span aria-hidden="true" className="text-title transition-transform group-open:rotate-180">⌄</span>
       </summary>
-      {open && <ContextForm value={value} onChange={onChange} />}
+      {open && <ContextForm value={value} onChange={onChange} canCreateJob={canCreateJob} />}
     </details>
   );
 }

@@ -9,7 +9,11 @@ import { REFRIGERANTS, TUBE_SIZES, type TestContext } from "./context";
 interface Props {
   value: TestContext;
   onChange: (next: TestContext) => void;
+  canCreateJob: boolean;
 }
+
+/** The Job select's value for "make a new visit with this test". */
+const NEW_VISIT = "new";
 
 function jobLabel(j: NamedRecord): string {
   const r = j as NamedRecord & { reference?: string | null; visitedOn?: string | null; reason?: string | null };
@@ -25,7 +29,7 @@ function match(list: NamedRecord[] | undefined, name: string): string {
  * The optional context fields (never required). Sites and systems are picked from the shop's
  * list or created by typing a new name.
  */
-export function ContextForm({ value, onChange }: Props) {
+export function ContextForm({ value, onChange, canCreateJob }: Props) {
   const ids = useId();
   const set = <K extends keyof TestContext>(k: K, v: TestContext[K]) => onChange({ ...value, [k]: v });
   const sites = useQuery({ queryKey: ["sites"], queryFn: listSites, retry: 1 });
@@ -42,8 +46,16 @@ export function ContextForm({ value, onChange }: Props) {
   return (
     <div className="grid gap-4 border-t border-surface-line px-4 py-4 sm:grid-cols-2">
       <Input label="Title" placeholder="e.g. Heat pump, new line set" value={value.title} onChange={(e) => set("title", e.target.value)} className="sm:col-span-2" />
-      <Select label="Job" value={value.jobId} onChange={(e) => set("jobId", e.target.value)} hint={jobs.isError ? "Jobs could not be loaded; you can add one later." : undefined}>
+      <Select
+        label="Job"
+        value={value.newJob && !value.isPractice ? NEW_VISIT : value.jobId}
+        onChange={(e) =>
+          onChange(e.target.value === NEW_VISIT ? { ...value, newJob: true, jobId: "" } : { ...value, jobId: e.target.value, newJob: false, newJobReason: "" })
+        }
+        hint={jobs.isError ? "Jobs could not be loaded; you can add one later." : undefined}
+      >
         <option value="">No job</option>
+        {canCreateJob && !value.isPractice && <option value={NEW_VISIT}>New visit today{value.newJobReason ? ` — ${value.newJobReason}` : ""}</option>}
         {jobs.data?.map((j) => (
           <option key={j.id} value={j.id}>{jobLabel(j)}</option>
         ))}

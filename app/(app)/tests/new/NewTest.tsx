@@ -18,6 +18,7 @@ import type { ColumnChoice } from "./ColumnChooser";
 import { ContextFields } from "./ContextFields";
 import { EMPTY_CONTEXT, appendContext, contextFields, type TestContext } from "./context";
 import { DropZone, MAX_UPLOAD_BYTES } from "./DropZone";
+import { NewVisit } from "./NewVisit";
 import { adviseOnError } from "./errors";
 import type { TimeMode } from "./readings";
 
@@ -69,7 +70,14 @@ function chooserFromError(error: unknown): ImportPreview | null {
   };
 }
 
-export function NewTest() {
+export interface NewTestProps {
+  /** The signed-in member's name (the technician of a new visit). */
+  technicianName: string;
+  /** records.manage: may make a new visit (job) with the test. */
+  canCreateJob: boolean;
+}
+
+export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
   const [tab, setTab] = useState<"file" | "typed">("file");
   const [phase, setPhase] = useState<Phase>({ kind: "pick" });
   const [context, setContext] = useState<TestContext>(EMPTY_CONTEXT);
@@ -111,6 +119,12 @@ export function NewTest() {
         created = await createTestFromReadings({ readings: a.readings, timeMode: a.mode, ...contextFields(context) }, a.key);
       }
       queryClient.invalidateQueries({ queryKey: ["tests"] });
+      if (context.newJob && created.test.job) {
+        // The visit now exists: the next test of this visit joins it instead of making another.
+        const jobId = created.test.job.id;
+        setContext((c) => ({ ...c, newJob: false, newJobReason: "", jobId }));
+        queryClient.invalidateQueries({ queryKey: ["jobs"] });
+      }
       setPhase({ kind: "done", created });
     } catch (error) {
       setPhase({ kind: "error", error, file, retry: () => void send(a) });
@@ -188,6 +202,8 @@ export function NewTest() {
         ))}
       </div>
 
+      {canCreateJob && <NewVisit value={context} onChange={setContext} technicianName={technicianName} />}
+
       <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`} className="space-y-4">
         {tab === "file" && phase.kind === "pick" && <DropZone onFile={onFile} />}
         {tab === "file" && phase.kind === "choose" && (
@@ -218,7 +234,7 @@ export function NewTest() {
         )}
       </div>
 
-      <ContextFields value={context} onChange={setContext} />
+      <ContextFields value={context} onChange={setContext} canCreateJob={canCreateJob} />
     </div>
   );
 }

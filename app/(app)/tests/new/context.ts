@@ -6,9 +6,15 @@ export const TUBE_SIZES = ["1/4", "3/8", "1/2", "5/8", "3/4", "7/8", "1-1/8"] as
 
 export const REFRIGERANTS = ["R-410A", "R-32", "R-454B", "R-452B", "R-22", "R-134a", "R-404A", "R-407C", "R-448A", "R-290", "R-744"] as const;
 
+/** Why a technician went out, as chips for a new visit (our own short list; free text is not needed). */
+export const VISIT_REASONS = ["Install", "Leak repair", "Compressor change", "Coil change", "Service"] as const;
+
 export interface TestContext {
   title: string;
   jobId: string;
+  /** Make a new visit (job) with this test: today, the signed-in technician, the site and system below. */
+  newJob: boolean;
+  newJobReason: string;
   /** Typed or picked site name; siteId is set when it matches an existing site. */
   siteName: string;
   siteId: string;
@@ -29,6 +35,8 @@ export interface TestContext {
 export const EMPTY_CONTEXT: TestContext = {
   title: "",
   jobId: "",
+  newJob: false,
+  newJobReason: "",
   siteName: "",
   siteId: "",
   systemName: "",
@@ -44,6 +52,12 @@ export const EMPTY_CONTEXT: TestContext = {
   rigNote: "",
   isPractice: false,
 };
+
+/** Today on the technician's own calendar (YYYY-MM-DD), not the server's UTC day. */
+export function localDate(now: Date = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, "0");
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}
 
 function num(s: string): number | undefined {
   const v = Number(s.trim().replace(",", "."));
@@ -64,7 +78,11 @@ export function contextFields(ctx: TestContext): Record<string, string | number 
     if (v.trim()) out[k] = v.trim();
   };
   text("title", ctx.title);
-  text("jobId", ctx.jobId);
+  if (ctx.newJob && !ctx.isPractice) {
+    out.newJob = true;
+    out.newJobVisitedOn = localDate();
+    text("newJobReason", ctx.newJobReason);
+  } else text("jobId", ctx.jobId);
   if (ctx.siteId) out.siteId = ctx.siteId;
   else text("newSiteName", ctx.siteName);
   if (ctx.systemId) out.systemId = ctx.systemId;
