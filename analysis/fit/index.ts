@@ -163,15 +163,17 @@ function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, ski
  * Fit the four hold models to a hold and choose one.
  *
  * Input: tSeconds since isolation (ascending), microns (same length). Method:
- * 1. holds over 2,000 readings are reduced to 1,000 equal-time-bin medians (reduce.ts), so fitting costs
- *    one O(n) pass plus a constant;
+ * 1. holds over BIN_ABOVE_POINTS (1,000) readings are reduced to 500–1,000 equal-time-bin means
+ *    (reduce.ts, which states why that fit stands in for the fit on every reading), so fitting costs one
+ *    O(n) pass plus a constant;
  * 2. flat and climb by closed-form least squares (QR); plateau and plateau_climb by variable projection
  *    over τ ∈ [min(1 s, half a sample), 10× the hold] and a Levenberg–Marquardt polish (varpro.ts);
  * 3. with robust (default true): readings more than 5 local robust sd off the most flexible fit are
- *    spikes (robust.ts), left out, and everything is refitted;
+ *    spikes (robust.ts), left out, and everything is refitted (only that one model is fitted before the
+ *    spike search; without spikes it is kept and the other three are fitted on the same points);
  * 4. the model is chosen by the rule in select.ts (AICc margin 4 plus physical sanity).
  * Unweighted least squares, on purpose: gauge noise grows with the reading (a few % plus resolution
- * steps) but within one hold the reading rarely spans more than a decade, the binned medians already tame
+ * steps) but within one hold the reading rarely spans more than a decade, binning already tames
  * the noise, and weights taken from the noisy readings themselves would bias the fit towards low readings.
  * Reported per model: n = raw readings used (spikes left out), dof = n − parameters, rss / residualSd /
  * rSquared over those raw readings; covariance and stdErrors from s²·(JᵀJ)⁻¹ of the points fitted (the
@@ -206,7 +208,7 @@ export function fitHoldModels(tSeconds: number[], microns: number[], options: { 
   const notes = pass.notes;
   if (excluded.length > 0) notes.push(`${excluded.length} spike(s) left out (over 5 local robust sd off the first fit)`);
   if (pass.reduced.binned)
-    notes.push(`${tSeconds.length - excluded.length} readings reduced to ${pass.reduced.tSeconds.length} equal-time-bin medians before fitting (AICc on the bins)`);
+    notes.push(`${tSeconds.length - excluded.length} readings reduced to ${pass.reduced.tSeconds.length} equal-time-bin means before fitting (AICc on the bins)`);
   const { chosen, rule } = chooseHoldModel(fits, ctx, notes);
   return { chosen, rule, fits };
 }

@@ -178,20 +178,17 @@ describe("fitHoldModels — spikes (common practice, no published source)", () =
 });
 
 describe("fitHoldModels — long holds are binned (common practice, no published source)", () => {
-  it("fits a 24 h hold at 1 Hz (86,401 readings) through bin medians, recovers τ and l, reports raw n", () => {
+  it("fits a 24 h hold at 1 Hz (86,401 readings) through 1,000 bin means, recovers τ and l, reports raw n", () => {
     const h = syntheticHold({ p0: 300, a: 1500, tauSeconds: 600, l: 0.05 }, { holdSeconds: 86400, seed: 41 });
     h.microns[5000] = 90000;
-    const t0 = performance.now();
     const r = fitHoldModels(h.tSeconds, h.microns);
-    const ms = performance.now() - t0;
     expect(r.chosen).toBe("plateau_climb");
     const fit = r.fits.plateau_climb!;
     expect(fit.n).toBe(86400); // 86,401 readings minus the spike
     expect(fit.excluded).toEqual([5000]);
     expect(Math.abs(fit.params.tauSeconds! - 600) / 600).toBeLessThan(0.05);
     expect(Math.abs(fit.params.l! - 0.05) / 0.05).toBeLessThan(0.02);
-    expect(r.rule).toMatch(/1000 equal-time-bin medians/);
-    // Generous bound for a cold, shared 2-core machine; ~40 ms once warm when measured.
-    expect(ms).toBeLessThan(2000);
+    // 86,400 s over 30 s bins asks for 2,880: capped at BIN_COUNT_MAX = 1,000 (speed is for the benchmark script)
+    expect(r.rule).toMatch(/86400 readings reduced to 1000 equal-time-bin means/);
   });
 });
