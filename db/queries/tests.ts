@@ -125,7 +125,7 @@ export async function countTestsByOrganization(db: Db, params: { organizationId:
 /** The test an idempotency key already produced in this organization, if any. */
 export async function getIdempotencyKeyByKey(db: Db, params: { organizationId: string; key: string }) {
   const [row] = await db
-    .select({ testId: idempotencyKeys.testId, userId: idempotencyKeys.userId })
+    .select({ testId: idempotencyKeys.testId, userId: idempotencyKeys.userId, analysisId: idempotencyKeys.analysisId })
     .from(idempotencyKeys)
     .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.key, params.key)))
     .limit(1);
@@ -137,7 +137,10 @@ export async function getIdempotencyKeyByKey(db: Db, params: { organizationId: s
  * key is taken: a concurrent insert of the same primary key waits for the other transaction
  * and then conflicts, so two identical requests can never both commit.
  */
-export async function insertIdempotencyKey(db: Db, params: { organizationId: string; key: string; userId: string; testId: string }): Promise<boolean> {
+export async function insertIdempotencyKey(
+  db: Db,
+  params: { organizationId: string; key: string; userId: string; testId: string; analysisId?: string | null },
+): Promise<boolean> {
   const rows = await db.insert(idempotencyKeys).values(params).onConflictDoNothing().returning({ key: idempotencyKeys.key });
   return rows.length === 1;
 }
@@ -147,11 +150,21 @@ export async function insertUpload(db: Db, params: typeof uploads.$inferInsert) 
   return row;
 }
 
+/** The test's current raw file: the newest upload (a re-test adds one; earlier files stay stored). */
 export async function getUploadByTest(db: Db, params: { organizationId: string; testId: string }) {
   const [row] = await db
     .select()
     .from(uploads)
     .where(and(eq(uploads.organizationId, params.organizationId), eq(uploads.testId, params.testId)))
+    .orderBy(desc(uploads.createdAt), desc(uploads.id))
     .limit(1);
   return row ?? null;
+}
+
+/** Record which analysis a claimed key made (a re-test: claimed first, the analysis inserted after). */
+export async function updateIdempotencyKeyAnalysis(db: Db, params: { organizationId: string; key: string; analysisId: string }): Promise<void> {
+  await db
+    .update(idempotencyKeys)
+    .set({ analysisId: params.analysisId })
+    .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.key, params.key)));
 }

@@ -10,6 +10,7 @@ export const TEST_EVENT_KINDS = [
   "signed_off",
   "sent_back",
   "resubmitted",
+  "retest_uploaded",
   "commented",
   "report_emailed",
   "share_link_created",

@@ -98,7 +98,7 @@ export const findings = pgTable(
   (t) => [index("findings_analysis_idx").on(t.analysisId), index("findings_org_code_idx").on(t.organizationId, t.code)],
 );
 
-/** A retried upload with the same key returns the first test instead of a duplicate. */
+/** A retried upload (or re-test upload) with the same key returns the first result instead of a duplicate. */
 export const idempotencyKeys = pgTable(
   "idempotency_keys",
   {
@@ -106,6 +106,8 @@ export const idempotencyKeys = pgTable(
     key: text("key").notNull(),
     userId: text("user_id").notNull().references(() => user.id, { onDelete: "cascade" }),
     testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
+    /** Set for a re-test upload: the analysis it made (a retry answers with that one). */
+    analysisId: uuid("analysis_id").references(() => analyses.id, { onDelete: "cascade" }),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
   (t) => [primaryKey({ columns: [t.organizationId, t.key] })],

@@ -38,6 +38,20 @@ export function reviewRequestedMail(to: string, t: TestSummary, opts: { by: stri
   });
 }
 
+/** To the leads: the technician put a re-test log on a sent-back test; it waits for review again. */
+export function retestUploadedMail(to: string, t: TestSummary, opts: { by: string; version: number; note?: string | null }): OutgoingMail {
+  return composeMail({
+    to,
+    subject: `Re-test to review: ${t.title}`,
+    paragraphs: [
+      `${opts.by} uploaded the re-test log of "${t.title}" (analysis version ${opts.version}) and resubmitted it for review.`,
+      verdictLine(t),
+      ...(opts.note ? [`Note: ${opts.note}`] : []),
+    ],
+    link: { label: "Open the test", url: testUrl(t.id) },
+  });
+}
+
 export function signedOffMail(to: string, t: TestSummary, opts: { by: string; note?: string | null }): OutgoingMail {
   return composeMail({
     to,
@@ -54,7 +68,7 @@ export function sentBackMail(to: string, t: TestSummary, opts: { by: string; req
     paragraphs: [
       `${opts.by} sent "${t.title}" back to you.`,
       `What to do: ${opts.request}`,
-      "When you have done it, re-test and resubmit the test from its page.",
+      "When you have done it, upload the re-test log on the test's page; it goes back to the review queue.",
     ],
     link: { label: "Open the test", url: testUrl(t.id) },
   });

@@ -33,3 +33,9 @@ export const emailReportSchema = z.object({
   to: z.string().trim().email("not an e-mail address").max(320),
   message: z.string().trim().max(2000).optional().nullable(),
 });
+
+/** The form fields beside the file of POST /api/tests/:id/retests. */
+export const retestFieldsSchema = z.object({
+  /** What the technician did before the re-test ("replaced the hose gasket"). */
+  note: z.preprocess((v) => (v === "" ? undefined : v), z.string().trim().max(2000).optional()),
+});

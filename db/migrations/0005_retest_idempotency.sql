@@ -1,0 +1,2 @@
+ALTER TABLE "idempotency_keys" ADD COLUMN "analysis_id" uuid;--> statement-breakpoint
+ALTER TABLE "idempotency_keys" ADD CONSTRAINT "idempotency_keys_analysis_id_analyses_id_fk" FOREIGN KEY ("analysis_id") REFERENCES "public"."analyses"("id") ON DELETE cascade ON UPDATE no action;

@@ -1,0 +1,174 @@
+/**
+ * A re-test on a sent-back test: the technician uploads the new gauge log onto the same test.
+ * Same pipeline as the first upload (lib/tests/upload.ts): analyse in memory → store the raw
+ * file → one transaction, with the same compensation:
+ *
+ *  - An unreadable log throws LogError before anything is stored (422; the test stays sent back).
+ *  - Storage failing → 503, no rows written.
+ *  - The transaction failing → the stored object is deleted again, 503.
+ *  - In the transaction: the new upload row, analysis version n + 1 made current (earlier versions
+ *    stay in the history), sent_back → waiting_review, the audit event "retest_uploaded" and the
+ *    leads' e-mail in the outbox; the e-mail is delivered after commit.
+ *  - An Idempotency-Key already used for this re-test answers with the same analysis; two identical
+ *    concurrent requests race on the idempotency_keys primary key, the loser rolls back and
+ *    deletes its object.
+ *
+ * The new log is read with the test's profile, volume and ambient, but not the first file's
+ * column choices, isolation or hold window: those described the old file.
+ */
+import { randomUUID } from "node:crypto";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+import type { Database, Tx } from "@/db/client";
+import { getAnalysisById, getNextAnalysisVersionByTest, insertAnalysis } from "@/db/queries/analyses";
+import { insertTestEvent, listReviewerEmailsByOrganization, lockTestReviewStateById, updateTestStatusById } from "@/db/queries/review";
+import { getIdempotencyKeyByKey, insertIdempotencyKey, insertUpload, updateIdempotencyKeyAnalysis, updateTestCurrentAnalysis } from "@/db/queries/tests";
+import type { TestStatus } from "@/db/schema";
+import type { Actor } from "@/lib/api/handler";
+import { AppError } from "@/lib/errors";
+import { log } from "@/lib/log";
+import { retestUploadedMail } from "@/lib/notify/messages";
+import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import { can } from "@/lib/permissions";
+import { deleteObject, putObject, rawLogKey } from "@/lib/storage";
+import { runAnalysis } from "@/lib/tests/engine";
+import { sha256Hex } from "@/lib/tests/files";
+import { compactOptions, resolveProfile } from "@/lib/tests/options";
+import { requireVisibleTest } from "@/lib/tests/read";
+import type { ReceivedFile } from "@/lib/tests/request";
+import { checkTransition } from "./state";
+
+export interface RetestInput {
+  file: ReceivedFile;
+  note?: string | null;
+  idempotencyKey?: string;
+}
+
+export interface RetestOutcome {
+  testId: string;
+  status: TestStatus;
+  analysisId: string;
+  version: number;
+  analysis: AnalysisResult;
+  /** False when an earlier request with the same Idempotency-Key is answered again. */
+  created: boolean;
+  mailIds: string[];
+}
+
+type FaultHook = (tx: Tx, ctx: { testId: string; objectKey: string }) => Promise<void>;
+let faultBeforeCommit: FaultHook | null = null;
+
+/** Test seam: runs inside the re-test transaction just before it commits; a throw rolls it back. */
+export function setRetestFaultForTests(hook: FaultHook | null): void {
+  faultBeforeCommit = hook;
+}
+
+class KeyTaken extends Error {}
+
+/** The test's technician, or anyone who reviews (owner, lead), may upload its re-test. */
+export function mayUploadRetest(actor: Pick<Actor, "userId" | "role">, createdById: string): boolean {
+  return actor.userId === createdById || can(actor.role, "tests.review");
+}
+
+/** Where a re-test's raw file lives: beside the test's first file, under its own id (never overwriting it). */
+export function retestLogKey(organizationId: string, testId: string, retestId: string, filename: string): string {
+  return rawLogKey(organizationId, `${testId}/retests/${retestId}`, filename);
+}
+
+async function optionsForRetest(db: Database, org: string, currentAnalysisId: string | null): Promise<AnalyzeOptions> {
+  const current = currentAnalysisId ? await getAnalysisById(db, { organizationId: org, analysisId: currentAnalysisId }) : null;
+  const base: AnalyzeOptions = current?.options ?? {};
+  const profile = base.profile ?? (await resolveProfile(db, { organizationId: org }));
+  return compactOptions({ profile, volume: base.volume, ambientC: base.ambientC });
+}
+
+/** The answer for a key already used: the same analysis, the test's status now. */
+async function replay(db: Database, actor: Actor, testId: string, seen: { testId: string; analysisId: string | null }): Promise<RetestOutcome> {
+  if (seen.testId !== testId || !seen.analysisId)
+    throw new AppError("conflict", "Idempotency-Key: this key was already used for another request; send a new key.", { field: "Idempotency-Key" });
+  const [analysis, state] = await Promise.all([
+    getAnalysisById(db, { organizationId: actor.organizationId, analysisId: seen.analysisId }),
+    requireVisibleTest(db, actor, testId),
+  ]);
+  if (!analysis) throw new AppError("not_found", "No such analysis.");
+  return { testId, status: state.test.status, analysisId: analysis.id, version: analysis.version, analysis: analysis.result, created: false, mailIds: [] };
+}
+
+/** Upload a re-test log onto a sent-back test and resubmit it. Throws LogError (422) or AppError. */
+export async function uploadRetest(db: Database, actor: Actor, testId: string, input: RetestInput): Promise<RetestOutcome> {
+  const org = actor.organizationId;
+  const note = input.note?.trim() || null;
+  const detail = await requireVisibleTest(db, actor, testId); // other organization or not visible → 404
+  if (!mayUploadRetest(actor, detail.test.createdById))
+    throw new AppError("forbidden", "Only the technician who made this test, a lead or the owner can upload its re-test.");
+  if (input.idempotencyKey) {
+    const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
+    if (seen) return replay(db, actor, testId, seen);
+  }
+  const early = checkTransition(detail.test.status, "resubmit");
+  if (!early.ok) throw new AppError("conflict", `${early.message} A re-test log goes onto a test that was sent back.`, { status: detail.test.status });
+
+  const options = await optionsForRetest(db, org, detail.test.currentAnalysisId);
+  const run = runAnalysis(input.file.text, options); // LogError → 422 before anything is stored
+
+  const analysisId = randomUUID();
+  const objectKey = retestLogKey(org, testId, randomUUID(), input.file.filename);
+  const sha256 = sha256Hex(input.file.bytes);
+  try {
+    await putObject(objectKey, input.file.bytes, input.file.contentType || "text/csv", sha256);
+  } catch (err) {
+    log.error("re-test log not stored", { objectKey, err: String(err) });
+    throw new AppError("storage_unavailable");
+  }
+
+  let outcome: RetestOutcome;
+  try {
+    outcome = await db.transaction(async (tx) => {
+      const locked = await lockTestReviewStateById(tx, { organizationId: org, testId });
+      if (!locked) throw new AppError("not_found", "No such test.");
+      // The key first: a concurrent twin waits here for this row, then finds it taken.
+      if (input.idempotencyKey) {
+        const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: actor.userId, testId });
+        if (!claimed) throw new KeyTaken();
+      }
+      const check = checkTransition(locked.status, "resubmit");
+      if (!check.ok) throw new AppError("conflict", check.message, { status: locked.status });
+      await insertUpload(tx, {
+        organizationId: org, testId, objectKey, sha256, sizeBytes: input.file.bytes.byteLength, filename: input.file.filename, contentType: input.file.contentType || "text/csv",
+      });
+      const version = await getNextAnalysisVersionByTest(tx, { organizationId: org, testId });
+      await insertAnalysis(tx, {
+        id: analysisId, organizationId: org, testId, version, options, result: run.result, series: run.series,
+        reason: `Re-test: ${input.file.filename}`, createdById: actor.userId,
+      });
+      if (input.idempotencyKey) await updateIdempotencyKeyAnalysis(tx, { organizationId: org, key: input.idempotencyKey, analysisId });
+      await updateTestCurrentAnalysis(tx, { organizationId: org, testId, analysisId, verdict: run.result.verdict });
+      const moved = await updateTestStatusById(tx, { organizationId: org, testId, fromStatus: locked.status, toStatus: check.to });
+      if (!moved) throw new AppError("conflict");
+      await insertTestEvent(tx, {
+        organizationId: org, testId, actorId: actor.userId, kind: "retest_uploaded", fromStatus: locked.status, toStatus: check.to,
+        note: [`${input.file.filename} (analysis version ${version})`, note].filter(Boolean).join(" — "),
+      });
+      const summary = { id: testId, title: locked.title, verdict: run.result.verdict, technicianName: detail.createdByName, siteName: detail.siteName };
+      const reviewers = (await listReviewerEmailsByOrganization(tx, { organizationId: org })).filter((e) => e !== actor.email);
+      const mailIds = await queueMail(
+        tx,
+        reviewers.map((to) => ({ ...retestUploadedMail(to, summary, { by: actor.name, version, note }), organizationId: org, testId })),
+      );
+      if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
+      return { testId, status: check.to, analysisId, version, analysis: run.result, created: true, mailIds };
+    });
+  } catch (err) {
+    await deleteObject(objectKey).catch((e) => log.error("orphan re-test log left in storage", { objectKey, err: String(e) }));
+    if (err instanceof KeyTaken) {
+      const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
+      if (seen) return replay(db, actor, testId, seen);
+      throw new AppError("conflict", "The same re-test is being saved by another request; try again.");
+    }
+    if (err instanceof AppError) throw err;
+    log.error("re-test transaction failed; raw log removed", { testId, err: String((err as { cause?: unknown })?.cause ?? err) });
+    throw new AppError("database_unavailable");
+  }
+  // After commit: the leads' e-mail; a failure stays in the outbox for resend and never undoes the re-test.
+  await deliverMailSoon(db, outcome.mailIds);
+  return outcome;
+}
