@@ -89,11 +89,11 @@ function lateSlopePerMinute(t: number[], p: number[], from: number, to: number):
 
 function fitHold(t: number[], p: number[], start: number, end: number): HoldFitResult | null {
   if (end - start + 1 < 3) return null;
-  const tRel: number[] = [];
-  const pHold: number[] = [];
+  const tRel = new Float64Array(end - start + 1);
+  const pHold = new Float64Array(end - start + 1);
   for (let i = start; i <= end; i++) {
-    tRel.push(t[i] - t[start]);
-    pHold.push(p[i]);
+    tRel[i - start] = t[i] - t[start];
+    pHold[i - start] = p[i];
   }
   try {
     return fitHoldModels(tRel, pHold, { robust: true });

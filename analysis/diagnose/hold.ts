@@ -1,4 +1,5 @@
 /** Findings about the hold: leak, moisture, gross leak, hold too short, sparse readings, no hold. */
+import { kthSmallestInPlace } from "../fit/median";
 import { GROSS_LEAK_MICRONS_PER_MINUTE } from "../profile";
 import type { Finding } from "../types";
 import type { DiagnoseContext } from "./context";
@@ -102,10 +103,10 @@ export function holdFindings(ctx: DiagnoseContext): Finding[] {
       ),
     );
   }
-  const gaps: number[] = [];
-  for (let i = range.startIndex + 1; i <= range.endIndex; i++) gaps.push(ctx.tSeconds[i] - ctx.tSeconds[i - 1]);
-  gaps.sort((a, b) => a - b);
-  const medianGap = gaps.length ? gaps[gaps.length >> 1] : Infinity;
+  // the median gap (the upper middle for an even count) by quickselect, the value a full sort would give
+  const gaps = new Float64Array(Math.max(0, range.endIndex - range.startIndex));
+  for (let i = range.startIndex + 1; i <= range.endIndex; i++) gaps[i - range.startIndex - 1] = ctx.tSeconds[i] - ctx.tSeconds[i - 1];
+  const medianGap = gaps.length ? kthSmallestInPlace(gaps, gaps.length >> 1) : Infinity;
   if (ctx.holdReadings < SPARSE_READINGS || medianGap > SPARSE_GAP_SECONDS) {
     out.push(
       finding(

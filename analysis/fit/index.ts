@@ -180,7 +180,7 @@ function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, ski
  * bins when binned); aicc on the points fitted. Units: microns, seconds, l in microns per second.
  * Throws LogError("too_few_readings") with fewer than 2 readings or mismatched lengths.
  */
-export function fitHoldModels(tSeconds: number[], microns: number[], options: { robust?: boolean } = {}): HoldFitResult {
+export function fitHoldModels(tSeconds: ArrayLike<number>, microns: ArrayLike<number>, options: { robust?: boolean } = {}): HoldFitResult {
   if (tSeconds.length !== microns.length) throw new LogError("too_few_readings", `hold has ${tSeconds.length} times but ${microns.length} readings`);
   if (tSeconds.length < 2) throw new LogError("too_few_readings", `hold has ${tSeconds.length} reading(s); at least 2 are needed to fit`);
   const robust = options.robust ?? true;
