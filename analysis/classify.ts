@@ -13,6 +13,7 @@
  *  - both → leak_and_moisture; neither → pass.
  */
 import { evaluateModel } from "./fit";
+import { groupedInteger } from "./format";
 import { MIN_HOLD_READINGS } from "./profile";
 import type { AcceptanceProfile, AnalysisResult, Decay, Forecast, HoldFitResult, ModelFit, Verdict } from "./types";
 
@@ -42,7 +43,7 @@ export interface Classification {
   climbMicronsPerMinute: number;
 }
 
-const fmt = (x: number): string => Math.round(x).toLocaleString("en-US");
+const fmt = (x: number): string => groupedInteger(Math.round(x));
 const minutes = (s: number): string => (s / 60).toFixed(1);
 
 export function chosenFit(fit: HoldFitResult | null): ModelFit | null {

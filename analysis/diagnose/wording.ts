@@ -1,5 +1,6 @@
 /** Cautions and shared helpers for findings. Our own wording. */
 import type { Finding, Severity } from "../types";
+import { groupedInteger } from "../format";
 
 export const CAUTION_COMPRESSOR = "Never energise the compressor while the system is in deep vacuum.";
 export const CAUTION_NITROGEN =
@@ -7,7 +8,7 @@ export const CAUTION_NITROGEN =
 export const CAUTION_CODES =
   "Follow the equipment maker's instructions and local codes; this result supports the technician's judgement and does not replace it.";
 
-export const fmt = (x: number): string => Math.round(x).toLocaleString("en-US");
+export const fmt = (x: number): string => groupedInteger(Math.round(x));
 
 export function finding(
   code: string,

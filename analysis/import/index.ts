@@ -7,6 +7,7 @@
  */
 import Papa from "papaparse";
 import { LogError } from "../errors";
+import { groupedInteger } from "../format";
 import type { Finding, ImportedLog, ImportOptions, ImportSummary, PressureUnit } from "../types";
 import { chooseColumns } from "./columns";
 import { duplicatesFinding, reorderedFinding } from "./findings";
@@ -25,7 +26,7 @@ const SMALL_VALUES_LIMIT = 30;
 const PRESSURE_UNITS: readonly PressureUnit[] = ["micron", "mtorr", "torr", "mmhg", "pa", "kpa", "mbar", "hpa", "psia", "inhg"];
 
 function formatCount(n: number): string {
-  return n.toLocaleString("en-US");
+  return groupedInteger(n);
 }
 
 function checkOptions(options: ImportOptions): { maxBytes: number; maxRows: number } {
