@@ -4,7 +4,8 @@ import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Alert, Badge, Button, Card, Spinner, Textarea } from "@/components/ui";
 import type { ReviewAction } from "@/lib/review/state";
-import { getReviewState, postReviewAction, reviewKeys } from "./api";
+import { getReviewState, postReviewAction, reviewKeys, type RetestResult } from "./api";
+import { RetestForm, retestWords } from "./RetestForm";
 import { STATUS_LABEL } from "./words";
 
 export interface ReviewPanelProps {
@@ -18,41 +19,50 @@ const BUTTON: Record<ReviewAction, string> = {
   ask_help: "Ask for help",
   sign_off: "Sign off",
   send_back: "Send back",
-  resubmit: "Resubmit after re-test",
+  resubmit: "Resubmit without a new log",
 };
 
 const NOTE_LABEL: Partial<Record<ReviewAction, string>> = {
   send_back: "What should the technician do?",
   ask_help: "What do you need help with?",
-  resubmit: "What did you do? (optional)",
+  resubmit: "What did you change? (optional)",
   sign_off: "Note for the record (optional)",
 };
 
 /**
  * Review of one test: its status and the actions the member may take now (the server decides
- * which). Send back asks for a request such as "pull down again and hold 15 minutes".
+ * which). Send back asks for a request such as "pull down again and hold 15 minutes". On a
+ * sent-back test the technician's first action is uploading the re-test log; resubmitting with a
+ * note only stays as a quieter choice (for a request that needs no new test, such as a missing note).
  */
 export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
   const qc = useQueryClient();
   const q = useQuery({ queryKey: reviewKeys.state(testId), queryFn: ({ signal }) => getReviewState(testId, signal) });
   const [open, setOpen] = useState<ReviewAction | null>(null);
   const [note, setNote] = useState("");
+  const [retesting, setRetesting] = useState(false);
+  const [retested, setRetested] = useState<RetestResult | null>(null);
+  const refresh = () => {
+    for (const k of [reviewKeys.state(testId), reviewKeys.events(testId), ["test", testId]]) void qc.invalidateQueries({ queryKey: k });
+    onChanged?.();
+  };
   const m = useMutation({
     mutationFn: ({ action, note }: { action: ReviewAction; note: string }) => postReviewAction(testId, action, note),
     onSuccess: () => {
       setOpen(null);
       setNote("");
-      for (const k of [reviewKeys.state(testId), reviewKeys.events(testId), ["test", testId]]) void qc.invalidateQueries({ queryKey: k });
-      onChanged?.();
+      refresh();
     },
   });
 
   if (q.isPending) return <Card title="Review"><Spinner label="Loading the review state" /></Card>;
   if (q.isError) return <Alert tone="error" title="Review state not loaded">{(q.error as Error).message}</Alert>;
-  const { status, helpRequested, actions } = q.data;
+  const { status, helpRequested, actions, retest } = q.data;
 
   const start = (a: ReviewAction) => {
     m.reset();
+    setRetesting(false);
+    setRetested(null);
     if (a === "request_review") m.mutate({ action: a, note: "" });
     else {
       setOpen(a);
@@ -65,7 +75,18 @@ export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
       <div className="space-y-3">
         {helpRequested && <p className="text-body font-medium">The technician asked for help.</p>}
         {actions.length === 0 && <p className="text-body text-fg-soft">{status === "signed_off" ? "Signed off: this record is final." : "Nothing to do here for your role."}</p>}
-        {open ? (
+        {retested && <p className="text-body" role="status" data-testid="retest-done">{retestWords(retested)}</p>}
+        {retesting ? (
+          <RetestForm
+            testId={testId}
+            onCancel={() => setRetesting(false)}
+            onDone={(r) => {
+              setRetesting(false);
+              setRetested(r);
+              refresh();
+            }}
+          />
+        ) : open ? (
           <form
             className="space-y-3"
             onSubmit={(e) => {
@@ -85,8 +106,20 @@ export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
           </form>
         ) : (
           <div className="flex flex-wrap gap-2">
+            {retest && (
+              <Button
+                onClick={() => {
+                  m.reset();
+                  setOpen(null);
+                  setRetested(null);
+                  setRetesting(true);
+                }}
+              >
+                Upload the re-test log
+              </Button>
+            )}
             {actions.map((a) => (
-              <Button key={a} variant={a === "sign_off" || a === "resubmit" || a === "request_review" ? "primary" : a === "send_back" ? "attention" : "secondary"} onClick={() => start(a)} busy={m.isPending && m.variables?.action === a}>
+              <Button key={a} variant={buttonVariant(a, !!retest)} onClick={() => start(a)} busy={m.isPending && m.variables?.action === a}>
                 {BUTTON[a]}
               </Button>
             ))}
@@ -96,4 +129,11 @@ export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
       </div>
     </Card>
   );
+}
+
+/** The re-test upload is the primary action when offered; a plain resubmit then steps back. */
+function buttonVariant(a: ReviewAction, retestOffered: boolean): "primary" | "secondary" | "attention" | "quiet" {
+  if (a === "resubmit") return retestOffered ? "quiet" : "primary";
+  if (a === "sign_off" || a === "request_review") return "primary";
+  return a === "send_back" ? "attention" : "secondary";
 }

@@ -8,6 +8,15 @@ export interface ReviewState {
   status: Status;
   helpRequested: boolean;
   actions: ReviewAction[];
+  /** The caller may upload the re-test log now. */
+  retest?: boolean;
+}
+
+export interface RetestResult {
+  analysisId: string;
+  version: number;
+  status: Status;
+  analysis: { verdict: string };
 }
 export interface CommentItem {
   id: string;
@@ -45,6 +54,13 @@ export const reviewKeys = {
 export const getReviewState = (id: string, signal?: AbortSignal) => apiFetch<ReviewState>(`/api/tests/${id}/review`, {}, { signal });
 export const postReviewAction = (id: string, action: ReviewAction, note?: string) =>
   apiFetch<{ status: Status }>(`/api/tests/${id}/review`, { method: "POST", body: JSON.stringify({ action, note: note || null }) });
+/** POST /api/tests/:id/retests: the re-test log (multipart), the same key on every retry. */
+export const postRetest = (id: string, file: File, note: string, idempotencyKey: string) => {
+  const form = new FormData();
+  form.set("file", file, file.name);
+  if (note.trim()) form.set("note", note.trim());
+  return apiFetch<RetestResult>(`/api/tests/${id}/retests`, { method: "POST", body: form }, { idempotencyKey });
+};
 export const getComments = (id: string, signal?: AbortSignal) => apiFetch<{ comments: CommentItem[] }>(`/api/tests/${id}/comments`, {}, { signal });
 export const postComment = (id: string, body: string, atSeconds: number | null) =>
   apiFetch<{ comment: CommentItem }>(`/api/tests/${id}/comments`, { method: "POST", body: JSON.stringify({ body, atSeconds }) });

@@ -2,6 +2,7 @@ import { db } from "@/db/client";
 import { route, uuidParam } from "@/lib/api/handler";
 import { can } from "@/lib/permissions";
 import { applyReviewAction } from "@/lib/review/actions";
+import { mayUploadRetest } from "@/lib/review/retest";
 import { requireVisibleTest } from "@/lib/tests/read";
 import { reviewActionSchema } from "@/lib/review/schemas";
 import { availableActions } from "@/lib/review/state";
@@ -13,6 +14,8 @@ export const GET = route({ permission: "member", params: uuidParam }, async ({ a
     status: row.test.status,
     helpRequested: row.test.helpRequested,
     actions: availableActions(row.test.status, can(actor.role, "tests.review")),
+    /** Sent back and the caller may upload the re-test log (POST /api/tests/:id/retests). */
+    retest: row.test.status === "sent_back" && mayUploadRetest(actor, row.test.createdById),
   };
 });
 
