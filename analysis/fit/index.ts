@@ -167,7 +167,7 @@ function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, ski
  *    (reduce.ts, which states why that fit stands in for the fit on every reading), so fitting costs one
  *    O(n) pass plus a constant;
  * 2. flat and climb by closed-form least squares (QR); plateau and plateau_climb by variable projection
- *    over τ ∈ [min(1 s, half a sample), 10× the hold] and a Levenberg–Marquardt polish (varpro.ts);
+ *    over τ ∈ [min(1 s, half a sample), 10× the hold], the exact joint least-squares minimum (varpro.ts);
  * 3. with robust (default true): readings more than 5 local robust sd off the most flexible fit are
  *    spikes (robust.ts), left out, and everything is refitted (only that one model is fitted before the
  *    spike search; without spikes it is kept and the other three are fitted on the same points);

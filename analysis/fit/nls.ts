@@ -1,7 +1,7 @@
 /**
  * Generic nonlinear least squares (Levenberg–Marquardt), the one solver behind every nonlinear fit
- * in Riseline: the NIST StRD checks call it directly and the plateau hold models use it to polish the
- * variable-projection solution (see models.ts).
+ * in Riseline (the NIST StRD checks call it directly); summariseFit reports the plateau hold models'
+ * variable-projection solution the same way (varpro.ts).
  */
 import { solveLinearLeastSquares, solveLinearLeastSquaresInPlace } from "./linear";
 

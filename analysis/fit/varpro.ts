@@ -1,7 +1,8 @@
 /**
  * Variable projection for the plateau hold models: for a fixed time constant τ the model
  * p0 + a·(1 − e^(−t/τ)) [+ l·t] is linear in (p0, a, l), so the residual sum of squares can be
- * minimised over τ alone ("projected" RSS), then all parameters are polished together.
+ * minimised over τ alone ("projected" RSS); at the best τ the linear parameters follow exactly, so that
+ * point is the joint least-squares minimum (Golub & Pereyra's theorem) and no joint iteration is needed.
  *
  * Reference: G. H. Golub & V. Pereyra, "The differentiation of pseudo-inverses and nonlinear least
  * squares problems whose variables separate", SIAM J. Numer. Anal. 10 (1973) 413; golden-section search:
@@ -9,7 +10,7 @@
  */
 import type { HoldModelKind } from "../types";
 import { solveLinearLeastSquares } from "./linear";
-import { fitNonlinear, summariseFit, type NonlinearFit } from "./nls";
+import { summariseFit, type NonlinearFit } from "./nls";
 import { holdNonlinearModel } from "./models";
 
 export interface ProjectedFit {
@@ -165,7 +166,8 @@ export interface TimeConstantSearch {
  * Minimise the projected RSS over ln τ: a grid of `gridPoints` values log-spaced from tauMinSeconds
  * to tauMaxSeconds brackets the minimum (with more than GRID_FIT_POINTS points: the grid on group means, then a
  * downhill walk along the grid on every point to a grid minimum of the full profile), then Brent's method (golden section with parabolic steps) refines it to 1e-5 in
- * ln τ (the Levenberg–Marquardt polish does the rest); the
+ * ln τ no coarser than 1e-9 (in practice the minimum of a smooth function is only located to about
+ * √ε ≈ 1.5e-8 relative, far inside any parameter's uncertainty); the
  * linear coefficients at the best τ come from a full QR solve (projectedFit).
  */
 export function searchTimeConstant(
@@ -219,7 +221,7 @@ export function searchTimeConstant(
   if (iBest === 0 || iBest === gridPoints - 1 || !Number.isFinite(fBest)) {
     return finish(gridU[iBest], iBest === 0 ? "low" : "high");
   }
-  const m = brentMinimum(f, gridU[iBest - 1], gridU[iBest + 1], gridU[iBest], fBest, 2.5e-6);
+  const m = brentMinimum(f, gridU[iBest - 1], gridU[iBest + 1], gridU[iBest], fBest, 1e-9);
   const uBest = m.x;
   return finish(uBest, null);
 }
@@ -300,8 +302,11 @@ export interface PlateauFitOutcome {
 
 /**
  * Fit plateau (withClimb false) or plateau_climb (true) to (t seconds, p microns): variable projection
- * over τ ∈ [tauMinSeconds, tauMaxSeconds], then a Levenberg–Marquardt polish of all parameters with
- * fitNonlinear (nls.ts) from the projected solution; the polish is kept only if it does not raise the RSS.
+ * over τ ∈ [tauMinSeconds, tauMaxSeconds] (searchTimeConstant). The projected minimum is the joint
+ * least-squares solution (Golub & Pereyra 1973, Theorem 2.1: minimisers of the projected functional and
+ * of the full one coincide), so a joint Levenberg–Marquardt iteration from it would only move τ within
+ * the search tolerance; the solution is summarised as fitNonlinear would report it (summariseFit: RSS,
+ * s²·(JᵀJ)⁻¹ by QR, standard errors), with iterations = projected-RSS evaluations.
  */
 export function fitPlateauModel(
   t: ArrayLike<number>,
@@ -318,9 +323,5 @@ export function fitPlateauModel(
   const { coef, tauSeconds } = search.best;
   const start = withClimb ? [coef[0], coef[1], tauSeconds, coef[2]] : [coef[0], coef[1], tauSeconds];
   const model = holdNonlinearModel(kind);
-  const polished = fitNonlinear(model, t, p, start, { maxIterations: 30, stepTolerance: 1e-8, gradientTolerance: 1e-9 });
-  const polishOk =
-    polished.stopReason !== "non_finite" && polished.params[2] > 0 && polished.rss <= search.best.rss * (1 + 1e-12);
-  const fit = polishOk ? polished : summariseFit(model, t, p, start, search.evaluations, "converged");
-  return { fit, notIdentified: null };
+  return { fit: summariseFit(model, t, p, start, search.evaluations, "converged"), notIdentified: null };
 }
