@@ -25,6 +25,12 @@ const schema = z.object({
   MAILBOX_DIR: z.string().optional(),
   /** Upload limit in bytes for a gauge log. */
   MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(32 * 1024 * 1024),
+  /** Engine worker threads (lib/tests/engine-pool.ts); 0 analyses on the request thread; unset = one per core, at most 4. */
+  ENGINE_WORKERS: z.coerce.number().int().min(0).max(16).optional(),
+  /** Longest one analysis may run in a worker before that worker is replaced and the upload fails cleanly. */
+  ENGINE_TIMEOUT_MS: z.coerce.number().int().positive().default(60_000),
+  /** "bundled": the worker entry Next.js built; "source": lib/tests/engine-worker.ts through tsx (vitest, scripts). */
+  ENGINE_WORKER_ENTRY: z.enum(["bundled", "source"]).default("bundled"),
 });
 
 export type Env = z.infer<typeof schema>;

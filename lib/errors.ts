@@ -11,6 +11,7 @@ export type AppErrorCode =
   | "conflict"
   | "storage_unavailable"
   | "database_unavailable"
+  | "analysis_unavailable"
   | "rate_limited"
   | "internal";
 
@@ -26,6 +27,7 @@ const STATUS: Record<AppErrorCode, number> = {
   conflict: 409,
   storage_unavailable: 503,
   database_unavailable: 503,
+  analysis_unavailable: 503,
   rate_limited: 429,
   internal: 500,
 };
@@ -42,6 +44,7 @@ const DEFAULT_MESSAGE: Record<AppErrorCode, string> = {
   conflict: "That was changed by someone else; reload and try again.",
   storage_unavailable: "File storage is not answering. Nothing was saved; please try again.",
   database_unavailable: "The database is not answering. Nothing was saved; please try again.",
+  analysis_unavailable: "The analysis could not finish for this log. Nothing was saved; please try again.",
   rate_limited: "Too many attempts; wait a minute and try again.",
   internal: "Something went wrong on our side. Nothing was lost; please try again.",
 };

@@ -38,7 +38,7 @@ bash scripts/services.sh start demo
 set -a; . ./.env; set +a
 
 ./node_modules/.bin/tsx scripts/migrate.ts
-./node_modules/.bin/tsx scripts/seed.ts
+ENGINE_WORKER_ENTRY=source ./node_modules/.bin/tsx scripts/seed.ts
 
 say "Building the app (next build)…"
 ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 || { tail -40 "$ROOT/build.log"; exit 1; }

@@ -10,7 +10,7 @@ import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
 import { log } from "@/lib/log";
 import { getObjectBytes } from "@/lib/storage";
-import { runAnalysis } from "./engine";
+import { analyseOffThread } from "./engine-pool";
 import { decodeLogText } from "./files";
 import { compactOptions, importOptionsOf, resolveProfile } from "./options";
 import { requireRevealedTest } from "./read";
@@ -53,7 +53,7 @@ export async function reanalyseTest(
     log.error("raw log not readable", { objectKey: upload.objectKey, err: String(err) });
     throw new AppError("storage_unavailable", "File storage is not answering; the analysis was not changed. Please try again.");
   }
-  const run = runAnalysis(decodeLogText(bytes), options); // LogError → 422 naming the option
+  const run = await analyseOffThread(decodeLogText(bytes), options); // LogError → 422 naming the option
 
   return db.transaction(async (tx) => {
     if (!(await lockTestById(tx, { organizationId: org, testId }))) throw new AppError("not_found", "No such test.");

@@ -22,7 +22,7 @@ import { AppError } from "@/lib/errors";
 import { log } from "@/lib/log";
 import { can, type Role } from "@/lib/permissions";
 import { deleteObject, putObject, rawLogKey } from "@/lib/storage";
-import { runAnalysis } from "./engine";
+import { analyseOffThread } from "./engine-pool";
 import { sha256Hex } from "./files";
 import { compactOptions, importOptionsOf, resolveProfile, volumeOf } from "./options";
 import type { TestMetadata } from "./schemas";
@@ -141,7 +141,7 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
   }
   assertMayCreateJob(who, input.metadata);
   const options = await uploadOptionsOf(db, org, input);
-  const run = runAnalysis(input.text, options); // LogError → 422 before anything is stored
+  const run = await analyseOffThread(input.text, options); // LogError → 422 before anything is stored
 
   const testId = randomUUID();
   const analysisId = randomUUID();

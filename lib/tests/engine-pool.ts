@@ -1,0 +1,176 @@
+/**
+ * The analysis engine off the request thread: a small pool of worker threads, each running
+ * runAnalysis (lib/tests/engine.ts) one log at a time, so uploads arriving together use every
+ * core while the main thread keeps serving HTTP, the database and storage.
+ *
+ *  - Size: ENGINE_WORKERS (lib/env.ts); 0 runs the engine inline on the caller's thread.
+ *  - A LogError in the worker comes back as the same LogError (→ 422 with the importer's message).
+ *  - A worker that dies or overruns ENGINE_TIMEOUT_MS fails only its own log with a clear error
+ *    and is replaced; the others carry on. If workers keep failing without finishing a single
+ *    log (a broken deployment), the pool gives up and analyses inline rather than fail uploads.
+ */
+import { availableParallelism } from "node:os";
+import path from "node:path";
+import { Worker } from "node:worker_threads";
+import { LogError } from "@/analysis/errors";
+import type { AnalyzeOptions } from "@/analysis/types";
+import { AppError } from "@/lib/errors";
+import { env } from "@/lib/env";
+import { log } from "@/lib/log";
+import { runAnalysis, type EngineRun } from "./engine";
+import type { EngineReady, EngineReply, EngineRequest } from "./engine-worker";
+
+interface Job {
+  request: EngineRequest;
+  resolve: (run: EngineRun) => void;
+  reject: (err: unknown) => void;
+}
+
+interface Slot {
+  worker: Worker;
+  /** The entry loaded (it said so); a worker failing before that never got to the log. */
+  ready: boolean;
+  job: Job | null;
+  timer: NodeJS.Timeout | null;
+}
+
+let slots: Slot[] | null = null;
+const waiting: Job[] = [];
+let nextId = 1;
+let timeoutOverrideMs: number | null = null;
+/** Worker failures since a worker last finished a log; at MAX_FAILURES_IN_A_ROW the pool goes inline. */
+let failuresInARow = 0;
+let inlineOnly = false;
+const MAX_FAILURES_IN_A_ROW = 5;
+
+/** Test seam: a shorter worker timeout (null restores ENGINE_TIMEOUT_MS). */
+export function setEngineTimeoutForTests(ms: number | null): void {
+  timeoutOverrideMs = ms;
+}
+
+/** Workers the pool keeps: the setting, else one per core (at most 4). */
+export function engineWorkerCount(): number {
+  const configured = env().ENGINE_WORKERS;
+  return configured ?? Math.min(4, Math.max(1, availableParallelism()));
+}
+
+function spawnWorker(): Worker {
+  // A built server runs the entry Next.js bundled from the literal URL below. Under vitest or
+  // tsx (ENGINE_WORKER_ENTRY=source) the worker registers tsx's loader and requires the source.
+  const worker =
+    env().ENGINE_WORKER_ENTRY === "source"
+      ? new Worker(`require("tsx/cjs"); require(${JSON.stringify(path.join(process.cwd(), "lib/tests/engine-worker.ts"))});`, { eval: true })
+      : new Worker(new URL("./engine-worker.ts", import.meta.url));
+  worker.unref();
+  return worker;
+}
+
+function settle(slot: Slot, reply: EngineReply): void {
+  const job = slot.job;
+  if (!job || job.request.id !== reply.id) return;
+  failuresInARow = 0;
+  finish(slot);
+  if (reply.ok) job.resolve(reply.run);
+  else if (reply.logError) {
+    const e = reply.logError;
+    job.reject(new LogError(e.code, e.message, { line: e.line ?? undefined, column: e.column ?? undefined }));
+  } else job.reject(new Error(`analysis failed in the engine worker: ${reply.message}`));
+}
+
+function finish(slot: Slot): void {
+  if (slot.timer) clearTimeout(slot.timer);
+  slot.timer = null;
+  slot.job = null;
+  slot.worker.unref();
+  pump();
+}
+
+/**
+ * Replace a worker that crashed or overran, failing only the log it was working on. A worker
+ * whose entry never loaded did not fail the log: that log is analysed inline instead.
+ */
+function replace(slot: Slot, why: string): void {
+  const job = slot.job;
+  const neverLoaded = !slot.ready && why !== "timed out";
+  slot.worker.removeAllListeners();
+  void slot.worker.terminate().catch(() => undefined);
+  log.error("engine worker replaced", { why });
+  if (++failuresInARow >= MAX_FAILURES_IN_A_ROW && !inlineOnly) {
+    inlineOnly = true;
+    log.error("engine workers keep failing; analysing on the request thread from now on", { why });
+  }
+  if (job && neverLoaded) runInline(job.request.text, job.request.options).then(job.resolve, job.reject);
+  else if (job) job.reject(new AppError("analysis_unavailable"));
+  if (inlineOnly) {
+    drainInline();
+    return;
+  }
+  attach(slot, spawnWorker());
+  finish(slot);
+}
+
+function attach(slot: Slot, worker: Worker): void {
+  slot.worker = worker;
+  slot.ready = false;
+  worker.on("message", (reply: EngineReply | EngineReady) => {
+    if ("ready" in reply) slot.ready = true;
+    else settle(slot, reply);
+  });
+  worker.on("error", (err) => replace(slot, String(err)));
+  worker.on("exit", (code) => {
+    if (slot.worker === worker && slot.job) replace(slot, `exited with code ${code}`);
+  });
+}
+
+function pool(): Slot[] {
+  if (slots) return slots;
+  slots = Array.from({ length: engineWorkerCount() }, () => {
+    const slot: Slot = { worker: null as unknown as Worker, ready: false, job: null, timer: null };
+    attach(slot, spawnWorker());
+    return slot;
+  });
+  return slots;
+}
+
+/** After the pool gave up: every waiting log is analysed on this thread. */
+function drainInline(): void {
+  for (const job of waiting.splice(0)) runInline(job.request.text, job.request.options).then(job.resolve, job.reject);
+}
+
+function runInline(text: string, options: AnalyzeOptions): Promise<EngineRun> {
+  return Promise.resolve().then(() => runAnalysis(text, options));
+}
+
+function pump(): void {
+  if (!slots) return;
+  for (const slot of slots) {
+    if (slot.job || waiting.length === 0) continue;
+    const job = waiting.shift()!;
+    slot.job = job;
+    slot.worker.ref(); // keep the process alive only while a log is being analysed
+    slot.timer = setTimeout(() => replace(slot, "timed out"), timeoutOverrideMs ?? env().ENGINE_TIMEOUT_MS);
+    slot.worker.postMessage(job.request);
+  }
+}
+
+/**
+ * Analyse a log's text on the pool (or inline when ENGINE_WORKERS=0). Same contract as
+ * runAnalysis: resolves with the run, rejects with LogError for an unreadable log.
+ */
+export function analyseOffThread(text: string, options: AnalyzeOptions): Promise<EngineRun> {
+  if (inlineOnly || engineWorkerCount() === 0) return runInline(text, options);
+  const slotsNow = pool();
+  return new Promise<EngineRun>((resolve, reject) => {
+    waiting.push({ request: { id: nextId++, text, options }, resolve, reject });
+    if (slotsNow.length) pump();
+  });
+}
+
+/** Stop every worker (tests and shutdown). The next analysis starts a fresh pool. */
+export async function closeEnginePool(): Promise<void> {
+  const all = slots ?? [];
+  slots = null;
+  failuresInARow = 0;
+  inlineOnly = false;
+  await Promise.all(all.map((s) => (s.worker.removeAllListeners(), s.worker.terminate())));
+}

@@ -1,0 +1,60 @@
+/**
+ * The engine's worker pool gives the same answers as the engine on the request thread, brings
+ * an unreadable log's LogError back intact, runs logs side by side, and survives a worker that
+ * overruns. Real worker threads (run through tsx under vitest).
+ */
+import { readFileSync } from "node:fs";
+import { afterAll, describe, expect, it } from "vitest";
+import { LogError } from "@/analysis/errors";
+import { AppError } from "@/lib/errors";
+import { runAnalysis } from "@/lib/tests/engine";
+import { analyseOffThread, closeEnginePool, setEngineTimeoutForTests } from "@/lib/tests/engine-pool";
+
+const golden = (name: string) => readFileSync(`fixtures/golden/${name}`, "utf8");
+
+afterAll(async () => {
+  setEngineTimeoutForTests(null);
+  await closeEnginePool();
+});
+
+describe("engine worker pool", () => {
+  it("returns exactly what the inline engine returns for the same log (our own contract)", async () => {
+    const text = golden("layout-iso-pa.csv");
+    const inline = runAnalysis(text, {});
+    const pooled = await analyseOffThread(text, {});
+    expect(pooled.result.verdict).toBe(inline.result.verdict);
+    expect(pooled).toEqual(inline);
+  });
+
+  it("brings back the importer's LogError with its code and line (our own contract)", async () => {
+    const text = "time,microns\n0,500\n1,abc\n";
+    let inlineErr: unknown;
+    try {
+      runAnalysis(text, {});
+    } catch (e) {
+      inlineErr = e;
+    }
+    expect(inlineErr).toBeInstanceOf(LogError);
+    const err = await analyseOffThread(text, {}).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(LogError);
+    expect((err as LogError).code).toBe((inlineErr as LogError).code);
+    expect((err as LogError).message).toBe((inlineErr as LogError).message);
+    expect((err as LogError).line).toBe((inlineErr as LogError).line);
+  });
+
+  it("analyses several logs at once, each getting its own answer (our own contract)", async () => {
+    const names = ["layout-iso-pa.csv", "layout-tab-mtorr.csv", "layout-datetime-mbar.csv", "scenario-frozen_moisture.csv", "layout-elapsed_s-psia.csv"];
+    const runs = await Promise.all(names.map((n) => analyseOffThread(golden(n), {})));
+    names.forEach((n, i) => expect(runs[i].result).toEqual(runAnalysis(golden(n), {}).result));
+  });
+
+  it("fails only the overrunning log with a clear 503 and keeps serving (our own contract)", async () => {
+    setEngineTimeoutForTests(1);
+    const err = await analyseOffThread(golden("layout-iso-pa.csv"), {}).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(AppError);
+    expect((err as AppError).status).toBe(503);
+    setEngineTimeoutForTests(null);
+    const after = await analyseOffThread(golden("layout-iso-pa.csv"), {});
+    expect(after.result.verdict).toBe(runAnalysis(golden("layout-iso-pa.csv"), {}).result.verdict);
+  });
+});
