@@ -1,20 +1,33 @@
 #!/usr/bin/env bash
 # `npm run bench:api`: upload-to-verdict latency of POST /api/tests against `next start`.
-# Services: the contributors' "dev" profile (scripts/dev-env.sh starts it if needed, migrates, and
-# is left running; its data is throw-away). The bench makes its own shop in that database.
-# Builds first when .next is absent or older than the sources; serves on 127.0.0.1:3300 and
-# stops that server (only it) at the end. Loopback only.
+# Services: a "bench" profile of its own (PostgreSQL, the S3 fake and the mail catcher on
+# loopback, fresh data each run), so nothing else on the machine shares its database and the CPU
+# each process spends per upload can be read from /proc. Builds first when .next is absent or
+# older than the sources; serves on 127.0.0.1:3300; stops the server and the bench services at
+# the end (nothing is left running). Loopback only.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 . scripts/lib.sh
 export NEXT_TELEMETRY_DISABLED=1
 PORT=${BENCH_PORT:-3300}
 ROOT=.data/bench
+rm -rf "$ROOT"
 mkdir -p "$ROOT/run"
 
-bash scripts/dev-env.sh >/dev/null
-set -a; . .data/dev/env; set +a
-export BETTER_AUTH_URL="http://127.0.0.1:$PORT" RISELINE_MODE=test
+cleanup() {
+  stop_group "$ROOT/run/next.pid"
+  bash scripts/services.sh stop bench || true
+}
+trap cleanup EXIT
+bash scripts/services.sh start bench
+set -a
+eval "$(bash scripts/services.sh env bench)"
+RISELINE_MODE=test
+BETTER_AUTH_SECRET=$(head -c 48 /dev/urandom | base64 | tr -d '/+=' | head -c 48)
+BETTER_AUTH_URL="http://127.0.0.1:$PORT"
+AUTH_RATE_LIMIT=off
+set +a
+./node_modules/.bin/tsx scripts/migrate.ts >/dev/null
 
 stale() {
   [ -f .next/BUILD_ID ] || return 0
@@ -25,10 +38,9 @@ if stale; then
   flock /tmp/riseline-next-build.lock ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 || { tail -40 "$ROOT/build.log"; exit 1; }
 fi
 
-cleanup() { stop_group "$ROOT/run/next.pid"; }
-trap cleanup EXIT
 setsid ./node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" >"$ROOT/next.log" 2>&1 &
 echo $! >"$ROOT/run/next.pid"
 wait_for_url "http://127.0.0.1:$PORT/api/health" 90 || { tail -30 "$ROOT/next.log"; exit 1; }
 
-./node_modules/.bin/tsx scripts/bench-api.ts "http://127.0.0.1:$PORT"
+BENCH_PG_PID_FILE="$ROOT/pg/postmaster.pid" BENCH_FAKES_PID_FILE="$ROOT/run/fakes.pid" \
+  ./node_modules/.bin/tsx scripts/bench-api.ts "http://127.0.0.1:$PORT"

@@ -4,7 +4,9 @@
  * Prints p50 and p95 in milliseconds, and the first-load JS (gzip) of /tests/new measured in Chromium.
  * Bounded loops only; loopback only.
  */
+import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
+import { readdirSync, readFileSync } from "node:fs";
 import { getAuth } from "@/lib/auth";
 import { closeDb } from "@/db/client";
 import { simulateLog } from "@/analysis/simulate";
@@ -40,6 +42,62 @@ async function uploadOnce(cookie: string, text: string): Promise<number> {
   const ms = performance.now() - t0;
   if (res.status !== 201 || !body.analysis?.verdict) throw new Error(`upload failed: ${res.status} ${JSON.stringify(body).slice(0, 300)}`);
   return ms;
+}
+
+const TICKS_PER_SECOND = Number(execFileSync("getconf", ["CLK_TCK"]).toString().trim()) || 100;
+
+/** utime+stime (and, with children, the waited-for children's) of a process, in ms; 0 if gone. */
+function processCpuMs(pid: number, withChildren = false): number {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
+    const f = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+    const ticks = Number(f[11]) + Number(f[12]) + (withChildren ? Number(f[13]) + Number(f[14]) : 0);
+    return (ticks / TICKS_PER_SECOND) * 1000;
+  } catch {
+    return 0;
+  }
+}
+
+function childrenOf(pid: number): number[] {
+  return readdirSync("/proc")
+    .filter((d) => /^\d+$/.test(d))
+    .filter((d) => {
+      try {
+        const stat = readFileSync(`/proc/${d}/stat`, "utf8");
+        return Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[1]) === pid;
+      } catch {
+        return false;
+      }
+    })
+    .map(Number);
+}
+
+const serverPid = (() => {
+  const port = new URL(base).port;
+  const m = /pid=(\d+)/.exec(execFileSync("ss", ["-ltnpH", `sport = :${port}`]).toString());
+  return m ? Number(m[1]) : null;
+})();
+const pidFrom = (file: string | undefined) => (file ? Number(readFileSync(file, "utf8").split("\n")[0]) || null : null);
+const postmasterPid = pidFrom(process.env.BENCH_PG_PID_FILE);
+const fakesPid = pidFrom(process.env.BENCH_FAKES_PID_FILE);
+
+/** CPU ms so far of the server (all its threads), PostgreSQL (postmaster, backends), the fakes and this client. */
+function cpuNow() {
+  const self = process.cpuUsage();
+  return {
+    server: serverPid ? processCpuMs(serverPid) : NaN,
+    postgres: postmasterPid ? processCpuMs(postmasterPid, true) + childrenOf(postmasterPid).reduce((t, c) => t + processCpuMs(c), 0) : NaN,
+    fakes: fakesPid ? processCpuMs(fakesPid) : NaN,
+    client: (self.user + self.system) / 1000,
+  };
+}
+
+function cpuPerUpload(label: string, before: ReturnType<typeof cpuNow>, after: ReturnType<typeof cpuNow>, uploads: number) {
+  const per = (k: keyof typeof before) => (after[k] - before[k]) / uploads;
+  const total = per("server") + per("postgres") + per("fakes") + per("client");
+  console.log(
+    `${label} CPU per upload: server ${per("server").toFixed(1)} ms · PostgreSQL ${per("postgres").toFixed(1)} ms · S3 fake + mail catcher ${per("fakes").toFixed(1)} ms · bench client ${per("client").toFixed(1)} ms · total ${total.toFixed(1)} ms`,
+  );
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -84,18 +142,25 @@ async function firstLoadJsKb(cookie: string): Promise<number> {
   }
 }
 
+const loadBefore = readFileSync("/proc/loadavg", "utf8").split(" ").slice(0, 3).join(" ");
 const cookie = await benchMember();
 const text = hourLog();
 console.log(`log: ${text.split("\n").length - 1} lines, ${(Buffer.byteLength(text) / 1024).toFixed(0)} kB`);
 for (let i = 0; i < WARMUP_UPLOADS; i++) await uploadOnce(cookie, text);
 
 const one: number[] = [];
+const cpu0 = cpuNow();
 for (let i = 0; i < SEQUENTIAL_UPLOADS; i++) one.push(await uploadOnce(cookie, text));
+const cpu1 = cpuNow();
 const many: number[] = [];
 for (let r = 0; r < CONCURRENT_ROUNDS; r++) many.push(...(await Promise.all(Array.from({ length: CONCURRENCY }, () => uploadOnce(cookie, text)))));
+const cpu2 = cpuNow();
 
 const a = summary("1 concurrent ", one);
 const b = summary(`${CONCURRENCY} concurrent`, many);
+cpuPerUpload("1 concurrent ", cpu0, cpu1, SEQUENTIAL_UPLOADS);
+cpuPerUpload(`${CONCURRENCY} concurrent`, cpu1, cpu2, CONCURRENCY * CONCURRENT_ROUNDS);
+console.log(`load average before the run: ${loadBefore}`);
 const kb = await firstLoadJsKb(cookie);
 console.log(`first-load JS of /tests/new (Chromium, gzip as served): ${kb.toFixed(1)} kB (goal ≤ 180 kB)`);
 console.log(`goal p95 < 500 ms at ${CONCURRENCY} concurrent: ${b.p95 < 500 ? "met" : "NOT met"} (p50 at 1: ${a.p50.toFixed(0)} ms)`);

@@ -1,16 +1,17 @@
 #!/usr/bin/env bash
-# Start or stop Riseline's local services for one profile (demo or test), all on loopback.
-#   scripts/services.sh start demo|test     scripts/services.sh stop demo|test
+# Start or stop Riseline's local services for one profile, all on loopback.
+#   scripts/services.sh start demo|test|dev|bench     scripts/services.sh stop demo|test|dev|bench
 # PostgreSQL comes from Debian's package; s3rver and the SMTP catcher run in scripts/fakes.mjs.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 action=${1:?start|stop}
-profile=${2:?demo|test|dev}
+profile=${2:?demo|test|dev|bench}
 
 case "$profile" in
   demo) PG_PORT=54329; S3_PORT=4569; SMTP_PORT=2525 ;;
   test) PG_PORT=54339; S3_PORT=4579; SMTP_PORT=2535 ;;
   dev) PG_PORT=54349; S3_PORT=4589; SMTP_PORT=2545 ;;
+  bench) PG_PORT=54359; S3_PORT=4599; SMTP_PORT=2555 ;;
   *) echo "unknown profile $profile" >&2; exit 2 ;;
 esac
 ROOT="$PWD/.data/$profile"
