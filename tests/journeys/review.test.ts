@@ -1,15 +1,20 @@
 /**
  * The lead's desk, end to end in a real Chromium on a phone: a technician asks for review, the
  * lead comments at a time on the curve and sends it back with a request, the technician
- * re-tests and resubmits, the lead signs off and e-mails the report, and the customer's mail
- * (with the PDF) is read back from the real SMTP catcher. Invented names and data.
+ * uploads the re-test's gauge log (a passing fixture) onto the same test, which goes back to the
+ * lead with a new current analysis; the lead signs off and e-mails the report, and the customer's
+ * mail (with the PDF) is read back from the real SMTP catcher. Invented names and data.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Locator, Page } from "playwright-core";
 import { launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
 import { waitForMail } from "@/tests/helpers/mailbox";
+import { verdictLabel } from "@/lib/reports/words";
 import { seedTest } from "@/tests/helpers/seed-test";
+
+/** A pass per fixtures/samples/EXPECTED.md: the re-test after the gasket was replaced. */
+const RETEST_LOG = "fixtures/samples/sample-1-iso-microns.csv";
 
 let session: Session;
 let lead: TestMember;
@@ -38,7 +43,7 @@ beforeAll(async () => {
   const owner = await createShop("Northside Cooling (invented)");
   lead = await addMember(owner.organizationId, "lead", "Lena Lead");
   tech = await addMember(owner.organizationId, "technician", "Theo Tech");
-  testId = await seedTest(tech, { verdict: "pass", title: "Bakery walk-in after coil swap" });
+  testId = await seedTest(tech, { verdict: "leak", title: "Bakery walk-in after coil swap" });
   session = await launch();
 });
 afterAll(async () => {
@@ -48,7 +53,7 @@ afterAll(async () => {
 });
 
 describe("review journey (phone)", () => {
-  it("ask → comment at a time and send back → re-test and resubmit → sign off → report e-mailed", async () => {
+  it("ask → comment at a time and send back → upload the re-test log (sample-1, a pass per fixtures/samples/EXPECTED.md) → sign off → report e-mailed", async () => {
     // Technician asks for review.
     const t = await as(tech);
     await t.page.goto(`/tests/${testId}/report`);
@@ -76,13 +81,18 @@ describe("review journey (phone)", () => {
     const back = await waitForMail(tech.email, /Sent back: Bakery walk-in/);
     expect(back.text).toContain("Pull down again and hold 15 minutes.");
 
-    // Technician re-tests and resubmits; the lead's comment is on the thread at its time.
+    // Technician re-tests and uploads the new log onto the same test; the lead's comment is on the thread at its time.
     await t.page.reload();
     await shown(t.page.getByTestId("comment-thread").getByText("at 25.0 min"));
-    await techPanel.getByRole("button", { name: "Resubmit after re-test" }).click();
+    await techPanel.getByRole("button", { name: "Upload the re-test log" }).click();
+    await techPanel.getByLabel("Re-test log file (CSV)").setInputFiles(RETEST_LOG);
     await techPanel.getByLabel(/What did you do/).fill("Replaced the hose gasket, pulled down to 350 microns, held 15 minutes.");
-    await techPanel.getByRole("button", { name: "Resubmit after re-test" }).click();
+    await techPanel.getByRole("button", { name: "Send the re-test" }).click();
+    await shown(techPanel.getByTestId("retest-done"));
+    expect(await techPanel.getByTestId("retest-done").textContent()).toContain("version 2");
     await shown(techPanel.getByText("Waiting for review"));
+    const retestMail = await waitForMail(lead.email, /Re-test to review: Bakery walk-in/);
+    expect(retestMail.text).toContain("Replaced the hose gasket");
 
     // Lead signs off; the report shows the sign-off; then e-mails the report to the customer.
     await l.page.reload();
@@ -92,6 +102,8 @@ describe("review journey (phone)", () => {
     await waitForMail(tech.email, /Signed off: Bakery walk-in/);
     await l.page.reload();
     await shown(l.page.getByTestId("report-signoff").getByText("Signed off by Lena Lead"));
+    // The report shows the re-test's analysis (the seeded first analysis was a leak).
+    await shown(l.page.getByTestId("report").getByRole("heading", { name: `Verdict: ${verdictLabel("pass")}` }));
     const share = l.page.getByTestId("share-actions");
     await share.getByLabel("E-mail the report to").fill(customer);
     await share.getByRole("button", { name: "Send the report" }).click();
@@ -102,7 +114,7 @@ describe("review journey (phone)", () => {
     // The audit trail on the page tells the whole story with names.
     await l.page.reload();
     const trail = l.page.getByTestId("audit-trail");
-    for (const words of ["Asked for review", "Commented", "Sent back", "Re-tested and resubmitted", "Signed off", "E-mailed the report"]) {
+    for (const words of ["Asked for review", "Commented", "Sent back", "Uploaded the re-test log and resubmitted", "Signed off", "E-mailed the report"]) {
       await shown(trail.getByText(words, { exact: false }));
     }
     await t.ctx.close();
