@@ -52,6 +52,17 @@ export function retestUploadedMail(to: string, t: TestSummary, opts: { by: strin
   });
 }
 
+/** A comment on a test, to whoever should answer it (the technician, or the leads). */
+export function commentMail(to: string, t: TestSummary, opts: { by: string; body: string; atSeconds: number | null }): OutgoingMail {
+  const at = opts.atSeconds != null ? ` at ${(opts.atSeconds / 60).toFixed(1)} min on the curve` : "";
+  return composeMail({
+    to,
+    subject: `Comment on: ${t.title}`,
+    paragraphs: [`${opts.by} commented on "${t.title}"${at}:`, opts.body, verdictLine(t)],
+    link: { label: "Open the test", url: testUrl(t.id) },
+  });
+}
+
 export function signedOffMail(to: string, t: TestSummary, opts: { by: string; note?: string | null }): OutgoingMail {
   return composeMail({
     to,
