@@ -37,6 +37,18 @@ export async function requireRevealedTest(db: Db, viewer: Viewer, testId: string
   return row;
 }
 
+/**
+ * The test and its current analysis only (what POST /api/tests answers with). `known` is the
+ * analysis just computed, so a new upload need not read its own result back.
+ */
+export async function loadTestSummary(db: Db, viewer: Viewer, testId: string, known?: AnalysisResult): Promise<Pick<TestDetail, "test" | "analysis">> {
+  const row = await requireRevealedTest(db, viewer, testId);
+  if (known) return { test: toTestDto(row), analysis: known };
+  const current = row.test.currentAnalysisId ? await getAnalysisById(db, { organizationId: viewer.organizationId, analysisId: row.test.currentAnalysisId }) : null;
+  if (!current) throw new AppError("internal", "This test has no analysis yet.");
+  return { test: toTestDto(row), analysis: current.result };
+}
+
 export async function loadTestDetail(db: Db, viewer: Viewer, testId: string): Promise<TestDetail> {
   const row = await requireRevealedTest(db, viewer, testId);
   const org = viewer.organizationId;

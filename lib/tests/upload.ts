@@ -50,6 +50,8 @@ export interface UploadOutcome {
   testId: string;
   /** False when an earlier upload with the same Idempotency-Key is returned. */
   created: boolean;
+  /** The new test's analysis, already in memory (absent when an earlier upload is returned). */
+  result?: AnalysisResult;
 }
 
 type FaultHook = (tx: Tx, ctx: { testId: string; objectKey: string }) => Promise<void>;
@@ -181,7 +183,7 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
   }
   // The leads' e-mail goes after commit and never holds up the verdict; the outbox keeps failures.
   void deliverMail(db, reviewMailIds).catch((err) => log.error("review mail not sent yet", { testId, err: String(err) }));
-  return { testId, created: true };
+  return { testId, created: true, result: run.result };
 }
 
 interface PersistArgs {

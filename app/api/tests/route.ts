@@ -1,6 +1,6 @@
 import { db } from "@/db/client";
 import { route } from "@/lib/api/handler";
-import { loadTestDetail, listTests } from "@/lib/tests/read";
+import { listTests, loadTestSummary } from "@/lib/tests/read";
 import { readUploadRequest } from "@/lib/tests/request";
 import { idempotencyKeySchema, listTestsQuerySchema, parseInput } from "@/lib/tests/schemas";
 import { createTestFromUpload } from "@/lib/tests/upload";
@@ -16,8 +16,8 @@ export const POST = route({ permission: "tests.upload" }, async ({ req, actor })
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const input = await readUploadRequest(req);
   const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey });
-  const detail = await loadTestDetail(db(), actor, outcome.testId);
-  return Response.json({ test: detail.test, analysis: detail.analysis }, { status: outcome.created ? 201 : 200 });
+  const { test, analysis } = await loadTestSummary(db(), actor, outcome.testId, outcome.result);
+  return Response.json({ test, analysis }, { status: outcome.created ? 201 : 200 });
 });
 
 /** GET /api/tests — the tests the caller may see, newest first, cursor-paginated. */
