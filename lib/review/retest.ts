@@ -30,7 +30,7 @@ import { retestUploadedMail } from "@/lib/notify/messages";
 import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
 import { can } from "@/lib/permissions";
 import { deleteObject, putObject, rawLogKey } from "@/lib/storage";
-import { runAnalysis } from "@/lib/tests/engine";
+import { analyseOffThread } from "@/lib/tests/engine-pool";
 import { sha256Hex } from "@/lib/tests/files";
 import { compactOptions, resolveProfile } from "@/lib/tests/options";
 import { requireVisibleTest } from "@/lib/tests/read";
@@ -108,7 +108,7 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
   if (!early.ok) throw new AppError("conflict", `${early.message} A re-test log goes onto a test that was sent back.`, { status: detail.test.status });
 
   const options = await optionsForRetest(db, org, detail.test.currentAnalysisId);
-  const run = runAnalysis(input.file.text, options); // LogError → 422 before anything is stored
+  const run = await analyseOffThread(input.file.text, options); // LogError → 422 before anything is stored
 
   const analysisId = randomUUID();
   const objectKey = retestLogKey(org, testId, randomUUID(), input.file.filename);
