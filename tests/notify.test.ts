@@ -1,5 +1,5 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import { eq } from "drizzle-orm";
+import { eq, inArray } from "drizzle-orm";
 import nodemailer from "nodemailer";
 import { db } from "@/db/client";
 import { mailOutbox, vacuumTests } from "@/db/schema";
@@ -7,7 +7,7 @@ import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
 import { POST as resendPost } from "@/app/api/outbox/resend/route";
 import { GET as outboxGet } from "@/app/api/outbox/route";
 import { setMailSenderForTests, type MailSender } from "@/lib/notify/transport";
-import { resendUnsentMail } from "@/lib/notify/outbox";
+import { deliverMail, queueMail, resendUnsentMail } from "@/lib/notify/outbox";
 import { appRequest, createCrew, routeParams, type TestMember } from "./helpers/members";
 import { waitForMail } from "./helpers/mailbox";
 import { seedTest } from "./helpers/seed-test";
@@ -79,5 +79,24 @@ describe("e-mail through the outbox (product rule: the change never depends on t
     expect(mail.html).toContain("<a href=");
     expect(mail.text).toMatch(/https?:\/\/127\.0\.0\.1:\d+\/tests\//);
     expect(mail.text + mail.html).not.toMatch(/password|token|secret/i);
+  });
+
+  it("two deliveries of the same rows at once send each message exactly once (row lock, skip locked)", async () => {
+    const sent: string[] = [];
+    setMailSenderForTests(async (m) => {
+      sent.push(m.to);
+      await new Promise((r) => setTimeout(r, 50)); // hold the row lock while "sending"
+    });
+    const ids = await db().transaction((tx) =>
+      queueMail(
+        tx,
+        [1, 2, 3].map((n) => ({ organizationId: crew.owner.organizationId, testId: null, to: `twice-${n}@example.test`, subject: `Once ${n}`, text: "x", html: "<p>x</p>" })),
+      ),
+    );
+    const [a, b] = await Promise.all([deliverMail(db(), ids), deliverMail(db(), ids)]);
+    expect([...a.sent, ...b.sent].sort()).toEqual([...ids].sort());
+    expect(sent.sort()).toEqual(["twice-1@example.test", "twice-2@example.test", "twice-3@example.test"]);
+    const rows = await db().select({ attempts: mailOutbox.attempts, status: mailOutbox.status }).from(mailOutbox).where(inArray(mailOutbox.id, ids));
+    expect(rows.map((r) => [r.status, r.attempts])).toEqual([["sent", 1], ["sent", 1], ["sent", 1]]);
   });
 });

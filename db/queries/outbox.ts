@@ -41,16 +41,16 @@ export async function listUnsentOutboxMailIds(
  * SKIP LOCKED: a row another worker is sending is left alone, so it is never sent twice at once.
  */
 export async function claimOutboxMailById(db: Db, params: { id: string }): Promise<OutboxRow | null> {
-  const [row] = await db
+  // One statement: lock the row if it is unsent and not being sent by another worker, count the attempt.
+  const locked = db
     .select({ id: mailOutbox.id })
     .from(mailOutbox)
     .where(and(eq(mailOutbox.id, params.id), inArray(mailOutbox.status, ["pending", "failed"])))
     .for("update", { skipLocked: true });
-  if (!row) return null;
   const [claimed] = await db
     .update(mailOutbox)
     .set({ attempts: sql`${mailOutbox.attempts} + 1` })
-    .where(eq(mailOutbox.id, row.id))
+    .where(inArray(mailOutbox.id, locked))
     .returning();
   return claimed ?? null;
 }
