@@ -17,6 +17,7 @@ import { setRetestFaultForTests } from "@/lib/review/retest";
 import { crewForFile, jsonInit } from "./helpers/crew";
 import { waitForMail } from "./helpers/mailbox";
 import { addMember, appRequest, createShop, routeParams, type TestMember } from "./helpers/members";
+import { POST as uploadPost } from "@/app/api/tests/route";
 import { listKeys, sampleText, sha256, uploadRequest } from "./helpers/uploads";
 import { seedTest } from "./helpers/seed-test";
 
@@ -113,6 +114,19 @@ describe("POST /api/tests/:id/retests", () => {
     expect(s.uploads).toHaveLength(1);
     expect(s.events.filter((k) => k === "retest_uploaded")).toHaveLength(1);
     expect(await listKeys(`orgs/${tech.organizationId}/tests/${id}/`)).toHaveLength(1);
+  });
+
+  it("refuses a new upload that reuses a re-test's Idempotency-Key (409 naming the header, RFC 9110 §15.5.10); nothing new saved", async () => {
+    const { technician: tech, lead } = crew;
+    const id = await sentBackTest(tech, lead, "Key spent on a re-test");
+    const key = randomUUID();
+    expect((await retest(id, tech, { body: sampleText(PASS), name: PASS }, { key })).status).toBe(201);
+    const before = await db().execute<{ n: number }>(sql`select count(*)::int as n from vacuum_tests where organization_id = ${tech.organizationId}`);
+    const res = await uploadPost(uploadRequest("/api/tests", { as: tech, file: { body: sampleText(PASS), name: PASS }, headers: { "idempotency-key": key } }));
+    expect(res.status).toBe(409);
+    expect((await res.json()).error.message).toMatch(/^Idempotency-Key: .*re-test/);
+    const after = await db().execute<{ n: number }>(sql`select count(*)::int as n from vacuum_tests where organization_id = ${tech.organizationId}`);
+    expect(after.rows[0].n).toBe(before.rows[0].n);
   });
 
   it("keeps one re-test when three identical requests race (losers roll back and delete their objects)", async () => {

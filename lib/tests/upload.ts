@@ -134,12 +134,19 @@ export async function uploadOptionsOf(db: Database, org: string, input: UploadIn
   return compactOptions({ import: imp, profile, volume: volumeOf(m), ambientC: m.ambientC });
 }
 
+/** The first upload for a key already used; a key spent on a re-test is not a new test's key (409). */
+function replayOf(seen: { testId: string; analysisId: string | null }): UploadOutcome {
+  if (seen.analysisId)
+    throw new AppError("conflict", "Idempotency-Key: this key was already used for a re-test upload; send a new key for a new test.", { field: "Idempotency-Key" });
+  return { testId: seen.testId, created: false };
+}
+
 /** Run the whole pipeline for one upload. Throws LogError (422) or AppError. */
 export async function createTestFromUpload(db: Database, who: Uploader, input: UploadInput): Promise<UploadOutcome> {
   const org = who.organizationId;
   if (input.idempotencyKey) {
     const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
-    if (seen) return { testId: seen.testId, created: false };
+    if (seen) return replayOf(seen);
   }
   assertMayCreateJob(who, input.metadata);
   const options = await uploadOptionsOf(db, org, input);
@@ -174,7 +181,7 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
     await deleteObject(objectKey).catch((e) => log.error("orphan raw log left in storage", { objectKey, err: String(e) }));
     if (err instanceof KeyTaken) {
       const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
-      if (seen) return { testId: seen.testId, created: false };
+      if (seen) return replayOf(seen);
       throw new AppError("conflict", "The same upload is being saved by another request; try again.");
     }
     if (err instanceof AppError) throw err;
