@@ -12,6 +12,8 @@ import { appRequest, createShop, routeParams, type TestMember } from "./helpers/
 import { jsonInit, crewForFile } from "./helpers/crew";
 import { firstAppLink, waitForMail } from "./helpers/mailbox";
 import { seedTest } from "./helpers/seed-test";
+import { sampleText, uploadRequest } from "./helpers/uploads";
+import { POST as uploadPost } from "@/app/api/tests/route";
 
 const post = (id: string, as: TestMember, body: unknown) =>
   reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(as, body)), routeParams({ id }));
@@ -125,6 +127,24 @@ describe("automatic routing into the lead's queue (product rule)", () => {
     expect(evs).toHaveLength(1);
     expect(evs[0]).toMatchObject({ actorId: null, kind: "review_requested", toStatus: "waiting_review" });
     await waitForMail(crew.lead.email, /Review requested: Condenser swap/);
+  });
+
+  it("an uploaded leak is queued by the upload itself; the leads' mail names the technician and the site (new or existing)", async () => {
+    const leakLog = sampleText("sample-2-elapsed-mtorr.csv"); // a leak per fixtures/samples/EXPECTED.md
+    const upload = async (fields: Record<string, string>) => {
+      const res = await uploadPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: leakLog, name: "leak.csv" }, fields }));
+      expect(res.status).toBe(201);
+      return ((await res.json()) as { test: { id: string; status: string; site: { id: string } | null } }).test;
+    };
+    const first = await upload({ title: "Rooftop unit 7", newSiteName: "Harbor Street Deli" });
+    expect(first.status).toBe("waiting_review");
+    const mailNew = await waitForMail(crew.lead.email, /Review requested: Rooftop unit 7/);
+    expect(mailNew.text).toContain(crew.technician.name);
+    expect(mailNew.text).toContain("Site: Harbor Street Deli.");
+    await upload({ title: "Rooftop unit 8", siteId: first.site!.id });
+    const mailExisting = await waitForMail(crew.lead.email, /Review requested: Rooftop unit 8/);
+    expect(mailExisting.text).toContain("Site: Harbor Street Deli.");
+    expect(mailExisting.text).toContain(crew.technician.name);
   });
 
   it("a help request on a passing test also enters the queue (product rule)", async () => {

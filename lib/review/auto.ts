@@ -29,11 +29,36 @@ function reasonsOf(due: { verdict: string | null; meetsProfile: boolean | null; 
 }
 
 /**
+ * What the upload that just inserted a test knows of it, so the rule need not read it back.
+ * Names left undefined are read from the database for the leads' message.
+ */
+export interface KnownNewTest {
+  verdict: string;
+  meetsProfile: boolean;
+  helpRequested: boolean;
+  isPractice: boolean;
+  title: string;
+  technicianName?: string;
+  siteName?: string | null;
+}
+
+/** The rule of listTestsDueForReviewByOrganization for a test just inserted (status submitted). */
+function dueByRule(k: KnownNewTest): boolean {
+  return !k.isPractice && (k.helpRequested || k.verdict !== "pass" || k.meetsProfile !== true);
+}
+
+/**
  * Inside the caller's transaction: move the test into review if the rule says so and queue the
  * leads' e-mail. The caller delivers `mailIds` with deliverMail after commit.
  */
-export async function queueNewTestForReview(tx: Db, params: { organizationId: string; testId: string; actorId: string | null }): Promise<RoutedTest> {
-  const [due] = await listTestsDueForReviewByOrganization(tx, { organizationId: params.organizationId, testId: params.testId, limit: 1 });
+export async function queueNewTestForReview(
+  tx: Db,
+  params: { organizationId: string; testId: string; actorId: string | null; known?: KnownNewTest },
+): Promise<RoutedTest> {
+  const k = params.known;
+  const [due] = k
+    ? dueByRule(k) ? [{ id: params.testId, verdict: k.verdict, meetsProfile: k.meetsProfile, helpRequested: k.helpRequested }] : []
+    : await listTestsDueForReviewByOrganization(tx, { organizationId: params.organizationId, testId: params.testId, limit: 1 });
   if (!due) return { routed: false, reasons: [], mailIds: [] };
   const moved = await updateTestStatusById(tx, { organizationId: params.organizationId, testId: due.id, fromStatus: "submitted", toStatus: "waiting_review" });
   if (!moved) return { routed: false, reasons: [], mailIds: [] };
@@ -43,15 +68,22 @@ export async function queueNewTestForReview(tx: Db, params: { organizationId: st
     organizationId: params.organizationId, testId: due.id, actorId: null, kind: "review_requested",
     fromStatus: "submitted", toStatus: "waiting_review", note: `Automatic: ${automatic}.`,
   });
-  // Read with a lead's eyes: the test's names for the message (visibility is the whole organization).
-  const detail = await getTestById(tx, { viewer: { organizationId: params.organizationId, userId: params.actorId ?? "", role: "owner" }, testId: due.id });
-  const summary = { id: due.id, title: detail?.test.title ?? "Vacuum test", verdict: due.verdict, technicianName: detail?.createdByName ?? "A technician", siteName: detail?.siteName };
+  const summary =
+    k && k.technicianName !== undefined && k.siteName !== undefined
+      ? { id: due.id, title: k.title, verdict: due.verdict, technicianName: k.technicianName, siteName: k.siteName }
+      : await namesForMail(tx, params.organizationId, params.actorId, due);
   const reviewers = await listReviewerEmailsByOrganization(tx, { organizationId: params.organizationId });
   const mailIds = await queueMail(
     tx,
     reviewers.map((to) => ({ ...reviewRequestedMail(to, summary, { by: null, help: due.helpRequested, automatic }), organizationId: params.organizationId, testId: due.id })),
   );
   return { routed: true, reasons, mailIds };
+}
+
+/** Read with a lead's eyes: the test's names for the message (visibility is the whole organization). */
+async function namesForMail(tx: Db, organizationId: string, actorId: string | null, due: { id: string; verdict: string | null }) {
+  const detail = await getTestById(tx, { viewer: { organizationId, userId: actorId ?? "", role: "owner" }, testId: due.id });
+  return { id: due.id, title: detail?.test.title ?? "Vacuum test", verdict: due.verdict, technicianName: detail?.createdByName ?? "A technician", siteName: detail?.siteName };
 }
 
 /**

@@ -32,6 +32,8 @@ export interface Uploader {
   userId: string;
   /** Needed for newJob (records.manage); scripts that never ask for a job may leave it out. */
   role?: Role;
+  /** For the leads' e-mail; read from the database when absent. */
+  name?: string;
 }
 
 export interface UploadInput {
@@ -91,16 +93,25 @@ async function checkRecords(tx: Tx, who: Uploader, m: TestMetadata, testedAt: Da
   if (m.jobId && !(await getJobById(tx, { organizationId: org, jobId: m.jobId })))
     throw new AppError("invalid_input", "jobId: no such job in your organization", { field: "jobId" });
   let siteId = m.siteId ?? null;
-  if (siteId && !(await getSiteById(tx, { organizationId: org, siteId })))
-    throw new AppError("invalid_input", "siteId: no such site in your organization", { field: "siteId" });
+  /** The site's name when known here (undefined: not read; null: no site). */
+  let siteName: string | null | undefined = siteId ? undefined : null;
+  if (siteId) {
+    const site = await getSiteById(tx, { organizationId: org, siteId });
+    if (!site) throw new AppError("invalid_input", "siteId: no such site in your organization", { field: "siteId" });
+    siteName = site.name;
+  }
   let systemId = m.systemId ?? null;
   if (systemId) {
     const system = await getSystemById(tx, { organizationId: org, systemId });
     if (!system) throw new AppError("invalid_input", "systemId: no such system in your organization", { field: "systemId" });
     if (siteId && system.siteId !== siteId) throw new AppError("invalid_input", "systemId: that system is at another site", { field: "systemId" });
+    if (!siteId) siteName = undefined; // the system's site, not read here
     siteId ??= system.siteId;
   }
-  if (m.newSiteName) siteId = (await createSite(tx, { organizationId: org, name: m.newSiteName })).id;
+  if (m.newSiteName) {
+    siteId = (await createSite(tx, { organizationId: org, name: m.newSiteName })).id;
+    siteName = m.newSiteName;
+  }
   if (m.newSystemName && siteId)
     systemId = (
       await createSystem(tx, {
@@ -116,7 +127,7 @@ async function checkRecords(tx: Tx, who: Uploader, m: TestMetadata, testedAt: Da
   const jobId = m.newJob
     ? (await createJob(tx, { organizationId: org, visitedOn: visitedOnOf(m, testedAt), siteId, systemId, technicianId: who.userId, reason: m.newJobReason ?? null })).id
     : (m.jobId ?? null);
-  return { siteId, systemId, jobId };
+  return { siteId, systemId, jobId, siteName };
 }
 
 /** newJob needs records.manage (owner, lead, technician): checked before anything is analysed or stored. */
@@ -167,14 +178,18 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
   try {
     await db.transaction(async (tx) => {
       const testedAt = testedAtOf(input.metadata, run.startedAt);
-      const { siteId, systemId, jobId } = await checkRecords(tx, who, input.metadata, testedAt);
+      const { siteId, systemId, jobId, siteName } = await checkRecords(tx, who, input.metadata, testedAt);
       await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt });
       if (input.idempotencyKey) {
         const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: who.userId, testId });
         if (!claimed) throw new KeyTaken();
       }
       // Not a pass, misses the profile or help asked: into the lead's queue in the same commit.
-      reviewMailIds = (await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId })).mailIds;
+      const known = {
+        verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
+        title: titleOf(input.metadata, input.filename, input.source), technicianName: who.name, siteName,
+      };
+      reviewMailIds = (await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known })).mailIds;
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
     });
   } catch (err) {
