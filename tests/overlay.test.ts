@@ -22,7 +22,10 @@ async function seedHoldOnly(member: TestMember): Promise<string> {
   const testId = randomUUID();
   const t: number[] = [];
   const p: number[] = [];
-  for (let s = 0; s <= 900; s += 30) (t.push(s), p.push(300 + s / 10));
+  for (let s = 0; s <= 900; s += 30) {
+    t.push(s);
+    p.push(300 + s / 10);
+  }
   const result = { ...seededResult("pass"), isolationAt: null };
   await db().transaction(async (tx) => {
     await insertTest(tx, { id: testId, organizationId: member.organizationId, createdById: member.userId, title: "Started in the hold", source: "typed" });

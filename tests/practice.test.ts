@@ -25,7 +25,11 @@ const call = (id: string, as: TestMember, body: unknown) => callPost(post(`/api/
 const ANSWER_KEYS = ["verdict", "findings", "decay", "reasons", "isolationAt", "holds", "phases", "forecast", "confidence", "profileRules", "leakRate", "analysisVerdict"];
 function keysOf(v: unknown, out = new Set<string>()): Set<string> {
   if (Array.isArray(v)) v.forEach((x) => keysOf(x, out));
-  else if (v && typeof v === "object") for (const [k, x] of Object.entries(v)) (out.add(k), keysOf(x, out));
+  else if (v && typeof v === "object")
+    for (const [k, x] of Object.entries(v)) {
+      out.add(k);
+      keysOf(x, out);
+    }
   return out;
 }
 

@@ -38,7 +38,10 @@ export function CompareView({ ids }: { ids: string[] }) {
       const tt: number[] = [];
       const pp: number[] = [];
       t.aligned.t.forEach((s, k) => {
-        if (s >= 0) (tt.push(s), pp.push(t.aligned.p[k] - t.zeroMicrons));
+        if (s >= 0) {
+          tt.push(s);
+          pp.push(t.aligned.p[k] - t.zeroMicrons);
+        }
       });
       return { label: `${i + 1}. ${t.title}`, t: tt, p: pp };
     });
