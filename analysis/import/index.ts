@@ -2,8 +2,10 @@
  * importLog: a gauge's CSV export → sorted times (seconds from the first data row) and
  * pressures in microns, with what was read and what had to be assumed.
  *
- * One papaparse pass over the data; everything else (delimiter, header row, columns, units,
- * time format) is decided from the first lines only.
+ * One papaparse pass over the data, a chunk of rows at a time (each chunk's cells are read into
+ * numbers and dropped, so no table of all rows is held); everything else (delimiter, line end,
+ * header row, columns, units, time format) is decided from the first lines only and then fixed
+ * for the parse. A second pass only when the day/month order was a guess that the first proved wrong.
  */
 import Papa from "papaparse";
 import { LogError } from "../errors";
@@ -11,13 +13,21 @@ import { groupedInteger } from "../format";
 import type { Finding, ImportedLog, ImportOptions, ImportSummary, PressureUnit } from "../types";
 import { chooseColumns } from "./columns";
 import { duplicatesFinding, reorderedFinding } from "./findings";
-import { readRows, type RowsRead } from "./rows";
+import { RowReader, type RowsRead, type RowsResult } from "./rows";
+import type { TimeSpec } from "./timespec";
 import { sniffLayout } from "./sniff";
 
 /** 64 MiB: a 24-hour 1 Hz log is about 2.5 MB, so this leaves a wide margin. */
 export const DEFAULT_MAX_BYTES = 64 * 1024 * 1024;
 /** 1,000,000 data rows: a 24-hour 1 Hz log is 86,400. */
 export const DEFAULT_MAX_ROWS = 1_000_000;
+/**
+ * Characters handed to papaparse at a time (it carries a row cut at a chunk's end over to the
+ * next). 256 Ki characters is about 10,000 rows of a two-column log.
+ */
+const PARSE_CHUNK_CHARS = 1 << 18;
+/** papaparse reads the next chunk from inside the last one's call: chunks are made larger so a file needs at most this many (bounded stack depth). */
+const MAX_PARSE_CHUNKS = 256;
 /** Fewest usable readings the analysis can work with. */
 export const MIN_READINGS = 5;
 /** With no unit named, readings all below this look like Torr or mbar rather than microns. */
@@ -67,9 +77,10 @@ function isoOf(seconds: number, zoned: boolean): string | null {
 /**
  * Read a gauge log. Throws LogError only (empty_file, file_too_large, too_many_rows, no_header,
  * no_time_column, no_pressure_column, unknown_unit, bad_time, too_few_readings, invalid_option).
- * Anything else escaping is a bug; see importLog for the guarded entry.
+ * Anything else escaping is a bug; see importLog for the guarded entry. `chunkChars` (characters
+ * parsed at a time) changes only speed, never the result; tests vary it.
  */
-export function importLogStrict(text: string, options: ImportOptions = {}): ImportedLog {
+export function importLogStrict(text: string, options: ImportOptions = {}, chunkChars: number = PARSE_CHUNK_CHARS): ImportedLog {
   const { maxBytes, maxRows } = checkOptions(options);
   if (typeof text !== "string") throw new LogError("invalid_option", "the log must be text");
   if (text.length > maxBytes)
@@ -82,21 +93,44 @@ export function importLogStrict(text: string, options: ImportOptions = {}): Impo
     throw new LogError("too_few_readings", `only 0 usable readings: the file has a header (line ${layout.headerLine + 1}) but no data rows; at least ${MIN_READINGS} are needed`, { line: layout.headerLine + 1 });
   const choice = chooseColumns(layout, options);
   const body = layout.headerOffset === 0 ? text : text.slice(layout.headerOffset);
-  const parsed = Papa.parse<string[]>(body, {
-    delimiter: layout.delimiter,
-    newline: layout.newline,
-    header: false,
-    skipEmptyLines: false,
-    preview: maxRows + 2,
-  });
-  const rows = parsed.data;
   const firstLine = layout.headerLine + 1;
+  const readWith = (timeSpec: TimeSpec): RowsResult => {
+    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length);
+    // Rows are read a chunk at a time and dropped after, so the parsed cells die young (cheap
+    // to collect) instead of a table of every row being held to the end. At most maxRows + 2
+    // rows (header and one over the limit) are read, as with a whole-text parse with `preview`.
+    let rowsLeft = maxRows + 2;
+    const chunk = (results: Papa.ParseResult<string[]>, parser: Papa.Parser): void => {
+      const rows = results.data;
+      if (rows.length >= rowsLeft) {
+        reader.addRows(rows.length > rowsLeft ? rows.slice(0, rowsLeft) : rows);
+        rowsLeft = 0;
+        parser.abort();
+        return;
+      }
+      rowsLeft -= rows.length;
+      reader.addRows(rows);
+    };
+    // papaparse's string streamer honours chunkSize and calls `chunk` synchronously, before
+    // parse returns; its typings only list chunked parsing for files, hence the widened type.
+    const config: Papa.ParseConfig<string[]> & { chunkSize: number; chunk: typeof chunk } = {
+      delimiter: layout.delimiter,
+      newline: layout.newline,
+      header: false,
+      skipEmptyLines: false,
+      preview: rowsLeft,
+      chunkSize: Math.max(chunkChars, Math.ceil(body.length / MAX_PARSE_CHUNKS)),
+      chunk,
+    };
+    Papa.parse<string[]>(body, config);
+    return reader.finish();
+  };
 
   let spec = choice.time;
-  let result = readRows(rows, choice, spec, layout.decimalComma, firstLine, layout.header.length);
+  let result = readWith(spec);
   if (spec.alternate && (!result.ok || result.read.footerRows > 0)) {
     // The day/month order was a guess from the first rows: a later row may prove the other.
-    const other = readRows(rows, choice, spec.alternate, layout.decimalComma, firstLine, layout.header.length);
+    const other = readWith(spec.alternate);
     if (other.ok && (!result.ok || other.read.footerRows < result.read.footerRows)) {
       spec = spec.alternate;
       result = other;

@@ -1,6 +1,7 @@
 /**
  * The one pass over the parsed rows: time and pressure of each row, skipped and over-range
- * cells, temperature, per-row unit. Kept free of allocation beyond the output arrays.
+ * cells, temperature, per-row unit. Rows are taken one at a time as the parser yields them;
+ * nothing is allocated beyond the output arrays.
  */
 import { LogError } from "../errors";
 import type { PressureUnit } from "../types";
@@ -39,140 +40,187 @@ export interface RowsRead {
 export type RowsResult = { ok: true; read: RowsRead } | { ok: false; line: number; cell: string };
 
 /**
- * Read all data rows (rows[0] is the header). `firstLine` is the 1-based file line of rows[0];
- * rows map one-to-one onto lines (quoted line breaks inside a cell would shift the numbers).
+ * Reads the parsed rows one at a time, as papaparse hands them over (row 0 is the header), so
+ * that no table of all rows is ever held: each row's cells die young. `firstLine` is the 1-based
+ * file line of row 0; rows map one-to-one onto lines (quoted line breaks inside a cell would
+ * shift the numbers). Call add() for every row in file order, then finish().
  */
-export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec, decimalComma: boolean, firstLine: number, fieldCount: number): RowsResult {
-  const { timeIndex, dateIndex, pressureIndex, unitIndex, temperatureIndex, temperatureFahrenheit } = choice;
-  const header = rows[0] ?? [];
-  const parse = spec.parse;
-  const rollover = spec.rollover;
-
-  const rawSeconds: number[] = [];
-  const microns: number[] = [];
-  const temperatureC: number[] | null = temperatureIndex >= 0 ? [] : null;
-  const overRangeRaw: number[] = [];
+export class RowReader {
+  private readonly rawSeconds: number[] = [];
+  private readonly microns: number[] = [];
+  private readonly temperatureC: number[] | null;
+  private readonly overRangeRaw: number[] = [];
   // Dash cells: raw seconds and the count of readings before them, decided after the pass.
-  const dashRaw: number[] = [];
-  const dashBefore: number[] = [];
+  private readonly dashRaw: number[] = [];
+  private readonly dashBefore: number[] = [];
+  private header: string[] = [];
+  private index = 0;
+  private factor: number;
+  private firstUnit: PressureUnit | null;
+  private lastUnitCell: string | null = null;
+  private unitsSeen: number;
+  private firstRaw = NaN;
+  private prevRaw = NaN;
+  private dayOffset = 0;
+  private count = 0;
+  private skipped = 0;
+  private ignoredLines = 0;
+  private firstBad = -1;
+  private firstBadCell = "";
+  private badRows = 0;
+  private lastGood = -1;
+  private underRange = 0;
 
-  let factor = choice.unit ? micronsPerUnit(choice.unit) : NaN;
-  let firstUnit: PressureUnit | null = choice.unit;
-  let lastUnitCell: string | null = null;
-  let unitsSeen = choice.unit ? 1 : 0;
+  constructor(
+    private readonly choice: ColumnChoice,
+    private readonly spec: TimeSpec,
+    private readonly decimalComma: boolean,
+    private readonly firstLine: number,
+    private readonly fieldCount: number,
+  ) {
+    this.temperatureC = choice.temperatureIndex >= 0 ? [] : null;
+    this.factor = choice.unit ? micronsPerUnit(choice.unit) : NaN;
+    this.firstUnit = choice.unit;
+    this.unitsSeen = choice.unit ? 1 : 0;
+  }
 
-  let firstRaw = NaN;
-  let prevRaw = NaN;
-  let dayOffset = 0;
-  let count = 0;
-  let skipped = 0;
-  let ignoredLines = 0;
-  let firstBad = -1;
-  let badRows = 0;
-  let lastGood = -1;
-  let underRange = 0;
-
-  for (let i = 1; i < rows.length; i++) {
-    const row = rows[i];
-    if (row.length === 1 && fieldCount > 1) {
-      if (row[0].trim().length > 0) ignoredLines++;
-      continue;
+  /**
+   * Take the next rows, in file order (throws LogError on a unit cell that is unknown or a gauge
+   * unit). The loop works on local copies of the running state, written back at the end.
+   */
+  addRows(rows: string[][]): void {
+    const { timeIndex, dateIndex, pressureIndex, unitIndex, temperatureIndex, temperatureFahrenheit } = this.choice;
+    const { rawSeconds, microns, temperatureC, overRangeRaw, dashRaw, dashBefore, decimalComma, fieldCount, firstLine } = this;
+    const parse = this.spec.parse;
+    const rollover = this.spec.rollover;
+    const base = this.index; // row index (0 = header) of rows[0]
+    let k = 0;
+    if (base === 0 && rows.length > 0) {
+      this.header = rows[0];
+      k = 1;
     }
-    const timeCell = row[timeIndex];
-    if (timeCell === undefined || (timeCell.length === 0 && (dateIndex < 0 || row[dateIndex] === ""))) {
-      // A row with no time at all cannot be placed; count it as read and skipped.
-      if (row.join("").trim().length === 0) continue;
-      count++;
-      skipped++;
-      continue;
-    }
-    let t = parse(timeCell, dateIndex >= 0 ? (row[dateIndex] ?? "") : "");
-    if (t !== t) {
-      const trimmed = timeCell.trim();
-      if (trimmed !== timeCell) t = parse(trimmed, dateIndex >= 0 ? (row[dateIndex] ?? "").trim() : "");
-      if (t !== t) {
-        // The header again (logs joined from two exports): not data.
-        if (trimmed === (header[timeIndex] ?? "").trim()) {
-          ignoredLines++;
-          continue;
-        }
-        if (firstBad < 0) firstBad = i;
-        badRows++;
+    const header = this.header;
+    let { factor, firstUnit, lastUnitCell, unitsSeen, firstRaw, prevRaw, dayOffset, count, skipped, ignoredLines, firstBad, badRows, lastGood, underRange } = this;
+
+    for (; k < rows.length; k++) {
+      const row = rows[k];
+      const i = base + k;
+      if (row.length === 1 && fieldCount > 1) {
+        if (row[0].trim().length > 0) ignoredLines++;
         continue;
       }
-    }
-    lastGood = i;
-    if (rollover) {
-      t += dayOffset;
-      if (prevRaw === prevRaw) {
-        if (t < prevRaw - HALF_DAY_SECONDS) { dayOffset += 86400; t += 86400; }
-        else if (t > prevRaw + HALF_DAY_SECONDS) { dayOffset -= 86400; t -= 86400; }
+      const timeCell = row[timeIndex];
+      if (timeCell === undefined || (timeCell.length === 0 && (dateIndex < 0 || row[dateIndex] === ""))) {
+        // A row with no time at all cannot be placed; count it as read and skipped.
+        if (row.join("").trim().length === 0) continue;
+        count++;
+        skipped++;
+        continue;
       }
-      prevRaw = t;
-    }
-    if (count === 0) firstRaw = t;
-    count++;
+      let t = parse(timeCell, dateIndex >= 0 ? (row[dateIndex] ?? "") : "");
+      if (t !== t) {
+        const trimmed = timeCell.trim();
+        if (trimmed !== timeCell) t = parse(trimmed, dateIndex >= 0 ? (row[dateIndex] ?? "").trim() : "");
+        if (t !== t) {
+          // The header again (logs joined from two exports): not data.
+          if (trimmed === (header[timeIndex] ?? "").trim()) {
+            ignoredLines++;
+            continue;
+          }
+          if (firstBad < 0) {
+            firstBad = i;
+            this.firstBadCell = timeCell;
+          }
+          badRows++;
+          continue;
+        }
+      }
+      lastGood = i;
+      if (rollover) {
+        t += dayOffset;
+        if (prevRaw === prevRaw) {
+          if (t < prevRaw - HALF_DAY_SECONDS) { dayOffset += 86400; t += 86400; }
+          else if (t > prevRaw + HALF_DAY_SECONDS) { dayOffset -= 86400; t -= 86400; }
+        }
+        prevRaw = t;
+      }
+      if (count === 0) firstRaw = t;
+      count++;
 
-    if (unitIndex >= 0) {
-      const unitCell = row[unitIndex] ?? "";
-      if (unitCell !== lastUnitCell && unitCell.trim().length > 0) {
-        const parsed = parsePressureUnit(unitCell);
-        if (!parsed) throw lineError(unknownUnitError(header[unitIndex] ?? "unit", unitCell.trim()), firstLine + i);
-        if (parsed.gauge) throw lineError(gaugeError(header[unitIndex] ?? "unit", unitCell.trim(), parsed.gaugeUnit), firstLine + i);
-        lastUnitCell = unitCell;
-        factor = micronsPerUnit(parsed.unit);
-        if (firstUnit === null) firstUnit = parsed.unit;
-        else if (parsed.unit !== firstUnit) unitsSeen = 2;
-        if (unitsSeen === 0) unitsSeen = 1;
+      if (unitIndex >= 0) {
+        const unitCell = row[unitIndex] ?? "";
+        if (unitCell !== lastUnitCell && unitCell.trim().length > 0) {
+          const parsed = parsePressureUnit(unitCell);
+          if (!parsed) throw lineError(unknownUnitError(header[unitIndex] ?? "unit", unitCell.trim()), firstLine + i);
+          if (parsed.gauge) throw lineError(gaugeError(header[unitIndex] ?? "unit", unitCell.trim(), parsed.gaugeUnit), firstLine + i);
+          lastUnitCell = unitCell;
+          factor = micronsPerUnit(parsed.unit);
+          if (firstUnit === null) firstUnit = parsed.unit;
+          else if (parsed.unit !== firstUnit) unitsSeen = 2;
+          if (unitsSeen === 0) unitsSeen = 1;
+        }
       }
-    }
 
-    const cell = row[pressureIndex];
-    const v = cell === undefined ? NaN : parseReading(cell, decimalComma);
-    if (v === v && v >= 0 && factor === factor) {
-      rawSeconds.push(t);
-      microns.push(v * factor);
-      if (temperatureC !== null) {
-        const tc = parseReading(row[temperatureIndex] ?? "", decimalComma);
-        temperatureC.push(temperatureFahrenheit ? ((tc - 32) * 5) / 9 : tc);
+      const cell = row[pressureIndex];
+      const v = cell === undefined ? NaN : parseReading(cell, decimalComma);
+      if (v === v && v >= 0 && factor === factor) {
+        rawSeconds.push(t);
+        microns.push(v * factor);
+        if (temperatureC !== null) {
+          const tc = parseReading(row[temperatureIndex] ?? "", decimalComma);
+          temperatureC.push(temperatureFahrenheit ? ((tc - 32) * 5) / 9 : tc);
+        }
+      } else {
+        skipped++;
+        const kind = cell === undefined ? "blank" : classifyNonNumber(cell);
+        if (kind === "over_range") overRangeRaw.push(t);
+        else if (kind === "dashes") { dashRaw.push(t); dashBefore.push(microns.length); }
+        else if (kind === "under_range") underRange++;
       }
-    } else {
-      skipped++;
-      const kind = cell === undefined ? "blank" : classifyNonNumber(cell);
-      if (kind === "over_range") overRangeRaw.push(t);
-      else if (kind === "dashes") { dashRaw.push(t); dashBefore.push(microns.length); }
-      else if (kind === "under_range") underRange++;
     }
+    this.index = base + rows.length;
+    Object.assign(this, { factor, firstUnit, lastUnitCell, unitsSeen, firstRaw, prevRaw, dayOffset, count, skipped, ignoredLines, firstBad, badRows, lastGood, underRange });
   }
 
-  if (firstBad >= 0) {
-    const footer = lastGood < firstBad && badRows <= MAX_FOOTER_ROWS;
-    if (!footer) return { ok: false, line: firstLine + firstBad, cell: rows[firstBad][timeIndex] };
-  }
+  /** What was read, or the first row whose time is not a time (unless those rows are a footer). */
+  finish(): RowsResult {
+    const { microns, overRangeRaw, dashRaw, dashBefore, firstBad, badRows } = this;
+    if (firstBad >= 0) {
+      const footer = this.lastGood < firstBad && badRows <= MAX_FOOTER_ROWS;
+      if (!footer) return { ok: false, line: this.firstLine + firstBad, cell: this.firstBadCell };
+    }
 
-  for (let k = 0; k < dashRaw.length; k++) {
-    const before = dashBefore[k];
-    const near = before > 0 ? microns[before - 1] : microns.length > 0 ? microns[0] : NaN;
-    if (near >= DASH_OVER_RANGE_MICRONS) overRangeRaw.push(dashRaw[k]);
-  }
+    for (let k = 0; k < dashRaw.length; k++) {
+      const before = dashBefore[k];
+      const near = before > 0 ? microns[before - 1] : microns.length > 0 ? microns[0] : NaN;
+      if (near >= DASH_OVER_RANGE_MICRONS) overRangeRaw.push(dashRaw[k]);
+    }
 
-  return {
-    ok: true,
-    read: {
-      rawSeconds,
-      microns,
-      temperatureC,
-      overRangeRaw,
-      firstRaw,
-      rows: count,
-      skipped,
-      ignoredLines,
-      footerRows: firstBad >= 0 ? badRows : 0,
-      unit: firstUnit ?? "micron",
-      unitsSeen,
-      underRange,
-    },
-  };
+    return {
+      ok: true,
+      read: {
+        rawSeconds: this.rawSeconds,
+        microns,
+        temperatureC: this.temperatureC,
+        overRangeRaw,
+        firstRaw: this.firstRaw,
+        rows: this.count,
+        skipped: this.skipped,
+        ignoredLines: this.ignoredLines,
+        footerRows: firstBad >= 0 ? badRows : 0,
+        unit: this.firstUnit ?? "micron",
+        unitsSeen: this.unitsSeen,
+        underRange: this.underRange,
+      },
+    };
+  }
+}
+
+/** Read a table of rows already in hand (rows[0] is the header); see RowReader. */
+export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec, decimalComma: boolean, firstLine: number, fieldCount: number): RowsResult {
+  const reader = new RowReader(choice, spec, decimalComma, firstLine, fieldCount);
+  reader.addRows(rows);
+  return reader.finish();
 }
 
 function lineError(e: LogError, line: number): LogError {
