@@ -11,6 +11,7 @@ cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
 PORT=${BENCH_PORT:-3300}
 ROOT=.data/bench
+bash scripts/services.sh stop bench >/dev/null 2>&1 || true # a run interrupted earlier
 rm -rf "$ROOT"
 mkdir -p "$ROOT/run"
 
