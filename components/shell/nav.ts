@@ -22,6 +22,7 @@ export function navItemsFor(role: Role): NavItem[] {
   if (can(role, "records.manage") || can(role, "tests.read_all")) items.push({ href: "/records", label: "Customers", icon: "shop" });
   items.push({ href: "/tools", label: "Tools", icon: "tools" });
   if (can(role, "profiles.manage")) items.push({ href: "/settings/profiles", label: "Acceptance", icon: "review" });
+  if (can(role, "tests.review")) items.push({ href: "/settings/mail", label: "Mail", icon: "shop" });
   items.push({ href: "/settings/members", label: "Shop", icon: "shop" });
   return items;
 }

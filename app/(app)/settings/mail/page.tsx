@@ -1,0 +1,20 @@
+import type { Metadata } from "next";
+import { pageActor } from "@/lib/session";
+import { MailOutbox } from "./MailOutbox";
+
+export const metadata: Metadata = { title: "Outgoing mail" };
+
+export default async function MailPage() {
+  await pageActor("tests.review");
+  return (
+    <div className="mx-auto w-full max-w-3xl space-y-4 px-4 py-5 sm:py-8">
+      <div>
+        <h1 className="text-headline">Outgoing mail</h1>
+        <p className="text-body text-fg-soft">
+          Every e-mail Riseline sends for the shop: review requests, sign-offs, comments and reports. A change never waits for its mail; a message that did not go stays here to send again.
+        </p>
+      </div>
+      <MailOutbox />
+    </div>
+  );
+}

@@ -1,0 +1,90 @@
+/**
+ * The lead's outgoing mail, in a real Chromium on a phone: a sign-off notice that the mail server
+ * refused sits in the outbox as "Not sent"; the lead opens Mail from the "More" sheet, reads the
+ * problem in plain words, presses "Send again", sees it sent, and the message is read back from
+ * the real SMTP catcher. Invented names and data.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Locator } from "playwright-core";
+import { launch, PHONE, signInThroughPage, type Session } from "./browser";
+import { addMember, createShop, uniqueEmail, type TestMember } from "@/tests/helpers/members";
+import { waitForMail } from "@/tests/helpers/mailbox";
+import { seedTest } from "@/tests/helpers/seed-test";
+import { db } from "@/db/client";
+import { claimOutboxMailById, insertOutboxMail, markOutboxMailFailed } from "@/db/queries/outbox";
+
+let session: Session;
+let lead: TestMember;
+let testId: string;
+let outboxId: string;
+const to = uniqueEmail("tech-mail");
+const subject = `Signed off: Dairy cooler condenser ${Date.now()}`;
+
+/** Waits (the dev server compiles a page on first use) until it is visible. */
+async function shown(locator: Locator): Promise<void> {
+  try {
+    await locator.first().waitFor({ state: "visible", timeout: 30_000 });
+  } catch (err) {
+    await locator.page().screenshot({ path: "/tmp/rl-desk-journey-failure.png", fullPage: true }).catch(() => undefined);
+    throw err;
+  }
+}
+
+beforeAll(async () => {
+  const owner = await createShop("Harbor Refrigeration (invented)");
+  lead = await addMember(owner.organizationId, "lead", "Lina Lead");
+  const tech = await addMember(owner.organizationId, "technician", "Tomas Tech");
+  testId = await seedTest(tech, { verdict: "pass", title: "Dairy cooler condenser" });
+  // A queued notice whose first delivery failed, as the outbox records it when SMTP refuses.
+  [outboxId] = await insertOutboxMail(db(), {
+    mails: [{ organizationId: owner.organizationId, testId, to, subject, text: `Lina Lead signed off the test.\n`, html: "<p>Lina Lead signed off the test.</p>" }],
+  });
+  await db().transaction(async (tx) => {
+    const claimed = await claimOutboxMailById(tx, { id: outboxId });
+    if (!claimed) throw new Error("outbox row not claimed");
+    await markOutboxMailFailed(tx, { id: outboxId, error: "connect ECONNREFUSED 127.0.0.1:9" });
+  });
+  session = await launch();
+});
+afterAll(async () => {
+  await session?.close();
+  const { closeDb } = await import("@/db/client");
+  await closeDb();
+});
+
+describe("outgoing mail journey (phone)", () => {
+  it("lead opens Mail, sees the refused sign-off notice in words, sends it again and it reaches the catcher", async () => {
+    const ctx = await session.newContext(PHONE);
+    const page = await ctx.newPage();
+    await signInThroughPage(page, lead.email, lead.password);
+
+    await page.getByTestId("more-button").click();
+    await page.getByTestId("more-sheet").getByRole("link", { name: "Mail" }).click();
+    await page.waitForURL(/\/settings\/mail$/, { timeout: 60_000 });
+
+    const row = page.getByTestId("mail-row").filter({ hasText: subject });
+    await shown(row);
+    expect(await row.getAttribute("data-status")).toBe("failed");
+    await shown(row.getByText("Not sent", { exact: true }));
+    expect(await row.getByTestId("mail-error").textContent()).toBe("The mail server refused the connection (it may be down).");
+    expect(await row.getByRole("link", { name: "Open the test" }).getAttribute("href")).toBe(`/tests/${testId}`);
+    // Phone targets: the action is at least 48 px tall.
+    const sendAgain = row.getByRole("button", { name: "Send again" });
+    expect((await sendAgain.boundingBox())!.height).toBeGreaterThanOrEqual(48);
+
+    // The filter keeps only unsent mail; the failed row is there.
+    await page.getByLabel("Show").selectOption("failed");
+    await shown(page.getByTestId("mail-row").filter({ hasText: subject }));
+    await page.getByLabel("Show").selectOption("");
+
+    await row.getByRole("button", { name: "Send again" }).click();
+    await shown(page.getByText("1 sent."));
+    await shown(row.getByText("Sent", { exact: true }));
+    expect(await row.getAttribute("data-status")).toBe("sent");
+    expect(await row.getByRole("button", { name: "Send again" }).count()).toBe(0);
+
+    const mail = await waitForMail(to, new RegExp(subject.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")));
+    expect(mail.text).toContain("Lina Lead signed off the test.");
+    await ctx.close();
+  }, 180_000);
+});
