@@ -104,17 +104,27 @@ function fitHold(t: number[], p: number[], start: number, end: number): HoldFitR
 }
 
 function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: AcceptanceProfile): AnalysisResult {
-  // an absolute gauge cannot read zero or below: those readings are left out and reported
-  const t: number[] = [];
-  const p: number[] = [];
+  // An absolute gauge cannot read zero or below: those readings are left out and reported. The
+  // usual log has none (and no non-finite value), and is then used as it is, without a copy:
+  // nothing below writes into the readings.
+  const { tSeconds, microns } = log;
+  const n = tSeconds.length;
+  let clean = 0;
+  while (clean < n && microns[clean] > 0 && Number.isFinite(microns[clean]) && Number.isFinite(tSeconds[clean])) clean++;
+  let t: number[] = tSeconds;
+  let p: number[] = microns;
   const nonPositiveSeconds: number[] = [];
-  for (let i = 0; i < log.tSeconds.length; i++) {
-    const v = log.microns[i];
-    if (!Number.isFinite(v) || !Number.isFinite(log.tSeconds[i])) continue;
-    if (v <= 0) nonPositiveSeconds.push(log.tSeconds[i]);
-    else {
-      t.push(log.tSeconds[i]);
-      p.push(v);
+  if (clean < n) {
+    t = tSeconds.slice(0, clean);
+    p = microns.slice(0, clean);
+    for (let i = clean; i < n; i++) {
+      const v = microns[i];
+      if (!Number.isFinite(v) || !Number.isFinite(tSeconds[i])) continue;
+      if (v <= 0) nonPositiveSeconds.push(tSeconds[i]);
+      else {
+        t.push(tSeconds[i]);
+        p.push(v);
+      }
     }
   }
   if (t.length < 3) throw new LogError("too_few_readings", `only ${t.length} readings above zero; at least 3 are needed`);
