@@ -89,3 +89,13 @@ export async function listAnalysesByTest(db: Db, params: { organizationId: strin
     .where(and(eq(analyses.organizationId, params.organizationId), eq(analyses.testId, params.testId)))
     .orderBy(asc(analyses.version));
 }
+
+/** One analysis of one test (both must match, inside the organization), with its result and series. */
+export async function getAnalysisByTestAndId(db: Db, params: { organizationId: string; testId: string; analysisId: string }) {
+  const [row] = await db
+    .select()
+    .from(analyses)
+    .where(and(eq(analyses.organizationId, params.organizationId), eq(analyses.testId, params.testId), eq(analyses.id, params.analysisId)))
+    .limit(1);
+  return row ?? null;
+}

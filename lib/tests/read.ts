@@ -1,7 +1,7 @@
 /** Reading tests back: one test with its analysis, chart series and history; the list page. */
 import type { AnalysisResult } from "@/analysis/types";
 import type { Db } from "@/db/client";
-import { getAnalysisById, listAnalysesByTest } from "@/db/queries/analyses";
+import { getAnalysisById, getAnalysisByTestAndId, listAnalysesByTest } from "@/db/queries/analyses";
 import { getTestById, getUploadByTest, listTestsByOrganization } from "@/db/queries/tests";
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
@@ -62,17 +62,54 @@ export async function loadTestDetail(db: Db, viewer: Viewer, testId: string): Pr
     test: toTestDto(row),
     analysis: current.result,
     series: current.series,
-    history: history.map((h) => ({
-      id: h.id,
-      version: h.version,
-      verdict: h.verdict,
-      confidence: h.confidence,
-      createdAt: h.createdAt.toISOString(),
-      createdBy: { id: h.createdById, name: h.createdByName },
-      reason: h.reason,
-      options: h.options,
-    })),
+    history: history.map(toHistoryEntry),
     upload: upload ? { filename: upload.filename, sizeBytes: upload.sizeBytes, sha256: upload.sha256 } : null,
+  };
+}
+
+function toHistoryEntry(h: Awaited<ReturnType<typeof listAnalysesByTest>>[number]): AnalysisHistoryEntry {
+  return {
+    id: h.id,
+    version: h.version,
+    verdict: h.verdict,
+    confidence: h.confidence,
+    createdAt: h.createdAt.toISOString(),
+    createdBy: { id: h.createdById, name: h.createdByName },
+    reason: h.reason,
+    options: h.options,
+  };
+}
+
+/** Which analysis version a detail shows, out of how many the test has. */
+export interface ShownAnalysis {
+  analysisId: string;
+  version: number;
+  versionCount: number;
+  /** The shown version is the test's current analysis. */
+  isCurrent: boolean;
+}
+
+/**
+ * The test detail as it was at one analysis version (GET /api/tests/:id?analysisId=): that
+ * version's analysis and series, the full history, and `shown`. The practice gate applies as for
+ * the current analysis; an analysis of another test or organization answers 404.
+ */
+export async function loadTestDetailAtAnalysis(db: Db, viewer: Viewer, testId: string, analysisId: string): Promise<TestDetail & { shown: ShownAnalysis }> {
+  const row = await requireRevealedTest(db, viewer, testId);
+  const org = viewer.organizationId;
+  const [picked, history, upload] = await Promise.all([
+    getAnalysisByTestAndId(db, { organizationId: org, testId, analysisId }),
+    listAnalysesByTest(db, { organizationId: org, testId }),
+    getUploadByTest(db, { organizationId: org, testId }),
+  ]);
+  if (!picked) throw new AppError("not_found", "This test has no analysis with that id.");
+  return {
+    test: toTestDto(row),
+    analysis: picked.result,
+    series: picked.series,
+    history: history.map(toHistoryEntry),
+    upload: upload ? { filename: upload.filename, sizeBytes: upload.sizeBytes, sha256: upload.sha256 } : null,
+    shown: { analysisId: picked.id, version: picked.version, versionCount: history.length, isCurrent: picked.id === row.test.currentAnalysisId },
   };
 }
 

@@ -1,8 +1,19 @@
+import { z } from "zod";
 import { db } from "@/db/client";
 import { route, uuidParam } from "@/lib/api/handler";
-import { loadTestDetail } from "@/lib/tests/read";
+import { loadTestDetail, loadTestDetailAtAnalysis } from "@/lib/tests/read";
 
 export const dynamic = "force-dynamic";
 
-/** GET /api/tests/:id — { test, analysis, series, history, upload }; 404 unless visible. */
-export const GET = route({ permission: "member", params: uuidParam }, async ({ actor, params }) => loadTestDetail(db(), actor, params.id));
+const query = z.object({
+  analysisId: z.preprocess((v) => (v === "" ? undefined : v), z.string().uuid("not an analysis id (a UUID)").optional()),
+});
+
+/**
+ * GET /api/tests/:id — { test, analysis, series, history, upload }; 404 unless visible.
+ * With ?analysisId= the analysis and series are that earlier version's, plus
+ * `shown: { analysisId, version, versionCount, isCurrent }`; an analysis not of this test is a 404.
+ */
+export const GET = route({ permission: "member", params: uuidParam, query }, async ({ actor, params, query }) =>
+  query.analysisId ? loadTestDetailAtAnalysis(db(), actor, params.id, query.analysisId) : loadTestDetail(db(), actor, params.id),
+);
