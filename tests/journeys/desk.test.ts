@@ -1,15 +1,20 @@
 /**
- * The lead's outgoing mail, in a real Chromium on a phone: a sign-off notice that the mail server
- * refused sits in the outbox as "Not sent"; the lead opens Mail from the "More" sheet, reads the
- * problem in plain words, presses "Send again", sees it sent, and the message is read back from
- * the real SMTP catcher. Invented names and data.
+ * The lead's desk, in a real Chromium on a phone. Outgoing mail: a sign-off notice that the mail
+ * server refused sits in the outbox as "Not sent"; the lead opens Mail from the "More" sheet, reads
+ * the problem in plain words, presses "Send again", sees it sent, and the message is read back from
+ * the real SMTP catcher. Earlier versions: the lead opens version 1 of a re-analysed test from its
+ * history, sees the banner and version 1's verdict, and goes back to the current one.
+ * Invented names and data.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Locator } from "playwright-core";
 import { launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, uniqueEmail, type TestMember } from "@/tests/helpers/members";
 import { waitForMail } from "@/tests/helpers/mailbox";
-import { seedTest } from "@/tests/helpers/seed-test";
+import { seededResult, seededSeries, seedTest } from "@/tests/helpers/seed-test";
+import { verdictLabel } from "@/lib/reports/words";
+import { insertAnalysis } from "@/db/queries/analyses";
+import { updateTestCurrentAnalysis } from "@/db/queries/tests";
 import { db } from "@/db/client";
 import { claimOutboxMailById, insertOutboxMail, markOutboxMailFailed } from "@/db/queries/outbox";
 
@@ -17,6 +22,8 @@ let session: Session;
 let lead: TestMember;
 let testId: string;
 let outboxId: string;
+let tech: TestMember;
+let versionedId: string;
 const to = uniqueEmail("tech-mail");
 const subject = `Signed off: Dairy cooler condenser ${Date.now()}`;
 
@@ -33,7 +40,7 @@ async function shown(locator: Locator): Promise<void> {
 beforeAll(async () => {
   const owner = await createShop("Harbor Refrigeration (invented)");
   lead = await addMember(owner.organizationId, "lead", "Lina Lead");
-  const tech = await addMember(owner.organizationId, "technician", "Tomas Tech");
+  tech = await addMember(owner.organizationId, "technician", "Tomas Tech");
   testId = await seedTest(tech, { verdict: "pass", title: "Dairy cooler condenser" });
   // A queued notice whose first delivery failed, as the outbox records it when SMTP refuses.
   [outboxId] = await insertOutboxMail(db(), {
@@ -43,6 +50,15 @@ beforeAll(async () => {
     const claimed = await claimOutboxMailById(tx, { id: outboxId });
     if (!claimed) throw new Error("outbox row not claimed");
     await markOutboxMailFailed(tx, { id: outboxId, error: "connect ECONNREFUSED 127.0.0.1:9" });
+  });
+  // A test first judged a leak (version 1), then re-analysed as a pass (version 2, current).
+  versionedId = await seedTest(tech, { verdict: "leak", title: "Rooftop unit 3 after brazing" });
+  await db().transaction(async (tx) => {
+    const a = await insertAnalysis(tx, {
+      organizationId: owner.organizationId, testId: versionedId, version: 2, options: { isolationAtSeconds: 1200 }, result: seededResult("pass"),
+      series: seededSeries("pass"), reason: "isolation moved to the valve closing", createdById: lead.userId,
+    });
+    await updateTestCurrentAnalysis(tx, { organizationId: owner.organizationId, testId: versionedId, analysisId: a.id, verdict: "pass" });
   });
   session = await launch();
 });
@@ -85,6 +101,32 @@ describe("outgoing mail journey (phone)", () => {
 
     const mail = await waitForMail(to, new RegExp(subject.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")));
     expect(mail.text).toContain("Lina Lead signed off the test.");
+    await ctx.close();
+  }, 180_000);
+
+  it("lead opens version 1 of a re-analysed test from the history, sees it marked, and goes back to the current one", async () => {
+    const ctx = await session.newContext(PHONE);
+    const page = await ctx.newPage();
+    await signInThroughPage(page, lead.email, lead.password);
+    await page.goto(`/tests/${versionedId}`);
+    const headline = page.getByTestId("verdict-headline");
+    await shown(headline);
+    expect(await headline.textContent()).toBe(verdictLabel("pass"));
+    expect(await page.getByTestId("version-banner").count()).toBe(0);
+
+    await page.getByRole("link", { name: "View version 1" }).click();
+    await page.waitForURL(/\?analysis=/);
+    const banner = page.getByTestId("version-banner");
+    await shown(banner.getByText("Showing analysis v1 of 2"));
+    await expect.poll(() => headline.textContent(), { timeout: 30_000 }).toBe(verdictLabel("leak"));
+    // The earlier version is not re-analysed from this page.
+    expect(await page.getByRole("button", { name: /Analyse again/ }).count()).toBe(0);
+
+    await banner.getByRole("link", { name: "Back to current" }).click();
+    await page.waitForURL(new RegExp(`/tests/${versionedId}$`));
+    await expect.poll(() => headline.textContent(), { timeout: 30_000 }).toBe(verdictLabel("pass"));
+    expect(await page.getByTestId("version-banner").count()).toBe(0);
+    expect(await page.getByRole("button", { name: "Analyse again" }).count()).toBe(1);
     await ctx.close();
   }, 180_000);
 });

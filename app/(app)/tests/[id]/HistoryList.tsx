@@ -1,8 +1,9 @@
-import { Card } from "@/components/ui";
+import { Card, LinkButton } from "@/components/ui";
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
 import { confidenceWords } from "@/components/verdict/words";
 import type { HistoryEntry } from "@/lib/client/api";
 import { dateTimeWords, durationWords } from "./format";
+import { versionHref } from "./version";
 
 /** The overrides a version was run with, in words. */
 export function optionsWords(options: Record<string, unknown> | null): string[] {
@@ -34,10 +35,13 @@ function byName(createdBy: HistoryEntry["createdBy"]): string {
   return typeof createdBy === "string" ? createdBy : createdBy.name;
 }
 
-/** Every analysis of the test, newest first; each opens to show how it was run. */
-export function HistoryList({ history, currentId }: { history: HistoryEntry[]; currentId: string | null | undefined }) {
+/**
+ * Every analysis of the test, newest first; each opens to show how it was run. With `testId`,
+ * each version not shown above gets a "View" link (`shownId`: the version on the page, else the current).
+ */
+export function HistoryList({ history, currentId, testId, shownId }: { history: HistoryEntry[]; currentId: string | null | undefined; testId?: string; shownId?: string | null }) {
   const sorted = [...history].sort((a, b) => b.version - a.version);
-  const currentVersion = sorted.find((h) => h.id === currentId)?.version ?? sorted[0]?.version;
+  const currentVersion = sorted.find((h) => h.id === (shownId ?? currentId))?.version ?? sorted[0]?.version;
   return (
     <Card title="History">
       <ol className="space-y-2" data-testid="history">
@@ -66,6 +70,11 @@ export function HistoryList({ history, currentId }: { history: HistoryEntry[]; c
                   )}
                 </div>
               </details>
+              {testId && sorted.length > 1 && h.version !== currentVersion && (
+                <LinkButton variant="quiet" className="mt-1" href={versionHref(testId, h.id === currentId ? null : h.id)}>
+                  {h.id === currentId ? `View version ${h.version} (current)` : `View version ${h.version}`}
+                </LinkButton>
+              )}
             </li>
           );
         })}

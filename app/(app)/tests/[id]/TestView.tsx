@@ -2,11 +2,12 @@
 
 import { useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { useSearchParams } from "next/navigation";
 import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
 import { VerdictBanner } from "@/components/verdict/VerdictBanner";
 import { SafetyNote } from "@/components/verdict/SafetyNote";
 import { Alert, Button, Card, LinkButton, Spinner } from "@/components/ui";
-import { ApiError, getTest } from "@/lib/client/api";
+import { ApiError } from "@/lib/client/api";
 import { FindingsList } from "./FindingsList";
 import { ForecastPanel } from "./ForecastPanel";
 import { HistoryList } from "./HistoryList";
@@ -19,10 +20,14 @@ import { TestReviewSection } from "@/components/review";
 import { getComments, reviewKeys } from "@/components/review/api";
 import { RigForTest } from "@/components/planner/RigForTest";
 import { PlanCompare } from "./PlanCompare";
+import { getTestView, testViewKey, versionHref } from "./version";
+import { VersionBanner } from "./VersionBanner";
 
 /** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
 export function TestView({ id, canReanalyse, canShare }: { id: string; canReanalyse: boolean; canShare: boolean }) {
-  const q = useQuery({ queryKey: ["test", id], queryFn: ({ signal }) => getTest(id, signal) });
+  // ?analysis=<id> shows an earlier analysis version (from the history); none shows the current one.
+  const analysisId = useSearchParams()?.get("analysis") || null;
+  const q = useQuery({ queryKey: testViewKey(id, analysisId), queryFn: ({ signal }) => getTestView(id, analysisId, signal) });
   const comments = useQuery({ queryKey: reviewKeys.comments(id), queryFn: ({ signal }) => getComments(id, signal) });
   const [picked, setPicked] = useState<number | null>(null);
   const [shown, setShown] = useState<number | null>(null);
@@ -41,6 +46,12 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
     const e = q.error;
     const notFound = e instanceof ApiError && e.status === 404;
     const practiceUrl = e instanceof ApiError ? (e.details?.practiceCallUrl as string | undefined) : undefined;
+    if (analysisId && e instanceof ApiError && (e.status === 404 || e.status === 400))
+      return (
+        <Alert tone="error" title="That analysis version was not found" action={<LinkButton href={versionHref(id, null)}>Show the current analysis</LinkButton>}>
+          The link may be mistyped, or the version belongs to another test.
+        </Alert>
+      );
     if (practiceUrl)
       return (
         <Alert tone="info" title="Practice test: your call first" action={<LinkButton href={practiceUrl}>Make my call</LinkButton>}>
@@ -54,7 +65,8 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
     );
   }
 
-  const { test, analysis, series, history, upload } = q.data;
+  const { test, analysis, series, history, upload, shown: version } = q.data;
+  const earlier = !!version && !version.isCurrent;
   const where = [test.site?.name, test.system?.name].filter(Boolean).join(" · ");
   return (
     <div className="space-y-5">
@@ -72,12 +84,13 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
           </p>
         )}
       </header>
+      {earlier && <VersionBanner testId={id} shown={version} />}
       <VerdictBanner analysis={analysis} />
       <div>
         <h2 className="sr-only">Curve</h2>
         <LazyDecayChart analysis={analysis} series={series} onPickSeconds={setPicked} pickedSeconds={picked} markers={markers} highlightSeconds={shown} />
         <p className="mt-1 text-caption text-fg-soft">
-          Tap the chart to pick a time: {canReanalyse ? "move the isolation point (“Analyse again” below) or " : ""}comment at that minute.
+          Tap the chart to pick a time: {canReanalyse && !earlier ? "move the isolation point (“Analyse again” below) or " : ""}comment at that minute.
         </p>
       </div>
       <div className="grid gap-5 lg:grid-cols-2">
@@ -92,9 +105,9 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
       <RigForTest testId={id} targetNotReached={analysis.findings.some((f) => f.code === "target_not_reached")} />
       <TestReviewSection testId={id} canShare={canShare} pickedSeconds={picked} onShowSeconds={setShown} onChanged={() => void q.refetch()} />
       <div className="grid gap-5 lg:grid-cols-2">
-        {canReanalyse && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
+        {canReanalyse && !earlier && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
         <div className="space-y-5">
-          <HistoryList history={history} currentId={test.currentAnalysisId} />
+          <HistoryList history={history} currentId={test.currentAnalysisId} testId={id} shownId={version?.analysisId ?? null} />
           <Card title="Record">
             <RawDownload testId={id} upload={upload} />
             <ImportPanel analysis={analysis} test={test} />
