@@ -165,15 +165,11 @@ function readDate(order: DateOrder): number {
 
 let cachedDateKey = -1;
 let cachedDaySeconds = NaN;
-/** "YYYY-MM-DDTHH:MM:" of the last stamp read in full and found valid (or ""), and its seconds since 1970 up to the minute. */
-let cachedMinute = "";
-let cachedMinuteSeconds = NaN;
 
 /**
  * Fixed-position fast path for "YYYY-MM-DDTHH:MM:SS[.sss]" followed by nothing or "Z" (or a
  * space instead of T). The date's day count is cached by its digits, so a log of one day computes it
- * once, and the stamp up to the minute is cached as text, so a 1 Hz log reads only the seconds of
- * 59 stamps in 60 (same arithmetic, same result). NaN = not this exact form (the general parser then decides).
+ * once. NaN = not this exact form (the general parser then decides).
  */
 function parseIsoFast(s: string): number {
   let n = s.length;
@@ -186,17 +182,8 @@ function parseIsoFast(s: string): number {
     fraction = (f0 * 100 + f1 * 10 + f2) / 1000;
     n = 19;
   }
+  if ((n !== 19 && n !== 20) || s.charCodeAt(4) !== 45 || s.charCodeAt(7) !== 45 || s.charCodeAt(13) !== 58 || s.charCodeAt(16) !== 58) return NaN;
   if (n === 20 && s.charCodeAt(19) !== 90) return NaN;
-  if (n === 19 || n === 20) {
-    // Same minute as the last stamp read in full: only the seconds are left to read.
-    if (cachedMinute.length === 17 && s.startsWith(cachedMinute)) {
-      const c0 = s.charCodeAt(17) - 48, c1 = s.charCodeAt(18) - 48;
-      if (!(c0 >= 0 && c0 <= 9 && c1 >= 0 && c1 <= 9)) return NaN;
-      const sec = c0 * 10 + c1;
-      return sec > 60 ? NaN : cachedMinuteSeconds + sec + fraction;
-    }
-  } else return NaN;
-  if (s.charCodeAt(4) !== 45 || s.charCodeAt(7) !== 45 || s.charCodeAt(13) !== 58 || s.charCodeAt(16) !== 58) return NaN;
   const sep = s.charCodeAt(10);
   if (sep !== 84 && sep !== 32) return NaN;
   // Each character − 48 must be 0…9: one negative value makes the OR negative (huge after >>> 0); the > 9 tests catch the rest.
@@ -222,10 +209,6 @@ function parseIsoFast(s: string): number {
   const mm = i0 * 10 + i1;
   const ss = s0 * 10 + s1;
   if (hh > 24 || mm > 59 || ss > 60) return NaN;
-  // Everything before the seconds is now known valid: kept (as a fresh 17-character string, so no
-  // slice of the caller's text is held) for the next stamps of the same minute.
-  cachedMinute = String.fromCharCode(y0 + 48, y1 + 48, y2 + 48, y3 + 48, 45, m0 + 48, m1 + 48, 45, d0 + 48, d1 + 48, sep, h0 + 48, h1 + 48, 58, i0 + 48, i1 + 48, 58);
-  cachedMinuteSeconds = daySeconds + hh * 3600 + mm * 60;
   return daySeconds + hh * 3600 + mm * 60 + ss + fraction;
 }
 
