@@ -87,6 +87,18 @@ function lateSlopePerMinute(t: number[], p: number[], from: number, to: number):
   return ((sxy - (sx * sy) / n) / cxx) * 60;
 }
 
+/**
+ * How many readings from the first on have a finite time and a finite reading above zero. A small
+ * function of its own, so that its loop is compiled with the arrays' types alone (analyzeChecked is
+ * called once per log and would run a long loop in the interpreter).
+ */
+function leadingUsableCount(tSeconds: number[], microns: number[]): number {
+  const n = tSeconds.length;
+  let i = 0;
+  while (i < n && microns[i] > 0 && Number.isFinite(microns[i]) && Number.isFinite(tSeconds[i])) i++;
+  return i;
+}
+
 function fitHold(t: number[], p: number[], start: number, end: number): HoldFitResult | null {
   if (end - start + 1 < 3) return null;
   const tRel = new Float64Array(end - start + 1);
@@ -109,8 +121,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
   // nothing below writes into the readings.
   const { tSeconds, microns } = log;
   const n = tSeconds.length;
-  let clean = 0;
-  while (clean < n && microns[clean] > 0 && Number.isFinite(microns[clean]) && Number.isFinite(tSeconds[clean])) clean++;
+  const clean = leadingUsableCount(tSeconds, microns);
   let t: number[] = tSeconds;
   let p: number[] = microns;
   const nonPositiveSeconds: number[] = [];

@@ -8,7 +8,7 @@ import { HOLD_MODEL_PARAMS, holdModelMicrons, paramsFromVector } from "./models"
 import type { NonlinearFit } from "./nls";
 import { reduceHold, type ReducedHold } from "./reduce";
 import { medianInPlace } from "./median";
-import { findSpikes } from "./robust";
+import { findSpikesInResiduals } from "./robust";
 import { aiccLeastSquares, chooseHoldModel } from "./select";
 import { fitPlateauModel, type PlateauFitOutcome } from "./varpro";
 
@@ -38,14 +38,32 @@ function maskOf(indices: number[], n: number): Uint8Array {
   return mask;
 }
 
-/** The model at every t (microns), in one tight loop. */
-function modelCurve(params: ModelFit["params"], t: ArrayLike<number>): Float64Array {
+/** Residuals p − model at every reading (microns), in one tight loop. */
+function residualsOf(params: ModelFit["params"], t: ArrayLike<number>, p: ArrayLike<number>): Float64Array {
   const out = new Float64Array(t.length);
+  const p0 = params.p0;
   const a = params.a ?? 0;
   const tau = params.tauSeconds ?? 1;
   const l = params.l ?? 0;
-  for (let i = 0; i < t.length; i++) out[i] = params.p0 + a * -Math.expm1(-t[i] / tau) + l * t[i];
+  for (let i = 0; i < t.length; i++) out[i] = p[i] - (p0 + a * -Math.expm1(-t[i] / tau) + l * t[i]);
   return out;
+}
+
+/** Count, mean and total sum of squares (microns²) of the raw readings not skipped: the same for every model. */
+interface KeptSpread {
+  n: number;
+  mean: number;
+  tss: number;
+}
+
+function keptSpread(p: ArrayLike<number>, skip: Uint8Array): KeptSpread {
+  let n = 0;
+  let mean = 0;
+  for (let i = 0; i < p.length; i++) if (!skip[i]) (n++, (mean += p[i]));
+  mean /= n;
+  let tss = 0;
+  for (let i = 0; i < p.length; i++) if (!skip[i]) tss += (p[i] - mean) ** 2;
+  return { n, mean, tss };
 }
 
 /** Fit of one model on the reduced points, as the solver returned it. */
@@ -120,26 +138,34 @@ function firstFit(r: ReducedHold, holdSeconds: number, sampleSeconds: number): {
   return null;
 }
 
-/** Turn a solver result into the shared ModelFit: rss, residual sd and R² over the raw kept readings. */
-function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, skip: Uint8Array, excluded: number[], nFit: number): ModelFit {
+/**
+ * Turn a solver result into the shared ModelFit: rss, residual sd and R² over the raw kept readings.
+ * `residuals`, when given, are p − model for this very fit (the spike search's), reused for the rss.
+ */
+function toModelFit(raw: RawFit, t: ArrayLike<number>, p: ArrayLike<number>, skip: Uint8Array, excluded: number[], nFit: number, spread: KeptSpread, residuals?: Float64Array): ModelFit {
   const names = HOLD_MODEL_PARAMS[raw.kind];
   const params = paramsFromVector(raw.kind, raw.fit.params);
   const stdErrors = paramsFromVector(raw.kind, raw.fit.stdErrors);
+  const p0 = params.p0;
   const a = params.a ?? 0;
   const tau = params.tauSeconds ?? 1;
   const l = params.l ?? 0;
-  let n = 0;
-  let mean = 0;
-  for (let i = 0; i < t.length; i++) if (!skip[i]) (n++, (mean += p[i]));
-  mean /= n;
+  const { n, tss } = spread;
   let rss = 0;
-  let tss = 0;
-  const hasRise = a !== 0;
-  for (let i = 0; i < t.length; i++) {
-    if (skip[i]) continue;
-    const r = p[i] - (params.p0 + (hasRise ? a * -Math.expm1(-t[i] / tau) : 0) + l * t[i]);
-    rss += r * r;
-    tss += (p[i] - mean) ** 2;
+  if (residuals) {
+    for (let i = 0; i < t.length; i++) if (!skip[i]) rss += residuals[i] * residuals[i];
+  } else if (a !== 0) {
+    for (let i = 0; i < t.length; i++) {
+      if (skip[i]) continue;
+      const r = p[i] - (p0 + a * -Math.expm1(-t[i] / tau) + l * t[i]);
+      rss += r * r;
+    }
+  } else {
+    for (let i = 0; i < t.length; i++) {
+      if (skip[i]) continue;
+      const r = p[i] - (p0 + 0 + l * t[i]);
+      rss += r * r;
+    }
   }
   const dof = n - names.length;
   return {
@@ -195,16 +221,27 @@ export function fitHoldModels(tSeconds: ArrayLike<number>, microns: ArrayLike<nu
   };
   let excluded: number[] = [];
   let pass: ReturnType<typeof run>;
+  // residuals of the plateau_climb fit the spike search used, when that same fit is kept (no spikes)
+  let flexibleResiduals: { fit: NonlinearFit; residuals: Float64Array } | null = null;
   if (robust) {
     // the spike search needs only the most flexible fit; the rest are fitted once the spikes are known
     const reduced = reduceHold(tSeconds, microns, maskOf(excluded, tSeconds.length));
     const flexible = firstFit(reduced, holdSeconds, sampleSeconds);
-    if (flexible) excluded = findSpikes(microns, modelCurve(paramsFromVector(flexible.kind, flexible.fit.params), tSeconds));
+    if (flexible) {
+      const params = paramsFromVector(flexible.kind, flexible.fit.params);
+      const residuals = residualsOf(params, tSeconds, microns);
+      excluded = findSpikesInResiduals(residuals);
+      if (excluded.length === 0 && flexible.kind === "plateau_climb" && (params.a ?? 0) !== 0) flexibleResiduals = { fit: flexible.fit, residuals };
+    }
     pass = excluded.length > 0 ? run(excluded) : run(excluded, reduced, flexible ? flexible.plateauClimb : undefined);
   } else pass = run(excluded);
   const fits: Partial<Record<HoldModelKind, ModelFit>> = {};
   const skip = maskOf(excluded, tSeconds.length);
-  for (const raw of pass.raws) fits[raw.kind] = toModelFit(raw, tSeconds, microns, skip, excluded, pass.reduced.tSeconds.length);
+  const spread = keptSpread(microns, skip);
+  for (const raw of pass.raws) {
+    const residuals = flexibleResiduals && raw.fit === flexibleResiduals.fit ? flexibleResiduals.residuals : undefined;
+    fits[raw.kind] = toModelFit(raw, tSeconds, microns, skip, excluded, pass.reduced.tSeconds.length, spread, residuals);
+  }
   const notes = pass.notes;
   if (excluded.length > 0) notes.push(`${excluded.length} spike(s) left out (over 5 local robust sd off the first fit)`);
   if (pass.reduced.binned)

@@ -32,6 +32,13 @@ export function findSpikes(readingsMicrons: ArrayLike<number>, fittedMicrons: Fl
   if (n < 5) return [];
   const resid = new Float64Array(n);
   for (let i = 0; i < n; i++) resid[i] = readingsMicrons[i] - fittedMicrons[i];
+  return findSpikesInResiduals(resid, k);
+}
+
+/** findSpikes on the residuals (reading − fit, microns) already in hand; `resid` is left as it is. */
+export function findSpikesInResiduals(resid: Float64Array, k = SPIKE_K): number[] {
+  const n = resid.length;
+  if (n < 5) return [];
   const block = Math.max(SPIKE_BLOCK_MIN, Math.ceil(n / 20));
   const work = new Float64Array(block);
   const out: number[] = [];

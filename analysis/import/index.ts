@@ -151,6 +151,43 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
   return assemble(read, layout, choice, spec);
 }
 
+/*
+ * The passes over every reading are small functions of their own: assemble runs once per log, so a
+ * long loop inside it would start in the interpreter each time; these compile once, with the arrays' types.
+ */
+
+/** Subtract t0 (seconds) from every time in place; returns how many times fall below an earlier one (reordered rows). */
+function shiftToFirst(tSeconds: number[], t0: number): number {
+  let reordered = 0;
+  let runningMax = -Infinity;
+  for (let i = 0; i < tSeconds.length; i++) {
+    const t = tSeconds[i] - t0;
+    tSeconds[i] = t;
+    if (t < runningMax) reordered++;
+    else runningMax = t;
+  }
+  return reordered;
+}
+
+/** Times equal to the one before (sorted times, seconds) and the first such time. */
+function repeatedStamps(tSeconds: number[]): { duplicates: number; firstDuplicateAt: number } {
+  let duplicates = 0;
+  let firstDuplicateAt = NaN;
+  for (let i = 1; i < tSeconds.length; i++)
+    if (tSeconds[i] === tSeconds[i - 1]) {
+      if (duplicates === 0) firstDuplicateAt = tSeconds[i];
+      duplicates++;
+    }
+  return { duplicates, firstDuplicateAt };
+}
+
+/** The largest reading, or 0 when none is above zero. */
+function largestAboveZero(microns: number[]): number {
+  let max = 0;
+  for (let i = 0; i < microns.length; i++) if (microns[i] > max) max = microns[i];
+  return max;
+}
+
 function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice: ReturnType<typeof chooseColumns>, spec: typeof choice.time): ImportedLog {
   const assumptions = [...choice.assumptions];
   if (layout.unitsRow) assumptions.unshift(`units read from the row under the column names (line ${layout.headerLine + 1})`);
@@ -161,14 +198,7 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
 
   // Seconds from the first data row, written over the raw stamps (one array fewer for a big log).
   let tSeconds = read.rawSeconds;
-  let reordered = 0;
-  let runningMax = -Infinity;
-  for (let i = 0; i < n; i++) {
-    const t = tSeconds[i] - t0;
-    tSeconds[i] = t;
-    if (t < runningMax) reordered++;
-    else runningMax = t;
-  }
+  const reordered = shiftToFirst(tSeconds, t0);
   let microns = read.microns;
   let temperatureC = read.temperatureC;
   if (reordered > 0) {
@@ -177,13 +207,7 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
     microns = order.map((i) => read.microns[i]);
     if (temperatureC) temperatureC = order.map((i) => read.temperatureC![i]);
   }
-  let duplicates = 0;
-  let firstDuplicateAt = NaN;
-  for (let i = 1; i < n; i++)
-    if (tSeconds[i] === tSeconds[i - 1]) {
-      if (duplicates === 0) firstDuplicateAt = tSeconds[i];
-      duplicates++;
-    }
+  const { duplicates, firstDuplicateAt } = repeatedStamps(tSeconds);
   const overRangeSeconds = read.overRangeRaw.map((r) => r - t0).sort((a, b) => a - b);
 
   const findings: Finding[] = [];
@@ -191,9 +215,7 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
   if (duplicates > 0) findings.push(duplicatesFinding(duplicates, n, firstDuplicateAt));
 
   if (choice.unitAssumed) {
-    let max = 0;
-    for (let i = 0; i < n; i++) if (microns[i] > max) max = microns[i];
-    if (max < SMALL_VALUES_LIMIT)
+    if (largestAboveZero(microns) < SMALL_VALUES_LIMIT)
       assumptions.push(`every reading is below ${SMALL_VALUES_LIMIT}: that looks like Torr or mbar rather than microns; set the unit if so`);
   }
   if (read.unitsSeen > 1) assumptions.push("the unit column changes between rows: each reading converted with its own unit");

@@ -179,7 +179,20 @@ export class RowReader {
       }
     }
     this.index = base + rows.length;
-    Object.assign(this, { factor, firstUnit, lastUnitCell, unitsSeen, firstRaw, prevRaw, dayOffset, count, skipped, ignoredLines, firstBad, badRows, lastGood, underRange });
+    this.factor = factor;
+    this.firstUnit = firstUnit;
+    this.lastUnitCell = lastUnitCell;
+    this.unitsSeen = unitsSeen;
+    this.firstRaw = firstRaw;
+    this.prevRaw = prevRaw;
+    this.dayOffset = dayOffset;
+    this.count = count;
+    this.skipped = skipped;
+    this.ignoredLines = ignoredLines;
+    this.firstBad = firstBad;
+    this.badRows = badRows;
+    this.lastGood = lastGood;
+    this.underRange = underRange;
   }
 
   /** What was read, or the first row whose time is not a time (unless those rows are a footer). */

@@ -39,19 +39,22 @@ function medianOfAscending(values: ArrayLike<number>, from: number, to: number):
   return n % 2 ? values[k] : (values[k - 1] + values[k]) / 2;
 }
 
-/** Median positive step between consecutive times (seconds), from at most ~20,000 steps. */
+/**
+ * Median positive step between consecutive times (seconds), from at most ~20,000 steps: the step a full
+ * ascending sort would put at index ⌊m/2⌋ of the m positive steps, found by quickselect (O(m)).
+ */
 export function medianIntervalSeconds(t: ArrayLike<number>): number {
   const n = t.length;
   if (n < 2) return 1;
   const stride = Math.max(1, Math.floor(n / 20000));
-  const steps: number[] = [];
+  const steps = new Float64Array(Math.floor((n - 1) / stride));
+  let m = 0;
   for (let i = stride; i < n; i += stride) {
     const d = (t[i] - t[i - stride]) / stride;
-    if (d > 0) steps.push(d);
+    if (d > 0) steps[m++] = d;
   }
-  if (steps.length === 0) return 1;
-  steps.sort((a, b) => a - b);
-  return steps[steps.length >> 1];
+  if (m === 0) return 1;
+  return kthSmallestInPlace(steps, m >> 1, 0, m);
 }
 
 /**
