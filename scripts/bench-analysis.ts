@@ -118,7 +118,8 @@ async function child(rows: number): Promise<ChildResult> {
   } catch (e) {
     note = `analyzeLog unavailable (${e instanceof Error ? e.message.split("\n")[0] : String(e)})`;
   }
-  const repeats = rows >= 1_000_000 ? 3 : rows >= 100_000 ? 5 : 9;
+  // Enough runs for a median on a shared, loaded machine (a 10k-row run is a few ms; a 1M-row one seconds).
+  const repeats = rows >= 1_000_000 ? 3 : rows >= 100_000 ? 7 : 21;
   // The very first analyzeLog call in a fresh process (code not yet compiled by the JIT), reported apart.
   let coldAnalyzeMs: number | null = null;
   if (analyze) {
@@ -126,9 +127,10 @@ async function child(rows: number): Promise<ChildResult> {
     analyze(text);
     coldAnalyzeMs = performance.now() - t0;
   }
-  // Warm up the JIT on a small log first, then time.
+  // Warm up the JIT on a small log first (every task ten times, so that the timed runs meet
+  // optimised code rather than code still being compiled), then time.
   const warm = generateLog(2000, 7);
-  for (let k = 0; k < 3; k++) {
+  for (let k = 0; k < 10; k++) {
     Papa.parse(warm);
     importLog(warm);
     analyze?.(warm);
@@ -187,7 +189,7 @@ function parent(): void {
   if (hour) console.log(`\n1-hour 1 Hz log (3,600 rows): analyzeLog ${f(hour.analyzeMs)} ms warm (${f(hour.coldAnalyzeMs)} ms cold, the first call in a fresh process), importLog ${f(hour.importMs)} ms (goal < 100 ms)`);
   const notes = [...new Set(results.map((r) => r.note).filter((n): n is string => n !== null))];
   for (const n of notes) console.log(`note: ${n}`);
-  console.log(`node ${process.version}, ${process.platform}/${process.arch}; medians of 9 / 5 / 3 interleaved runs (≤10k / 100k / 1M rows) after a warm-up; load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores`);
+  console.log(`node ${process.version}, ${process.platform}/${process.arch}; medians of 21 / 7 / 3 interleaved runs (≤10k / 100k / 1M rows) after a warm-up of 10 runs on a 2,000-row log; load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores`);
   console.log("(CPU ratio: process CPU time, which includes garbage-collector threads. A bare Papa.parse guesses the delimiter by parsing the text once per candidate, so the delimiter-given parse is the fairer floor for importLog. \"analyze\" columns fall back to importLog when analyzeLog is missing.)");
 }
 
