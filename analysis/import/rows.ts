@@ -1,6 +1,6 @@
 /**
  * The one pass over the parsed rows: time and pressure of each row, skipped and over-range
- * cells, temperature, per-row unit. Rows are taken one at a time as the parser yields them;
+ * cells, temperature, per-row unit. Rows are taken a chunk at a time as the parser yields them;
  * nothing is allocated beyond the output arrays.
  */
 import { LogError } from "../errors";
@@ -40,10 +40,10 @@ export interface RowsRead {
 export type RowsResult = { ok: true; read: RowsRead } | { ok: false; line: number; cell: string };
 
 /**
- * Reads the parsed rows one at a time, as papaparse hands them over (row 0 is the header), so
- * that no table of all rows is ever held: each row's cells die young. `firstLine` is the 1-based
- * file line of row 0; rows map one-to-one onto lines (quoted line breaks inside a cell would
- * shift the numbers). Call add() for every row in file order, then finish().
+ * Reads the parsed rows a chunk at a time, as papaparse hands them over (row 0 of the first chunk
+ * is the header), so that no table of all rows is ever held: each chunk's cells die young.
+ * `firstLine` is the 1-based file line of row 0; rows map one-to-one onto lines (quoted line breaks
+ * inside a cell would shift the numbers). Call addRows() for every chunk in file order, then finish().
  */
 export class RowReader {
   private readonly rawSeconds: number[] = [];
@@ -227,13 +227,6 @@ export class RowReader {
       },
     };
   }
-}
-
-/** Read a table of rows already in hand (rows[0] is the header); see RowReader. */
-export function readRows(rows: string[][], choice: ColumnChoice, spec: TimeSpec, decimalComma: boolean, firstLine: number, fieldCount: number): RowsResult {
-  const reader = new RowReader(choice, spec, decimalComma, firstLine, fieldCount);
-  reader.addRows(rows);
-  return reader.finish();
 }
 
 function lineError(e: LogError, line: number): LogError {
