@@ -10,6 +10,8 @@ pidfile=.data/dev/run/next.pid
 if [ -f "$pidfile" ] && kill -0 "$(cat "$pidfile")" 2>/dev/null; then echo "dev server already running"; exit 0; fi
 set -a; . .data/dev/env; set +a
 export NEXT_TELEMETRY_DISABLED=1
+# The engine runs inline under `next dev`, so edits to analysis/ take effect without a restart.
+export ENGINE_WORKERS=0
 setsid ./node_modules/.bin/next dev -H 127.0.0.1 -p 3200 >.data/dev/next.log 2>&1 &
 echo $! >"$pidfile"
 for _ in $(seq 1 120); do curl -sf -o /dev/null http://127.0.0.1:3200/api/health && { echo "dev server on http://127.0.0.1:3200"; exit 0; }; sleep 1; done

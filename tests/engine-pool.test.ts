@@ -8,12 +8,14 @@ import { afterAll, describe, expect, it } from "vitest";
 import { LogError } from "@/analysis/errors";
 import { AppError } from "@/lib/errors";
 import { runAnalysis } from "@/lib/tests/engine";
-import { analyseOffThread, closeEnginePool, setEngineTimeoutForTests } from "@/lib/tests/engine-pool";
+import { Worker } from "node:worker_threads";
+import { analyseOffThread, closeEnginePool, setEngineTimeoutForTests, setWorkerSpawnForTests } from "@/lib/tests/engine-pool";
 
 const golden = (name: string) => readFileSync(`fixtures/golden/${name}`, "utf8");
 
 afterAll(async () => {
   setEngineTimeoutForTests(null);
+  setWorkerSpawnForTests(null);
   await closeEnginePool();
 });
 
@@ -56,5 +58,27 @@ describe("engine worker pool", () => {
     setEngineTimeoutForTests(null);
     const after = await analyseOffThread(golden("layout-iso-pa.csv"), {});
     expect(after.result.verdict).toBe(runAnalysis(golden("layout-iso-pa.csv"), {}).result.verdict);
+  });
+
+  it("analyses inline when workers cannot be started at all, instead of failing the upload (our own contract)", async () => {
+    await closeEnginePool();
+    setWorkerSpawnForTests(() => {
+      throw new Error("no worker threads here");
+    });
+    const text = golden("layout-tab-mtorr.csv");
+    const run = await analyseOffThread(text, {});
+    expect(run.result).toEqual(runAnalysis(text, {}).result);
+    setWorkerSpawnForTests(null);
+    await closeEnginePool();
+  });
+
+  it("analyses inline a log whose worker's entry never loaded (our own contract)", async () => {
+    await closeEnginePool();
+    setWorkerSpawnForTests(() => new Worker("throw new Error('broken entry')", { eval: true }));
+    const text = golden("layout-datetime-mbar.csv");
+    const runs = await Promise.all([analyseOffThread(text, {}), analyseOffThread(text, {}), analyseOffThread(text, {})]);
+    for (const run of runs) expect(run.result).toEqual(runAnalysis(text, {}).result);
+    setWorkerSpawnForTests(null);
+    await closeEnginePool();
   });
 });

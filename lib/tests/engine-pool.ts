@@ -35,6 +35,12 @@ interface Slot {
 }
 
 let slots: Slot[] | null = null;
+/** Test seam: how a worker is started (null restores the real one). */
+let spawnOverride: (() => Worker) | null = null;
+
+export function setWorkerSpawnForTests(spawn: (() => Worker) | null): void {
+  spawnOverride = spawn;
+}
 const waiting: Job[] = [];
 let nextId = 1;
 let timeoutOverrideMs: number | null = null;
@@ -55,6 +61,7 @@ export function engineWorkerCount(): number {
 }
 
 function spawnWorker(): Worker {
+  if (spawnOverride) return spawnOverride();
   // A built server runs the entry Next.js bundled from the literal URL below. Under vitest or
   // tsx (ENGINE_WORKER_ENTRY=source) the worker registers tsx's loader and requires the source.
   const worker =
@@ -105,7 +112,14 @@ function replace(slot: Slot, why: string): void {
     drainInline();
     return;
   }
-  attach(slot, spawnWorker());
+  try {
+    attach(slot, spawnWorker());
+  } catch (err) {
+    inlineOnly = true;
+    log.error("engine worker cannot be replaced; analysing on the request thread", { err: String(err) });
+    drainInline();
+    return;
+  }
   finish(slot);
 }
 
@@ -122,13 +136,20 @@ function attach(slot: Slot, worker: Worker): void {
   });
 }
 
-function pool(): Slot[] {
+/** The pool, started on first use; null when workers cannot be started here (then: inline). */
+function pool(): Slot[] | null {
   if (slots) return slots;
-  slots = Array.from({ length: engineWorkerCount() }, () => {
-    const slot: Slot = { worker: null as unknown as Worker, ready: false, job: null, timer: null };
-    attach(slot, spawnWorker());
-    return slot;
-  });
+  try {
+    slots = Array.from({ length: engineWorkerCount() }, () => {
+      const slot: Slot = { worker: null as unknown as Worker, ready: false, job: null, timer: null };
+      attach(slot, spawnWorker());
+      return slot;
+    });
+  } catch (err) {
+    inlineOnly = true;
+    log.error("engine workers cannot start here; analysing on the request thread", { err: String(err) });
+    return null;
+  }
   return slots;
 }
 
@@ -159,10 +180,10 @@ function pump(): void {
  */
 export function analyseOffThread(text: string, options: AnalyzeOptions): Promise<EngineRun> {
   if (inlineOnly || engineWorkerCount() === 0) return runInline(text, options);
-  const slotsNow = pool();
+  if (!pool()) return runInline(text, options);
   return new Promise<EngineRun>((resolve, reject) => {
     waiting.push({ request: { id: nextId++, text, options }, resolve, reject });
-    if (slotsNow.length) pump();
+    pump();
   });
 }
 
