@@ -51,11 +51,19 @@ describe("engine worker pool", () => {
   });
 
   it("fails only the overrunning log with a clear 503 and keeps serving (our own contract)", async () => {
-    setEngineTimeoutForTests(1);
-    const err = await analyseOffThread(golden("layout-iso-pa.csv"), {}).catch((e: unknown) => e);
-    expect(err).toBeInstanceOf(AppError);
-    expect((err as AppError).status).toBe(503);
-    setEngineTimeoutForTests(null);
+    // A worker that loads but never answers: the timeout, not the machine's speed, decides.
+    await closeEnginePool();
+    setWorkerSpawnForTests(() => new Worker("require('node:worker_threads').parentPort.postMessage({ ready: true }); setInterval(() => {}, 1000);", { eval: true }));
+    setEngineTimeoutForTests(300);
+    try {
+      const err = await analyseOffThread(golden("layout-iso-pa.csv"), {}).catch((e: unknown) => e);
+      expect(err).toBeInstanceOf(AppError);
+      expect((err as AppError).status).toBe(503);
+    } finally {
+      setWorkerSpawnForTests(null);
+      setEngineTimeoutForTests(null);
+      await closeEnginePool();
+    }
     const after = await analyseOffThread(golden("layout-iso-pa.csv"), {});
     expect(after.result.verdict).toBe(runAnalysis(golden("layout-iso-pa.csv"), {}).result.verdict);
   });
@@ -65,20 +73,26 @@ describe("engine worker pool", () => {
     setWorkerSpawnForTests(() => {
       throw new Error("no worker threads here");
     });
-    const text = golden("layout-tab-mtorr.csv");
-    const run = await analyseOffThread(text, {});
-    expect(run.result).toEqual(runAnalysis(text, {}).result);
-    setWorkerSpawnForTests(null);
-    await closeEnginePool();
+    try {
+      const text = golden("layout-tab-mtorr.csv");
+      const run = await analyseOffThread(text, {});
+      expect(run.result).toEqual(runAnalysis(text, {}).result);
+    } finally {
+      setWorkerSpawnForTests(null);
+      await closeEnginePool();
+    }
   });
 
   it("analyses inline a log whose worker's entry never loaded (our own contract)", async () => {
     await closeEnginePool();
     setWorkerSpawnForTests(() => new Worker("throw new Error('broken entry')", { eval: true }));
-    const text = golden("layout-datetime-mbar.csv");
-    const runs = await Promise.all([analyseOffThread(text, {}), analyseOffThread(text, {}), analyseOffThread(text, {})]);
-    for (const run of runs) expect(run.result).toEqual(runAnalysis(text, {}).result);
-    setWorkerSpawnForTests(null);
-    await closeEnginePool();
+    try {
+      const text = golden("layout-datetime-mbar.csv");
+      const runs = await Promise.all([analyseOffThread(text, {}), analyseOffThread(text, {}), analyseOffThread(text, {})]);
+      for (const run of runs) expect(run.result).toEqual(runAnalysis(text, {}).result);
+    } finally {
+      setWorkerSpawnForTests(null);
+      await closeEnginePool();
+    }
   });
 });

@@ -72,6 +72,13 @@ function spawnWorker(): Worker {
   return worker;
 }
 
+/** Stop a worker for good; a late error from it (say, while its entry loads) is ignored. */
+function retire(worker: Worker): Promise<unknown> {
+  worker.removeAllListeners();
+  worker.on("error", () => undefined);
+  return worker.terminate().catch(() => undefined);
+}
+
 function settle(slot: Slot, reply: EngineReply): void {
   const job = slot.job;
   if (!job || job.request.id !== reply.id) return;
@@ -99,8 +106,7 @@ function finish(slot: Slot): void {
 function replace(slot: Slot, why: string): void {
   const job = slot.job;
   const neverLoaded = !slot.ready && why !== "timed out";
-  slot.worker.removeAllListeners();
-  void slot.worker.terminate().catch(() => undefined);
+  retire(slot.worker);
   log.error("engine worker replaced", { why });
   if (++failuresInARow >= MAX_FAILURES_IN_A_ROW && !inlineOnly) {
     inlineOnly = true;
@@ -193,5 +199,5 @@ export async function closeEnginePool(): Promise<void> {
   slots = null;
   failuresInARow = 0;
   inlineOnly = false;
-  await Promise.all(all.map((s) => (s.worker.removeAllListeners(), s.worker.terminate())));
+  await Promise.all(all.map((s) => retire(s.worker)));
 }
