@@ -50,21 +50,32 @@ export async function loadTestSummary(db: Db, viewer: Viewer, testId: string, kn
 }
 
 export async function loadTestDetail(db: Db, viewer: Viewer, testId: string): Promise<TestDetail> {
+  const { detail } = await readDetail(db, viewer, testId, (org, row) =>
+    row.test.currentAnalysisId ? getAnalysisById(db, { organizationId: org, analysisId: row.test.currentAnalysisId }) : Promise.resolve(null),
+  );
+  if (!detail) throw new AppError("internal", "This test has no analysis yet.");
+  return detail;
+}
+
+type AnalysisRow = NonNullable<Awaited<ReturnType<typeof getAnalysisById>>>;
+
+/** The visible, revealed test with the analysis `pick` chooses, the history and the newest upload. */
+async function readDetail(db: Db, viewer: Viewer, testId: string, pick: (organizationId: string, row: Awaited<ReturnType<typeof requireRevealedTest>>) => Promise<AnalysisRow | null>) {
   const row = await requireRevealedTest(db, viewer, testId);
   const org = viewer.organizationId;
-  const [current, history, upload] = await Promise.all([
-    row.test.currentAnalysisId ? getAnalysisById(db, { organizationId: org, analysisId: row.test.currentAnalysisId }) : null,
+  const [picked, history, upload] = await Promise.all([
+    pick(org, row),
     listAnalysesByTest(db, { organizationId: org, testId }),
     getUploadByTest(db, { organizationId: org, testId }),
   ]);
-  if (!current) throw new AppError("internal", "This test has no analysis yet.");
-  return {
+  const detail: TestDetail | null = picked && {
     test: toTestDto(row),
-    analysis: current.result,
-    series: current.series,
+    analysis: picked.result,
+    series: picked.series,
     history: history.map(toHistoryEntry),
     upload: upload ? { filename: upload.filename, sizeBytes: upload.sizeBytes, sha256: upload.sha256 } : null,
   };
+  return { row, picked, history, detail };
 }
 
 function toHistoryEntry(h: Awaited<ReturnType<typeof listAnalysesByTest>>[number]): AnalysisHistoryEntry {
@@ -95,20 +106,10 @@ export interface ShownAnalysis {
  * the current analysis; an analysis of another test or organization answers 404.
  */
 export async function loadTestDetailAtAnalysis(db: Db, viewer: Viewer, testId: string, analysisId: string): Promise<TestDetail & { shown: ShownAnalysis }> {
-  const row = await requireRevealedTest(db, viewer, testId);
-  const org = viewer.organizationId;
-  const [picked, history, upload] = await Promise.all([
-    getAnalysisByTestAndId(db, { organizationId: org, testId, analysisId }),
-    listAnalysesByTest(db, { organizationId: org, testId }),
-    getUploadByTest(db, { organizationId: org, testId }),
-  ]);
-  if (!picked) throw new AppError("not_found", "This test has no analysis with that id.");
+  const { row, picked, history, detail } = await readDetail(db, viewer, testId, (org) => getAnalysisByTestAndId(db, { organizationId: org, testId, analysisId }));
+  if (!picked || !detail) throw new AppError("not_found", "This test has no analysis with that id.");
   return {
-    test: toTestDto(row),
-    analysis: picked.result,
-    series: picked.series,
-    history: history.map(toHistoryEntry),
-    upload: upload ? { filename: upload.filename, sizeBytes: upload.sizeBytes, sha256: upload.sha256 } : null,
+    ...detail,
     shown: { analysisId: picked.id, version: picked.version, versionCount: history.length, isCurrent: picked.id === row.test.currentAnalysisId },
   };
 }
