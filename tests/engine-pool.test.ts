@@ -3,6 +3,7 @@
  * an unreadable log's LogError back intact, runs logs side by side, and survives a worker that
  * overruns. Real worker threads (run through tsx under vitest).
  */
+import { spawnSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { afterAll, describe, expect, it } from "vitest";
 import { LogError } from "@/analysis/errors";
@@ -94,5 +95,17 @@ describe("engine worker pool", () => {
       setWorkerSpawnForTests(null);
       await closeEnginePool();
     }
+  });
+
+  it("lets a script exit by itself once its analyses are done: idle workers hold nothing open (our own contract)", () => {
+    // The timeout is a hang guard, not a speed target: a pool that kept the process alive would be killed by it.
+    const child = spawnSync(process.execPath, ["--import", "tsx", "tests/helpers/pool-exit.ts"], {
+      env: { ...process.env, ENGINE_WORKER_ENTRY: "source", ENGINE_WORKERS: "2" },
+      encoding: "utf8",
+      timeout: 60_000,
+    });
+    expect(child.signal).toBeNull();
+    expect(child.status).toBe(0);
+    expect(child.stdout).toContain(`verdict=${runAnalysis(golden("layout-iso-pa.csv"), {}).result.verdict}`);
   });
 });

@@ -68,7 +68,6 @@ function spawnWorker(): Worker {
     env().ENGINE_WORKER_ENTRY === "source"
       ? new Worker(`require("tsx/cjs"); require(${JSON.stringify(path.join(process.cwd(), "lib/tests/engine-worker.ts"))});`, { eval: true })
       : new Worker(new URL("./engine-worker.ts", import.meta.url));
-  worker.unref();
   return worker;
 }
 
@@ -140,6 +139,9 @@ function attach(slot: Slot, worker: Worker): void {
   worker.on("exit", (code) => {
     if (slot.worker === worker && slot.job) replace(slot, `exited with code ${code}`);
   });
+  // After the listeners (adding a 'message' listener refs the port again): an idle worker never
+  // keeps the process alive, so scripts and tests exit when their work is done.
+  worker.unref();
 }
 
 /** The pool, started on first use; null when workers cannot be started here (then: inline). */
