@@ -59,7 +59,11 @@ interface KeptSpread {
 function keptSpread(p: ArrayLike<number>, skip: Uint8Array): KeptSpread {
   let n = 0;
   let mean = 0;
-  for (let i = 0; i < p.length; i++) if (!skip[i]) (n++, (mean += p[i]));
+  for (let i = 0; i < p.length; i++) {
+    if (skip[i]) continue;
+    n++;
+    mean += p[i];
+  }
   mean /= n;
   let tss = 0;
   for (let i = 0; i < p.length; i++) if (!skip[i]) tss += (p[i] - mean) ** 2;
