@@ -1,7 +1,7 @@
 /**
  * A re-test on a sent-back test: the technician uploads the new gauge log onto the same test.
  * Same pipeline as the first upload (lib/tests/upload.ts): analyse in memory → store the raw
- * file → one transaction, with the same compensation:
+ * file → one transaction, with the same compensation (storeThenCommit, lib/tests/stored-commit.ts):
  *
  *  - An unreadable log throws LogError before anything is stored (422; the test stays sent back).
  *  - Storage failing → 503, no rows written.
@@ -25,13 +25,13 @@ import { getIdempotencyKeyByKey, insertIdempotencyKey, insertUpload, updateIdemp
 import type { TestStatus } from "@/db/schema";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { log } from "@/lib/log";
 import { retestUploadedMail } from "@/lib/notify/messages";
 import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
 import { can } from "@/lib/permissions";
-import { deleteObject, putObject, rawLogKey } from "@/lib/storage";
+import { rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "@/lib/tests/engine-pool";
 import { sha256Hex } from "@/lib/tests/files";
+import { KeyTaken, storeThenCommit } from "@/lib/tests/stored-commit";
 import { compactOptions, resolveProfile } from "@/lib/tests/options";
 import { requireVisibleTest } from "@/lib/tests/read";
 import type { ReceivedFile } from "@/lib/tests/request";
@@ -61,8 +61,6 @@ let faultBeforeCommit: FaultHook | null = null;
 export function setRetestFaultForTests(hook: FaultHook | null): void {
   faultBeforeCommit = hook;
 }
-
-class KeyTaken extends Error {}
 
 /** The test's technician, or anyone who reviews (owner, lead), may upload its re-test. */
 export function mayUploadRetest(actor: Pick<Actor, "userId" | "role">, createdById: string): boolean {
@@ -113,16 +111,13 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
   const analysisId = randomUUID();
   const objectKey = retestLogKey(org, testId, randomUUID(), input.file.filename);
   const sha256 = sha256Hex(input.file.bytes);
-  try {
-    await putObject(objectKey, input.file.bytes, input.file.contentType || "text/csv", sha256);
-  } catch (err) {
-    log.error("re-test log not stored", { objectKey, err: String(err) });
-    throw new AppError("storage_unavailable");
-  }
+  const object = { key: objectKey, bytes: input.file.bytes, contentType: input.file.contentType, sha256 };
 
-  let outcome: RetestOutcome;
-  try {
-    outcome = await db.transaction(async (tx) => {
+  const outcome = await storeThenCommit<RetestOutcome>(
+    db,
+    object,
+    "re-test log",
+    async (tx) => {
       const locked = await lockTestReviewStateById(tx, { organizationId: org, testId });
       if (!locked) throw new AppError("not_found", "No such test.");
       // The key first: a concurrent twin waits here for this row, then finds it taken.
@@ -156,18 +151,14 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
       );
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
       return { testId, status: check.to, analysisId, version, analysis: run.result, created: true, mailIds };
-    });
-  } catch (err) {
-    await deleteObject(objectKey).catch((e) => log.error("orphan re-test log left in storage", { objectKey, err: String(e) }));
-    if (err instanceof KeyTaken) {
+    },
+    async () => {
+      // Lost the race for the key: answer with the winner's re-test.
       const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
       if (seen) return replay(db, actor, testId, seen);
       throw new AppError("conflict", "The same re-test is being saved by another request; try again.");
-    }
-    if (err instanceof AppError) throw err;
-    log.error("re-test transaction failed; raw log removed", { testId, err: String((err as { cause?: unknown })?.cause ?? err) });
-    throw new AppError("database_unavailable");
-  }
+    },
+  );
   // After commit: the leads' e-mail; a failure stays in the outbox for resend and never undoes the re-test.
   await deliverMailSoon(db, outcome.mailIds);
   return outcome;

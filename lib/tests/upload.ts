@@ -2,6 +2,8 @@
  * The upload pipeline: analyse in memory → store the raw file → one DB transaction.
  *
  *  - An unreadable log throws LogError before anything is stored (422, nothing saved).
+ *  - Storing and committing go through storeThenCommit (lib/tests/stored-commit.ts), shared with
+ *    the re-test upload.
  *  - Storage failing → 503, no rows written.
  *  - The transaction failing → the stored object is deleted again (compensation), 503.
  *  - An Idempotency-Key already used in the organization returns the first test; two identical
@@ -21,9 +23,10 @@ import { insertAnalysis } from "@/db/queries/analyses";
 import { AppError } from "@/lib/errors";
 import { log } from "@/lib/log";
 import { can, type Role } from "@/lib/permissions";
-import { deleteObject, putObject, rawLogKey } from "@/lib/storage";
+import { rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "./engine-pool";
 import { sha256Hex } from "./files";
+import { KeyTaken, storeThenCommit } from "./stored-commit";
 import { compactOptions, importOptionsOf, resolveProfile, volumeOf } from "./options";
 import type { TestMetadata } from "./schemas";
 
@@ -63,8 +66,6 @@ let faultBeforeCommit: FaultHook | null = null;
 export function setUploadFaultForTests(hook: FaultHook | null): void {
   faultBeforeCommit = hook;
 }
-
-class KeyTaken extends Error {}
 
 function titleOf(m: TestMetadata, filename: string, source: "file" | "typed"): string {
   if (m.title) return m.title;
@@ -167,16 +168,13 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
   const analysisId = randomUUID();
   const objectKey = rawLogKey(org, testId, input.filename);
   const sha256 = sha256Hex(input.bytes);
-  try {
-    await putObject(objectKey, input.bytes, input.contentType || "text/csv", sha256);
-  } catch (err) {
-    log.error("raw log not stored", { objectKey, err: String(err) });
-    throw new AppError("storage_unavailable");
-  }
+  const object = { key: objectKey, bytes: input.bytes, contentType: input.contentType, sha256 };
 
-  let reviewMailIds: string[] = [];
-  try {
-    await db.transaction(async (tx) => {
+  const { outcome, mailIds } = await storeThenCommit<{ outcome: UploadOutcome; mailIds: string[] }>(
+    db,
+    object,
+    "raw log",
+    async (tx) => {
       const testedAt = testedAtOf(input.metadata, run.startedAt);
       const { siteId, systemId, jobId, siteName } = await checkRecords(tx, who, input.metadata, testedAt);
       await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt });
@@ -189,23 +187,20 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
         verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
         title: titleOf(input.metadata, input.filename, input.source), technicianName: who.name, siteName,
       };
-      reviewMailIds = (await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known })).mailIds;
+      const routed = await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known });
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
-    });
-  } catch (err) {
-    await deleteObject(objectKey).catch((e) => log.error("orphan raw log left in storage", { objectKey, err: String(e) }));
-    if (err instanceof KeyTaken) {
+      return { outcome: { testId, created: true, result: run.result }, mailIds: routed.mailIds };
+    },
+    async () => {
+      // Lost the race for the key: answer with the winner's test.
       const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
-      if (seen) return replayOf(seen);
+      if (seen) return { outcome: replayOf(seen), mailIds: [] };
       throw new AppError("conflict", "The same upload is being saved by another request; try again.");
-    }
-    if (err instanceof AppError) throw err;
-    log.error("upload transaction failed; raw log removed", { testId, err: String((err as { cause?: unknown })?.cause ?? err) });
-    throw new AppError("database_unavailable");
-  }
+    },
+  );
   // The leads' e-mail goes after commit and never holds up the verdict; the outbox keeps failures.
-  void deliverMail(db, reviewMailIds).catch((err) => log.error("review mail not sent yet", { testId, err: String(err) }));
-  return { testId, created: true, result: run.result };
+  void deliverMail(db, mailIds).catch((err) => log.error("review mail not sent yet", { testId, err: String(err) }));
+  return outcome;
 }
 
 interface PersistArgs {
