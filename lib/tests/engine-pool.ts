@@ -35,19 +35,20 @@ interface Slot {
 }
 
 let slots: Slot[] | null = null;
-/** Test seam: how a worker is started (null restores the real one). */
-let spawnOverride: (() => Worker) | null = null;
-
-export function setWorkerSpawnForTests(spawn: (() => Worker) | null): void {
-  spawnOverride = spawn;
-}
 const waiting: Job[] = [];
 let nextId = 1;
-let timeoutOverrideMs: number | null = null;
 /** Worker failures since a worker last finished a log; at MAX_FAILURES_IN_A_ROW the pool goes inline. */
 let failuresInARow = 0;
 let inlineOnly = false;
 const MAX_FAILURES_IN_A_ROW = 5;
+
+let spawnOverride: (() => Worker) | null = null;
+let timeoutOverrideMs: number | null = null;
+
+/** Test seam: how a worker is started (null restores the real one). */
+export function setWorkerSpawnForTests(spawn: (() => Worker) | null): void {
+  spawnOverride = spawn;
+}
 
 /** Test seam: a shorter worker timeout (null restores ENGINE_TIMEOUT_MS). */
 export function setEngineTimeoutForTests(ms: number | null): void {
@@ -64,11 +65,9 @@ function spawnWorker(): Worker {
   if (spawnOverride) return spawnOverride();
   // A built server runs the entry Next.js bundled from the literal URL below. Under vitest or
   // tsx (ENGINE_WORKER_ENTRY=source) the worker registers tsx's loader and requires the source.
-  const worker =
-    env().ENGINE_WORKER_ENTRY === "source"
-      ? new Worker(`require("tsx/cjs"); require(${JSON.stringify(path.join(process.cwd(), "lib/tests/engine-worker.ts"))});`, { eval: true })
-      : new Worker(new URL("./engine-worker.ts", import.meta.url));
-  return worker;
+  return env().ENGINE_WORKER_ENTRY === "source"
+    ? new Worker(`require("tsx/cjs"); require(${JSON.stringify(path.join(process.cwd(), "lib/tests/engine-worker.ts"))});`, { eval: true })
+    : new Worker(new URL("./engine-worker.ts", import.meta.url));
 }
 
 /** Stop a worker for good; a late error from it (say, while its entry loads) is ignored. */
