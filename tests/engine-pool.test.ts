@@ -10,7 +10,7 @@ import { LogError } from "@/analysis/errors";
 import { AppError } from "@/lib/errors";
 import { runAnalysis } from "@/lib/tests/engine";
 import { Worker } from "node:worker_threads";
-import { analyseOffThread, closeEnginePool, setEngineTimeoutForTests, setWorkerSpawnForTests } from "@/lib/tests/engine-pool";
+import { analyseOffThread, closeEnginePool, engineMode, setEngineTimeoutForTests, setWorkerSpawnForTests } from "@/lib/tests/engine-pool";
 
 const golden = (name: string) => readFileSync(`fixtures/golden/${name}`, "utf8");
 
@@ -27,6 +27,7 @@ describe("engine worker pool", () => {
     const pooled = await analyseOffThread(text, {});
     expect(pooled.result.verdict).toBe(inline.result.verdict);
     expect(pooled).toEqual(inline);
+    expect(engineMode()).toBe("workers");
   });
 
   it("brings back the importer's LogError with its code and line (our own contract)", async () => {
@@ -78,6 +79,7 @@ describe("engine worker pool", () => {
       const text = golden("layout-tab-mtorr.csv");
       const run = await analyseOffThread(text, {});
       expect(run.result).toEqual(runAnalysis(text, {}).result);
+      expect(engineMode()).toBe("inline");
     } finally {
       setWorkerSpawnForTests(null);
       await closeEnginePool();

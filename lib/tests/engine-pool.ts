@@ -182,6 +182,17 @@ function pump(): void {
 }
 
 /**
+ * Where analyses run now, for /api/health: "workers" once a worker has loaded its entry,
+ * "starting" before that, "not started" before the first analysis, "inline" when the pool is
+ * off (ENGINE_WORKERS=0) or gave up.
+ */
+export function engineMode(): "workers" | "starting" | "not started" | "inline" {
+  if (inlineOnly || engineWorkerCount() === 0) return "inline";
+  if (!slots) return "not started";
+  return slots.some((s) => s.ready) ? "workers" : "starting";
+}
+
+/**
  * Analyse a log's text on the pool (or inline when ENGINE_WORKERS=0). Same contract as
  * runAnalysis: resolves with the run, rejects with LogError for an unreadable log.
  */

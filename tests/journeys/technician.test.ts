@@ -78,6 +78,8 @@ describe("technician on a phone", () => {
     await expect.poll(() => page.getByRole("link", { name: "Open the test page" }).getAttribute("href")).toMatch(/^\/tests\/[0-9a-f-]{36}$/);
     if (SHOTS) await page.screenshot({ path: "/tmp/tech-new-result-360.png", fullPage: true });
     expect(errors).toEqual([]);
+    // The built server analysed it on the engine's worker threads, not the inline fallback.
+    expect((await (await page.request.get("/api/health")).json()).engine).toBe("workers");
     await context.close();
   });
 
