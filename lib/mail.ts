@@ -1,5 +1,6 @@
 import nodemailer, { type Transporter } from "nodemailer";
 import { env } from "@/lib/env";
+import { log } from "@/lib/log";
 
 export interface OutgoingMail {
   to: string;
@@ -8,24 +9,43 @@ export interface OutgoingMail {
   html: string;
 }
 
+/**
+ * How long an idle SMTP connection stays open for the next message. A burst of uploads shares one
+ * connection (no connect, greeting and EHLO per message); a quiet process lets it go, so a script
+ * that sent mail still exits by itself shortly after.
+ */
+const IDLE_CLOSE_MS = 1500;
+
 let transport: Transporter | null = null;
 
 function transporter(): Transporter {
   if (!transport) {
     const e = env();
-    transport = nodemailer.createTransport({
+    const pooled = nodemailer.createTransport({
+      pool: true,
+      maxConnections: 2,
+      idleTimeout: IDLE_CLOSE_MS,
       host: e.SMTP_HOST,
       port: e.SMTP_PORT,
       secure: false,
       ignoreTLS: true,
     });
+    // A pooled connection can fail while idle; the next send reconnects, so log and go on.
+    pooled.on("error", (err) => log.warn("SMTP connection closed with an error", { err: String(err) }));
+    transport = pooled;
   }
   return transport;
 }
 
-/** Send one message. Throws when the SMTP server refuses or is unreachable. */
+/** Send one message over the shared SMTP pool. Throws when the server refuses or is unreachable. */
 export async function sendMail(mail: OutgoingMail): Promise<void> {
   await transporter().sendMail({ from: env().MAIL_FROM, ...mail });
+}
+
+/** Close the SMTP pool now (scripts and tests that want to exit at once; the next send reopens it). */
+export function closeMail(): void {
+  transport?.close();
+  transport = null;
 }
 
 const escapeHtml = (s: string) =>

@@ -27,6 +27,7 @@ await s3.run();
 
 const smtp = new SMTPServer({
   authOptional: true,
+  disableReverseLookup: true, // loopback only: no DNS lookup of the client per connection
   disabledCommands: ["STARTTLS"],
   logger: false,
   onData(stream, session, callback) {
