@@ -232,6 +232,24 @@ describe("typed readings and quick-created records", () => {
     expect(res.body.analysis.leakRate === null || res.body.analysis.leakRate.volumeLitres > 0).toBe(true);
   });
 
+  it("answers the upload with exactly the test record a later GET reads (built from what was written, API contract)", async () => {
+    const detailOf = async (id: string) => (await (await get(detailGet, `/api/tests/${id}`, crew.technician, id)).json()).test;
+    const created = await upload(crew.technician, "sample-2-elapsed-mtorr.csv", { newSiteName: "Quarry Lane 4", newSystemName: "Walk-in cooler", newJob: "true", newJobReason: "Leak repair" });
+    expect(created.status).toBe(201);
+    expect(created.body.test.job.reason).toBe("Leak repair");
+    expect(created.body.test).toEqual(await detailOf(created.body.test.id));
+    // an existing site, system and visit chosen by id; then nothing but the file
+    const chosen = await upload(crew.technician, "sample-1-iso-microns.csv", { siteId: created.body.test.site.id, systemId: created.body.test.system.id, jobId: created.body.test.job.id });
+    expect(chosen.status).toBe(201);
+    expect(chosen.body.test.job.id).toBe(created.body.test.job.id);
+    expect(chosen.body.test).toEqual(await detailOf(chosen.body.test.id));
+    const systemOnly = await upload(crew.technician, "sample-1-iso-microns.csv", { systemId: created.body.test.system.id });
+    expect(systemOnly.body.test.site.name).toBe("Quarry Lane 4");
+    expect(systemOnly.body.test).toEqual(await detailOf(systemOnly.body.test.id));
+    const bare = await upload(crew.technician, "sample-1-iso-microns.csv");
+    expect(bare.body.test).toEqual(await detailOf(bare.body.test.id));
+  });
+
   it("refuses a bad field with 400 naming it, and saves nothing", async () => {
     const before = await countRows(crew.owner.organizationId);
     const res = await upload(crew.technician, "sample-1-iso-microns.csv", { lineSetFeet: "lots", liquidOd: "3/8", suctionOd: "3/4" });

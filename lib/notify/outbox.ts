@@ -68,13 +68,15 @@ async function deliverIds(db: Database, ids: string[], report: DeliveryReport): 
 /**
  * Send queued rows now (after the transaction that queued them committed). Never throws.
  * `byPerson`: a member pressed resend, so the automatic attempt limit does not apply.
+ * `fresh`: the caller's own transaction just queued these ids, so they are unsent with no attempt
+ * yet and need no listing first (each claim still checks the row's status).
  */
-export async function deliverMail(db: Database, ids: string[], opts: { byPerson?: boolean } = {}): Promise<DeliveryReport> {
+export async function deliverMail(db: Database, ids: string[], opts: { byPerson?: boolean; fresh?: boolean } = {}): Promise<DeliveryReport> {
   const report: DeliveryReport = { sent: [], failed: [] };
   if (!ids.length) return report;
   const maxAttempts = opts.byPerson ? 2 ** 31 - 1 : MAX_MAIL_ATTEMPTS;
   try {
-    await deliverIds(db, await listUnsentOutboxMailIds(db, { ids, maxAttempts, limit: ids.length }), report);
+    await deliverIds(db, opts.fresh ? ids : await listUnsentOutboxMailIds(db, { ids, maxAttempts, limit: ids.length }), report);
   } catch (err) {
     log.error("outbox delivery failed", { err: String(err) });
   }

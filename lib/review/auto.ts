@@ -42,25 +42,29 @@ export interface KnownNewTest {
   siteName?: string | null;
 }
 
-/** The rule of listTestsDueForReviewByOrganization for a test just inserted (status submitted). */
-function dueByRule(k: KnownNewTest): boolean {
+/** The rule of listTestsDueForReviewByOrganization, for a test about to be inserted or just inserted. */
+export function entersReviewOnUpload(k: KnownNewTest): boolean {
   return !k.isPractice && (k.helpRequested || k.verdict !== "pass" || k.meetsProfile !== true);
 }
 
 /**
  * Inside the caller's transaction: move the test into review if the rule says so and queue the
  * leads' e-mail. The caller delivers `mailIds` with deliverMail after commit.
+ * `insertedInReview`: the caller inserted the test as waiting_review already (by the same rule,
+ * entersReviewOnUpload), so only the audit event and the e-mail remain.
  */
 export async function queueNewTestForReview(
   tx: Db,
-  params: { organizationId: string; testId: string; actorId: string | null; known?: KnownNewTest },
+  params: { organizationId: string; testId: string; actorId: string | null; known?: KnownNewTest; insertedInReview?: boolean },
 ): Promise<RoutedTest> {
   const k = params.known;
   const [due] = k
-    ? dueByRule(k) ? [{ id: params.testId, verdict: k.verdict, meetsProfile: k.meetsProfile, helpRequested: k.helpRequested }] : []
+    ? entersReviewOnUpload(k) ? [{ id: params.testId, verdict: k.verdict, meetsProfile: k.meetsProfile, helpRequested: k.helpRequested }] : []
     : await listTestsDueForReviewByOrganization(tx, { organizationId: params.organizationId, testId: params.testId, limit: 1 });
   if (!due) return { routed: false, reasons: [], mailIds: [] };
-  const moved = await updateTestStatusById(tx, { organizationId: params.organizationId, testId: due.id, fromStatus: "submitted", toStatus: "waiting_review" });
+  const moved =
+    params.insertedInReview ||
+    (await updateTestStatusById(tx, { organizationId: params.organizationId, testId: due.id, fromStatus: "submitted", toStatus: "waiting_review" }));
   if (!moved) return { routed: false, reasons: [], mailIds: [] };
   const reasons = reasonsOf(due);
   const automatic = reasons.join("; ");

@@ -2,10 +2,10 @@
 import type { AnalysisResult } from "@/analysis/types";
 import type { Db } from "@/db/client";
 import { getAnalysisById, getAnalysisByTestAndId, listAnalysesByTest } from "@/db/queries/analyses";
-import { getTestById, getUploadByTest, listTestsByOrganization } from "@/db/queries/tests";
+import { getTestById, getUploadByTest, listTestsByOrganization, type TestDetailRow } from "@/db/queries/tests";
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
-import { hiddenPracticeTestIds, practiceGate } from "@/lib/practice/gate";
+import { hiddenPracticeTestIds, practiceGate, practisesCalls } from "@/lib/practice/gate";
 import { toTestDto, type AnalysisHistoryEntry, type TestDto, type TestListItem } from "./dto";
 import type { ListTestsQuery } from "./schemas";
 
@@ -38,12 +38,21 @@ export async function requireRevealedTest(db: Db, viewer: Viewer, testId: string
 }
 
 /**
- * The test and its current analysis only (what POST /api/tests answers with). `known` is the
- * analysis just computed, so a new upload need not read its own result back.
+ * The test and its current analysis only (what POST /api/tests answers with). `known` is what a
+ * new upload just computed and wrote, so it need not read its own test back — unless the viewer
+ * makes practice calls, whose gate decides whether the analysis shows.
  */
-export async function loadTestSummary(db: Db, viewer: Viewer, testId: string, known?: AnalysisResult): Promise<Pick<TestDetail, "test" | "analysis">> {
+export async function loadTestSummary(
+  db: Db,
+  viewer: Viewer,
+  testId: string,
+  known?: { result?: AnalysisResult; row?: TestDetailRow },
+): Promise<Pick<TestDetail, "test" | "analysis">> {
+  if (known?.result && known.row && known.row.test.createdById === viewer.userId && !practisesCalls(viewer.role)) {
+    return { test: toTestDto(known.row), analysis: known.result };
+  }
   const row = await requireRevealedTest(db, viewer, testId);
-  if (known) return { test: toTestDto(row), analysis: known };
+  if (known?.result) return { test: toTestDto(row), analysis: known.result };
   const current = row.test.currentAnalysisId ? await getAnalysisById(db, { organizationId: viewer.organizationId, analysisId: row.test.currentAnalysisId }) : null;
   if (!current) throw new AppError("internal", "This test has no analysis yet.");
   return { test: toTestDto(row), analysis: current.result };

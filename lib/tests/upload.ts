@@ -12,13 +12,13 @@
  *  - newJob creates the visit inside that same transaction, so a retry never makes a second job
  *    and a failed upload leaves none behind. It needs records.manage (403 before anything runs).
  */
-import { queueNewTestForReview } from "@/lib/review/auto";
+import { entersReviewOnUpload, queueNewTestForReview } from "@/lib/review/auto";
 import { deliverMail } from "@/lib/notify/outbox";
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
 import { getJobById, getSiteById, getSystemById, createJob, createSite, createSystem } from "@/db/queries/records";
-import { getIdempotencyKeyByKey, insertIdempotencyKey, insertTest, insertUpload, updateTestCurrentAnalysis } from "@/db/queries/tests";
+import { getIdempotencyKeyByKey, insertIdempotencyKey, insertTest, insertUpload, type TestDetailRow } from "@/db/queries/tests";
 import { insertAnalysis } from "@/db/queries/analyses";
 import { AppError } from "@/lib/errors";
 import { log } from "@/lib/log";
@@ -57,6 +57,8 @@ export interface UploadOutcome {
   created: boolean;
   /** The new test's analysis, already in memory (absent when an earlier upload is returned). */
   result?: AnalysisResult;
+  /** The new test with its names, as written (absent when a name was not read here). */
+  row?: TestDetailRow;
 }
 
 type FaultHook = (tx: Tx, ctx: { testId: string; objectKey: string }) => Promise<void>;
@@ -89,46 +91,77 @@ function visitedOnOf(m: TestMetadata, testedAt: Date): string {
   return m.newJobVisitedOn ?? testedAt.toISOString().slice(0, 10);
 }
 
+/** Names learnt while checking or creating the records; undefined: not read here. */
+interface RecordNames {
+  siteName: string | null | undefined;
+  systemName: string | null | undefined;
+  job: { reference: string | null; visitedOn: string; reason: string | null } | null | undefined;
+}
+
 async function checkRecords(tx: Tx, who: Uploader, m: TestMetadata, testedAt: Date) {
   const org = who.organizationId;
-  if (m.jobId && !(await getJobById(tx, { organizationId: org, jobId: m.jobId })))
-    throw new AppError("invalid_input", "jobId: no such job in your organization", { field: "jobId" });
+  const names: RecordNames = { siteName: null, systemName: null, job: null };
+  if (m.jobId) {
+    const job = await getJobById(tx, { organizationId: org, jobId: m.jobId });
+    if (!job) throw new AppError("invalid_input", "jobId: no such job in your organization", { field: "jobId" });
+    names.job = job;
+  }
   let siteId = m.siteId ?? null;
-  /** The site's name when known here (undefined: not read; null: no site). */
-  let siteName: string | null | undefined = siteId ? undefined : null;
   if (siteId) {
     const site = await getSiteById(tx, { organizationId: org, siteId });
     if (!site) throw new AppError("invalid_input", "siteId: no such site in your organization", { field: "siteId" });
-    siteName = site.name;
+    names.siteName = site.name;
   }
   let systemId = m.systemId ?? null;
   if (systemId) {
     const system = await getSystemById(tx, { organizationId: org, systemId });
     if (!system) throw new AppError("invalid_input", "systemId: no such system in your organization", { field: "systemId" });
     if (siteId && system.siteId !== siteId) throw new AppError("invalid_input", "systemId: that system is at another site", { field: "systemId" });
-    if (!siteId) siteName = undefined; // the system's site, not read here
+    if (!siteId) names.siteName = undefined; // the system's site, not read here
     siteId ??= system.siteId;
+    names.systemName = system.name;
   }
   if (m.newSiteName) {
     siteId = (await createSite(tx, { organizationId: org, name: m.newSiteName })).id;
-    siteName = m.newSiteName;
+    names.siteName = m.newSiteName;
   }
-  if (m.newSystemName && siteId)
-    systemId = (
-      await createSystem(tx, {
-        organizationId: org,
-        siteId,
-        name: m.newSystemName,
-        refrigerant: m.refrigerant ?? null,
-        lineSetFeet: m.lineSetFeet ?? null,
-        liquidOd: m.liquidOd ?? null,
-        suctionOd: m.suctionOd ?? null,
-      })
-    ).id;
-  const jobId = m.newJob
-    ? (await createJob(tx, { organizationId: org, visitedOn: visitedOnOf(m, testedAt), siteId, systemId, technicianId: who.userId, reason: m.newJobReason ?? null })).id
-    : (m.jobId ?? null);
-  return { siteId, systemId, jobId, siteName };
+  if (m.newSystemName && siteId) {
+    const system = await createSystem(tx, {
+      organizationId: org,
+      siteId,
+      name: m.newSystemName,
+      refrigerant: m.refrigerant ?? null,
+      lineSetFeet: m.lineSetFeet ?? null,
+      liquidOd: m.liquidOd ?? null,
+      suctionOd: m.suctionOd ?? null,
+    });
+    systemId = system.id;
+    names.systemName = system.name;
+  }
+  let jobId = m.jobId ?? null;
+  if (m.newJob) {
+    const job = await createJob(tx, { organizationId: org, visitedOn: visitedOnOf(m, testedAt), siteId, systemId, technicianId: who.userId, reason: m.newJobReason ?? null });
+    jobId = job.id;
+    names.job = job;
+  }
+  return { siteId, systemId, jobId, names };
+}
+
+/**
+ * The new test as GET would read it, from what the upload wrote and learnt, so the answer needs
+ * no read-back; undefined when a name was not read here (the caller then reads the row).
+ */
+function answerRowOf(test: TestDetailRow["test"], who: Uploader, names: RecordNames): TestDetailRow | undefined {
+  if (who.name === undefined || names.siteName === undefined || names.systemName === undefined || names.job === undefined) return undefined;
+  return {
+    test,
+    createdByName: who.name,
+    siteName: names.siteName,
+    systemName: names.systemName,
+    jobReference: names.job?.reference ?? null,
+    jobVisitedOn: names.job?.visitedOn ?? null,
+    jobReason: names.job?.reason ?? null,
+  };
 }
 
 /** newJob needs records.manage (owner, lead, technician): checked before anything is analysed or stored. */
@@ -176,20 +209,22 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
     "raw log",
     async (tx) => {
       const testedAt = testedAtOf(input.metadata, run.startedAt);
-      const { siteId, systemId, jobId, siteName } = await checkRecords(tx, who, input.metadata, testedAt);
-      await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt });
+      const { siteId, systemId, jobId, names } = await checkRecords(tx, who, input.metadata, testedAt);
+      // Not a pass, misses the profile or help asked: the test is inserted straight into the
+      // lead's queue, and its audit event and the leads' e-mail are queued in the same commit.
+      const known = {
+        verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
+        title: titleOf(input.metadata, input.filename, input.source), technicianName: who.name, siteName: names.siteName,
+      };
+      const status = entersReviewOnUpload(known) ? "waiting_review" : "submitted";
+      const inserted = await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt, status });
       if (input.idempotencyKey) {
         const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: who.userId, testId });
         if (!claimed) throw new KeyTaken();
       }
-      // Not a pass, misses the profile or help asked: into the lead's queue in the same commit.
-      const known = {
-        verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
-        title: titleOf(input.metadata, input.filename, input.source), technicianName: who.name, siteName,
-      };
-      const routed = await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known });
+      const routed = await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known, insertedInReview: status === "waiting_review" });
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
-      return { outcome: { testId, created: true, result: run.result }, mailIds: routed.mailIds };
+      return { outcome: { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) }, mailIds: routed.mailIds };
     },
     async () => {
       // Lost the race for the key: answer with the winner's test.
@@ -199,7 +234,7 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
     },
   );
   // The leads' e-mail goes after commit and never holds up the verdict; the outbox keeps failures.
-  void deliverMail(db, mailIds).catch((err) => log.error("review mail not sent yet", { testId, err: String(err) }));
+  void deliverMail(db, mailIds, { fresh: true }).catch((err) => log.error("review mail not sent yet", { testId, err: String(err) }));
   return outcome;
 }
 
@@ -217,12 +252,13 @@ interface PersistArgs {
   result: AnalysisResult;
   series: { t: number[]; p: number[] };
   testedAt: Date;
+  status: "submitted" | "waiting_review";
 }
 
 async function persistNewTest(tx: Tx, a: PersistArgs) {
   const m = a.input.metadata;
   const org = a.who.organizationId;
-  await insertTest(tx, {
+  const inserted = await insertTest(tx, {
     id: a.testId,
     organizationId: org,
     createdById: a.who.userId,
@@ -242,6 +278,7 @@ async function persistNewTest(tx: Tx, a: PersistArgs) {
     isPractice: m.isPractice,
     verdict: a.result.verdict,
     currentAnalysisId: a.analysisId,
+    status: a.status,
     testedAt: a.testedAt,
   });
   await insertUpload(tx, {
@@ -263,5 +300,5 @@ async function persistNewTest(tx: Tx, a: PersistArgs) {
     series: a.series,
     createdById: a.who.userId,
   });
-  await updateTestCurrentAnalysis(tx, { organizationId: org, testId: a.testId, analysisId: a.analysisId, verdict: a.result.verdict });
+  return inserted;
 }

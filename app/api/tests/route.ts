@@ -16,7 +16,7 @@ export const POST = route({ permission: "tests.upload" }, async ({ req, actor })
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const input = await readUploadRequest(req);
   const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey });
-  const { test, analysis } = await loadTestSummary(db(), actor, outcome.testId, outcome.result);
+  const { test, analysis } = await loadTestSummary(db(), actor, outcome.testId, outcome);
   return Response.json({ test, analysis }, { status: outcome.created ? 201 : 200 });
 });
 
