@@ -2,6 +2,8 @@
 // profile and a month of tests. Running it again changes nothing.
 import { eq } from "drizzle-orm";
 import { db, closeDb } from "@/db/client";
+import { closeMail } from "@/lib/mail";
+import { flushQuietMail } from "@/lib/notify/when-quiet";
 import { organization, acceptanceProfiles } from "@/db/schema";
 import { getAuth } from "@/lib/auth";
 import type { Role } from "@/lib/permissions";
@@ -49,6 +51,8 @@ function printPeople() {
 }
 
 main()
+  .then(() => flushQuietMail())
+  .then(() => closeMail())
   .then(() => closeDb())
   .catch(async (err) => {
     console.error(err);

@@ -13,7 +13,7 @@
  *    and a failed upload leaves none behind. It needs records.manage (403 before anything runs).
  */
 import { entersReviewOnUpload, queueNewTestForReview } from "@/lib/review/auto";
-import { deliverMail } from "@/lib/notify/outbox";
+import { deliverWhenQuiet, uploadInProgress } from "@/lib/notify/when-quiet";
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
@@ -21,7 +21,6 @@ import { getJobById, getSiteById, getSystemById, createJob, createSite, createSy
 import { getIdempotencyKeyByKey, insertIdempotencyKey, insertTest, insertUpload, type TestDetailRow } from "@/db/queries/tests";
 import { insertAnalysis } from "@/db/queries/analyses";
 import { AppError } from "@/lib/errors";
-import { log } from "@/lib/log";
 import { can, type Role } from "@/lib/permissions";
 import { rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "./engine-pool";
@@ -188,6 +187,15 @@ function replayOf(seen: { testId: string; analysisId: string | null }): UploadOu
 
 /** Run the whole pipeline for one upload. Throws LogError (422) or AppError. */
 export async function createTestFromUpload(db: Database, who: Uploader, input: UploadInput): Promise<UploadOutcome> {
+  const answered = uploadInProgress();
+  try {
+    return await uploadPipeline(db, who, input);
+  } finally {
+    answered();
+  }
+}
+
+async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): Promise<UploadOutcome> {
   const org = who.organizationId;
   if (input.idempotencyKey) {
     const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
@@ -233,8 +241,8 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
       throw new AppError("conflict", "The same upload is being saved by another request; try again.");
     },
   );
-  // The leads' e-mail goes after commit and never holds up the verdict; the outbox keeps failures.
-  void deliverMail(db, mailIds, { fresh: true }).catch((err) => log.error("review mail not sent yet", { testId, err: String(err) }));
+  // The leads' e-mail goes after commit, at the next quiet moment: it never holds up a verdict.
+  deliverWhenQuiet(db, mailIds);
   return outcome;
 }
 
