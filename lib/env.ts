@@ -25,7 +25,7 @@ const schema = z.object({
   MAILBOX_DIR: z.string().optional(),
   /** Upload limit in bytes for a gauge log. */
   MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(32 * 1024 * 1024),
-  /** Engine worker threads (lib/tests/engine-pool.ts); 0 analyses on the request thread; unset = one per core, at most 4. */
+  /** Engine worker threads (lib/tests/engine-pool.ts); 0 analyses on the request thread; unset = one per core less one (at least 1, at most 4). */
   ENGINE_WORKERS: z.coerce.number().int().min(0).max(16).optional(),
   /** Longest one analysis may run in a worker before that worker is replaced and the upload fails cleanly. */
   ENGINE_TIMEOUT_MS: z.coerce.number().int().positive().default(60_000),

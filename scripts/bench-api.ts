@@ -105,6 +105,17 @@ function processCpuMs(pid: number, withChildren = false): number {
   }
 }
 
+/** utime+stime of one thread of a process, in ms; 0 if gone. */
+function threadCpuMs(pid: number, tid: number): number {
+  try {
+    const stat = readFileSync(`/proc/${pid}/task/${tid}/stat`, "utf8");
+    const f = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+    return ((Number(f[11]) + Number(f[12])) / TICKS_PER_SECOND) * 1000;
+  } catch {
+    return 0;
+  }
+}
+
 function childrenOf(pid: number): number[] {
   return readdirSync("/proc")
     .filter((d) => /^\d+$/.test(d))
@@ -133,6 +144,8 @@ function cpuNow() {
   const self = process.cpuUsage();
   return {
     server: serverPid ? processCpuMs(serverPid) : NaN,
+    /** The server's main thread alone (its event loop; the engine runs on worker threads). */
+    serverMain: serverPid ? threadCpuMs(serverPid, serverPid) : NaN,
     postgres: postmasterPid ? processCpuMs(postmasterPid, true) + childrenOf(postmasterPid).reduce((t, c) => t + processCpuMs(c), 0) : NaN,
     fakes: fakesPid ? processCpuMs(fakesPid) : NaN,
     client: (self.user + self.system) / 1000,
@@ -143,7 +156,7 @@ function cpuPerUpload(label: string, before: ReturnType<typeof cpuNow>, after: R
   const per = (k: keyof typeof before) => (after[k] - before[k]) / uploads;
   const total = per("server") + per("postgres") + per("fakes") + per("client");
   console.log(
-    `${label} CPU per upload: server ${per("server").toFixed(1)} ms · PostgreSQL ${per("postgres").toFixed(1)} ms · S3 fake + mail catcher ${per("fakes").toFixed(1)} ms · bench client ${per("client").toFixed(1)} ms · total ${total.toFixed(1)} ms`,
+    `${label} CPU per upload: server ${per("server").toFixed(1)} ms (main thread ${per("serverMain").toFixed(1)}) · PostgreSQL ${per("postgres").toFixed(1)} ms · S3 fake + mail catcher ${per("fakes").toFixed(1)} ms · bench client ${per("client").toFixed(1)} ms · total ${total.toFixed(1)} ms`,
   );
 }
 

@@ -55,10 +55,15 @@ export function setEngineTimeoutForTests(ms: number | null): void {
   timeoutOverrideMs = ms;
 }
 
-/** Workers the pool keeps: the setting, else one per core (at most 4). */
+/**
+ * Workers the pool keeps: the setting, else one per core less the one the main thread needs for
+ * HTTP, the database and storage (at least 1, at most 4). On a 2-core machine one worker beat two
+ * in bench:api (server CPU about 37 against 48 ms per upload at 20 concurrent): a second isolate
+ * warms up and compiles the engine again while competing with the main thread for the cores.
+ */
 export function engineWorkerCount(): number {
   const configured = env().ENGINE_WORKERS;
-  return configured ?? Math.min(4, Math.max(1, availableParallelism()));
+  return configured ?? Math.min(4, Math.max(1, availableParallelism() - 1));
 }
 
 function spawnWorker(): Worker {
