@@ -39,7 +39,10 @@ if stale; then
   flock /tmp/riseline-next-build.lock ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 || { tail -40 "$ROOT/build.log"; exit 1; }
 fi
 
-setsid ./node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" >"$ROOT/next.log" 2>&1 &
+# SERVER_NODE_FLAGS: node flags for the server only (profiling, e.g. --cpu-prof --cpu-prof-dir=DIR);
+# node refuses most of them in NODE_OPTIONS, and NODE_OPTIONS would reach the fakes and the client too.
+# shellcheck disable=SC2086
+setsid node ${SERVER_NODE_FLAGS:-} ./node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT" >"$ROOT/next.log" 2>&1 &
 echo $! >"$ROOT/run/next.pid"
 wait_for_url "http://127.0.0.1:$PORT/api/health" 90 || { tail -30 "$ROOT/next.log"; exit 1; }
 
