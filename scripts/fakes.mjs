@@ -37,6 +37,7 @@ const smtp = new SMTPServer({
         const record = {
           id,
           receivedAt: new Date().toISOString(),
+          sessionId: session.id, // the SMTP connection it came over
           from: mail.from?.text ?? "",
           to: session.envelope.rcptTo.map((r) => r.address),
           subject: mail.subject ?? "",

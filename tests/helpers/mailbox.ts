@@ -7,6 +7,8 @@ import { env } from "@/lib/env";
 /** A stored message as the dev mailbox page reads it, plus the attachments the catcher records. */
 export interface CaughtMail extends CaughtMessage {
   attachments: { filename?: string; contentType: string; size: number }[];
+  /** The catcher's id of the SMTP connection the message came over. */
+  sessionId: string;
 }
 
 export function readMailbox(): CaughtMail[] {
