@@ -41,6 +41,7 @@ function arm(): void {
 }
 
 function send(): void {
+  if (state.timer) clearTimeout(state.timer);
   state.timer = null;
   const { db, ids } = state;
   state.ids = [];
