@@ -29,8 +29,9 @@ function reasonsOf(due: { verdict: string | null; meetsProfile: boolean | null; 
 }
 
 /**
- * What the upload that just inserted a test knows of it, so the rule need not read it back.
- * Names left undefined are read from the database for the leads' message.
+ * What the upload that just inserted a test knows of it, so the rule need not read it back. The
+ * upload inserted it already in the status entersReviewOnUpload gives it, so only the audit event
+ * and the e-mail remain. Names left undefined are read from the database for the leads' message.
  */
 export interface KnownNewTest {
   verdict: string;
@@ -48,14 +49,12 @@ export function entersReviewOnUpload(k: KnownNewTest): boolean {
 }
 
 /**
- * Inside the caller's transaction: move the test into review if the rule says so and queue the
- * leads' e-mail. The caller delivers `mailIds` with deliverMail after commit.
- * `insertedInReview`: the caller inserted the test as waiting_review already (by the same rule,
- * entersReviewOnUpload), so only the audit event and the e-mail remain.
+ * Inside the caller's transaction: move the test into review if the rule says so (with `known`,
+ * the upload already did) and queue the leads' e-mail. The caller delivers `mailIds` after commit.
  */
 export async function queueNewTestForReview(
   tx: Db,
-  params: { organizationId: string; testId: string; actorId: string | null; known?: KnownNewTest; insertedInReview?: boolean },
+  params: { organizationId: string; testId: string; actorId: string | null; known?: KnownNewTest },
 ): Promise<RoutedTest> {
   const k = params.known;
   const [due] = k
@@ -63,7 +62,7 @@ export async function queueNewTestForReview(
     : await listTestsDueForReviewByOrganization(tx, { organizationId: params.organizationId, testId: params.testId, limit: 1 });
   if (!due) return { routed: false, reasons: [], mailIds: [] };
   const moved =
-    params.insertedInReview ||
+    k !== undefined ||
     (await updateTestStatusById(tx, { organizationId: params.organizationId, testId: due.id, fromStatus: "submitted", toStatus: "waiting_review" }));
   if (!moved) return { routed: false, reasons: [], mailIds: [] };
   const reasons = reasonsOf(due);

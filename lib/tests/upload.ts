@@ -230,7 +230,7 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
         const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: who.userId, testId });
         if (!claimed) throw new KeyTaken();
       }
-      const routed = await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known, insertedInReview: status === "waiting_review" });
+      const routed = await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known });
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
       return { outcome: { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) }, mailIds: routed.mailIds };
     },
