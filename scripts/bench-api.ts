@@ -93,10 +93,10 @@ async function uploadOnce(cookie: string, upload: { body: Buffer; contentType: s
 
 const TICKS_PER_SECOND = Number(execFileSync("getconf", ["CLK_TCK"]).toString().trim()) || 100;
 
-/** utime+stime (and, with children, the waited-for children's) of a process, in ms; 0 if gone. */
-function processCpuMs(pid: number, withChildren = false): number {
+/** utime+stime (and, with children, the waited-for children's) from a /proc stat file, in ms; 0 if gone. */
+function statCpuMs(statPath: string, withChildren = false): number {
   try {
-    const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
+    const stat = readFileSync(statPath, "utf8");
     const f = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
     const ticks = Number(f[11]) + Number(f[12]) + (withChildren ? Number(f[13]) + Number(f[14]) : 0);
     return (ticks / TICKS_PER_SECOND) * 1000;
@@ -105,16 +105,9 @@ function processCpuMs(pid: number, withChildren = false): number {
   }
 }
 
+const processCpuMs = (pid: number, withChildren = false) => statCpuMs(`/proc/${pid}/stat`, withChildren);
 /** utime+stime of one thread of a process, in ms; 0 if gone. */
-function threadCpuMs(pid: number, tid: number): number {
-  try {
-    const stat = readFileSync(`/proc/${pid}/task/${tid}/stat`, "utf8");
-    const f = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
-    return ((Number(f[11]) + Number(f[12])) / TICKS_PER_SECOND) * 1000;
-  } catch {
-    return 0;
-  }
-}
+const threadCpuMs = (pid: number, tid: number) => statCpuMs(`/proc/${pid}/task/${tid}/stat`);
 
 function childrenOf(pid: number): number[] {
   return readdirSync("/proc")
