@@ -8,6 +8,8 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 . scripts/lib.sh
+ensure_node_modules
+ensure_chromium || exit 1 # the first-load JavaScript is read in a real browser
 export NEXT_TELEMETRY_DISABLED=1
 PORT=${BENCH_PORT:-3300}
 ROOT=.data/bench

@@ -1,3 +1,4 @@
+import { randomUUID } from "node:crypto";
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { analyses, findings, user } from "@/db/schema";
@@ -15,40 +16,41 @@ export interface NewAnalysis {
   createdById: string;
 }
 
+/** The rows of one analysis run and its findings, as inserted (the id is the caller's). */
+export function analysisRowsOf(params: NewAnalysis & { id: string }) {
+  const r = params.result;
+  const analysis: typeof analyses.$inferInsert & { id: string } = {
+    id: params.id,
+    organizationId: params.organizationId,
+    testId: params.testId,
+    version: params.version,
+    engineVersion: r.engineVersion,
+    options: params.options,
+    profile: r.profile,
+    result: r,
+    series: params.series,
+    verdict: r.verdict,
+    confidence: r.confidence,
+    isolationAt: r.isolationAt,
+    reason: params.reason ?? null,
+    createdById: params.createdById,
+  };
+  const findingRows: (typeof findings.$inferInsert)[] = r.findings.map((f) => ({
+    organizationId: params.organizationId,
+    analysisId: params.id,
+    testId: params.testId,
+    code: f.code,
+    severity: f.severity,
+    title: f.title,
+  }));
+  return { analysis, findings: findingRows };
+}
+
 /** Store one analysis run and its findings rows. */
 export async function insertAnalysis(db: Db, params: NewAnalysis) {
-  const r = params.result;
-  const [row] = await db
-    .insert(analyses)
-    .values({
-      ...(params.id ? { id: params.id } : {}),
-      organizationId: params.organizationId,
-      testId: params.testId,
-      version: params.version,
-      engineVersion: r.engineVersion,
-      options: params.options,
-      profile: r.profile,
-      result: r,
-      series: params.series,
-      verdict: r.verdict,
-      confidence: r.confidence,
-      isolationAt: r.isolationAt,
-      reason: params.reason ?? null,
-      createdById: params.createdById,
-    })
-    .returning({ id: analyses.id, version: analyses.version, createdAt: analyses.createdAt });
-  if (r.findings.length) {
-    await db.insert(findings).values(
-      r.findings.map((f) => ({
-        organizationId: params.organizationId,
-        analysisId: row.id,
-        testId: params.testId,
-        code: f.code,
-        severity: f.severity,
-        title: f.title,
-      })),
-    );
-  }
+  const rows = analysisRowsOf({ ...params, id: params.id ?? randomUUID() });
+  const [row] = await db.insert(analyses).values(rows.analysis).returning({ id: analyses.id, version: analyses.version, createdAt: analyses.createdAt });
+  if (rows.findings.length) await db.insert(findings).values(rows.findings);
   return row;
 }
 

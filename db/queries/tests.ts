@@ -1,6 +1,6 @@
 import { and, desc, eq, gte, lt, lte, or, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { analyses, idempotencyKeys, sites, systems, uploads, user, vacuumTests, jobs } from "@/db/schema";
+import { analyses, findings, idempotencyKeys, mailOutbox, sites, systems, testEvents, uploads, user, vacuumTests, jobs } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
 
 export type TestRow = typeof vacuumTests.$inferSelect;
@@ -10,6 +10,46 @@ export type NewTestRow = typeof vacuumTests.$inferInsert;
 export async function insertTest(db: Db, params: NewTestRow & { id: string; organizationId: string }) {
   const [row] = await db.insert(vacuumTests).values(params).returning();
   return row;
+}
+
+/** Everything a new test is written with; each id is the caller's, so rows can name each other. */
+export interface NewTestRows {
+  test: NewTestRow & { id: string; organizationId: string };
+  upload: typeof uploads.$inferInsert;
+  analysis: typeof analyses.$inferInsert & { id: string };
+  findings: (typeof findings.$inferInsert)[];
+  events: (typeof testEvents.$inferInsert)[];
+  mails: (typeof mailOutbox.$inferInsert & { id: string })[];
+  idempotencyKey: typeof idempotencyKeys.$inferInsert | null;
+}
+
+/**
+ * A new test and every row that goes with it, in one statement and one round trip: the test's
+ * INSERT … RETURNING carries the other INSERTs as data-modifying WITH queries. PostgreSQL runs
+ * each of them exactly once and to completion, checks the foreign keys between them at the end
+ * of the statement, and any error aborts the whole statement, so it is as atomic as the
+ * separate inserts were (PostgreSQL manual, "Data-Modifying Statements in WITH"). An
+ * Idempotency-Key already taken fails it with a unique violation (see isIdempotencyKeyTaken).
+ */
+export async function insertNewTestTogether(db: Db, rows: NewTestRows) {
+  const parts = [
+    db.$with("new_upload").as(db.insert(uploads).values(rows.upload)),
+    db.$with("new_analysis").as(db.insert(analyses).values(rows.analysis)),
+    ...(rows.findings.length ? [db.$with("new_findings").as(db.insert(findings).values(rows.findings))] : []),
+    ...(rows.events.length ? [db.$with("new_events").as(db.insert(testEvents).values(rows.events))] : []),
+    ...(rows.mails.length ? [db.$with("new_mail").as(db.insert(mailOutbox).values(rows.mails))] : []),
+    ...(rows.idempotencyKey ? [db.$with("new_key").as(db.insert(idempotencyKeys).values(rows.idempotencyKey))] : []),
+  ];
+  const [row] = await db.with(...parts).insert(vacuumTests).values(rows.test).returning();
+  return row;
+}
+
+/** The error of insertNewTestTogether when another request already holds its Idempotency-Key. */
+export function isIdempotencyKeyTaken(err: unknown): boolean {
+  for (let e = err as { code?: string; constraint?: string; cause?: unknown } | undefined; e; e = e.cause as typeof e) {
+    if (e.code === "23505" && e.constraint === "idempotency_keys_organization_id_key_pk") return true;
+  }
+  return false;
 }
 
 const detailColumns = {

@@ -6,8 +6,10 @@
  */
 import type { Database, Db } from "@/db/client";
 import { getTestById } from "@/db/queries/tests";
+import { randomUUID } from "node:crypto";
+import { getSiteById } from "@/db/queries/records";
 import {
-  insertTestEvent, listReviewerEmailsByOrganization, listTestsDueForReviewByOrganization, updateTestStatusById,
+  getUserEmailById, insertTestEvent, listReviewerEmailsByOrganization, listTestsDueForReviewByOrganization, updateTestStatusById, type NewTestEvent,
 } from "@/db/queries/review";
 import { reviewRequestedMail } from "@/lib/notify/messages";
 import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
@@ -29,9 +31,9 @@ function reasonsOf(due: { verdict: string | null; meetsProfile: boolean | null; 
 }
 
 /**
- * What the upload that just inserted a test knows of it, so the rule need not read it back. The
- * upload inserted it already in the status entersReviewOnUpload gives it, so only the audit event
- * and the e-mail remain. Names left undefined are read from the database for the leads' message.
+ * What the upload knows of a test it is about to insert, so the rule need not read it back: the
+ * upload inserts it already in the status entersReviewOnUpload gives it, with the rows of
+ * reviewRowsOfNewTest. Names left undefined are read from the database for the leads' message.
  */
 export interface KnownNewTest {
   verdict: string;
@@ -49,21 +51,38 @@ export function entersReviewOnUpload(k: KnownNewTest): boolean {
 }
 
 /**
- * Inside the caller's transaction: move the test into review if the rule says so (with `known`,
- * the upload already did) and queue the leads' e-mail. The caller delivers `mailIds` after commit.
+ * The rows the rule adds to a new test that the upload inserts straight into review: Riseline's
+ * audit event and the leads' e-mail, with their ids, for the caller to write in the same
+ * statement as the test (and to deliver after commit). Names the upload did not read are read here.
  */
-export async function queueNewTestForReview(
-  tx: Db,
-  params: { organizationId: string; testId: string; actorId: string | null; known?: KnownNewTest },
-): Promise<RoutedTest> {
-  const k = params.known;
-  const [due] = k
-    ? entersReviewOnUpload(k) ? [{ id: params.testId, verdict: k.verdict, meetsProfile: k.meetsProfile, helpRequested: k.helpRequested }] : []
-    : await listTestsDueForReviewByOrganization(tx, { organizationId: params.organizationId, testId: params.testId, limit: 1 });
+export async function reviewRowsOfNewTest(
+  db: Db,
+  params: { organizationId: string; testId: string; technicianId: string; siteId: string | null; known: KnownNewTest },
+) {
+  const { organizationId, testId, known: k } = params;
+  const reasons = reasonsOf(k);
+  const automatic = reasons.join("; ");
+  const event: NewTestEvent = {
+    organizationId, testId, actorId: null, kind: "review_requested", fromStatus: "submitted", toStatus: "waiting_review", note: `Automatic: ${automatic}.`,
+  };
+  const technicianName = k.technicianName ?? (await getUserEmailById(db, { organizationId, userId: params.technicianId }))?.name ?? "A technician";
+  const siteName = k.siteName !== undefined ? k.siteName : params.siteId ? ((await getSiteById(db, { organizationId, siteId: params.siteId }))?.name ?? null) : null;
+  const summary = { id: testId, title: k.title, verdict: k.verdict, technicianName, siteName };
+  const reviewers = await listReviewerEmailsByOrganization(db, { organizationId });
+  const mails = reviewers.map((to) => ({
+    ...reviewRequestedMail(to, summary, { by: null, help: k.helpRequested, automatic }), id: randomUUID(), organizationId, testId,
+  }));
+  return { reasons, event, mails };
+}
+
+/**
+ * Inside the caller's transaction: move a stored test into review if the rule says so and queue
+ * the leads' e-mail. The caller delivers `mailIds` after commit.
+ */
+export async function queueNewTestForReview(tx: Db, params: { organizationId: string; testId: string; actorId: string | null }): Promise<RoutedTest> {
+  const [due] = await listTestsDueForReviewByOrganization(tx, { organizationId: params.organizationId, testId: params.testId, limit: 1 });
   if (!due) return { routed: false, reasons: [], mailIds: [] };
-  const moved =
-    k !== undefined ||
-    (await updateTestStatusById(tx, { organizationId: params.organizationId, testId: due.id, fromStatus: "submitted", toStatus: "waiting_review" }));
+  const moved = await updateTestStatusById(tx, { organizationId: params.organizationId, testId: due.id, fromStatus: "submitted", toStatus: "waiting_review" });
   if (!moved) return { routed: false, reasons: [], mailIds: [] };
   const reasons = reasonsOf(due);
   const automatic = reasons.join("; ");
@@ -71,10 +90,7 @@ export async function queueNewTestForReview(
     organizationId: params.organizationId, testId: due.id, actorId: null, kind: "review_requested",
     fromStatus: "submitted", toStatus: "waiting_review", note: `Automatic: ${automatic}.`,
   });
-  const summary =
-    k && k.technicianName !== undefined && k.siteName !== undefined
-      ? { id: due.id, title: k.title, verdict: due.verdict, technicianName: k.technicianName, siteName: k.siteName }
-      : await namesForMail(tx, params.organizationId, params.actorId, due);
+  const summary = await namesForMail(tx, params.organizationId, params.actorId, due);
   const reviewers = await listReviewerEmailsByOrganization(tx, { organizationId: params.organizationId });
   const mailIds = await queueMail(
     tx,

@@ -12,14 +12,14 @@
  *  - newJob creates the visit inside that same transaction, so a retry never makes a second job
  *    and a failed upload leaves none behind. It needs records.manage (403 before anything runs).
  */
-import { entersReviewOnUpload, queueNewTestForReview } from "@/lib/review/auto";
+import { entersReviewOnUpload, reviewRowsOfNewTest } from "@/lib/review/auto";
 import { deliverWhenQuiet, uploadInProgress } from "@/lib/notify/when-quiet";
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
 import { getJobById, getSiteById, getSystemById, createJob, createSite, createSystem } from "@/db/queries/records";
-import { getIdempotencyKeyByKey, insertIdempotencyKey, insertTest, insertUpload, type TestDetailRow } from "@/db/queries/tests";
-import { insertAnalysis } from "@/db/queries/analyses";
+import { getIdempotencyKeyByKey, insertNewTestTogether, isIdempotencyKeyTaken, type NewTestRows, type TestDetailRow } from "@/db/queries/tests";
+import { analysisRowsOf } from "@/db/queries/analyses";
 import { AppError } from "@/lib/errors";
 import { can, type Role } from "@/lib/permissions";
 import { rawLogKey } from "@/lib/storage";
@@ -224,15 +224,16 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
         verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
         title: titleOf(input.metadata, input.filename, input.source), technicianName: who.name, siteName: names.siteName,
       };
-      const status = entersReviewOnUpload(known) ? "waiting_review" : "submitted";
-      const inserted = await persistNewTest(tx, { who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt, status });
-      if (input.idempotencyKey) {
-        const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: who.userId, testId });
-        if (!claimed) throw new KeyTaken();
-      }
-      const routed = await queueNewTestForReview(tx, { organizationId: org, testId, actorId: who.userId, known });
+      const review = entersReviewOnUpload(known)
+        ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known })
+        : null;
+      const rows = newTestRows({ who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt, review });
+      const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
+        throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
+      });
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
-      return { outcome: { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) }, mailIds: routed.mailIds };
+      const mailIds = rows.mails.map((m) => m.id);
+      return { outcome: { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) }, mailIds };
     },
     async () => {
       // Lost the race for the key: answer with the winner's test.
@@ -246,7 +247,7 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   return outcome;
 }
 
-interface PersistArgs {
+interface NewTestArgs {
   who: Uploader;
   input: UploadInput;
   testId: string;
@@ -260,53 +261,54 @@ interface PersistArgs {
   result: AnalysisResult;
   series: { t: number[]; p: number[] };
   testedAt: Date;
-  status: "submitted" | "waiting_review";
+  /** The rule's rows when the test goes straight into review; null: it is only submitted. */
+  review: Awaited<ReturnType<typeof reviewRowsOfNewTest>> | null;
 }
 
-async function persistNewTest(tx: Tx, a: PersistArgs) {
+/** Every row of a new test, for insertNewTestTogether. */
+function newTestRows(a: NewTestArgs): NewTestRows {
   const m = a.input.metadata;
   const org = a.who.organizationId;
-  const inserted = await insertTest(tx, {
-    id: a.testId,
-    organizationId: org,
-    createdById: a.who.userId,
-    jobId: a.jobId,
-    siteId: a.siteId,
-    systemId: a.systemId,
-    title: titleOf(m, a.input.filename, a.input.source),
-    source: a.input.source,
-    refrigerant: m.refrigerant ?? null,
-    lineSetFeet: m.lineSetFeet ?? null,
-    liquidOd: m.liquidOd ?? null,
-    suctionOd: m.suctionOd ?? null,
-    volumeLitres: m.volumeLitres ?? null,
-    ambientC: m.ambientC ?? null,
-    rigNote: m.rigNote ?? null,
-    notes: m.notes ?? null,
-    isPractice: m.isPractice,
-    verdict: a.result.verdict,
-    currentAnalysisId: a.analysisId,
-    status: a.status,
-    testedAt: a.testedAt,
+  const analysis = analysisRowsOf({
+    id: a.analysisId, organizationId: org, testId: a.testId, version: 1, options: a.options, result: a.result, series: a.series, createdById: a.who.userId,
   });
-  await insertUpload(tx, {
-    organizationId: org,
-    testId: a.testId,
-    objectKey: a.objectKey,
-    sha256: a.sha256,
-    sizeBytes: a.input.bytes.byteLength,
-    filename: a.input.filename,
-    contentType: a.input.contentType || "text/csv",
-  });
-  await insertAnalysis(tx, {
-    id: a.analysisId,
-    organizationId: org,
-    testId: a.testId,
-    version: 1,
-    options: a.options,
-    result: a.result,
-    series: a.series,
-    createdById: a.who.userId,
-  });
-  return inserted;
+  return {
+    test: {
+      id: a.testId,
+      organizationId: org,
+      createdById: a.who.userId,
+      jobId: a.jobId,
+      siteId: a.siteId,
+      systemId: a.systemId,
+      title: titleOf(m, a.input.filename, a.input.source),
+      source: a.input.source,
+      refrigerant: m.refrigerant ?? null,
+      lineSetFeet: m.lineSetFeet ?? null,
+      liquidOd: m.liquidOd ?? null,
+      suctionOd: m.suctionOd ?? null,
+      volumeLitres: m.volumeLitres ?? null,
+      ambientC: m.ambientC ?? null,
+      rigNote: m.rigNote ?? null,
+      notes: m.notes ?? null,
+      isPractice: m.isPractice,
+      verdict: a.result.verdict,
+      currentAnalysisId: a.analysisId,
+      status: a.review ? "waiting_review" : "submitted",
+      testedAt: a.testedAt,
+    },
+    upload: {
+      organizationId: org,
+      testId: a.testId,
+      objectKey: a.objectKey,
+      sha256: a.sha256,
+      sizeBytes: a.input.bytes.byteLength,
+      filename: a.input.filename,
+      contentType: a.input.contentType || "text/csv",
+    },
+    analysis: analysis.analysis,
+    findings: analysis.findings,
+    events: a.review ? [a.review.event] : [],
+    mails: a.review?.mails ?? [],
+    idempotencyKey: a.input.idempotencyKey ? { organizationId: org, key: a.input.idempotencyKey, userId: a.who.userId, testId: a.testId } : null,
+  };
 }
