@@ -214,7 +214,13 @@ for (let i = 0; i < SEQUENTIAL_UPLOADS; i++) one.push(await uploadOnce(cookie, u
 const cpu1 = cpuNow();
 const steal1 = stealMs();
 const many: number[] = [];
-for (let r = 0; r < CONCURRENT_ROUNDS; r++) many.push(...(await Promise.all(Array.from({ length: CONCURRENCY }, () => uploadOnce(cookie, upload)))));
+/** The slowest upload of each round of 20 at once: the first round also opens the pool's other connections. */
+const roundMax: number[] = [];
+for (let r = 0; r < CONCURRENT_ROUNDS; r++) {
+  const round = await Promise.all(Array.from({ length: CONCURRENCY }, () => uploadOnce(cookie, upload)));
+  roundMax.push(Math.max(...round));
+  many.push(...round);
+}
 const cpu2 = cpuNow();
 const stolen = stealMs() - steal1;
 const lastVerdictAt = performance.now();
@@ -237,6 +243,7 @@ const cpu3 = cpuNow();
 
 const a = summary("1 concurrent ", one);
 const b = summary(`${CONCURRENCY} concurrent`, many);
+console.log(`${CONCURRENCY} concurrent, slowest upload of each round: ${roundMax.map((ms) => ms.toFixed(0)).join(" / ")} ms`);
 cpuPerUpload("1 concurrent ", cpu0, cpu1, SEQUENTIAL_UPLOADS);
 cpuPerUpload(`${CONCURRENCY} concurrent`, cpu1, cpu2, CONCURRENCY * CONCURRENT_ROUNDS);
 const uploads = WARMUP_UPLOADS + SEQUENTIAL_UPLOADS + CONCURRENCY * CONCURRENT_ROUNDS;
