@@ -27,6 +27,11 @@ const schema = z.object({
   MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(32 * 1024 * 1024),
   /** Engine worker threads (lib/tests/engine-pool.ts); 0 analyses on the request thread; unset = one per core less one (at least 1, at most 4). */
   ENGINE_WORKERS: z.coerce.number().int().min(0).max(16).optional(),
+  /**
+   * Logs up to this size (kB) are analysed on the request thread, larger ones in a worker: handing
+   * a log to a worker costs more than analysing a small one (lib/tests/engine-pool.ts). 0: always a worker.
+   */
+  ENGINE_INLINE_MAX_KB: z.coerce.number().int().min(0).default(256),
   /** Longest one analysis may run in a worker before that worker is replaced and the upload fails cleanly. */
   ENGINE_TIMEOUT_MS: z.coerce.number().int().positive().default(60_000),
   /** "bundled": the worker entry Next.js built; "source": lib/tests/engine-worker.ts through tsx (vitest, scripts). */

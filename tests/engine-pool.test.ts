@@ -5,16 +5,22 @@
  */
 import { spawnSync } from "node:child_process";
 import { readFileSync } from "node:fs";
-import { afterAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { LogError } from "@/analysis/errors";
 import { AppError } from "@/lib/errors";
 import { runAnalysis } from "@/lib/tests/engine";
 import { Worker } from "node:worker_threads";
-import { analyseOffThread, closeEnginePool, engineMode, setEngineTimeoutForTests, setWorkerSpawnForTests } from "@/lib/tests/engine-pool";
+import {
+  analyseOffThread, closeEnginePool, engineMode, setEngineTimeoutForTests, setInlineMaxKbForTests, setWorkerSpawnForTests,
+} from "@/lib/tests/engine-pool";
 
 const golden = (name: string) => readFileSync(`fixtures/golden/${name}`, "utf8");
 
+// The golden logs are small: send every one to the pool (the inline size has its own test below).
+beforeAll(() => setInlineMaxKbForTests(0));
+
 afterAll(async () => {
+  setInlineMaxKbForTests(null);
   setEngineTimeoutForTests(null);
   setWorkerSpawnForTests(null);
   await closeEnginePool();
@@ -102,12 +108,37 @@ describe("engine worker pool", () => {
   it("lets a script exit by itself once its analyses are done: idle workers hold nothing open (our own contract)", () => {
     // The timeout is a hang guard, not a speed target: a pool that kept the process alive would be killed by it.
     const child = spawnSync(process.execPath, ["--import", "tsx", "tests/helpers/pool-exit.ts"], {
-      env: { ...process.env, ENGINE_WORKER_ENTRY: "source", ENGINE_WORKERS: "2" },
+      env: { ...process.env, ENGINE_WORKER_ENTRY: "source", ENGINE_WORKERS: "2", ENGINE_INLINE_MAX_KB: "0" },
       encoding: "utf8",
       timeout: 60_000,
     });
     expect(child.signal).toBeNull();
     expect(child.status).toBe(0);
     expect(child.stdout).toContain(`verdict=${runAnalysis(golden("layout-iso-pa.csv"), {}).result.verdict}`);
+  });
+
+  it("analyses a log up to the inline size on the calling thread and a larger one on a worker (our own contract)", async () => {
+    await closeEnginePool();
+    let spawned = 0;
+    setWorkerSpawnForTests(() => {
+      spawned++;
+      return new Worker(`require("tsx/cjs"); require(${JSON.stringify(`${process.cwd()}/lib/tests/engine-worker.ts`)});`, { eval: true });
+    });
+    const small = golden("layout-iso-pa.csv");
+    const large = golden("layout-datetime-mbar.csv"); // 15 kB against a 6 kB inline size
+    setInlineMaxKbForTests(Math.ceil(small.length / 1024));
+    try {
+      expect(large.length).toBeGreaterThan(Math.ceil(small.length / 1024) * 1024);
+      expect((await analyseOffThread(small, {})).result).toEqual(runAnalysis(small, {}).result);
+      expect(spawned).toBe(0);
+      expect(engineMode()).toBe("not started");
+      expect((await analyseOffThread(large, {})).result).toEqual(runAnalysis(large, {}).result);
+      expect(spawned).toBeGreaterThan(0);
+      expect(engineMode()).toBe("workers");
+    } finally {
+      setInlineMaxKbForTests(0);
+      setWorkerSpawnForTests(null);
+      await closeEnginePool();
+    }
   });
 });

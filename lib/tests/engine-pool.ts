@@ -4,6 +4,13 @@
  * core while the main thread keeps serving HTTP, the database and storage.
  *
  *  - Size: ENGINE_WORKERS (lib/env.ts); 0 runs the engine inline on the caller's thread.
+ *  - Small logs run inline anyway (ENGINE_INLINE_MAX_KB, default 256 kB). The engine takes about
+ *    6 ms per 100 kB of log on the 2-core machine, so a small log holds the event loop for a few
+ *    ms at most. Handing it to a worker cost more than that in bench:api: with a 104 kB log at 20
+ *    concurrent, server CPU per upload was 21–23 ms inline against 25–31 ms through the worker
+ *    (copying the log in and the run out, a second heap, and two threads contending for the
+ *    cores). A large log, up to the 32 MB upload limit, would hold the loop for seconds, so it
+ *    goes to a worker.
  *  - A LogError in the worker comes back as the same LogError (→ 422 with the importer's message).
  *  - A worker that dies or overruns ENGINE_TIMEOUT_MS fails only its own log with a clear error
  *    and is replaced; the others carry on. If workers keep failing without finishing a single
@@ -44,6 +51,7 @@ const MAX_FAILURES_IN_A_ROW = 5;
 
 let spawnOverride: (() => Worker) | null = null;
 let timeoutOverrideMs: number | null = null;
+let inlineMaxKbOverride: number | null = null;
 
 /** Test seam: how a worker is started (null restores the real one). */
 export function setWorkerSpawnForTests(spawn: (() => Worker) | null): void {
@@ -53,6 +61,16 @@ export function setWorkerSpawnForTests(spawn: (() => Worker) | null): void {
 /** Test seam: a shorter worker timeout (null restores ENGINE_TIMEOUT_MS). */
 export function setEngineTimeoutForTests(ms: number | null): void {
   timeoutOverrideMs = ms;
+}
+
+/** Test seam: the largest log analysed inline, in kB (0: every log goes to the pool); null restores ENGINE_INLINE_MAX_KB. */
+export function setInlineMaxKbForTests(kb: number | null): void {
+  inlineMaxKbOverride = kb;
+}
+
+/** A log small enough that analysing it here costs less than handing it to a worker. */
+function smallEnoughForInline(text: string): boolean {
+  return text.length <= (inlineMaxKbOverride ?? env().ENGINE_INLINE_MAX_KB) * 1024;
 }
 
 /**
@@ -188,8 +206,8 @@ function pump(): void {
 
 /**
  * Where analyses run now, for /api/health: "workers" once a worker has loaded its entry,
- * "starting" before that, "not started" before the first analysis, "inline" when the pool is
- * off (ENGINE_WORKERS=0) or gave up.
+ * "starting" before that, "not started" before the first log too large to analyse inline,
+ * "inline" when the pool is off (ENGINE_WORKERS=0) or gave up.
  */
 export function engineMode(): "workers" | "starting" | "not started" | "inline" {
   if (inlineOnly || engineWorkerCount() === 0) return "inline";
@@ -198,11 +216,11 @@ export function engineMode(): "workers" | "starting" | "not started" | "inline" 
 }
 
 /**
- * Analyse a log's text on the pool (or inline when ENGINE_WORKERS=0). Same contract as
- * runAnalysis: resolves with the run, rejects with LogError for an unreadable log.
+ * Analyse a log's text on the pool (inline when it is small, or when ENGINE_WORKERS=0). Same
+ * contract as runAnalysis: resolves with the run, rejects with LogError for an unreadable log.
  */
 export function analyseOffThread(text: string, options: AnalyzeOptions): Promise<EngineRun> {
-  if (inlineOnly || engineWorkerCount() === 0) return runInline(text, options);
+  if (inlineOnly || engineWorkerCount() === 0 || smallEnoughForInline(text)) return runInline(text, options);
   if (!pool()) return runInline(text, options);
   return new Promise<EngineRun>((resolve, reject) => {
     waiting.push({ request: { id: nextId++, text, options }, resolve, reject });

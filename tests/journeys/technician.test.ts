@@ -11,6 +11,7 @@ import { join } from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
 import { launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
+import { simulateLog } from "@/analysis/simulate";
 
 const SAMPLE_PASS = "fixtures/samples/sample-1-iso-microns.csv";
 const SAMPLE_LEAK = "fixtures/samples/sample-2-elapsed-mtorr.csv";
@@ -78,7 +79,13 @@ describe("technician on a phone", () => {
     await expect.poll(() => page.getByRole("link", { name: "Open the test page" }).getAttribute("href")).toMatch(/^\/tests\/[0-9a-f-]{36}$/);
     if (SHOTS) await page.screenshot({ path: "/tmp/tech-new-result-360.png", fullPage: true });
     expect(errors).toEqual([]);
-    // The built server analysed it on the engine's worker threads, not the inline fallback.
+    // A small log is analysed on the request thread; a three-hour 1 Hz log (over the 256 kB inline
+    // size) goes to the engine's worker threads, which the built server must be able to start.
+    const long = simulateLog({ scenario: "leak", seed: 11, sampleSeconds: 1, startInHold: true, holdMinutes: 180, layout: "iso" }).text;
+    expect(long.length).toBeGreaterThan(256 * 1024);
+    const posted = await page.request.post("/api/tests", { multipart: { file: { name: "three-hours.csv", mimeType: "text/csv", buffer: Buffer.from(long) } } });
+    expect(posted.status()).toBe(201);
+    expect((await posted.json()).analysis.verdict).toBe("leak");
     expect((await (await page.request.get("/api/health")).json()).engine).toBe("workers");
     await context.close();
   });
