@@ -13,7 +13,10 @@ const globalForDb = globalThis as unknown as { rlPool?: Pool; rlDb?: Database };
 /** One pool per process (survives hot reload in development). */
 export function db(): Database {
   if (!globalForDb.rlDb) {
-    globalForDb.rlPool = new Pool({ connectionString: env().DATABASE_URL, max: 10 });
+    // Idle connections are kept for 5 minutes (pg's default is 10 s), so a crew's next burst of
+    // uploads finds them open instead of starting new PostgreSQL backends; they never keep a
+    // script's process alive (allowExitOnIdle).
+    globalForDb.rlPool = new Pool({ connectionString: env().DATABASE_URL, max: 10, idleTimeoutMillis: 5 * 60_000, allowExitOnIdle: true });
     globalForDb.rlDb = drizzle(globalForDb.rlPool, { schema });
   }
   return globalForDb.rlDb;
