@@ -1,16 +1,16 @@
 /**
- * The analysis engine off the request thread: a small pool of worker threads, each running
- * runAnalysis (lib/tests/engine.ts) one log at a time, so uploads arriving together use every
- * core while the main thread keeps serving HTTP, the database and storage.
+ * The analysis engine, off the request thread for large logs: a small pool of worker threads, each
+ * running runAnalysis (lib/tests/engine.ts) one log at a time, so a long log never stalls the main
+ * thread while it serves HTTP, the database and storage.
  *
  *  - Size: ENGINE_WORKERS (lib/env.ts); 0 runs the engine inline on the caller's thread.
- *  - Small logs run inline anyway (ENGINE_INLINE_MAX_KB, default 256 kB). The engine takes about
- *    6 ms per 100 kB of log on the 2-core machine, so a small log holds the event loop for a few
- *    ms at most. Handing it to a worker cost more than that in bench:api: with a 104 kB log at 20
- *    concurrent, server CPU per upload was 21–23 ms inline against 25–31 ms through the worker
- *    (copying the log in and the run out, a second heap, and two threads contending for the
- *    cores). A large log, up to the 32 MB upload limit, would hold the loop for seconds, so it
- *    goes to a worker.
+ *  - Small logs run inline anyway (ENGINE_INLINE_MAX_KB, default 256 kB). On the 2-core machine
+ *    the engine takes 4–7 ms for a 104 kB log and 7–13 ms at 256 kB (its speed drifts), so a small
+ *    log holds the event loop briefly. Handing it to a worker cost more than that in bench:api:
+ *    with a 104 kB log at 20 concurrent, server CPU per upload was 23–25.5 ms inline against
+ *    26–31 ms through the worker, p95 560–583 against 611–686 ms, in alternating runs (copying the
+ *    log in and the run out, a second heap, two threads contending for the cores). A large log, up
+ *    to the 32 MB upload limit, would hold the loop for seconds, so it goes to a worker.
  *  - A LogError in the worker comes back as the same LogError (→ 422 with the importer's message).
  *  - A worker that dies or overruns ENGINE_TIMEOUT_MS fails only its own log with a clear error
  *    and is replaced; the others carry on. If workers keep failing without finishing a single
