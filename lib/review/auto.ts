@@ -60,11 +60,8 @@ export async function reviewRowsOfNewTest(
   params: { organizationId: string; testId: string; technicianId: string; siteId: string | null; known: KnownNewTest },
 ) {
   const { organizationId, testId, known: k } = params;
-  const reasons = reasonsOf(k);
-  const automatic = reasons.join("; ");
-  const event: NewTestEvent = {
-    organizationId, testId, actorId: null, kind: "review_requested", fromStatus: "submitted", toStatus: "waiting_review", note: `Automatic: ${automatic}.`,
-  };
+  const automatic = reasonsOf(k).join("; ");
+  const event = automaticReviewEvent(organizationId, testId, automatic);
   const technicianName = k.technicianName ?? (await getUserEmailById(db, { organizationId, userId: params.technicianId }))?.name ?? "A technician";
   const siteName = k.siteName !== undefined ? k.siteName : params.siteId ? ((await getSiteById(db, { organizationId, siteId: params.siteId }))?.name ?? null) : null;
   const summary = { id: testId, title: k.title, verdict: k.verdict, technicianName, siteName };
@@ -72,7 +69,12 @@ export async function reviewRowsOfNewTest(
   const mails = reviewers.map((to) => ({
     ...reviewRequestedMail(to, summary, { by: null, help: k.helpRequested, automatic }), id: randomUUID(), organizationId, testId,
   }));
-  return { reasons, event, mails };
+  return { event, mails };
+}
+
+/** Riseline's own entry in the audit trail when the rule moves a test into review. */
+function automaticReviewEvent(organizationId: string, testId: string, automatic: string): NewTestEvent {
+  return { organizationId, testId, actorId: null, kind: "review_requested", fromStatus: "submitted", toStatus: "waiting_review", note: `Automatic: ${automatic}.` };
 }
 
 /**
@@ -86,10 +88,7 @@ export async function queueNewTestForReview(tx: Db, params: { organizationId: st
   if (!moved) return { routed: false, reasons: [], mailIds: [] };
   const reasons = reasonsOf(due);
   const automatic = reasons.join("; ");
-  await insertTestEvent(tx, {
-    organizationId: params.organizationId, testId: due.id, actorId: null, kind: "review_requested",
-    fromStatus: "submitted", toStatus: "waiting_review", note: `Automatic: ${automatic}.`,
-  });
+  await insertTestEvent(tx, automaticReviewEvent(params.organizationId, due.id, automatic));
   const summary = await namesForMail(tx, params.organizationId, params.actorId, due);
   const reviewers = await listReviewerEmailsByOrganization(tx, { organizationId: params.organizationId });
   const mailIds = await queueMail(
