@@ -138,7 +138,7 @@ function cpuNow() {
   const self = process.cpuUsage();
   return {
     server: serverPid ? processCpuMs(serverPid) : NaN,
-    /** The server's main thread alone (its event loop; the engine runs on worker threads). */
+    /** The server's main thread alone (its event loop, which also analyses logs up to ENGINE_INLINE_MAX_KB). */
     serverMain: serverPid ? threadCpuMs(serverPid, serverPid) : NaN,
     postgres: postmasterPid ? processCpuMs(postmasterPid, true) + childrenOf(postmasterPid).reduce((t, c) => t + processCpuMs(c), 0) : NaN,
     fakes: fakesPid ? processCpuMs(fakesPid) : NaN,
