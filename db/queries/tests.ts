@@ -1,4 +1,5 @@
 import { and, desc, eq, gte, lt, lte, or, sql } from "drizzle-orm";
+import { getTableConfig } from "drizzle-orm/pg-core";
 import type { Db } from "@/db/client";
 import { analyses, findings, idempotencyKeys, mailOutbox, sites, systems, testEvents, uploads, user, vacuumTests, jobs } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
@@ -44,10 +45,13 @@ export async function insertNewTestTogether(db: Db, rows: NewTestRows) {
   return row;
 }
 
+/** The key's primary key as the schema names it (organization_id, key). */
+const idempotencyKeyConstraint = getTableConfig(idempotencyKeys).primaryKeys[0].getName();
+
 /** The error of insertNewTestTogether when another request already holds its Idempotency-Key. */
 export function isIdempotencyKeyTaken(err: unknown): boolean {
   for (let e = err as { code?: string; constraint?: string; cause?: unknown } | undefined; e; e = e.cause as typeof e) {
-    if (e.code === "23505" && e.constraint === "idempotency_keys_organization_id_key_pk") return true;
+    if (e.code === "23505" && e.constraint === idempotencyKeyConstraint) return true;
   }
   return false;
 }

@@ -52,7 +52,7 @@ function send(): void {
     .catch((err) => log.error("review mail not sent yet; left in the outbox", { err: String(err) }));
 }
 
-/** Queue committed outbox rows (ids from queueMail) to be sent at the next quiet moment. */
+/** Queue the ids of committed outbox rows to be sent at the next quiet moment. */
 export function deliverWhenQuiet(db: Database, ids: string[]): void {
   if (!ids.length) return;
   state.db = db;

@@ -220,14 +220,15 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
       const { siteId, systemId, jobId, names } = await checkRecords(tx, who, input.metadata, testedAt);
       // Not a pass, misses the profile or help asked: the test is inserted straight into the
       // lead's queue, and its audit event and the leads' e-mail are queued in the same commit.
+      const title = titleOf(input.metadata, input.filename, input.source);
       const known = {
         verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
-        title: titleOf(input.metadata, input.filename, input.source), technicianName: who.name, siteName: names.siteName,
+        title, technicianName: who.name, siteName: names.siteName,
       };
       const review = entersReviewOnUpload(known)
         ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known })
         : null;
-      const rows = newTestRows({ who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, options, result: run.result, series: run.series, testedAt, review });
+      const rows = newTestRows({ who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, title, options, result: run.result, series: run.series, testedAt, review });
       const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
         throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
       });
@@ -257,6 +258,7 @@ interface NewTestArgs {
   siteId: string | null;
   systemId: string | null;
   jobId: string | null;
+  title: string;
   options: AnalyzeOptions;
   result: AnalysisResult;
   series: { t: number[]; p: number[] };
@@ -280,7 +282,7 @@ function newTestRows(a: NewTestArgs): NewTestRows {
       jobId: a.jobId,
       siteId: a.siteId,
       systemId: a.systemId,
-      title: titleOf(m, a.input.filename, a.input.source),
+      title: a.title,
       source: a.input.source,
       refrigerant: m.refrigerant ?? null,
       lineSetFeet: m.lineSetFeet ?? null,
