@@ -11,10 +11,9 @@ cd "$(dirname "$0")/.."
 ensure_node_modules
 ensure_chromium || exit 1 # the first-load JavaScript is read in a real browser
 export NEXT_TELEMETRY_DISABLED=1
-PORT=${BENCH_PORT:-3300}
+PORT=${BENCH_PORT:-$(app_port bench)}
 ROOT=.data/bench
-bash scripts/services.sh stop bench >/dev/null 2>&1 || true # a run interrupted earlier
-rm -rf "$ROOT"
+bash scripts/services.sh reset bench >/dev/null 2>&1 || true # fresh data, and a run interrupted earlier
 mkdir -p "$ROOT/run"
 
 cleanup() {
@@ -48,5 +47,5 @@ setsid node ${SERVER_NODE_FLAGS:-} ./node_modules/next/dist/bin/next start -H 12
 echo $! >"$ROOT/run/next.pid"
 wait_for_url "http://127.0.0.1:$PORT/api/health" 90 || { tail -30 "$ROOT/next.log"; exit 1; }
 
-BENCH_PG_PID_FILE="$ROOT/pg/postmaster.pid" BENCH_FAKES_PID_FILE="$ROOT/run/fakes.pid" \
+BENCH_PG_PID_FILE="$(bash scripts/services.sh pgdata bench)/postmaster.pid" BENCH_FAKES_PID_FILE="$ROOT/run/fakes.pid" \
   ./node_modules/.bin/tsx scripts/bench-api.ts "http://127.0.0.1:$PORT"

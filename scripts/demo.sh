@@ -9,6 +9,7 @@ cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
 
 ensure_node_modules
+PORT=$(app_port demo)
 
 if [ ! -f .env ]; then
   say "Writing local configuration to .env (secrets generated here, never committed)"
@@ -16,8 +17,8 @@ if [ ! -f .env ]; then
     echo "RISELINE_MODE=demo"
     bash scripts/services.sh env demo
     echo "BETTER_AUTH_SECRET=$(random_secret)"
-    echo "BETTER_AUTH_URL=http://127.0.0.1:3000"
-    echo "TRUSTED_ORIGINS=http://localhost:3000"
+    echo "BETTER_AUTH_URL=http://127.0.0.1:$PORT"
+    echo "TRUSTED_ORIGINS=http://localhost:$PORT"
   } > .env
 fi
 
@@ -44,9 +45,9 @@ say "Building the app (next build)…"
 ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 || { tail -40 "$ROOT/build.log"; exit 1; }
 
 mkdir -p "$ROOT/run"
-setsid ./node_modules/.bin/next start -H 127.0.0.1 -p 3000 >"$ROOT/next.log" 2>&1 &
+setsid ./node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" >"$ROOT/next.log" 2>&1 &
 echo $! > "$ROOT/run/next.pid"
-wait_for_url http://127.0.0.1:3000/api/health 90 || { tail -30 "$ROOT/next.log"; exit 1; }
-say "Riseline is running on http://127.0.0.1:3000  (caught e-mails: http://127.0.0.1:3000/dev/mailbox)"
+wait_for_url "http://127.0.0.1:$PORT/api/health" 90 || { tail -30 "$ROOT/next.log"; exit 1; }
+say "Riseline is running on http://127.0.0.1:$PORT  (caught e-mails: http://127.0.0.1:$PORT/dev/mailbox)"
 say "Press Ctrl-C to stop."
 wait "$(cat "$ROOT/run/next.pid")" || true

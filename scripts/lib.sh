@@ -17,9 +17,24 @@ ensure_node_modules() {
 ensure_chromium() {
   if [ ! -x /usr/bin/chromium ]; then
     say "Installing Chromium from Debian's packages (browser journeys)…"
-    apt-get update -qq
-    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+    if [ "$(id -u)" = 0 ]; then
+      apt-get update -qq
+      DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+    elif sudo -n true 2>/dev/null; then
+      sudo apt-get update -qq
+      sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+    else
+      echo "Chromium is not installed and this user cannot install it: run 'apt-get install chromium' as root once." >&2
+      return 1
+    fi
   fi
+}
+
+# The app's port for a profile (3000 demo, 3100 test, 3200 dev, 3300 bench), moved by RISELINE_PORT_OFFSET.
+app_port() {
+  local base
+  case "$1" in demo) base=3000 ;; test) base=3100 ;; dev) base=3200 ;; bench) base=3300 ;; *) return 2 ;; esac
+  echo $((base + ${RISELINE_PORT_OFFSET:-0}))
 }
 
 random_secret() { head -c 48 /dev/urandom | base64 | tr -d '/+=\n' | head -c 48; }

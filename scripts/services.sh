@@ -1,7 +1,18 @@
 #!/usr/bin/env bash
 # Start or stop Riseline's local services for one profile, all on loopback.
 #   scripts/services.sh start demo|test|dev|bench     scripts/services.sh stop demo|test|dev|bench
+#   scripts/services.sh env demo|test|dev|bench       (prints the connection settings)
+#   scripts/services.sh reset PROFILE                 (stops it and deletes its data)
 # PostgreSQL comes from Debian's package; s3rver and the SMTP catcher run in scripts/fakes.mjs.
+#
+# RISELINE_PORT_OFFSET (default 0, a multiple of 1000) moves every port of every profile, so two
+# checkouts on one machine can run their suites side by side.
+#
+# Where PostgreSQL keeps its data: PostgreSQL refuses to run as root. Run as root, the server runs
+# as Debian's `postgres` user, which cannot enter a checkout in a private folder (mode 0700, as
+# `mktemp -d` makes and as root's home is); so its data directory, socket and log then live under
+# that user's own home, /var/lib/postgresql/riseline/<checkout id>/<profile>. Run as anyone else,
+# the server runs as that user, with its data inside the checkout (.data/<profile>/pg).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 action=${1:?start|stop}
@@ -14,17 +25,36 @@ case "$profile" in
   bench) PG_PORT=54359; S3_PORT=4599; SMTP_PORT=2555 ;;
   *) echo "unknown profile $profile" >&2; exit 2 ;;
 esac
+OFFSET=${RISELINE_PORT_OFFSET:-0}
+PG_PORT=$((PG_PORT + OFFSET)); S3_PORT=$((S3_PORT + OFFSET)); SMTP_PORT=$((SMTP_PORT + OFFSET))
 ROOT="$PWD/.data/$profile"
-PGDATA="$ROOT/pg"
-SOCKDIR="$ROOT/run"
 PGBIN=/usr/lib/postgresql/15/bin
 BUCKET="riseline-$profile"
+if [ "$(id -u)" = 0 ]; then
+  PG_HOME="/var/lib/postgresql/riseline/$(printf '%s' "$PWD" | sha256sum | cut -c1-12)/$profile"
+else
+  PG_HOME="$ROOT"
+fi
+PGDATA="$PG_HOME/pg"
+SOCKDIR="$PG_HOME/run"
+PGLOG="$PG_HOME/pg.log"
+
+# Runs a PostgreSQL binary as the user the server runs as (see the top of this file).
+as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
 
 ensure_postgres_installed() {
   if [ ! -x "$PGBIN/postgres" ]; then
     echo "• Installing PostgreSQL from Debian's packages…"
-    apt-get update -qq
-    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq postgresql >/dev/null
+    if [ "$(id -u)" = 0 ]; then
+      apt-get update -qq
+      DEBIAN_FRONTEND=noninteractive apt-get install -y -qq postgresql >/dev/null
+    elif sudo -n true 2>/dev/null; then
+      sudo apt-get update -qq
+      sudo DEBIAN_FRONTEND=noninteractive apt-get install -y -qq postgresql >/dev/null
+    else
+      echo "PostgreSQL 15 is not installed and this user cannot install it: run 'apt-get install postgresql' as root once." >&2
+      exit 1
+    fi
   fi
   # Debian's package starts a cluster of its own; we use a private one, so stop that.
   if command -v pg_lsclusters >/dev/null && pg_lsclusters -h 2>/dev/null | grep -q online; then
@@ -32,19 +62,23 @@ ensure_postgres_installed() {
   fi
 }
 
-pg_running() { [ -f "$PGDATA/postmaster.pid" ] && runuser -u postgres -- "$PGBIN/pg_ctl" -D "$PGDATA" status >/dev/null 2>&1; }
+pg_running() { [ -f "$PGDATA/postmaster.pid" ] && as_pg "$PGBIN/pg_ctl" -D "$PGDATA" status >/dev/null 2>&1; }
 
 start_pg() {
   ensure_postgres_installed
-  mkdir -p "$ROOT" "$SOCKDIR"
-  chgrp postgres "$SOCKDIR" && chmod 775 "$SOCKDIR"
-  if [ ! -f "$PGDATA/PG_VERSION" ]; then
-    install -d -o postgres -g postgres -m 700 "$PGDATA"
-    runuser -u postgres -- "$PGBIN/initdb" -D "$PGDATA" -U postgres --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null
+  mkdir -p "$ROOT"
+  if [ "$(id -u)" = 0 ]; then
+    install -d -o postgres -g postgres -m 700 "$PG_HOME" "$PGDATA" "$SOCKDIR"
+    touch "$PGLOG" && chown postgres "$PGLOG"
+    ln -sfn "$PG_HOME" "$ROOT/postgres" # where to look for the server's data and log
+  else
+    install -d -m 700 "$PGDATA" "$SOCKDIR"
   fi
-  touch "$ROOT/pg.log" && chown postgres "$ROOT/pg.log"
+  if [ ! -f "$PGDATA/PG_VERSION" ]; then
+    as_pg "$PGBIN/initdb" -D "$PGDATA" -U postgres --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null
+  fi
   if ! pg_running; then
-    runuser -u postgres -- "$PGBIN/pg_ctl" -D "$PGDATA" -l "$ROOT/pg.log" -w \
+    as_pg "$PGBIN/pg_ctl" -D "$PGDATA" -l "$PGLOG" -w \
       -o "-c listen_addresses=127.0.0.1 -c port=$PG_PORT -c unix_socket_directories=$SOCKDIR -c fsync=off" start >/dev/null
   fi
   for _ in $(seq 1 30); do pg_isready -q -h 127.0.0.1 -p "$PG_PORT" -U postgres && break; sleep 0.5; done
@@ -53,7 +87,7 @@ start_pg() {
 }
 
 stop_pg() {
-  if pg_running; then runuser -u postgres -- "$PGBIN/pg_ctl" -D "$PGDATA" -m fast -w stop >/dev/null || true; fi
+  if pg_running; then as_pg "$PGBIN/pg_ctl" -D "$PGDATA" -m fast -w stop >/dev/null || true; fi
 }
 
 start_fakes() {
@@ -91,5 +125,7 @@ SMTP_PORT=$SMTP_PORT
 MAILBOX_DIR=$ROOT/mail
 ENV
     ;;
+  pgdata) echo "$PGDATA" ;;
+  reset) stop_fakes; stop_pg; rm -rf "$PG_HOME" "$ROOT" ;;
   *) echo "unknown action $action" >&2; exit 2 ;;
 esac

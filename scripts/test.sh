@@ -11,6 +11,7 @@ ensure_node_modules || exit 1
 ensure_chromium || exit 1
 
 ROOT=.data/test
+PORT=$(app_port test)
 cleanup() {
   stop_group "$ROOT/run/next.pid"
   bash scripts/services.sh stop test
@@ -22,13 +23,14 @@ trap 'exit 130' INT TERM
 bash scripts/services.sh stop test >/dev/null 2>&1 || true
 rm -rf "$ROOT/s3" "$ROOT/mail" "$ROOT"/*.json
 bash scripts/services.sh start test || exit 1
-psql -q -h 127.0.0.1 -p 54339 -U postgres -c "DROP DATABASE IF EXISTS riseline WITH (FORCE)" -c "CREATE DATABASE riseline" postgres >/dev/null || exit 1
+eval "$(bash scripts/services.sh env test)"
+psql -q "${DATABASE_URL%/riseline}/postgres" -c "DROP DATABASE IF EXISTS riseline WITH (FORCE)" -c "CREATE DATABASE riseline" >/dev/null || exit 1
 
 set -a
 eval "$(bash scripts/services.sh env test)"
 RISELINE_MODE=test
 BETTER_AUTH_SECRET=$(random_secret)
-BETTER_AUTH_URL=http://127.0.0.1:3100
+BETTER_AUTH_URL=http://127.0.0.1:$PORT
 AUTH_RATE_LIMIT=off
 set +a
 
@@ -48,9 +50,9 @@ step "Unit and integration tests" ./node_modules/.bin/vitest run --config tests/
 say "Production build for the journeys"
 if ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1; then
   mkdir -p "$ROOT/run"
-  setsid ./node_modules/.bin/next start -H 127.0.0.1 -p 3100 >"$ROOT/next.log" 2>&1 &
+  setsid ./node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" >"$ROOT/next.log" 2>&1 &
   echo $! >"$ROOT/run/next.pid"
-  if wait_for_url http://127.0.0.1:3100/api/health 90; then
+  if wait_for_url "http://127.0.0.1:$PORT/api/health" 90; then
     step "Browser journeys (Chromium)" ./node_modules/.bin/vitest run --config tests/journeys/vitest.config.ts \
       --reporter=default --reporter=json --outputFile.json="$ROOT/journeys.json"
   else
