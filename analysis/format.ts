@@ -20,3 +20,27 @@ export function groupedInteger(n: number): string {
   }
   return n < 0 ? "-" + out : out;
 }
+
+/**
+ * A duration in words for a phone screen, the one formatter every screen uses: "45 s",
+ * "12 min", "12 min 5 s", "1 h", "1 h 05 min", "26 h 10 min"; a negative duration gets "−".
+ * Method: round once to the unit shown last (whole seconds under an hour, whole minutes from an
+ * hour on), then split the rounded total, so a part never reaches its carry ("59 min 60 s" and
+ * "1 h 60 min" cannot occur: 3,599.6 s is "1 h", 7,170 s is "2 h"). Not finite → "—".
+ */
+export function durationWords(seconds: number): string {
+  if (!Number.isFinite(seconds)) return "—";
+  const sign = seconds < 0 ? "−" : "";
+  const abs = Math.abs(seconds);
+  const totalSeconds = Math.round(abs);
+  if (totalSeconds < 3600) {
+    if (totalSeconds < 60) return `${sign}${totalSeconds} s`;
+    const m = Math.floor(totalSeconds / 60);
+    const s = totalSeconds % 60;
+    return `${sign}${m} min${s ? ` ${s} s` : ""}`;
+  }
+  const totalMinutes = Math.round(abs / 60);
+  const h = Math.floor(totalMinutes / 60);
+  const m = totalMinutes % 60;
+  return `${sign}${h} h${m ? ` ${String(m).padStart(2, "0")} min` : ""}`;
+}

@@ -2,6 +2,7 @@
  * What the decay chart draws, computed from the server's analysis and the stored series.
  * Pure functions, no chart library: x is minutes from the first data row, y is microns.
  */
+import { durationWords } from "@/analysis/format";
 import type { AnalysisResult, Hold, ModelFit } from "@/analysis/types";
 
 export interface XY {
@@ -127,20 +128,8 @@ export function buildCurve(analysis: AnalysisResult, series: { t: number[]; p: n
   };
 }
 
-/** "1 h 05 min", "12 min 30 s", "45 s". */
-export function durationWords(seconds: number): string {
-  if (!Number.isFinite(seconds)) return "—";
-  const s = Math.round(Math.abs(seconds));
-  if (s < 60) return `${s} s`;
-  if (s < 3600) {
-    const m = Math.floor(s / 60);
-    const r = s % 60;
-    return r ? `${m} min ${r} s` : `${m} min`;
-  }
-  const h = Math.floor(s / 3600);
-  const m = Math.round((s % 3600) / 60);
-  return `${h} h ${String(m).padStart(2, "0")} min`;
-}
+/** "1 h 05 min", "12 min 30 s", "45 s": the shared formatter (analysis/format.ts). */
+export { durationWords };
 
 /** 1234.5 → "1,235". */
 export function microns(value: number | null | undefined): string {

@@ -140,7 +140,7 @@ export default function SeriesChart({ series, markers = [], yScale = "log", xTit
         plugins: {
           tooltip: {
             callbacks: {
-              title: (items) => (items[0] ? `${items[0].parsed.x! < 0 ? "−" : ""}${durationWords(items[0].parsed.x! * 60)}` : ""),
+              title: (items) => (items[0] ? durationWords(items[0].parsed.x! * 60) : ""),
               label: (item) => `${item.dataset.label}: ${microns(item.parsed.y)} microns`,
             },
           },

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { leakRateFromRise, systemVolumeLitres, tubeLitresPerFoot } from "@/analysis/volume";
+import { ACR_TUBE, leakRateFromRise, systemVolumeLitres, temperOf, tubeInsideDiameterIn, tubeLitresPerFoot } from "@/analysis/volume";
+import { TUBE_ODS } from "@/lib/tests/schemas";
 import { LogError } from "@/analysis/errors";
 
 describe("tubeLitresPerFoot — ACR copper tube", () => {
@@ -22,9 +23,50 @@ describe("tubeLitresPerFoot — ACR copper tube", () => {
       expect(Math.abs(tubeLitresPerFoot(od, temper) * 1000 - mlPerFoot)).toBeLessThanOrEqual(0.005);
     });
   }
+  it("1/4 in drawn has a 0.025 in wall, so a 0.200 in bore and 6.18 mL/ft (ASTM B280-20 Table 1, straight lengths; volume computed)", () => {
+    expect(tubeInsideDiameterIn("1/4", "drawn")).toBeCloseTo(0.2, 12);
+    // π/4 × 0.200² × 12 in³ × 16.387064 mL/in³ = 6.1779 mL.
+    expect(Math.abs(tubeLitresPerFoot("1/4", "drawn") * 1000 - 6.1779)).toBeLessThan(0.0005);
+  });
+
+  // Inside diameters as the standard prints them (three decimals): drawn from B280-20 Table 1 (OD − 2 × wall),
+  // annealed coils from the coil table as transcribed in CHECK-VALUES.md and secondary references.
+  const published: Record<string, Partial<Record<"annealed" | "drawn", number>>> = {
+    "1/4": { annealed: 0.19, drawn: 0.2 },
+    "5/16": { annealed: 0.248 },
+    "3/8": { annealed: 0.311, drawn: 0.315 },
+    "1/2": { annealed: 0.436, drawn: 0.43 },
+    "5/8": { annealed: 0.555, drawn: 0.545 },
+    "3/4": { annealed: 0.68, drawn: 0.666 },
+    "7/8": { annealed: 0.785, drawn: 0.785 },
+    "1-1/8": { annealed: 1.025, drawn: 1.025 },
+    "1-3/8": { annealed: 1.265, drawn: 1.265 },
+    "1-5/8": { drawn: 1.505 },
+    "2-1/8": { drawn: 1.985 },
+  };
+  it("every size the forms offer is in the table, with the standard's bore in every temper it is made in (ASTM B280)", () => {
+    expect(Object.keys(ACR_TUBE).sort()).toEqual([...TUBE_ODS].sort());
+    for (const od of TUBE_ODS) {
+      const made = published[od];
+      expect(made, od).toBeDefined();
+      for (const temper of ["annealed", "drawn"] as const) {
+        const id = made![temper];
+        if (id === undefined) continue;
+        // The standard prints three decimals: half of 0.001 in.
+        expect(Math.abs(tubeInsideDiameterIn(od, temper) - id), `${od} ${temper}`).toBeLessThanOrEqual(0.0005 + 1e-12);
+      }
+    }
+  });
+
+  it("a size made in one temper only uses it: 5/16 is coils, 2-1/8 straight lengths (ASTM B280 tables)", () => {
+    expect(temperOf("5/16", "drawn")).toBe("annealed");
+    expect(temperOf("2-1/8")).toBe("drawn");
+    expect(tubeLitresPerFoot("2-1/8")).toBe(tubeLitresPerFoot("2-1/8", "drawn"));
+  });
+
   it("defaults to annealed and rejects a size not in the table with LogError invalid_option (common practice, no published source)", () => {
     expect(tubeLitresPerFoot("3/8")).toBe(tubeLitresPerFoot("3/8", "annealed"));
-    expect(() => tubeLitresPerFoot("5/16")).toThrow(LogError);
+    expect(() => tubeLitresPerFoot("9/16")).toThrow(LogError);
   });
 });
 
