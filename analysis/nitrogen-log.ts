@@ -1,48 +1,53 @@
 /**
  * A pressure logger's CSV from a nitrogen standing-pressure test → gauge readings over time.
  *
- * Units are read with the importer's `parsePressureUnit`, which tells gauge units (psig, kPa g,
- * barg) from absolute ones (psia, kPa, mbar…). Absolute readings become gauge readings by
- * subtracting the atmosphere (entered, or the standard 101325 Pa). "psi" or "bar" alone does not
- * say which: the caller must tell (`ambiguousAs`), or the log is refused.
+ * The pressure unit and whether it is gauge or absolute come from the column header
+ * (`nitrogen-units.ts`: psig, kPa g, bar (g) are gauge; psia, kPa abs, bara absolute). A header
+ * that names only the unit (kPa, mbar, Pa, psi, bar) is never guessed: the caller passes the
+ * technician's answer (`ambiguousAs`) or the log is refused with the column named. Absolute
+ * readings become gauge by subtracting the atmosphere (entered, or the standard 101325 Pa).
  */
 import Papa from "papaparse";
 import { LogError } from "./errors";
-import { namesAmbiguousUnit, PA_PER_UNIT, parsePressureUnit, unitTokens } from "./units";
+import { unitTokens } from "./units";
 import { STANDARD_ATMOSPHERE, type NitrogenPressureUnit, type NitrogenReading, type TemperatureUnit } from "./nitrogen";
+import { namesVacuumUnit, readNitrogenHeaderUnit, type NitrogenHeaderUnit, type PressureReference } from "./nitrogen-units";
 
 export interface NitrogenLogOptions {
   /** Local atmosphere in the absolute unit that goes with the log's gauge unit (psia, kPa or bar). */
   atmosphereAbs?: number;
-  /** How to read a bare "psi" or "bar" header. */
-  ambiguousAs?: "gauge" | "absolute";
+  /** The technician's answer for a header that does not say gauge or absolute. */
+  ambiguousAs?: PressureReference;
   /** Temperature unit when the header does not say. */
   temperatureUnit?: TemperatureUnit;
 }
 
 export interface NitrogenLog {
   unit: NitrogenPressureUnit;
-  /** The unit as the file named it ("psia", "kPa g"…). */
+  /** The pressure column's header as the file wrote it ("Pressure (kPa g)"). */
   sourceUnitText: string;
+  /** Whether the file's readings are gauge or absolute, and who said so. */
+  readingsAre: PressureReference;
+  referenceFrom: "header" | "technician";
   /** True when the file was in absolute units and the atmosphere was subtracted. */
   convertedFromAbsolute: boolean;
   atmosphereAbs: number;
   tSeconds: number[];
   pressureGauge: number[];
+  /** 1-based file line of each reading (to name where the highest one is). */
+  lines: number[];
+  /** Clock time of the first reading (ms since the epoch) when the log's time column is a date and time. */
+  startedAtMs: number | null;
   temperatureUnit: TemperatureUnit | null;
   temperature: number[] | null;
   assumptions: string[];
 }
 
-/** Pa in one unit of the absolute scales that map onto each gauge family. */
-const ABS_FAMILY: Record<string, { unit: NitrogenPressureUnit; paPerUnit: number }> = {
-  psia: { unit: "psig", paPerUnit: PA_PER_UNIT.psia },
-  kpa: { unit: "kpa_gauge", paPerUnit: 1000 },
-  pa: { unit: "kpa_gauge", paPerUnit: 1 },
-  mbar: { unit: "kpa_gauge", paPerUnit: 100 },
-  hpa: { unit: "kpa_gauge", paPerUnit: 100 },
-};
-const FAMILY_PA: Record<NitrogenPressureUnit, number> = { psig: PA_PER_UNIT.psia, kpa_gauge: 1000, bar_gauge: 1e5 };
+/** The pressure column a log's header names, before any reading: what the form asks about. */
+export interface NitrogenLogHeader {
+  column: string;
+  unit: NitrogenHeaderUnit;
+}
 
 function num(cell: string | undefined): number {
   if (cell === undefined) return NaN;
@@ -65,44 +70,66 @@ function temperatureUnitOf(h: string): TemperatureUnit | null {
   return null;
 }
 
-/**
- * Read a logger CSV of a nitrogen test: a time column, a pressure column with its unit in the
- * header, and optionally a temperature column. Throws LogError with the line and column.
- */
-export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}): NitrogenLog {
+function parseRows(text: string): { rows: string[][]; headerIndex: number; header: string[] } {
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   if (text.trim() === "") throw new LogError("empty_file", "the file is empty");
   const rows = Papa.parse<string[]>(text.trim(), { header: false, skipEmptyLines: true }).data;
   const headerIndex = rows.findIndex((r) => r.some((c) => /[a-z]/i.test(c)) && r.length >= 2);
   if (headerIndex < 0) throw new LogError("no_header", "no header row with column names was found");
-  const header = rows[headerIndex].map((h) => h.trim());
-  const assumptions: string[] = [];
+  return { rows, headerIndex, header: rows[headerIndex].map((h) => h.trim()) };
+}
 
-  let pIdx = -1;
-  let pUnit: { unit: NitrogenPressureUnit; paPerUnit: number; absolute: boolean; text: string } | null = null;
-  for (let i = 0; i < header.length && pIdx < 0; i++) {
+function findPressureColumn(header: string[]): { index: number; unit: NitrogenHeaderUnit } {
+  for (let i = 0; i < header.length; i++) {
     const h = header[i];
-    const parsed = parsePressureUnit(h);
-    if (parsed?.gauge) {
-      if (parsed.gaugeUnit === "inhg_vacuum") throw new LogError("unknown_unit", `column '${h}': inches of mercury vacuum is a vacuum reading, not a nitrogen test pressure`, { column: h });
-      pIdx = i;
-      pUnit = { unit: parsed.gaugeUnit, paPerUnit: FAMILY_PA[parsed.gaugeUnit], absolute: false, text: h };
-    } else if (parsed && ABS_FAMILY[parsed.unit]) {
-      pIdx = i;
-      pUnit = { ...ABS_FAMILY[parsed.unit], absolute: true, text: h };
-    } else {
-      const amb = namesAmbiguousUnit(h);
-      if (amb) {
-        if (!options.ambiguousAs)
-          throw new LogError("unknown_unit", `column '${h}': '${amb}' does not say gauge or absolute; choose which the logger records`, { column: h });
-        const unit: NitrogenPressureUnit = amb === "psi" ? "psig" : "bar_gauge";
-        pIdx = i;
-        pUnit = { unit, paPerUnit: FAMILY_PA[unit], absolute: options.ambiguousAs === "absolute", text: h };
-        assumptions.push(`'${amb}' read as ${options.ambiguousAs}, as chosen`);
-      }
+    if (isTemperatureHeader(h) && !/press/i.test(h)) continue;
+    let unit: NitrogenHeaderUnit | null;
+    try {
+      unit = readNitrogenHeaderUnit(h);
+    } catch (err) {
+      throw new LogError("unknown_unit", (err as Error).message, { column: h });
     }
+    if (unit) return { index: i, unit };
   }
-  if (pIdx < 0 || !pUnit) throw new LogError("no_pressure_column", `no column names a pressure unit (psig, psia, kPa g, kPa, bar g…): columns are ${header.join(", ")}`);
+  const vacuum = header.find(namesVacuumUnit);
+  if (vacuum) throw new LogError("unknown_unit", `column '${vacuum}' is a vacuum unit, not a nitrogen test pressure (psig, kPa g, bar g…)`, { column: vacuum });
+  throw new LogError("no_pressure_column", `no column names a pressure unit (psig, psia, kPa g, kPa abs, bar g…): columns are ${header.join(", ")}`);
+}
+
+/**
+ * The pressure column of a log and what its header says (gauge, absolute, or silent), read from
+ * the header alone, so a form can ask the technician before reading the readings.
+ */
+export function inspectNitrogenLogHeader(text: string): NitrogenLogHeader {
+  const { header } = parseRows(text);
+  const { index, unit } = findPressureColumn(header);
+  return { column: header[index], unit };
+}
+
+/**
+ * Read a logger CSV of a nitrogen test: a time column, a pressure column with its unit in the
+ * header, and optionally a temperature column. Throws LogError with the line and column.
+ */
+export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}): NitrogenLog {
+  const { rows, headerIndex, header } = parseRows(text);
+  const assumptions: string[] = [];
+  const { index: pIdx, unit } = findPressureColumn(header);
+  const pHeader = header[pIdx];
+  let readingsAre: PressureReference;
+  let referenceFrom: NitrogenLog["referenceFrom"];
+  if (unit.reference) {
+    readingsAre = unit.reference;
+    referenceFrom = "header";
+    if (options.ambiguousAs && options.ambiguousAs !== unit.reference)
+      assumptions.push(`The header '${pHeader}' says ${unit.reference}; the choice '${options.ambiguousAs}' was not used.`);
+  } else if (options.ambiguousAs) {
+    readingsAre = options.ambiguousAs;
+    referenceFrom = "technician";
+    assumptions.push(`'${pHeader}' does not say gauge or absolute: read as ${options.ambiguousAs}, as the technician chose.`);
+  } else {
+    throw new LogError("unknown_unit", `column '${pHeader}': ${unit.unitWord} does not say gauge or absolute; choose which the logger records`, { column: pHeader });
+  }
+  if (unit.toFamily !== 1) assumptions.push(`Readings in ${unit.unitWord} are shown in ${unit.family === "kpa_gauge" ? "kPa" : unit.family}.`);
 
   const tIdx = header.findIndex((h, i) => i !== pIdx && isTimeHeader(h));
   if (tIdx < 0) throw new LogError("no_time_column", `no time column: columns are ${header.join(", ")}`);
@@ -113,13 +140,15 @@ export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}):
     if (!temperatureUnit) throw new LogError("unknown_unit", `column '${header[tempIdx]}': say whether the temperature is °F or °C`, { column: header[tempIdx] });
   }
 
-  const atmosphereAbs = options.atmosphereAbs ?? STANDARD_ATMOSPHERE[pUnit.unit];
-  const toFamily = pUnit.paPerUnit / FAMILY_PA[pUnit.unit];
+  const absolute = readingsAre === "absolute";
+  const atmosphereAbs = options.atmosphereAbs ?? STANDARD_ATMOSPHERE[unit.family];
   const minutes = /min/i.test(header[tIdx]);
   const tSeconds: number[] = [];
   const pressureGauge: number[] = [];
+  const lines: number[] = [];
   const temperature: number[] = [];
   let t0: number | null = null;
+  let startedAtMs: number | null = null;
   for (let r = headerIndex + 1; r < rows.length; r++) {
     const row = rows[r];
     const line = r + 1;
@@ -132,22 +161,28 @@ export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}):
       const ms = Date.parse(cell.replace(" ", "T"));
       if (!Number.isFinite(ms)) throw new LogError("bad_time", `line ${line}: time '${cell.slice(0, 40)}' is not a time`, { line, column: header[tIdx] });
       t = ms / 1000;
+      if (t0 === null) startedAtMs = ms;
     }
     t0 ??= t;
     tSeconds.push(t - t0);
-    const inFamily = rawP * toFamily;
-    pressureGauge.push(pUnit.absolute ? inFamily - atmosphereAbs : inFamily);
+    lines.push(line);
+    const inFamily = rawP * unit.toFamily;
+    pressureGauge.push(absolute ? inFamily - atmosphereAbs : inFamily);
     if (tempIdx >= 0) temperature.push(num(row[tempIdx]));
   }
   if (pressureGauge.length < 2) throw new LogError("too_few_readings", `only ${pressureGauge.length} usable reading(s); at least 2 are needed`);
-  if (pUnit.absolute) assumptions.push(`absolute readings turned into gauge by subtracting the atmosphere (${atmosphereAbs})`);
+  if (absolute) assumptions.push(`Absolute readings turned into gauge by subtracting the atmosphere (${atmosphereAbs}).`);
   return {
-    unit: pUnit.unit,
-    sourceUnitText: pUnit.text,
-    convertedFromAbsolute: pUnit.absolute,
+    unit: unit.family,
+    sourceUnitText: pHeader,
+    readingsAre,
+    referenceFrom,
+    convertedFromAbsolute: absolute,
     atmosphereAbs,
     tSeconds,
     pressureGauge,
+    lines,
+    startedAtMs,
     temperatureUnit,
     temperature: tempIdx >= 0 ? temperature : null,
     assumptions,

@@ -15,11 +15,27 @@
  *   uncertainty (default ±1 °F / ±0.5 °C; effect = P2,abs · ΔT / T2,abs)
  * of the expected end "holds"; lower "drops" (a leak beyond what temperature explains); higher
  * "rises" (check the thermometer, where it was placed, and that the regulator was closed off).
+ *
+ * Over-pressure: every reading of the test (each row of a log, each typed reading, the start and
+ * the end) is compared with the system's rated test pressure. Any reading above it makes the
+ * result "stopped" whatever the temperature comparison says: the system was taken above what its
+ * parts are rated for, and the record says so with the highest reading and when it was.
+ *
+ * Rate of change: the measured end minus the temperature-corrected expected end, divided by the
+ * test's duration in hours (gauge unit per hour; negative = falling beyond what temperature explains).
  */
+import { checkAtmosphere, type AtmosphereUnit } from "./atmosphere";
+import { durationWords } from "./format";
 
 export type NitrogenPressureUnit = "psig" | "kpa_gauge" | "bar_gauge";
 export type TemperatureUnit = "F" | "C";
-export type NitrogenVerdict = "holds" | "drops" | "rises";
+/** What the temperature comparison says. */
+export type TemperatureVerdict = "holds" | "drops" | "rises";
+/** The result: the temperature comparison's, or "stopped" when any reading went above the rated test pressure. */
+export type NitrogenVerdict = TemperatureVerdict | "stopped";
+
+/** The absolute unit that goes with each gauge unit (for the atmosphere). */
+export const ABSOLUTE_UNIT_OF: Readonly<Record<NitrogenPressureUnit, AtmosphereUnit>> = { psig: "psia", kpa_gauge: "kpa", bar_gauge: "bar" };
 
 /** Standard atmosphere in the absolute unit that goes with each gauge unit (101325 Pa). */
 export const STANDARD_ATMOSPHERE: Readonly<Record<NitrogenPressureUnit, number>> = {
@@ -65,6 +81,15 @@ export interface NitrogenReading {
   temperature: number;
 }
 
+/** One reading of the test anywhere between start and end (a log row or a typed reading). */
+export interface NitrogenTimedReading {
+  pressureGauge: number;
+  /** Seconds from the start of the test, when known. */
+  tSeconds: number | null;
+  /** 1-based line of the file the reading came from, when it came from a file. */
+  line?: number | null;
+}
+
 export interface NitrogenTestInput {
   unit: NitrogenPressureUnit;
   temperatureUnit: TemperatureUnit;
@@ -78,6 +103,12 @@ export interface NitrogenTestInput {
   gaugeResolution?: number;
   /** Thermometer uncertainty in the temperature unit; default DEFAULT_THERMOMETER_UNCERTAINTY. */
   thermometerUncertainty?: number;
+  /** Every reading of the test (log rows, typed readings), checked against the rating with the start and end. */
+  readings?: readonly NitrogenTimedReading[];
+  /** Seconds from the start reading to the end reading, for the rate per hour. */
+  durationSeconds?: number | null;
+  /** How the atmosphere was found, in words for the steps ("from 1,600 m elevation, ISO 2533"). */
+  atmosphereSource?: string;
 }
 
 /** One line of the correction, worked out, for the UI to show as written arithmetic. */
@@ -97,8 +128,34 @@ export interface NitrogenWarning {
   message: string;
 }
 
+/** The highest reading of the test and when it was. */
+export interface NitrogenHighest {
+  pressureGauge: number;
+  /** Seconds from the start; null when a typed reading had no time. */
+  atSeconds: number | null;
+  line: number | null;
+  which: "start" | "end" | "reading";
+}
+
+export interface NitrogenOverPressure {
+  highest: NitrogenHighest;
+  ratedGauge: number;
+  /** Highest reading minus the rating, gauge unit. */
+  excessGauge: number;
+  /** How many readings were above the rating. */
+  readingsAbove: number;
+}
+
 export interface NitrogenResult {
   verdict: NitrogenVerdict;
+  /** What the temperature comparison alone says (kept for the record also when the test stopped). */
+  temperatureVerdict: TemperatureVerdict;
+  highest: NitrogenHighest;
+  /** Set when any reading went above the rated test pressure. */
+  overPressure: NitrogenOverPressure | null;
+  durationSeconds: number | null;
+  /** Measured minus expected end per hour of test, gauge unit per hour; null without a duration. */
+  ratePerHourGauge: number | null;
   /** Expected end pressure, gauge, test unit. */
   expectedEndGauge: number;
   expectedEndAbs: number;
@@ -133,7 +190,9 @@ function check(input: NitrogenTestInput): void {
   finite(input.end.temperature, "end temperature");
   const off = TEMPERATURE_LABEL[input.temperatureUnit].offset;
   if (input.start.temperature + off <= 0 || input.end.temperature + off <= 0) throw new RangeError("temperature is below absolute zero");
-  if (input.atmosphereAbs !== undefined && !(input.atmosphereAbs > 0)) throw new RangeError("atmosphere must be above zero");
+  if (input.atmosphereAbs !== undefined) checkAtmosphere(input.atmosphereAbs, ABSOLUTE_UNIT_OF[input.unit]);
+  for (const [i, r] of (input.readings ?? []).entries()) finite(r.pressureGauge, `reading ${i + 1}`);
+  if (input.durationSeconds != null && !(Number.isFinite(input.durationSeconds) && input.durationSeconds > 0)) throw new RangeError("duration must be above zero");
 }
 
 /**
@@ -159,10 +218,12 @@ export function evaluateNitrogenTest(input: NitrogenTestInput): NitrogenResult {
   const thermoEffect = (p2AbsExpected * thermo) / t2Abs;
   const tolerance = resolution + thermoEffect;
 
-  const verdict: NitrogenVerdict = differenceGauge < -tolerance ? "drops" : differenceGauge > tolerance ? "rises" : "holds";
+  const temperatureVerdict: TemperatureVerdict = differenceGauge < -tolerance ? "drops" : differenceGauge > tolerance ? "rises" : "holds";
+  const durationSeconds = input.durationSeconds ?? null;
+  const ratePerHourGauge = durationSeconds ? differenceGauge / (durationSeconds / 3600) : null;
 
   const steps: NitrogenStep[] = [
-    { key: "p1_abs", label: "Start pressure, absolute", expression: `${r(input.start.pressureGauge)} ${pl.gauge} + ${r(atm)}`, value: p1Abs, unit: pl.absolute, displayDigits: 3 },
+    { key: "p1_abs", label: "Start pressure, absolute", expression: `${r(input.start.pressureGauge)} ${pl.gauge} + ${r(atm)}${input.atmosphereSource ? ` (atmosphere ${input.atmosphereSource})` : ""}`, value: p1Abs, unit: pl.absolute, displayDigits: 3 },
     { key: "t1_abs", label: "Start temperature, absolute", expression: `${r(input.start.temperature)} ${tl.unit} + ${tl.offset}`, value: t1Abs, unit: tl.absolute, displayDigits: 2 },
     { key: "t2_abs", label: "End temperature, absolute", expression: `${r(input.end.temperature)} ${tl.unit} + ${tl.offset}`, value: t2Abs, unit: tl.absolute, displayDigits: 2 },
     { key: "p2_abs", label: "Expected end pressure, absolute", expression: `${r(p1Abs)} × ${r(t2Abs, 2)} ÷ ${r(t1Abs, 2)}`, value: p2AbsExpected, unit: pl.absolute, displayDigits: 3 },
@@ -170,17 +231,22 @@ export function evaluateNitrogenTest(input: NitrogenTestInput): NitrogenResult {
     { key: "difference", label: "Measured minus expected", expression: `${r(input.end.pressureGauge)} − ${r(expectedEndGauge, 2)}`, value: differenceGauge, unit: pl.difference, displayDigits: 2 },
     { key: "tolerance", label: "Tolerance (gauge resolution + thermometer)", expression: `${r(resolution)} + ${r(p2AbsExpected)} × ${r(thermo)} ÷ ${r(t2Abs, 2)}`, value: tolerance, unit: pl.difference, displayDigits: 2 },
   ];
+  if (durationSeconds && ratePerHourGauge !== null)
+    steps.push({ key: "rate_per_hour", label: "Change beyond temperature, per hour", expression: `${r(differenceGauge, 2)} ÷ ${r(durationSeconds / 3600, 3)} h`, value: ratePerHourGauge, unit: `${pl.difference}/h`, displayDigits: 2 });
+
+  const highest = highestReading(input);
+  const rated = input.ratedTestPressureGauge;
+  const overPressure: NitrogenOverPressure | null =
+    rated !== undefined && rated !== null && highest.pressureGauge > rated
+      ? { highest, ratedGauge: rated, excessGauge: highest.pressureGauge - rated, readingsAbove: readingsOf(input).filter((x) => x.pressureGauge > rated).length }
+      : null;
+  const verdict: NitrogenVerdict = overPressure ? "stopped" : temperatureVerdict;
 
   const warnings: NitrogenWarning[] = [];
-  const rated = input.ratedTestPressureGauge;
-  const highest = Math.max(input.start.pressureGauge, input.end.pressureGauge);
-  if (rated === undefined || rated === null) {
-    warnings.push({ code: "rated_pressure_missing", message: "Enter the system's rated test pressure from the nameplate so Riseline can check the test stayed below it." });
-  } else if (highest > rated) {
-    warnings.push({
-      code: "above_rated_pressure",
-      message: `The test pressure (${r(highest, 1)} ${pl.gauge}) is above the system's rated test pressure (${r(rated, 1)} ${pl.gauge}). Release pressure through the regulator now and test at or below the rating.`,
-    });
+  if (overPressure) {
+    warnings.push({ code: "above_rated_pressure", message: `${highestWords(highest, pl.gauge)} is above the system's rated test pressure of ${r(overPressure.ratedGauge, 1)} ${pl.gauge}. Release the pressure through the regulator now. Follow the equipment maker's instructions and local codes before testing again, at or below the rating.` });
+  } else if (rated === undefined || rated === null) {
+    warnings.push({ code: "rated_pressure_missing", message: "Enter the system's rated test pressure from the nameplate so Riseline can check every reading stayed below it." });
   }
   if (input.start.pressureGauge <= 0 || input.end.pressureGauge <= 0)
     warnings.push({ code: "under_vacuum", message: "A reading at or below 0 gauge is not a nitrogen standing-pressure test; check the unit and the readings." });
@@ -192,15 +258,22 @@ export function evaluateNitrogenTest(input: NitrogenTestInput): NitrogenResult {
     }
 
   const explained = input.start.pressureGauge - expectedEndGauge;
-  const summary =
-    verdict === "holds"
-      ? `Holds: the end reading is within ${r(tolerance, 2)} ${pl.difference} of the ${r(expectedEndGauge, 2)} ${pl.gauge} the temperature change explains.`
-      : verdict === "drops"
-        ? `Drops: ${r(-differenceGauge, 2)} ${pl.difference} lower than the temperature change explains. Look for a leak.`
-        : `Rises: ${r(differenceGauge, 2)} ${pl.difference} higher than the temperature change explains. Check the thermometer and its placement, and that the regulator is closed off from the system.`;
+  const perHour = ratePerHourGauge !== null ? ` (${r(ratePerHourGauge, 2)} ${pl.difference}/h)` : "";
+  const summary = overPressure
+    ? `Stopped: above the rated test pressure. ${highestWords(highest, pl.gauge)} went above the ${r(overPressure.ratedGauge, 1)} ${pl.gauge} rating; this test cannot pass.`
+    : temperatureVerdict === "holds"
+      ? `Holds: the end reading is within ${r(tolerance, 2)} ${pl.difference} of the ${r(expectedEndGauge, 2)} ${pl.gauge} the temperature change explains${perHour}.`
+      : temperatureVerdict === "drops"
+        ? `Drops: ${r(-differenceGauge, 2)} ${pl.difference} lower than the temperature change explains${perHour}. Look for a leak.`
+        : `Rises: ${r(differenceGauge, 2)} ${pl.difference} higher than the temperature change explains${perHour}. Check the thermometer and its placement, and that the regulator is closed off from the system.`;
 
   return {
     verdict,
+    temperatureVerdict,
+    highest,
+    overPressure,
+    durationSeconds,
+    ratePerHourGauge,
     expectedEndGauge,
     expectedEndAbs: p2AbsExpected,
     differenceGauge,
@@ -213,4 +286,27 @@ export function evaluateNitrogenTest(input: NitrogenTestInput): NitrogenResult {
     cautions: NITROGEN_CAUTIONS,
     summary,
   };
+}
+
+/** Every reading of the test: the start, the readings in between (log rows, typed) and the end. */
+function readingsOf(input: NitrogenTestInput): { pressureGauge: number; tSeconds: number | null; line: number | null; which: NitrogenHighest["which"] }[] {
+  return [
+    { pressureGauge: input.start.pressureGauge, tSeconds: 0, line: null, which: "start" as const },
+    ...(input.readings ?? []).map((x) => ({ pressureGauge: x.pressureGauge, tSeconds: x.tSeconds, line: x.line ?? null, which: "reading" as const })),
+    { pressureGauge: input.end.pressureGauge, tSeconds: input.durationSeconds ?? null, line: null, which: "end" as const },
+  ];
+}
+
+/** The highest of every reading (the first of equal ones), with its time and file line. */
+export function highestReading(input: NitrogenTestInput): NitrogenHighest {
+  let best = readingsOf(input)[0];
+  for (const x of readingsOf(input)) if (x.pressureGauge > best.pressureGauge) best = x;
+  return { pressureGauge: best.pressureGauge, atSeconds: best.tSeconds, line: best.line, which: best.which };
+}
+
+/** "The highest reading, 480 psig at 1 h 10 min (line 9)," in words. */
+function highestWords(h: NitrogenHighest, gaugeUnit: string): string {
+  const when = h.which === "start" ? " at the start" : h.atSeconds !== null ? ` at ${durationWords(h.atSeconds)}` : h.which === "end" ? " at the end" : "";
+  const line = h.line !== null ? ` (line ${h.line} of the file)` : "";
+  return `The highest reading, ${r(h.pressureGauge, 1)} ${gaugeUnit}${when}${line},`;
 }

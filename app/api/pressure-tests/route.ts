@@ -11,7 +11,11 @@ export const GET = route({ permission: "member", query: pressureTestListQuery },
   return { items: await listPressureTestsByViewer(db(), { viewer: viewerOf(actor), jobId: query.jobId }) };
 });
 
-/** Record a nitrogen standing-pressure test from typed readings or a logger CSV; answers with the verdict worked out. */
+/**
+ * Record a nitrogen standing-pressure test from typed readings or a logger CSV; answers with the
+ * verdict worked out. A test any reading of which went above the rated test pressure is saved only
+ * with `overPressureAcknowledged: true`, and the record keeps who acknowledged it and when.
+ */
 export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema }, async ({ actor, body }) => {
   if (body.jobId && !(await isJobOfOrganization(db(), { organizationId: actor.organizationId, jobId: body.jobId })))
     throw new AppError("invalid_input", "jobId: no such job in this shop");
@@ -23,6 +27,14 @@ export const POST = route({ permission: "tests.upload", body: pressureTestCreate
     throw err;
   }
   const { result } = evaluated;
+  if (result.overPressure && body.overPressureAcknowledged !== true)
+    throw new AppError("invalid_input", `overPressureAcknowledged: ${result.warnings.find((w) => w.code === "above_rated_pressure")?.message ?? "a reading is above the rated test pressure."} Saving this record needs your acknowledgement.`, {
+      field: "overPressureAcknowledged",
+      reason: "over_pressure_not_acknowledged",
+      highest: result.overPressure.highest,
+      ratedGauge: result.overPressure.ratedGauge,
+    });
+  const now = new Date();
   const row = await createPressureTest(db(), {
     organizationId: actor.organizationId,
     createdById: actor.userId,
@@ -36,14 +48,23 @@ export const POST = route({ permission: "tests.upload", body: pressureTestCreate
     endPressure: evaluated.end.pressureGauge,
     endTemperature: evaluated.end.temperature,
     atmosphereAbs: result.atmosphereAbs,
+    atmosphereSource: evaluated.atmosphereSource,
+    elevationM: evaluated.elevationM,
     ratedTestPressure: body.ratedTestPressureGauge ?? null,
     gaugeResolution: body.gaugeResolution ?? null,
     durationSeconds: evaluated.durationSeconds,
+    startedAt: evaluated.startedAt,
+    endedAt: evaluated.endedAt,
+    highestPressure: result.highest.pressureGauge,
+    highestAtSeconds: result.highest.atSeconds,
     series: evaluated.series,
     verdict: result.verdict,
     result,
+    assumptions: evaluated.assumptions,
+    overPressureAcknowledgedAt: result.overPressure ? now : null,
+    overPressureAcknowledgedById: result.overPressure ? actor.userId : null,
     notes: body.notes ?? null,
-    testedAt: body.testedAt ? new Date(body.testedAt) : new Date(),
+    testedAt: body.testedAt ? new Date(body.testedAt) : (evaluated.startedAt ?? now),
   });
   return Response.json({ test: row, result, assumptions: evaluated.assumptions }, { status: 201 });
 });
