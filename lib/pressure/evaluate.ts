@@ -50,9 +50,10 @@ function atmosphereFor(body: PressureTestCreate, unit: NitrogenPressureUnit) {
 function typed(body: Extract<PressureTestCreate, { source: "typed" }>): EvaluatedPressureTest {
   const atm = atmosphereFor(body, body.unit);
   const startedAt = body.startedAt ? new Date(body.startedAt) : null;
-  const durationSeconds = body.endedAt && startedAt ? (Date.parse(body.endedAt) - startedAt.getTime()) / 1000 : body.durationMinutes! * 60;
+  // The schema requires one of them before saving; the form's preview may not have it yet.
+  const durationSeconds = body.endedAt && startedAt ? (Date.parse(body.endedAt) - startedAt.getTime()) / 1000 : body.durationMinutes !== undefined ? body.durationMinutes * 60 : null;
   const readings = (body.readings ?? []).map((x, i) => {
-    if (x.minutes * 60 > durationSeconds) throw new RangeError(`reading ${i + 1}: ${x.minutes} min is after the end of the test`);
+    if (durationSeconds !== null && x.minutes * 60 > durationSeconds) throw new RangeError(`reading ${i + 1}: ${x.minutes} min is after the end of the test`);
     return { pressureGauge: x.pressureGauge, tSeconds: x.minutes * 60 };
   });
   const result = evaluateNitrogenTest({
@@ -69,7 +70,7 @@ function typed(body: Extract<PressureTestCreate, { source: "typed" }>): Evaluate
   });
   const series = readings.length
     ? {
-        tSeconds: [0, ...readings.map((x) => x.tSeconds), durationSeconds],
+        tSeconds: [0, ...readings.map((x) => x.tSeconds), durationSeconds ?? Math.max(...readings.map((x) => x.tSeconds))],
         pressureGauge: [body.start.pressureGauge, ...readings.map((x) => x.pressureGauge), body.end.pressureGauge],
         temperature: null,
       }
@@ -81,7 +82,7 @@ function typed(body: Extract<PressureTestCreate, { source: "typed" }>): Evaluate
     end: body.end,
     durationSeconds,
     startedAt,
-    endedAt: startedAt ? new Date(startedAt.getTime() + durationSeconds * 1000) : null,
+    endedAt: startedAt && durationSeconds !== null ? new Date(startedAt.getTime() + durationSeconds * 1000) : null,
     series,
     atmosphereSource: atm.source,
     elevationM: atm.elevationM,

@@ -64,13 +64,60 @@ describe("tools journey on a 360 px phone (common practice, no published source)
     await page.getByLabel("Start temperature (°F)").fill("80");
     await page.getByLabel("End pressure (psig)").fill("294");
     await page.getByLabel("End temperature (°F)").fill("70");
-    await page.getByLabel("Rated test pressure (nameplate, gauge)").fill("450");
-    // CHECK-VALUES worked example (ideal gas, computed): 294.17 psig expected.
+    await page.getByLabel("Rated test pressure (psig)").fill("450");
+    // CHECK-VALUES worked example (ideal gas, computed; Gay-Lussac's law): 294.17 psig expected.
     await expect(page.getByTestId("expected-end").textContent()).resolves.toBe("294.17");
+    // A test without a start and end time or a duration cannot be saved.
+    await expect(page.getByRole("button", { name: "Save the test" }).isDisabled()).resolves.toBe(true);
+    await page.getByLabel("Or the duration (minutes)").fill("60");
     await page.getByRole("button", { name: "Save the test" }).click();
     await page.getByRole("heading", { name: "Saved" }).waitFor();
     await page.getByTestId("recent-pressure-tests").getByText("Holds").waitFor();
     await shot("pressure-test");
+  });
+
+  it("stops a test with a 480 psig reading in the middle against a 450 rating: warning at the top, no 'Holds', Save needs the acknowledgement (common practice, no published source)", async () => {
+    await page.goto("/tools/pressure-test");
+    await page.getByLabel("Start pressure (psig)").fill("300");
+    await page.getByLabel("Start temperature (°F)").fill("80");
+    await page.getByLabel("End pressure (psig)").fill("294");
+    await page.getByLabel("End temperature (°F)").fill("70");
+    await page.getByLabel("Or the duration (minutes)").fill("60");
+    await page.getByLabel("Rated test pressure (psig)").fill("450");
+    await page.getByRole("button", { name: "Add a reading" }).click();
+    await page.getByLabel("Reading 1: minutes from the start").fill("20");
+    await page.getByLabel("Reading 1: pressure (psig)").fill("480");
+    const result = page.getByTestId("pressure-result");
+    const warning = result.getByTestId("over-pressure-warning");
+    await warning.waitFor();
+    await expect(warning.textContent()).resolves.toMatch(/480 psig at 20 min/);
+    await expect(result.getByTestId("pressure-verdict").textContent()).resolves.toBe("Stopped: above the rated test pressure");
+    await expect(result.textContent()).resolves.not.toMatch(/Holds/);
+    // The warning is the first thing in the result, above the verdict and above the Save button.
+    const save = page.getByRole("button", { name: "Save the stopped test" });
+    const [w, v, b] = await Promise.all([warning.boundingBox(), result.getByTestId("pressure-verdict").boundingBox(), save.boundingBox()]);
+    expect(w!.y).toBeLessThan(v!.y);
+    expect(w!.y).toBeLessThan(b!.y);
+    await expect(save.isDisabled()).resolves.toBe(true);
+    await page.getByLabel(/I have released the pressure through the regulator/).check();
+    await expect(save.isDisabled()).resolves.toBe(false);
+    await save.click();
+    await page.getByRole("heading", { name: "Saved" }).waitFor();
+    await page.getByTestId("recent-pressure-tests").getByText("Stopped: above the rated test pressure").first().waitFor();
+    await shot("pressure-test-over");
+  });
+
+  it("asks gauge or absolute for a logger CSV whose header says only kPa, and labels the fields in kPa", async () => {
+    await page.goto("/tools/pressure-test");
+    await page.getByRole("radio", { name: "Logger CSV" }).click();
+    await page.getByLabel("Logger CSV").setInputFiles({ name: "n2.csv", mimeType: "text/csv", buffer: Buffer.from("seconds,Pressure (kPa),temp C\n0,1900,20\n600,1905,20\n1200,1899,20\n") });
+    await page.getByLabel(/says kPa but not gauge or absolute/).waitFor();
+    await page.getByLabel("Rated test pressure (kPa gauge)").fill("2000");
+    await page.getByLabel("Atmosphere").selectOption("entered");
+    await page.getByLabel("Atmosphere (kPa abs)").waitFor();
+    await expect(page.getByTestId("pressure-result").count()).resolves.toBe(0);
+    await page.getByLabel(/says kPa but not gauge or absolute/).selectOption("gauge");
+    await page.getByTestId("pressure-result").waitFor();
   });
 
   it("adds a rig with a pump and logs an oil change", async () => {

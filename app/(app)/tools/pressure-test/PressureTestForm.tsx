@@ -1,27 +1,28 @@
 "use client";
 
+/**
+ * Record a nitrogen standing-pressure test. The preview runs the server's own evaluation
+ * (lib/pressure/evaluate.ts) in the browser, so the result — and a reading above the rated test
+ * pressure, at the top of it — shows before Save; such a test saves only once acknowledged.
+ */
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
-import { evaluateNitrogenTest, NITROGEN_CAUTIONS, STANDARD_ATMOSPHERE, type NitrogenPressureUnit, type NitrogenResult, type TemperatureUnit } from "@/analysis/nitrogen";
-import { Alert, Badge, Button, Card, Input, Select } from "@/components/ui";
+import { ABSOLUTE_UNIT_OF, NITROGEN_CAUTIONS, type NitrogenPressureUnit, type NitrogenResult, type TemperatureUnit } from "@/analysis/nitrogen";
+import { inspectNitrogenLogHeader, type NitrogenLogHeader } from "@/analysis/nitrogen-log";
+import { Alert, Button, Card, Input, Select } from "@/components/ui";
 import { apiFetch, ApiError } from "@/lib/client/api";
-import { UNIT_WORDS, VERDICT_WORDS } from "./words";
+import { evaluatePressureTestRequest } from "@/lib/pressure/evaluate";
+import type { PressureTestCreate } from "@/lib/pressure/schemas";
+import { AtmosphereFields, atmosphereBody, type AtmosphereState } from "./AtmosphereFields";
+import { PressureResult } from "./PressureResult";
+import { UNIT_WORDS } from "./words";
 
 const num = (s: string) => (s.trim() === "" ? NaN : Number(s.replace(",", ".")));
+const isoOf = (local: string) => (local ? new Date(local).toISOString() : undefined);
 
-function Steps({ result }: { result: NitrogenResult }) {
-  return (
-    <ol className="space-y-1 text-body" aria-label="The correction worked out">
-      {result.steps.map((s) => (
-        <li key={s.key} className="flex flex-wrap justify-between gap-x-3 border-b border-surface-line py-1">
-          <span className="text-fg-soft">{s.label}</span>
-          <span className="font-mono text-caption sm:text-body">
-            {s.expression} = <strong>{s.value.toFixed(s.displayDigits)}</strong> {s.unit}
-          </span>
-        </li>
-      ))}
-    </ol>
-  );
+interface Between {
+  minutes: string;
+  pressure: string;
 }
 
 export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }[] }) {
@@ -33,54 +34,87 @@ export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }
   const [t1, setT1] = useState("");
   const [p2, setP2] = useState("");
   const [t2, setT2] = useState("");
+  const [between, setBetween] = useState<Between[]>([]);
+  const [startedAt, setStartedAt] = useState("");
+  const [endedAt, setEndedAt] = useState("");
+  const [durationMin, setDurationMin] = useState("");
   const [rated, setRated] = useState("");
-  const [atm, setAtm] = useState("");
+  const [atm, setAtm] = useState<AtmosphereState>({ mode: "standard", value: "", elevation: "", elevationUnit: "ft" });
   const [jobId, setJobId] = useState("");
   const [csv, setCsv] = useState<{ name: string; text: string } | null>(null);
   const [ambiguousAs, setAmbiguousAs] = useState<"" | "gauge" | "absolute">("");
+  const [acknowledged, setAcknowledged] = useState(false);
   const [saved, setSaved] = useState<{ result: NitrogenResult; assumptions: string[] } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
-  const preview = useMemo(() => {
-    if (mode !== "typed") return null;
-    const v = [p1, t1, p2, t2].map(num);
-    if (v.some((x) => !Number.isFinite(x))) return null;
+  const header = useMemo((): { ok: NitrogenLogHeader } | { problem: string } | null => {
+    if (mode !== "file" || !csv) return null;
     try {
-      return evaluateNitrogenTest({
-        unit,
-        temperatureUnit: tUnit,
-        start: { pressureGauge: v[0], temperature: v[1] },
-        end: { pressureGauge: v[2], temperature: v[3] },
-        ratedTestPressureGauge: Number.isFinite(num(rated)) ? num(rated) : null,
-        atmosphereAbs: Number.isFinite(num(atm)) ? num(atm) : undefined,
-      });
-    } catch {
-      return null;
+      return { ok: inspectNitrogenLogHeader(csv.text) };
+    } catch (e) {
+      return { problem: (e as Error).message };
     }
-  }, [mode, unit, tUnit, p1, t1, p2, t2, rated, atm]);
+  }, [mode, csv]);
+  const testUnit: NitrogenPressureUnit | null = mode === "typed" ? unit : header && "ok" in header ? header.ok.unit.family : null;
+  const needsAnswer = header !== null && "ok" in header && header.ok.unit.reference === null;
 
-  async function save() {
-    setError(null);
-    setBusy(true);
+  const body = useMemo((): PressureTestCreate | null => {
     const common = {
       temperatureUnit: tUnit,
       jobId: jobId || null,
-      ratedTestPressureGauge: Number.isFinite(num(rated)) ? num(rated) : null,
-      ...(Number.isFinite(num(atm)) ? { atmosphereAbs: num(atm) } : {}),
+      ratedTestPressureGauge: Number.isFinite(num(rated)) && num(rated) > 0 ? num(rated) : null,
+      ...atmosphereBody(atm),
+      ...(startedAt ? { startedAt: isoOf(startedAt) } : {}),
     };
-    const body =
-      mode === "typed"
-        ? { source: "typed", unit, start: { pressureGauge: num(p1), temperature: num(t1) }, end: { pressureGauge: num(p2), temperature: num(t2) }, ...common }
-        : {
-            source: "file",
-            csvText: csv?.text ?? "",
-            ...(ambiguousAs ? { ambiguousAs } : {}),
-            ...(Number.isFinite(num(t1)) && Number.isFinite(num(t2)) ? { startTemperature: num(t1), endTemperature: num(t2) } : {}),
-            ...common,
-          };
+    if (mode === "file") {
+      if (!csv) return null;
+      return {
+        source: "file",
+        csvText: csv.text,
+        ...(ambiguousAs ? { ambiguousAs } : {}),
+        ...(Number.isFinite(num(t1)) && Number.isFinite(num(t2)) ? { startTemperature: num(t1), endTemperature: num(t2) } : {}),
+        ...common,
+      };
+    }
+    const v = [p1, t1, p2, t2].map(num);
+    if (v.some((x) => !Number.isFinite(x))) return null;
+    const readings = between.filter((b) => b.minutes.trim() !== "" || b.pressure.trim() !== "").map((b) => ({ minutes: num(b.minutes), pressureGauge: num(b.pressure) }));
+    return {
+      source: "typed",
+      unit,
+      start: { pressureGauge: v[0], temperature: v[1] },
+      end: { pressureGauge: v[2], temperature: v[3] },
+      ...(readings.length ? { readings } : {}),
+      ...(startedAt && endedAt ? { endedAt: isoOf(endedAt) } : {}),
+      ...(Number.isFinite(num(durationMin)) ? { durationMinutes: num(durationMin) } : {}),
+      ...common,
+    };
+  }, [mode, csv, ambiguousAs, unit, tUnit, p1, t1, p2, t2, between, startedAt, endedAt, durationMin, rated, atm, jobId]);
+
+  const preview = useMemo((): { result: NitrogenResult; assumptions: string[] } | { problem: string } | null => {
+    if (!body || needsAnswer && !ambiguousAs) return null;
+    if (body.source === "typed" && body.readings?.some((r) => !Number.isFinite(r.minutes) || !Number.isFinite(r.pressureGauge))) return { problem: "Each reading in between needs its minutes and its pressure." };
     try {
-      const res = await apiFetch<{ result: NitrogenResult; assumptions: string[] }>("/api/pressure-tests", { method: "POST", body: JSON.stringify(body) });
+      const e = evaluatePressureTestRequest(body);
+      return { result: e.result, assumptions: e.assumptions };
+    } catch (e) {
+      return { problem: (e as Error).message };
+    }
+  }, [body, needsAnswer, ambiguousAs]);
+  const result = saved?.result ?? (preview && "result" in preview ? preview.result : null);
+  const overPressure = Boolean(preview && "result" in preview && preview.result.overPressure);
+  const hasWhen = mode === "file" || (startedAt && endedAt) || Number.isFinite(num(durationMin));
+
+  async function save() {
+    if (!body) return;
+    setError(null);
+    setBusy(true);
+    try {
+      const res = await apiFetch<{ result: NitrogenResult; assumptions: string[] }>("/api/pressure-tests", {
+        method: "POST",
+        body: JSON.stringify({ ...body, ...(overPressure ? { overPressureAcknowledged: acknowledged } : {}) }),
+      });
       setSaved(res);
       router.refresh();
     } catch (e) {
@@ -90,8 +124,13 @@ export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }
     }
   }
 
-  const shown = saved?.result ?? preview;
+  const edit = <T,>(set: (v: T) => void) => (v: T) => {
+    set(v);
+    setSaved(null);
+    setAcknowledged(false);
+  };
   const pu = UNIT_WORDS[unit];
+  const ratedUnit = testUnit ? UNIT_WORDS[testUnit] : "gauge, in the log's unit";
   return (
     <div className="space-y-4">
       <Alert tone="warning" title="Before you pressurise">
@@ -103,24 +142,39 @@ export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }
       </Alert>
       <Card title="Readings">
         <div className="mb-3 flex gap-2" role="radiogroup" aria-label="How to enter the test">
-          <Button variant={mode === "typed" ? "primary" : "secondary"} role="radio" aria-checked={mode === "typed"} onClick={() => setMode("typed")}>
+          <Button variant={mode === "typed" ? "primary" : "secondary"} role="radio" aria-checked={mode === "typed"} onClick={() => edit(setMode)("typed")}>
             Type readings
           </Button>
-          <Button variant={mode === "file" ? "primary" : "secondary"} role="radio" aria-checked={mode === "file"} onClick={() => setMode("file")}>
+          <Button variant={mode === "file" ? "primary" : "secondary"} role="radio" aria-checked={mode === "file"} onClick={() => edit(setMode)("file")}>
             Logger CSV
           </Button>
         </div>
         <div className="grid gap-3 sm:grid-cols-2">
           {mode === "typed" && (
-            <Select label="Pressure unit" value={unit} onChange={(e) => setUnit(e.target.value as NitrogenPressureUnit)} options={[{ value: "psig", label: "psig" }, { value: "kpa_gauge", label: "kPa gauge" }, { value: "bar_gauge", label: "bar gauge" }]} />
+            <Select label="Pressure unit" value={unit} onChange={(e) => edit(setUnit)(e.target.value as NitrogenPressureUnit)} options={[{ value: "psig", label: "psig" }, { value: "kpa_gauge", label: "kPa gauge" }, { value: "bar_gauge", label: "bar gauge" }]} />
           )}
-          <Select label="Temperature unit" value={tUnit} onChange={(e) => setTUnit(e.target.value as TemperatureUnit)} options={[{ value: "F", label: "°F" }, { value: "C", label: "°C" }]} />
+          <Select label="Temperature unit" value={tUnit} onChange={(e) => edit(setTUnit)(e.target.value as TemperatureUnit)} options={[{ value: "F", label: "°F" }, { value: "C", label: "°C" }]} />
           {mode === "typed" ? (
             <>
-              <Input label={`Start pressure (${pu})`} inputMode="decimal" value={p1} onChange={(e) => setP1(e.target.value)} />
-              <Input label={`Start temperature (°${tUnit})`} inputMode="decimal" value={t1} onChange={(e) => setT1(e.target.value)} hint="Ambient, or on the line" />
-              <Input label={`End pressure (${pu})`} inputMode="decimal" value={p2} onChange={(e) => setP2(e.target.value)} />
-              <Input label={`End temperature (°${tUnit})`} inputMode="decimal" value={t2} onChange={(e) => setT2(e.target.value)} />
+              <Input label={`Start pressure (${pu})`} inputMode="decimal" value={p1} onChange={(e) => edit(setP1)(e.target.value)} />
+              <Input label={`Start temperature (°${tUnit})`} inputMode="decimal" value={t1} onChange={(e) => edit(setT1)(e.target.value)} hint="Ambient, or on the line" />
+              <Input label={`End pressure (${pu})`} inputMode="decimal" value={p2} onChange={(e) => edit(setP2)(e.target.value)} />
+              <Input label={`End temperature (°${tUnit})`} inputMode="decimal" value={t2} onChange={(e) => edit(setT2)(e.target.value)} />
+              <Input label="Start time" type="datetime-local" value={startedAt} onChange={(e) => edit(setStartedAt)(e.target.value)} />
+              <Input label="End time" type="datetime-local" value={endedAt} onChange={(e) => edit(setEndedAt)(e.target.value)} />
+              <Input label="Or the duration (minutes)" inputMode="decimal" value={durationMin} onChange={(e) => edit(setDurationMin)(e.target.value)} hint="Give the start and end time, or how long the test ran" />
+              <fieldset className="space-y-2 sm:col-span-2">
+                <legend className="text-body font-medium">Readings in between (optional)</legend>
+                {between.map((b, i) => (
+                  <div key={i} className="flex items-end gap-2">
+                    <Input className="flex-1" label={`Reading ${i + 1}: minutes from the start`} inputMode="decimal" value={b.minutes} onChange={(e) => edit(setBetween)(between.map((x, k) => (k === i ? { ...x, minutes: e.target.value } : x)))} />
+                    <Input className="flex-1" label={`Reading ${i + 1}: pressure (${pu})`} inputMode="decimal" value={b.pressure} onChange={(e) => edit(setBetween)(between.map((x, k) => (k === i ? { ...x, pressure: e.target.value } : x)))} />
+                  </div>
+                ))}
+                <Button variant="secondary" onClick={() => edit(setBetween)([...between, { minutes: "", pressure: "" }])}>
+                  Add a reading
+                </Button>
+              </fieldset>
             </>
           ) : (
             <>
@@ -133,49 +187,54 @@ export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }
                   className="min-h-tap text-body"
                   onChange={async (e) => {
                     const f = e.target.files?.[0];
-                    setCsv(f ? { name: f.name, text: await f.text() } : null);
+                    edit(setCsv)(f ? { name: f.name, text: await f.text() } : null);
+                    setAmbiguousAs("");
                   }}
                 />
-                <p className="text-caption text-fg-soft">The header must name the unit: psig, kPa g and bar g are gauge; psia and kPa are absolute and are turned into gauge with the atmosphere.</p>
+                <p className="text-caption text-fg-soft">Every reading of the log is checked against the rated test pressure. The header should say gauge or absolute (psig, kPa g, bar g; psia, kPa abs); if it does not, Riseline asks.</p>
               </div>
-              <Select label="If the header says only “psi” or “bar”" value={ambiguousAs} onChange={(e) => setAmbiguousAs(e.target.value as "" | "gauge" | "absolute")} options={[{ value: "", label: "Ask me" }, { value: "gauge", label: "It is gauge" }, { value: "absolute", label: "It is absolute" }]} />
-              <Input label={`Start temperature (°${tUnit}), if the log has none`} inputMode="decimal" value={t1} onChange={(e) => setT1(e.target.value)} />
-              <Input label={`End temperature (°${tUnit}), if the log has none`} inputMode="decimal" value={t2} onChange={(e) => setT2(e.target.value)} />
+              {header && "problem" in header && <Alert tone="error" className="sm:col-span-2">{header.problem}</Alert>}
+              {header && "ok" in header && (
+                <div className="sm:col-span-2" data-testid="log-unit">
+                  {needsAnswer ? (
+                    <Select
+                      label={`The column '${header.ok.column}' says ${header.ok.unit.unitWord} but not gauge or absolute. Which does the logger record?`}
+                      value={ambiguousAs}
+                      onChange={(e) => edit(setAmbiguousAs)(e.target.value as "" | "gauge" | "absolute")}
+                      options={[{ value: "", label: "Choose…" }, { value: "gauge", label: `Gauge (${header.ok.unit.unitWord} above the atmosphere)` }, { value: "absolute", label: `Absolute (${header.ok.unit.unitWord} above a perfect vacuum)` }]}
+                    />
+                  ) : (
+                    <p className="text-body">Column ‘{header.ok.column}’: read as {header.ok.unit.reference}, as its header says.</p>
+                  )}
+                </div>
+              )}
+              <Input label={`Start temperature (°${tUnit}), if the log has none`} inputMode="decimal" value={t1} onChange={(e) => edit(setT1)(e.target.value)} />
+              <Input label={`End temperature (°${tUnit}), if the log has none`} inputMode="decimal" value={t2} onChange={(e) => edit(setT2)(e.target.value)} />
+              <Input label="Start time, if the log's clock has none" type="datetime-local" value={startedAt} onChange={(e) => edit(setStartedAt)(e.target.value)} />
             </>
           )}
-          <Input label="Rated test pressure (nameplate, gauge)" inputMode="decimal" value={rated} onChange={(e) => setRated(e.target.value)} hint="The lowest rating of the system's parts" />
-          <Input label={`Atmosphere (absolute), default ${STANDARD_ATMOSPHERE[unit]}`} inputMode="decimal" value={atm} onChange={(e) => setAtm(e.target.value)} hint="Only at altitude" />
-          {jobs.length > 0 && <Select label="Job (optional)" value={jobId} onChange={(e) => setJobId(e.target.value)} options={[{ value: "", label: "No job" }, ...jobs.map((j) => ({ value: j.id, label: j.label }))]} />}
+          <Input label={`Rated test pressure (${ratedUnit})`} inputMode="decimal" value={rated} onChange={(e) => edit(setRated)(e.target.value)} hint="The lowest rating of the system's parts, from the nameplate" />
+          <AtmosphereFields state={atm} onChange={edit(setAtm)} unit={testUnit ? ABSOLUTE_UNIT_OF[testUnit] : null} />
+          {jobs.length > 0 && <Select label="Job (optional)" value={jobId} onChange={(e) => edit(setJobId)(e.target.value)} options={[{ value: "", label: "No job" }, ...jobs.map((j) => ({ value: j.id, label: j.label }))]} />}
         </div>
-        <Button className="mt-4" block busy={busy} disabled={mode === "typed" ? !preview : !csv} onClick={save}>
-          Save the test
-        </Button>
       </Card>
-      {error && <Alert tone="error" title="Not saved">{error}</Alert>}
-      {shown && (
-        <Card title={saved ? "Saved" : "Result"} data-testid="pressure-result">
-          {shown.warnings.map((w) => (
-            <Alert key={w.code} tone={w.code === "above_rated_pressure" ? "error" : "warning"} className="mb-3">
-              {w.message}
-            </Alert>
-          ))}
-          <div className="flex flex-wrap items-center gap-3">
-            <Badge tone={shown.verdict === "holds" ? "pass" : shown.verdict === "drops" ? "leak" : "attention"} className="text-body">
-              {VERDICT_WORDS[shown.verdict]}
-            </Badge>
-            <span className="text-body">
-              Expected end <strong data-testid="expected-end">{shown.expectedEndGauge.toFixed(2)}</strong> {shown.steps.find((s) => s.key === "p2_gauge")?.unit}
-            </span>
-          </div>
-          <p className="mt-2 text-body">{shown.summary}</p>
-          <div className="mt-3">
-            <Steps result={shown} />
-          </div>
-          {saved?.assumptions.map((a) => (
-            <p key={a} className="mt-2 text-caption text-fg-soft">{a}</p>
-          ))}
+      {preview && "problem" in preview && !saved && <Alert tone="error" title="Check the readings">{preview.problem}</Alert>}
+      {result && <PressureResult result={result} saved={Boolean(saved)} assumptions={saved?.assumptions ?? (preview && "result" in preview ? preview.assumptions : [])} />}
+      {!saved && (
+        <Card>
+          {overPressure && (
+            <label className="mb-3 flex items-start gap-3 text-body">
+              <input type="checkbox" className="mt-1 h-6 w-6 shrink-0" checked={acknowledged} onChange={(e) => setAcknowledged(e.target.checked)} />
+              <span>I have released the pressure through the regulator, and I record that this test went above the system&apos;s rated test pressure. The equipment maker&apos;s instructions and local codes decide what must be checked before testing again.</span>
+            </label>
+          )}
+          {mode === "typed" && !hasWhen && <p className="mb-2 text-caption text-fg-soft">Give the start and end time, or the duration, to save.</p>}
+          <Button block busy={busy} disabled={!preview || "problem" in preview || !hasWhen || (overPressure && !acknowledged)} onClick={save}>
+            {overPressure ? "Save the stopped test" : "Save the test"}
+          </Button>
         </Card>
       )}
+      {error && <Alert tone="error" title="Not saved">{error}</Alert>}
     </div>
   );
 }

@@ -5,7 +5,8 @@ import { listJobsByOrganization } from "@/db/queries/records";
 import { Badge, Card } from "@/components/ui";
 import { pageActor } from "@/lib/session";
 import { PressureTestForm } from "./PressureTestForm";
-import { UNIT_WORDS, VERDICT_WORDS } from "./words";
+import { durationWords } from "@/analysis/format";
+import { UNIT_WORDS, VERDICT_TONE, VERDICT_WORDS } from "./words";
 
 export const metadata: Metadata = { title: "Nitrogen pressure test" };
 
@@ -34,10 +35,12 @@ export default async function PressureTestPage() {
                 <span>
                   <span className="block font-medium">{t.title}</span>
                   <span className="text-caption text-fg-soft">
-                    {t.testedAt.toISOString().slice(0, 16).replace("T", " ")} · {t.createdByName} · {t.startPressure} → {t.endPressure} {UNIT_WORDS[t.unit]}
+                    {(t.startedAt ?? t.testedAt).toISOString().slice(0, 16).replace("T", " ")} UTC
+                    {t.durationSeconds ? ` · ${durationWords(t.durationSeconds)}` : ""} · {t.createdByName} · {t.startPressure} → {t.endPressure} {UNIT_WORDS[t.unit]}
+                    {t.verdict === "stopped" && t.highestPressure !== null ? ` · highest ${t.highestPressure} ${UNIT_WORDS[t.unit]}, acknowledged` : ""}
                   </span>
                 </span>
-                <Badge tone={t.verdict === "holds" ? "pass" : t.verdict === "drops" ? "leak" : "attention"}>{VERDICT_WORDS[t.verdict]}</Badge>
+                <Badge tone={VERDICT_TONE[t.verdict]} className="whitespace-normal">{VERDICT_WORDS[t.verdict]}</Badge>
               </li>
             ))}
           </ul>
