@@ -1,25 +1,32 @@
 /**
- * A plan beside a real pull-down: when the real curve is much slower than the gas-only plan,
- * say where it lags and what that usually means (restriction, leak, moisture).
+ * A plan beside a real pull-down: when the real curve is slower than the plan's slow end, say
+ * where it lags and what that usually means (restriction, leak, moisture).
  *
  * Method: both curves are aligned at the real log's first reading at or below 20,000 microns
  * (many micron gauges only read below about that), and the time each takes from there to
  * 5,000 microns, and from 5,000 microns to the target, is compared. Below about 4,600 microns
  * water at 0 °C boils, so a curve that keeps up above 5,000 and lags below it points to water;
  * one that lags from the start points to a restriction or the pump.
- * Thresholds (our own rule, common practice, no published source): real ≥ 3 × the plan is
- * "much slower" — a gas-only plan is optimistic, so up to about 2–3 × is ordinary.
+ * Thresholds (our own rule, common practice, no published source): slower than the plan's slow
+ * end by SLOW_END_MARGIN or more is "much slower"; the factors are against the likely case.
  */
+import { durationWords } from "./format";
 import type { Finding } from "./types";
 import type { Plan } from "./planner";
 
+/** Real ÷ likely plan above which the part above or below 5,000 microns counts as lagging. */
 export const MUCH_SLOWER_FACTOR = 3;
+/** Real time ÷ the slow end's time above which the pull-down is "much slower than planned". */
+export const SLOW_END_MARGIN = 1.2;
 const ALIGN_BELOW_MICRONS = 20_000;
 const WATER_LEVEL_MICRONS = 5_000;
 
 export interface PlanComparison {
-  /** Real time ÷ planned time from the alignment reading to the target (null if the real one never got there). */
+  /** Real time ÷ the likely plan's time from the alignment reading to the target (null if the real one never got there). */
   slowdownFactor: number | null;
+  /** Seconds from the alignment reading to the target: real, and the plan's fast end, likely case and slow end. */
+  realSecondsToTarget: number | null;
+  planSecondsToTarget: { fast: number | null; likely: number | null; slow: number | null };
   /** The same ratio above 5,000 microns and from 5,000 microns to the target. */
   upperFactor: number | null;
   lowerFactor: number | null;
@@ -29,9 +36,9 @@ export interface PlanComparison {
   findings: Finding[];
 }
 
-/** Plan time at a pressure, interpolated in ln(p) on the falling plan curve. */
-export function planSecondsAt(plan: Plan, microns: number): number | null {
-  const { tSeconds: t, microns: p } = plan.curve;
+/** Plan time at a pressure, interpolated in ln(p) on the falling plan curve (the likely case unless another curve is given). */
+export function planSecondsAt(plan: Plan, microns: number, curve: { tSeconds: number[]; microns: number[] } = plan.curve): number | null {
+  const { tSeconds: t, microns: p } = curve;
   if (microns >= p[0]) return 0;
   for (let i = 1; i < p.length; i++)
     if (p[i] <= microns) {
@@ -57,7 +64,16 @@ const ratio = (real: number | null, planned: number | null) => (real !== null &&
 
 /** Compare a plan with a real pull-down (seconds, microns; the part before isolation). */
 export function comparePlanWithPullDown(plan: Plan, real: { tSeconds: number[]; microns: number[] }): PlanComparison {
-  const empty: PlanComparison = { slowdownFactor: null, upperFactor: null, lowerFactor: null, alignedAtMicrons: null, planOnRealTime: null, findings: [] };
+  const empty: PlanComparison = {
+    slowdownFactor: null,
+    realSecondsToTarget: null,
+    planSecondsToTarget: { fast: null, likely: null, slow: null },
+    upperFactor: null,
+    lowerFactor: null,
+    alignedAtMicrons: null,
+    planOnRealTime: null,
+    findings: [],
+  };
   if (real.microns.length < 2) return empty;
   let a = real.microns.findIndex((m) => m <= ALIGN_BELOW_MICRONS);
   if (a < 0) a = 0;
@@ -78,6 +94,15 @@ export function comparePlanWithPullDown(plan: Plan, real: { tSeconds: number[]; 
   const planTarget = planTo(target);
   const realTarget = realTo(target);
   const slowdownFactor = ratio(realTarget, planTarget);
+  const caseTo = (key: "fast" | "slow") => {
+    const c = plan.cases.find((x) => x.key === key);
+    if (!c) return null;
+    const a0 = planSecondsAt(plan, pA, c.curve);
+    const a1 = planSecondsAt(plan, target, c.curve);
+    return a0 === null || a1 === null ? null : a1 - a0;
+  };
+  const planSecondsToTarget = { fast: caseTo("fast"), likely: planTarget, slow: caseTo("slow") };
+  const slowEnd = planSecondsToTarget.slow ?? planTarget;
   let upperFactor: number | null = null;
   let lowerFactor: number | null = null;
   if (pA > WATER_LEVEL_MICRONS && WATER_LEVEL_MICRONS > target) {
@@ -118,22 +143,22 @@ export function comparePlanWithPullDown(plan: Plan, real: { tSeconds: number[]; 
         "Test the rig alone: pump blank-off with the gauge on the pump, then with the hoses capped (gaskets, core tools).",
         "Check the pump oil: cloudy or yellow oil slows a pump down; change it.",
       ];
-  if (slowdownFactor !== null && slowdownFactor >= MUCH_SLOWER_FACTOR) {
+  if (realTarget !== null && slowEnd !== null && realTarget >= SLOW_END_MARGIN * slowEnd && slowdownFactor !== null) {
     findings.push({
       code: "pull_down_much_slower_than_plan",
       severity: "advice",
       title: `Pull-down ${slowdownFactor.toFixed(1)}× slower than planned`,
-      message: `From ${Math.round(pA).toLocaleString("en-US")} microns the real pull-down took ${slowdownFactor.toFixed(1)} times the gas-only plan to reach ${target} microns.`,
+      message: `From ${Math.round(pA).toLocaleString("en-US")} microns the real pull-down took ${durationWords(realTarget)} to reach ${target} microns; the plan's slow end is ${durationWords(slowEnd)} (likely ${planTarget !== null ? durationWords(planTarget) : "never"}).`,
       evidence,
       checks,
       cautions: ["Never energise the compressor while the system is in deep vacuum."],
     });
-  } else if (realTarget === null && planTarget !== null && realSpan >= MUCH_SLOWER_FACTOR * planTarget) {
+  } else if (realTarget === null && slowEnd !== null && realSpan >= SLOW_END_MARGIN * slowEnd) {
     findings.push({
       code: "target_not_reached_planned",
       severity: "warning",
       title: "Target not reached in far more than the planned time",
-      message: `The plan reaches ${target} microns in ${Math.round(planTarget / 60)} min from ${Math.round(pA).toLocaleString("en-US")} microns; the real pull-down had ${Math.round(realSpan / 60)} min and never got there.`,
+      message: `From ${Math.round(pA).toLocaleString("en-US")} microns the plan reaches ${target} microns in ${durationWords(slowEnd)} at its slow end; the real pull-down had ${durationWords(realSpan)} and never got there.`,
       evidence,
       checks: [
         "Check the rig's history: pump oil changes and blank-off trend.",
@@ -142,5 +167,5 @@ export function comparePlanWithPullDown(plan: Plan, real: { tSeconds: number[]; 
       cautions: ["Never energise the compressor while the system is in deep vacuum."],
     });
   }
-  return { slowdownFactor, upperFactor, lowerFactor, alignedAtMicrons: pA, planOnRealTime, findings };
+  return { slowdownFactor, realSecondsToTarget: realTarget, planSecondsToTarget, upperFactor, lowerFactor, alignedAtMicrons: pA, planOnRealTime, findings };
 }
