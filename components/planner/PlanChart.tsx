@@ -5,6 +5,7 @@
  * Loaded with next/dynamic only (LazyPlanChart), so chart.js stays out of first loads.
  */
 import { useEffect, useRef } from "react";
+import { durationWords } from "@/analysis/format";
 import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, Legend, type ChartConfiguration } from "chart.js";
 
 Chart.register(LineController, LineElement, PointElement, LinearScale, LogarithmicScale, Tooltip, Legend);
@@ -80,7 +81,7 @@ export default function PlanChart({ series, targetMicrons, summary, className = 
         },
         plugins: {
           legend: { position: "bottom", labels: { color: fg, boxWidth: 18, font: { family: "'IBM Plex Sans', system-ui, sans-serif" } } },
-          tooltip: { callbacks: { label: (c) => `${c.dataset.label}: ${Math.round(c.parsed.y ?? 0).toLocaleString("en-US")} microns at ${(c.parsed.x ?? 0).toFixed(1)} min` } },
+          tooltip: { callbacks: { label: (c) => `${c.dataset.label}: ${Math.round(c.parsed.y ?? 0).toLocaleString("en-US")} microns at ${durationWords((c.parsed.x ?? 0) * 60)}` } },
         },
       },
     };

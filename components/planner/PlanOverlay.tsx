@@ -1,8 +1,9 @@
 "use client";
 
 /**
- * A plan against a real pull-down, ready to drop on a test page: the gas-only plan curve shifted
- * to where the real log first reads, the real curve, and findings when the real one is much slower.
+ * A plan against a real pull-down, ready to drop on a test page: the likely plan curve shifted
+ * to where the real log first reads, the real curve, the plan's range over the same span, and
+ * findings when the real one is slower than the plan's slow end.
  *
  * Usage: <PlanOverlay plannerInput={...} real={{ tSeconds, microns }} /> (the pull-down part, before isolation).
  */
@@ -26,7 +27,7 @@ export function PlanOverlay({ plannerInput, real }: PlanOverlayProps) {
   const series = useMemo(
     () => [
       { label: "Real pull-down", tSeconds: real.tSeconds, microns: real.microns, kind: "real" as const },
-      ...(comparison.planOnRealTime ? [{ label: "Plan (gas only)", ...comparison.planOnRealTime, kind: "plan" as const }] : []),
+      ...(comparison.planOnRealTime ? [{ label: "Plan (likely)", ...comparison.planOnRealTime, kind: "plan" as const }] : []),
     ],
     [real, comparison],
   );
@@ -35,11 +36,11 @@ export function PlanOverlay({ plannerInput, real }: PlanOverlayProps) {
       <LazyPlanChart
         series={series}
         targetMicrons={plan.input.targetMicrons}
-        summary={`Real pull-down against the plan; the plan reaches ${plan.input.targetMicrons} microns in ${durationWords(plan.timeToTargetSeconds)}.`}
+        summary={`Real pull-down against the plan; the plan reaches ${plan.input.targetMicrons} microns in ${durationWords(plan.range.fastSeconds)} to ${durationWords(plan.range.slowSeconds)}.`}
       />
       {comparison.slowdownFactor !== null && (
         <p className="text-body text-fg-soft">
-          From {Math.round(comparison.alignedAtMicrons ?? 0).toLocaleString("en-US")} microns the real pull-down took {comparison.slowdownFactor.toFixed(1)}× the plan.
+          From {Math.round(comparison.alignedAtMicrons ?? 0).toLocaleString("en-US")} microns: recorded {durationWords(comparison.realSecondsToTarget)}, plan {durationWords(comparison.planSecondsToTarget.fast)} – {durationWords(comparison.planSecondsToTarget.slow)} (likely {durationWords(comparison.planSecondsToTarget.likely)}), {comparison.slowdownFactor.toFixed(1)}× the likely plan.
         </p>
       )}
       {comparison.findings.map((f) => (
@@ -52,6 +53,11 @@ export function PlanOverlay({ plannerInput, real }: PlanOverlayProps) {
           </ul>
         </Alert>
       ))}
+      <ul className="list-disc pl-5 text-caption text-fg-soft">
+        {plan.assumptions.map((a) => (
+          <li key={a}>{a}</li>
+        ))}
+      </ul>
       <p className="text-caption text-fg-soft">{plan.caveat}</p>
     </div>
   );

@@ -9,6 +9,7 @@ import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
 import { launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
+import { recordDemoSystem } from "@/tests/helpers/planner-system";
 
 const SHOTS = process.env.JOURNEY_SHOTS === "1";
 const SHOTS_DIR = process.env.JOURNEY_SHOTS_DIR ?? "/tmp/rl-tools-shots";
@@ -28,6 +29,7 @@ beforeAll(async () => {
   session = await launch();
   const owner = await createShop();
   tech = await addMember(owner.organizationId, "technician", "Tomas Tech");
+  await recordDemoSystem(tech, "Unit B7 heat pump", 2);
   const context = await session.newContext(PHONE);
   // A dev server compiles each page on first visit, which can take tens of seconds on a busy machine.
   context.setDefaultTimeout(90_000);
@@ -52,7 +54,10 @@ describe("tools journey on a 360 px phone (common practice, no published source)
     const table = page.getByRole("table", { name: "What-ifs side by side" });
     await expect(table.getByText("3/8 in hoses").count()).resolves.toBe(1);
     await expect(table.getByText("Cores out").count()).resolves.toBe(1);
-    await expect(page.getByText(/gas-only estimate/).count()).resolves.toBeGreaterThan(0);
+    // A range with its assumptions beside it, and never a negative saving (common practice, no published source).
+    await expect(result.getByTestId("plan-range").textContent()).resolves.toMatch(/\d+ (min|s|h).* – \d+ (min|s|h)/);
+    await expect(result.getByTestId("plan-assumptions").textContent()).resolves.toMatch(/Water and outgassing/);
+    await expect(table.textContent()).resolves.not.toMatch(/[−-]\d+ ?%/);
     await page.locator("canvas").first().waitFor();
     await shot("planner");
   });
@@ -135,6 +140,19 @@ describe("tools journey on a 360 px phone (common practice, no published source)
     await page.getByTestId("rig-history").getByText(/Oil changed/).waitFor();
     await expect(page.getByTestId("rig-history").getByText(/oil cloudy or yellow/).count()).resolves.toBe(1);
     await shot("rig");
+  });
+
+  it("shows a recorded system's own pull-downs beside the plan", async () => {
+    await page.goto("/tools/planner");
+    await page.getByLabel("A system from your records").selectOption({ label: "Planner test site · Unit B7 heat pump" });
+    await expect.poll(() => page.getByLabel("Line-set length (ft)").inputValue()).toBe("35");
+    const history = page.getByTestId("system-history");
+    await history.getByTestId("recorded-vs-plan").first().waitFor();
+    await expect(history.getByTestId("recorded-vs-plan").count()).resolves.toBe(2);
+    await expect(history.getByTestId("recorded-vs-plan").first().textContent()).resolves.toMatch(/Recorded \d+.*plan .* – .*likely/);
+    await page.getByRole("button", { name: "Plan the pull-down" }).click();
+    await page.getByTestId("plan-result").waitFor();
+    await shot("planner-history");
   });
 
   it("fills the planner's pump from the rig in the register", async () => {

@@ -1,12 +1,19 @@
 "use client";
 
-import { useMemo, useState } from "react";
+/**
+ * The pull-down planner: the system (a line set and coils, a volume, or a system from the shop's
+ * records), the pump and hoses (or a rig from the register), the system's condition (the water and
+ * outgassing assumed, which the technician can change), then the plan as a range with what-ifs,
+ * and for a recorded system its own pull-downs beside the plan.
+ */
+import { useState } from "react";
 import { planWhatIfs, type PlannerInput, type WhatIf } from "@/analysis/planner";
-import { ACR_TUBE_ID_INCHES, systemVolumeLitres } from "@/analysis/volume";
+import { CONDITION_WORDS, type SystemCondition } from "@/analysis/planner-load";
+import { ACR_TUBE_ID_INCHES, systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/volume";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
-import { LazyPlanChart } from "@/components/planner/LazyPlanChart";
-import { durationWords } from "@/components/planner/format";
+import { PlanResult } from "@/components/planner/PlanResult";
 import { RigPicker, type RigSetup } from "@/components/planner/RigPicker";
+import { SystemHistory } from "@/components/planner/SystemHistory";
 
 const SIZES = Object.keys(ACR_TUBE_ID_INCHES).map((s) => ({ value: s, label: `${s} in` }));
 const HOSE_IDS = [
@@ -15,11 +22,22 @@ const HOSE_IDS = [
   { value: "0.5", label: "1/2 in" },
 ];
 
-function num(s: string): number {
-  return Number(s.replace(",", "."));
+export interface PlannerSystem {
+  id: string;
+  label: string;
+  lineSetFeet: number | null;
+  liquidOd: string | null;
+  suctionOd: string | null;
+  indoorCoilLitres: number | null;
+  outdoorUnitLitres: number | null;
 }
 
-export function Planner() {
+function num(s: string): number {
+  return s.trim() === "" ? NaN : Number(s.replace(",", "."));
+}
+
+export function Planner({ systems }: { systems: PlannerSystem[] }) {
+  const [systemId, setSystemId] = useState("");
   const [volumeMode, setVolumeMode] = useState<"lineset" | "direct">("lineset");
   const [lineFt, setLineFt] = useState("25");
   const [liquidOd, setLiquidOd] = useState("3/8");
@@ -35,6 +53,9 @@ export function Planner() {
   const [coresRemoved, setCoresRemoved] = useState(false);
   const [manifold, setManifold] = useState(true);
   const [target, setTarget] = useState("500");
+  const [condition, setCondition] = useState<SystemCondition>("typical");
+  const [waterGrams, setWaterGrams] = useState("");
+  const [suggestion, setSuggestion] = useState<string | null>(null);
   const [result, setResult] = useState<{ whatIfs: WhatIf[]; volume: number } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -50,6 +71,21 @@ export function Planner() {
     if (r.hoseLengthFt) setHoseFt(String(r.hoseLengthFt));
   }
 
+  function pickSystem(id: string) {
+    setSystemId(id);
+    setSuggestion(null);
+    const s = systems.find((x) => x.id === id);
+    if (!s) return;
+    if (s.lineSetFeet && s.liquidOd && s.suctionOd) {
+      setVolumeMode("lineset");
+      setLineFt(String(s.lineSetFeet));
+      setLiquidOd(s.liquidOd);
+      setSuctionOd(s.suctionOd);
+    }
+    const coil = (s.indoorCoilLitres ?? 0) + (s.outdoorUnitLitres ?? 0);
+    if (coil > 0) setCoilL(String(Math.round(coil * 10) / 10));
+  }
+
   function plan() {
     setError(null);
     setBusy(true);
@@ -60,6 +96,7 @@ export function Planner() {
             ? systemVolumeLitres({ litres: num(litres) })
             : systemVolumeLitres({ lineSet: [{ lengthFeet: num(lineFt), liquidOd, suctionOd }], coilLitres: num(coilL) || 0 });
         if (!volume) throw new RangeError("enter the line set or the system volume");
+        const grams = num(waterGrams);
         const input: PlannerInput = {
           volumeLitres: volume,
           pump: { displacement: num(displacement), displacementUnit: dispUnit, blankOffMicrons: num(blankOff) },
@@ -67,6 +104,9 @@ export function Planner() {
           coresRemoved,
           manifold,
           targetMicrons: num(target),
+          condition,
+          waterGrams: Number.isFinite(grams) ? grams : null,
+          lineSet: volumeMode === "lineset" ? { lengthFt: num(lineFt), suctionInsideDiameterIn: tubeInsideDiameterIn(suctionOd) } : null,
         };
         setResult({ whatIfs: planWhatIfs(input), volume });
       } catch (e) {
@@ -78,15 +118,20 @@ export function Planner() {
     }, 10);
   }
 
-  const series = useMemo(
-    () => result?.whatIfs.map((w) => ({ label: w.label, tSeconds: w.plan.curve.tSeconds, microns: w.plan.curve.microns, kind: "plan" as const })) ?? [],
-    [result],
-  );
-  const main = result?.whatIfs[0];
-
   return (
     <div className="space-y-4">
       <Card title="System">
+        {systems.length > 0 && (
+          <div className="mb-3">
+            <Select
+              label="A system from your records"
+              value={systemId}
+              onChange={(e) => pickSystem(e.target.value)}
+              options={[{ value: "", label: "Type the system in" }, ...systems.map((s) => ({ value: s.id, label: s.label }))]}
+              hint="Fills the line set and coils, and shows this system's own recorded pull-downs beside the plan."
+            />
+          </div>
+        )}
         <div className="mb-3 flex gap-2" role="radiogroup" aria-label="How to give the volume">
           <Button variant={volumeMode === "lineset" ? "primary" : "secondary"} role="radio" aria-checked={volumeMode === "lineset"} onClick={() => setVolumeMode("lineset")}>
             Line set
@@ -98,13 +143,23 @@ export function Planner() {
         {volumeMode === "lineset" ? (
           <div className="grid gap-3 sm:grid-cols-2">
             <Input label="Line-set length (ft)" inputMode="decimal" value={lineFt} onChange={(e) => setLineFt(e.target.value)} />
-            <Input label="Coil and unit volume (L)" inputMode="decimal" value={coilL} onChange={(e) => setCoilL(e.target.value)} hint="Indoor coil plus outdoor unit, from the data sheet" />
+            <Input label="Coil and unit volume (L)" inputMode="decimal" value={coilL} onChange={(e) => setCoilL(e.target.value)} hint="Indoor coil, plus the outdoor unit when it is opened too" />
             <Select label="Liquid line OD" value={liquidOd} onChange={(e) => setLiquidOd(e.target.value)} options={SIZES} />
             <Select label="Suction line OD" value={suctionOd} onChange={(e) => setSuctionOd(e.target.value)} options={SIZES} />
           </div>
         ) : (
           <Input label="System volume (L)" inputMode="decimal" value={litres} onChange={(e) => setLitres(e.target.value)} />
         )}
+        <div className="mt-3 grid gap-3 sm:grid-cols-2">
+          <Select
+            label="System's condition (water and outgassing)"
+            value={condition}
+            onChange={(e) => setCondition(e.target.value as SystemCondition)}
+            options={(Object.keys(CONDITION_WORDS) as SystemCondition[]).map((c) => ({ value: c, label: CONDITION_WORDS[c] }))}
+            hint={suggestion ?? "What keeps a real pull-down slow: water in the oil and on the copper, refrigerant in the oil."}
+          />
+          <Input label="Water to remove (g), if you know better" inputMode="decimal" value={waterGrams} onChange={(e) => setWaterGrams(e.target.value)} hint="Leave empty to use the condition's figure" />
+        </div>
       </Card>
       <Card title="Pump and hoses">
         <div className="mb-3">
@@ -134,48 +189,17 @@ export function Planner() {
         </Button>
       </Card>
       {error && <Alert tone="error" title="Cannot plan this">{error}</Alert>}
-      {main && result && (
-        <Card title="Plan" data-testid="plan-result">
-          <p className="text-body text-fg-soft">{result.volume.toFixed(2)} L system, pump {main.plan.pumpSpeedLps.toFixed(2)} L/s.</p>
-          <p className="text-figure" data-testid="time-to-target">{durationWords(main.plan.timeToTargetSeconds)}</p>
-          <p className="text-body">to {main.plan.input.targetMicrons.toLocaleString("en-US")} microns (gas only). Slowest part: {main.plan.bottleneck}.</p>
-          <table className="mt-3 w-full text-left text-body" aria-label="What-ifs side by side">
-            <thead>
-              <tr className="border-b border-surface-line text-caption text-fg-soft">
-                <th className="py-2 font-medium">Setup</th>
-                <th className="py-2 font-medium">Time to target</th>
-                <th className="py-2 font-medium">Saves</th>
-              </tr>
-            </thead>
-            <tbody>
-              {result.whatIfs.map((w) => {
-                const t = w.plan.timeToTargetSeconds;
-                const base = main.plan.timeToTargetSeconds;
-                return (
-                  <tr key={w.key} className="border-b border-surface-line">
-                    <td className="py-2">{w.label}</td>
-                    <td className="py-2">{durationWords(t)}</td>
-                    <td className="py-2">{w.key === "as_planned" || t === null || base === null ? "—" : `${Math.round((1 - t / base) * 100)} %`}</td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
-          <div className="mt-4">
-            <LazyPlanChart series={series} targetMicrons={main.plan.input.targetMicrons} summary={`Predicted pull-down curves; as planned reaches the target in ${durationWords(main.plan.timeToTargetSeconds)}.`} />
-          </div>
-          <Alert tone="info" className="mt-3" title="Gas only">
-            {main.plan.caveat}
-          </Alert>
-          <details className="mt-3 text-body">
-            <summary className="min-h-tap cursor-pointer py-2 font-medium">How this was worked out</summary>
-            <ul className="list-disc pl-5 text-fg-soft">
-              {main.plan.assumptions.map((a) => (
-                <li key={a}>{a}</li>
-              ))}
-            </ul>
-          </details>
-        </Card>
+      {result && <PlanResult whatIfs={result.whatIfs} volumeLitres={result.volume} />}
+      {systemId && (
+        <SystemHistory
+          key={systemId}
+          systemId={systemId}
+          onSuggestion={(s) => {
+            if (!s) return;
+            setCondition(s.condition);
+            setSuggestion(`Set to ${s.condition} from this system's history: ${s.why}.`);
+          }}
+        />
       )}
     </div>
   );
