@@ -3,6 +3,7 @@
  * Pure functions, no chart library: x is minutes from the first data row, y is microns.
  */
 import type { AnalysisResult, Hold, ModelFit } from "@/analysis/types";
+import { storyOf } from "@/lib/verdict/story";
 
 export interface XY {
   x: number;
@@ -159,7 +160,8 @@ export function curveSummary(analysis: AnalysisResult, series: { t: number[]; p:
   const hold = primaryHold(analysis);
   if (analysis.isolationAt != null) parts.push(`Isolated at ${durationWords(analysis.isolationAt)} from the start.`);
   else parts.push("No isolation point found; the log may start in the hold.");
-  if (hold) parts.push(`During the hold the reading went from ${microns(hold.startMicrons)} to ${microns(hold.endMicrons)} microns in ${durationWords(hold.endSeconds - hold.isolatedAtSeconds)}.`);
+  const said = storyOf(analysis).holdSentence;
+  if (said) parts.push(`During the hold: ${said.charAt(0).toLowerCase()}${said.slice(1)}`);
   if (hold?.fit) parts.push(`Best-fitting shape: ${shapeWords(hold.fit.chosen)}.`);
   parts.push(`Limit ${microns(analysis.profile.limitMicrons)} microns.`);
   if (analysis.forecast)

@@ -53,6 +53,7 @@ export interface HistoryEntry {
   version: number;
   verdict: Verdict;
   confidence: number;
+  meetsProfile?: boolean | null;
   createdAt: string;
   createdBy: string | { id: string; name: string } | null;
   reason: string | null;

@@ -294,6 +294,7 @@ function newTestRows(a: NewTestArgs): NewTestRows {
       ambientC: m.ambientC ?? null,
       rigNote: m.rigNote ?? null,
       notes: m.notes ?? null,
+      customerNote: m.customerNote ?? null,
       isPractice: m.isPractice,
       verdict: a.result.verdict,
       currentAnalysisId: a.analysisId,
