@@ -3,6 +3,12 @@ import { storyOf } from "@/lib/verdict/story";
 import { VerdictIcon } from "./VerdictIcon";
 import { verdictText } from "./words";
 
+const FORECAST_TONE: Record<"pass" | "fail" | "neutral", string> = {
+  pass: "text-verdict-pass dark:text-green-300",
+  fail: "text-verdict-leak dark:text-orange-300",
+  neutral: "text-fg",
+};
+
 interface Props {
   analysis: AnalysisResult;
   /** Heading level of the verdict line (1 on the test page, 2 inside the new-test flow). */
@@ -13,7 +19,8 @@ interface Props {
 /**
  * The test in two statements, never merged: what the curve shows (headline, meaning, confidence in
  * words and why) and whether the shop's acceptance profile was met (with the rule that failed);
- * then the hold in one sentence, the reasons and the usual next step.
+ * then the hold in one sentence, the early call of a short hold (made by the verdict's own rules)
+ * or what was measured at the profile's hold time, the reasons and the usual next step.
  */
 export function VerdictBanner({ analysis, level = 2, className = "" }: Props) {
   const t = verdictText(analysis.verdict);
@@ -73,6 +80,14 @@ export function VerdictBanner({ analysis, level = 2, className = "" }: Props) {
           </div>
         </dl>
         {story.holdSentence && <p className="text-body" data-testid="hold-sentence">{story.holdSentence}</p>}
+        {story.forecast && (
+          <div className="rounded-lg border border-surface-line px-3 py-2" data-testid="forecast">
+            <p className={`text-lead font-semibold ${FORECAST_TONE[story.forecast.tone]}`} data-testid="early-call" data-kind={story.forecast.kind}>
+              {story.forecast.headline}
+            </p>
+            <p className="text-body text-fg-soft">{story.forecast.note}</p>
+          </div>
+        )}
         {analysis.reasons.length > 0 && (
           <ul className="list-disc space-y-1 pl-5 text-body text-fg-soft" data-testid="reasons">
             {analysis.reasons.map((r, i) => (
