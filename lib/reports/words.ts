@@ -7,12 +7,12 @@ export function verdictLabel(verdict: string | null | undefined): string {
   return curveWords(verdict).headline;
 }
 
-/** Both statements in one line for a message: "The curve: Tight and dry. The profile: not met." */
+/** Both statements in one line for a message: "Tight and dry. The shop's profile was not met." ("Passed." only for both). */
 export function storyLine(verdict: string | null | undefined, meetsProfile: boolean | null | undefined): string {
   if (!verdict) return "Not analysed yet.";
-  const profile = meetsProfile === true ? "met" : meetsProfile === false ? "not met" : null;
+  const profile = meetsProfile === true ? "was met" : meetsProfile === false ? "was not met" : null;
   const outcome = outcomeOf(verdict, meetsProfile);
-  return `The curve: ${verdictLabel(verdict)}.${profile ? ` The shop's profile: ${profile}.` : ""}${outcome.label === "Passed" ? " Passed." : ""}`;
+  return `${verdictLabel(verdict)}.${profile ? ` The shop's profile ${profile}.` : ""}${outcome.label === "Passed" ? " Passed." : ""}`;
 }
 
 /** The cautions every report carries (see the trade primer); the verdict never replaces them. */

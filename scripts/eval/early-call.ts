@@ -8,6 +8,7 @@ import { SCENARIOS, simulateLog, type Scenario, type SimulatedLog } from "../../
 import { DEFAULT_PROFILE } from "../../analysis/profile";
 import type { AnalysisResult, Verdict } from "../../analysis/types";
 import { independentLogs } from "./independent";
+import { MIN_EARLY_CALL_READINGS } from "../../analysis/forecast";
 
 export const EARLY_SECONDS = 240;
 
@@ -116,5 +117,6 @@ export function earlyCallLines(firstSeed: number, independentCount: number): str
     ...line("simulator, every scenario", every, false),
     ...line("independent set, gauge logs", ind),
     ...line("independent set, typed (1/min)", indTyped, false),
+    `    (typed logs have 5 readings by minute 4, under the ${MIN_EARLY_CALL_READINGS} an early call needs: no call by design)`,
   ];
 }
