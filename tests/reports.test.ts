@@ -92,6 +92,9 @@ describe("e-mailing the report to a customer (reports.share is owner + lead, DEV
     expect(res.status).toBe(202);
     const mail = await waitForMail("office@harbor-lane.example.test", /Vacuum test report/);
     expect(mail.text).toContain("As discussed on site.");
+    // The message quotes the report's own statements and numbers (lib/verdict/story.ts).
+    expect(mail.text).toContain("Steady climb: leak likely. The shop's profile was not met.");
+    expect(mail.text).toMatch(/From 400 to a last reading of 1,300 microns in 15\.0 min/);
     expect(mail.html).toContain("As discussed on site.");
     expect(mail.attachments).toHaveLength(1);
     expect(mail.attachments[0]).toMatchObject({ contentType: "application/pdf" });

@@ -76,10 +76,12 @@ export const PDF_FONTS = {
   semibold: path.join(FONT_DIR, "ibm-plex-sans-latin-600-normal.woff"),
 } as const;
 const REGULAR = "Plex";
+const CURVE_HEIGHT = 210;
 const SEMIBOLD = "Plex-Semibold";
 
-function heading(doc: PDFKit.PDFDocument, text: string) {
-  if (doc.y > doc.page.height - 120) doc.addPage();
+/** A section heading, on a new page when less than `keepWith` points would follow it on this one. */
+function heading(doc: PDFKit.PDFDocument, text: string, keepWith = 60) {
+  if (doc.y > doc.page.height - doc.page.margins.bottom - keepWith - 20) doc.addPage();
   doc.moveDown(0.6).fillColor(ACCENT).font(SEMIBOLD).fontSize(12).text(pdfText(text)).moveDown(0.2).font(REGULAR).fontSize(10).fillColor(INK);
 }
 
@@ -129,7 +131,7 @@ function drawBlock(doc: PDFKit.PDFDocument, b: Block, m: ReportModel) {
       if (!m.curve) return;
       const x0 = left + 56;
       const w = doc.page.width - doc.page.margins.right - x0;
-      const h = 210;
+      const h = CURVE_HEIGHT;
       if (doc.y + h + 40 > doc.page.height - doc.page.margins.bottom) doc.addPage();
       const y0 = doc.y + 4;
       drawCurve(doc, m.curve, x0, y0, w, h);
@@ -159,7 +161,8 @@ export async function renderReportPdf(m: ReportModel, opts: { compress?: boolean
   if (d.practice) doc.fillColor(MUTED).fontSize(10).text(pdfText(d.practice));
   doc.fontSize(10).fillColor(INK);
   for (const s of d.sections) {
-    heading(doc, s.heading);
+    // The curve keeps its heading with it (the chart is 210 pt tall plus its axis labels).
+    heading(doc, s.heading, s.blocks[0]?.kind === "curve" ? CURVE_HEIGHT + 50 : 60);
     for (const b of s.blocks) drawBlock(doc, b, m);
   }
   doc.moveDown(0.8).fillColor(MUTED).fontSize(8);
