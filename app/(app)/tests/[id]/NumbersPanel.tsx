@@ -37,7 +37,7 @@ export function NumbersPanel({ analysis }: { analysis: AnalysisResult }) {
     <Card title="The numbers">
       <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3" data-testid="numbers">
         <Item label="Isolated at" value={analysis.isolationAt != null ? minutesShort(analysis.isolationAt) : "Not found"} si={analysis.isolationAt != null ? "from the first reading" : "log may start in the hold"} testId="isolation-at" />
-        {pd && <Item label="Lowest before isolating" value={`${microns(pd.lowestMicrons)} µ`} si={pascals(pd.lowestMicrons)} />}
+        {pd && <Item label="Lowest before isolating" value={`${microns(pd.lowestMicrons)} µ`} si={`3-reading median · ${pascals(pd.lowestMicrons)}`} title="the lowest reading of the pull-down, as a median of 3 readings so one wild reading does not count" />}
         {story.numbers.map((n) => (
           <Item key={n.key} label={n.label} value={n.value} si={siOf(n, !!hold && !hold.complete)} testId={`number-${n.key}`} title={n.definition} />
         ))}
