@@ -1,20 +1,18 @@
 /**
  * The verdict on a hold, its confidence and reasons, the decay numbers and the profile rules.
  *
- * Rule (physics of the rise; thresholds from the acceptance profile, common practice):
+ * The curve's verdict comes from the one rule in rule.ts (shared with the forecast's early call).
+ * On top of it:
  *  - no hold found, or fewer than MIN_HOLD_READINGS readings in it → inconclusive;
  *  - a hold shorter than the profile's hold time that has not yet passed the limit → inconclusive
  *    (the forecast may still give an early call);
- *  - a steady climb at or above the profile's leak rate is a leak, even below the limit; a curve still
- *    rising at that rate at the end because it has not levelled off counts as a climb too; the
- *    readings of the second half of the hold must climb at least half that rate (a step that then
- *    stays flat is not a leak);
- *  - a level-off above the limit is moisture (water boiling off, or refrigerant leaving the oil);
- *  - both → leak_and_moisture; neither → pass.
+ *  - the profile is met only when the curve passes and every rule of the profile is met; a rule that
+ *    fails is named, and the curve's own statement stays as it is (two statements, never merged).
  */
-import { evaluateModel } from "./fit";
+import { certaintyOf, type Certainty } from "./confidence";
 import { groupedInteger } from "./format";
 import { MIN_HOLD_READINGS } from "./profile";
+import { climbOf, curveVerdict, levelledOffWithin, type CurveReading } from "./rule";
 import type { AcceptanceProfile, AnalysisResult, Decay, Forecast, HoldFitResult, ModelFit, Verdict } from "./types";
 
 export interface HoldEvidence {
@@ -23,10 +21,12 @@ export interface HoldEvidence {
   readings: number;
   /** Reading at isolation (or the first reading when the log starts in the hold), microns. */
   startMicrons: number;
-  /** Median of the last three readings, microns. */
+  /** The last reading of the hold, as the gauge showed it, microns. */
   endMicrons: number;
-  /** Highest reading (3-point median) up to the profile's hold time, microns. */
+  /** Highest running median (figures.ts) up to the profile's hold time, microns: what the limit rule judges. */
   maxMicrons: number;
+  /** Highest single reading over the same part of the hold, microns (shown beside the smoothed one). */
+  rawMaxMicrons?: number;
   isolationSeen: boolean;
   /** Least-squares slope of the readings over the last half of the hold (microns per minute), or null. */
   lateSlopeMicronsPerMinute: number | null;
@@ -35,6 +35,8 @@ export interface HoldEvidence {
 export interface Classification {
   verdict: Verdict;
   confidence: number;
+  /** The confidence in words, with what holds it down. */
+  certainty: Certainty;
   reasons: string[];
   decay: Decay | null;
   meetsProfile: boolean;
@@ -66,65 +68,73 @@ export function decayFromFit(fit: HoldFitResult | null, e: HoldEvidence): Decay 
   };
 }
 
-/**
- * Slope of the chosen model at the end of the hold (microns per minute) when its level-off has not
- * happened within the hold (τ longer than half the hold): such a curve is, over the log, a climb.
- */
-function unlevelledSlopePerMinute(m: ModelFit | null, holdSeconds: number): number {
-  if (!m || m.params.tauSeconds === undefined || m.params.tauSeconds <= holdSeconds / 2) return 0;
-  const dt = Math.max(holdSeconds * 0.01, 1);
-  return ((evaluateModel(m, holdSeconds) - evaluateModel(m, holdSeconds - dt)) / dt) * 60;
+/** "highest 2,650 microns" with the single highest reading beside it when the smoothing changed it. */
+export function highestWords(e: Pick<HoldEvidence, "maxMicrons" | "rawMaxMicrons">): string {
+  const raw = e.rawMaxMicrons;
+  const differs = raw !== undefined && fmt(raw) !== fmt(e.maxMicrons);
+  return `highest ${fmt(e.maxMicrons)} microns${differs ? ` (smoothed over 5 readings; highest single reading ${fmt(raw!)})` : ""}`;
 }
 
-function clamp01(x: number): number {
-  return Math.min(Math.max(x, 0), 1);
+function noHold(): Classification {
+  const reasons = ["No hold found: the log never turns from falling to rising (the pump was not valved off, or the log ends in the pull-down)."];
+  const certainty = certaintyOf({ verdict: "inconclusive", reading: null, evidence: null, fit: null, profile: null });
+  return {
+    verdict: "inconclusive",
+    confidence: certainty.confidence,
+    certainty,
+    reasons,
+    decay: null,
+    meetsProfile: false,
+    profileRules: [
+      { rule: "target", met: false, detail: "no isolation found" },
+      { rule: "hold_time", met: false, detail: "no hold found" },
+      { rule: "limit", met: false, detail: "no hold found" },
+      { rule: "leak_rate", met: false, detail: "no hold found" },
+    ],
+    climbMicronsPerMinute: 0,
+  };
+}
+
+function rulesOf(e: HoldEvidence, profile: AcceptanceProfile, climb: number): AnalysisResult["profileRules"] {
+  const judged = Math.min(e.holdSeconds, profile.holdMinutes * 60);
+  return [
+    {
+      rule: "target",
+      met: e.startMicrons <= profile.targetMicrons,
+      detail: e.isolationSeen
+        ? `isolated at ${fmt(e.startMicrons)} microns (target ${fmt(profile.targetMicrons)})`
+        : `log starts in the hold at ${fmt(e.startMicrons)} microns (target ${fmt(profile.targetMicrons)}); the isolation itself is not in the log`,
+    },
+    { rule: "hold_time", met: e.holdSeconds >= profile.holdMinutes * 60, detail: `held ${minutes(e.holdSeconds)} min (at least ${profile.holdMinutes} min)` },
+    {
+      rule: "limit",
+      met: e.maxMicrons <= profile.limitMicrons,
+      detail: `${highestWords(e)} in the first ${minutes(judged)} min of the hold (limit ${fmt(profile.limitMicrons)})`,
+    },
+    {
+      rule: "leak_rate",
+      met: climb < profile.leakRateMicronsPerMinute,
+      detail: `steady climb ${climb.toFixed(1)} microns/min (a leak at ${profile.leakRateMicronsPerMinute} or more)`,
+    },
+  ];
 }
 
 export function classifyHold(fit: HoldFitResult | null, e: HoldEvidence | null, profile: AcceptanceProfile, forecast: Forecast | null): Classification {
+  if (!e) return noHold();
   const limit = profile.limitMicrons;
   const holdTarget = profile.holdMinutes * 60;
-  const rules: Classification["profileRules"] = [];
-  if (!e) {
-    return {
-      verdict: "inconclusive",
-      confidence: 0.2,
-      reasons: ["No hold found: the log never turns from falling to rising (the pump was not valved off, or the log ends in the pull-down)."],
-      decay: null,
-      meetsProfile: false,
-      profileRules: [
-        { rule: "target", met: false, detail: "no isolation found" },
-        { rule: "hold_time", met: false, detail: "no hold found" },
-        { rule: "limit", met: false, detail: "no hold found" },
-        { rule: "leak_rate", met: false, detail: "no hold found" },
-      ],
-      climbMicronsPerMinute: 0,
-    };
-  }
   const m = chosenFit(fit);
   const decay = decayFromFit(fit, e);
-  const levelledOff = m?.params.tauSeconds === undefined || m.params.tauSeconds <= e.holdSeconds / 2;
-  const climb = Math.max(decay.leakRateMicronsPerMinute, unlevelledSlopePerMinute(m, e.holdSeconds));
-  const reasons: string[] = [];
-
-  rules.push({
-    rule: "target",
-    met: e.startMicrons <= profile.targetMicrons,
-    detail: e.isolationSeen
-      ? `isolated at ${fmt(e.startMicrons)} microns (target ${fmt(profile.targetMicrons)})`
-      : `log starts in the hold at ${fmt(e.startMicrons)} microns (target ${fmt(profile.targetMicrons)}); the isolation itself is not in the log`,
-  });
-  rules.push({ rule: "hold_time", met: e.holdSeconds >= holdTarget, detail: `held ${minutes(e.holdSeconds)} min (at least ${profile.holdMinutes} min)` });
-  rules.push({ rule: "limit", met: e.maxMicrons <= limit, detail: `highest ${fmt(e.maxMicrons)} microns (limit ${fmt(limit)})` });
-  rules.push({
-    rule: "leak_rate",
-    met: climb < profile.leakRateMicronsPerMinute,
-    detail: `steady climb ${climb.toFixed(1)} microns/min (a leak at ${profile.leakRateMicronsPerMinute} or more)`,
-  });
+  const levelledOff = !m || levelledOffWithin(m.params, e.holdSeconds);
+  const climb = m ? climbOf(m.params, e.holdSeconds) : 0;
+  const rules = rulesOf(e, profile, climb);
 
   if (e.readings < MIN_HOLD_READINGS || !m) {
+    const certainty = certaintyOf({ verdict: "inconclusive", reading: null, evidence: e, fit: m, profile });
     return {
       verdict: "inconclusive",
-      confidence: 0.3,
+      confidence: certainty.confidence,
+      certainty,
       reasons: [`Only ${e.readings} readings in the hold: too few to tell a level-off from a climb (at least ${MIN_HOLD_READINGS} needed).`],
       decay,
       meetsProfile: false,
@@ -133,12 +143,18 @@ export function classifyHold(fit: HoldFitResult | null, e: HoldEvidence | null, 
     };
   }
 
-  // a steady climb shows in the second half of the hold too; a quick step that then stays flat does not
-  const steady = e.lateSlopeMicronsPerMinute === null || e.lateSlopeMicronsPerMinute >= 0.5 * profile.leakRateMicronsPerMinute;
-  const leak = climb >= profile.leakRateMicronsPerMinute && steady;
   const plateau = decay.plateauMicrons;
-  const moisture = (plateau !== null && levelledOff && plateau > limit) || (!leak && e.maxMicrons > limit);
+  const reading: CurveReading = {
+    climbMicronsPerMinute: climb,
+    lateSlopeMicronsPerMinute: e.lateSlopeMicronsPerMinute,
+    plateauMicrons: plateau,
+    levelledOff,
+    maxMicrons: e.maxMicrons,
+  };
+  const call = curveVerdict(reading, profile);
+  const { leak, moisture } = call;
   const exceeded = e.maxMicrons > limit;
+  const reasons: string[] = [];
 
   if (e.isolationSeen) reasons.push(`Isolated at ${fmt(e.startMicrons)} microns${e.startMicrons > profile.targetMicrons ? `, above the ${fmt(profile.targetMicrons)}-micron target` : ""}.`);
   else reasons.push(`The log starts in the hold at ${fmt(e.startMicrons)} microns; the isolation is not in the log.`);
@@ -149,7 +165,7 @@ export function classifyHold(fit: HoldFitResult | null, e: HoldEvidence | null, 
     reasons.push(`The hold lasted ${minutes(e.holdSeconds)} minutes, shorter than the ${profile.holdMinutes} minutes the profile asks, and has not passed the ${fmt(limit)}-micron limit yet.`);
     if (forecast?.earlyCall) reasons.push(`The forecast at ${profile.holdMinutes} minutes is ${fmt(forecast.predictedMicrons)} microns (${fmt(forecast.lowMicrons)}–${fmt(forecast.highMicrons)}), an early ${forecast.earlyCall}.`);
   } else {
-    verdict = leak && moisture ? "leak_and_moisture" : leak ? "leak" : moisture ? "moisture" : "pass";
+    verdict = call.verdict;
   }
   if (leak) reasons.push(`It keeps climbing at ${climb.toFixed(0)} microns per minute (a leak at ${profile.leakRateMicronsPerMinute} or more): a leak admits gas at a steady rate.`);
   if (plateau !== null && levelledOff) {
@@ -158,36 +174,15 @@ export function classifyHold(fit: HoldFitResult | null, e: HoldEvidence | null, 
         ? `It levels off near ${fmt(plateau)} microns, above the ${fmt(limit)}-micron limit: moisture boiling off, or refrigerant leaving the oil.`
         : `It levels off near ${fmt(plateau)} microns, below the ${fmt(limit)}-micron limit.`,
     );
-  } else if (!leak && moisture) reasons.push(`It stays above the ${fmt(limit)}-micron limit without a steady climb (highest ${fmt(e.maxMicrons)} microns).`);
-  if (verdict === "pass") reasons.push(`It rose ${fmt(Math.max(decay.riseMicrons, 0))} microns in ${minutes(e.holdSeconds)} minutes and stayed at or below ${fmt(limit)} microns: tight and dry.`);
+  } else if (!leak && moisture) reasons.push(`It stays above the ${fmt(limit)}-micron limit without a steady climb (${highestWords(e)}).`);
+  if (verdict === "pass")
+    reasons.push(`It rose ${fmt(Math.max(decay.riseMicrons, 0))} microns in ${minutes(e.holdSeconds)} minutes (from ${fmt(e.startMicrons)} to a last reading of ${fmt(e.endMicrons)}) and stayed at or below ${fmt(limit)} microns: tight and dry.`);
 
-  const confidence = verdict === "inconclusive" ? 0.3 : confidenceOf({ climb, plateau: levelledOff ? plateau : null, maxMicrons: e.maxMicrons, leak, moisture }, e, profile, m);
+  const certainty = certaintyOf({ verdict, reading, evidence: e, fit: m, profile });
   const meetsProfile = verdict === "pass" && rules.every((r) => r.met);
   if (verdict === "pass" && !meetsProfile) {
     const failed = rules.filter((r) => !r.met).map((r) => r.detail);
     reasons.push(`The curve looks tight and dry, but the profile is not met: ${failed.join("; ")}.`);
   }
-  return { verdict, confidence, reasons, decay, meetsProfile, profileRules: rules, climbMicronsPerMinute: climb };
-}
-
-/**
- * Confidence 0–1: how far the numbers sit from the thresholds that decide (log-ratio margins, a
- * factor of two counts as clear), scaled by how much of the profile's hold was seen and how many
- * readings there are. A heuristic, not a probability.
- */
-function confidenceOf(
-  v: { climb: number; plateau: number | null; maxMicrons: number; leak: boolean; moisture: boolean },
-  e: HoldEvidence,
-  profile: AcceptanceProfile,
-  m: ModelFit,
-): number {
-  const marginOf = (value: number, threshold: number) => clamp01(Math.abs(Math.log(Math.max(value, 1e-6) / threshold)) / Math.LN2);
-  const leakMargin = v.leak ? marginOf(v.climb, profile.leakRateMicronsPerMinute) : v.climb <= 0 ? 1 : marginOf(v.climb, profile.leakRateMicronsPerMinute);
-  const level = v.plateau ?? v.maxMicrons;
-  const levelMargin = marginOf(level, profile.limitMicrons);
-  const seen = clamp01(e.holdSeconds / (profile.holdMinutes * 60));
-  const readings = clamp01(e.readings / 20);
-  const fitQuality = Number.isFinite(m.rSquared) ? 0.7 + 0.3 * clamp01(m.rSquared) : 0.7;
-  const margin = Math.min(leakMargin, levelMargin);
-  return Math.round(clamp01((0.45 + 0.55 * margin) * (0.6 + 0.4 * seen) * (0.7 + 0.3 * readings) * fitQuality) * 100) / 100;
+  return { verdict, confidence: certainty.confidence, certainty, reasons, decay, meetsProfile, profileRules: rules, climbMicronsPerMinute: climb };
 }

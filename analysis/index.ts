@@ -8,15 +8,16 @@
 import { chosenFit, classifyHold, type HoldEvidence } from "./classify";
 import { diagnose } from "./diagnose";
 import { fitHoldModels } from "./fit";
-import { forecastHold } from "./forecast";
+import { holdFigures, judgedHighest } from "./figures";
+import { earlyCallWithVerdict, forecastHold } from "./forecast";
 import { importLog } from "./import";
 import { findPhases } from "./phases";
 import { checkOptions } from "./profile";
-import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFitResult, ImportedLog, LeakRate } from "./types";
+import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFigures, HoldFitResult, ImportedLog, LeakRate } from "./types";
 import { leakRateFromRise, systemVolumeLitres } from "./volume";
 import { LogError } from "./errors";
 
-export const ENGINE_VERSION = "0.1.0";
+export const ENGINE_VERSION = "0.2.0";
 
 export { DEFAULT_PROFILE } from "./profile";
 export { downsampleForChart } from "./downsample";
@@ -40,30 +41,6 @@ export function analyzeReadings(log: ImportedLog, options: AnalyzeOptions = {}):
 function median(values: number[]): number | null {
   const v = values.filter(Number.isFinite).sort((a, b) => a - b);
   return v.length ? v[v.length >> 1] : null;
-}
-
-/** Highest running median (5 readings, 3 for short holds) of p[from..to] up to time `untilSeconds`. */
-function robustMax(p: number[], from: number, to: number, untilSeconds: number, t: number[]): number {
-  const half = to - from + 1 >= 15 ? 2 : 1;
-  const w = new Float64Array(5);
-  let best = 0;
-  for (let i = from; i <= to && t[i] <= untilSeconds; i++) {
-    // the window's median by insertion sort into a fixed buffer (at most 5 readings), no allocation
-    const lo = Math.max(i - half, from);
-    const hi = Math.min(i + half, to);
-    let m = 0;
-    for (let j = lo; j <= hi; j++) {
-      const v = p[j];
-      let k = m++;
-      while (k > 0 && w[k - 1] > v) {
-        w[k] = w[k - 1];
-        k--;
-      }
-      w[k] = v;
-    }
-    best = Math.max(best, w[m >> 1]);
-  }
-  return best;
 }
 
 /** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings). */
@@ -97,6 +74,21 @@ function leadingUsableCount(tSeconds: number[], microns: number[]): number {
   let i = 0;
   while (i < n && microns[i] > 0 && Number.isFinite(microns[i]) && Number.isFinite(tSeconds[i])) i++;
   return i;
+}
+
+/** The hold's readings as the fit saw them: seconds after isolation, spikes it left out removed. */
+function holdDataOf(t: number[], p: number[], start: number, end: number, excluded: number[]): { tSeconds: Float64Array; microns: Float64Array } {
+  const skip = new Set(excluded);
+  const n = end - start + 1 - skip.size;
+  const tSeconds = new Float64Array(Math.max(n, 0));
+  const microns = new Float64Array(Math.max(n, 0));
+  let k = 0;
+  for (let i = start; i <= end; i++) {
+    if (skip.has(i - start)) continue;
+    tSeconds[k] = t[i] - t[start];
+    microns[k++] = p[i];
+  }
+  return { tSeconds, microns };
 }
 
 function fitHold(t: number[], p: number[], start: number, end: number): HoldFitResult | null {
@@ -154,31 +146,42 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
   let evidence: HoldEvidence | null = null;
   let fit: HoldFitResult | null = null;
   let forecast: Forecast | null = null;
+  let highest: ReturnType<typeof judgedHighest> | null = null;
   if (primary !== null) {
     const r = pa.ranges[primary];
     const hold = pa.phases.holds[primary];
     fit = hold.fit;
     const observed = hold.endSeconds - hold.isolatedAtSeconds;
-    const maxMicrons = robustMax(p, r.startIndex, r.endIndex, t[r.startIndex] + holdSeconds, t);
-    const tail = p.slice(Math.max(r.endIndex - 2, r.startIndex), r.endIndex + 1).sort((x, y) => x - y);
+    highest = judgedHighest(t, p, r.startIndex, r.endIndex, t[r.startIndex] + holdSeconds);
     evidence = {
       holdSeconds: observed,
       readings: r.endIndex - r.startIndex + 1,
       startMicrons: hold.startMicrons,
-      endMicrons: tail[tail.length >> 1],
-      maxMicrons,
+      endMicrons: p[r.endIndex],
+      maxMicrons: highest.smoothedMicrons,
+      rawMaxMicrons: highest.rawMicrons,
       isolationSeen: r.isolationSeen,
       lateSlopeMicronsPerMinute: lateSlopePerMinute(t, p, r.startIndex, r.endIndex),
     };
-    if (fit && chosenFit(fit)) {
+    // A forecast only looks ahead of the data: none once the hold reached the profile's hold time.
+    if (fit && chosenFit(fit) && observed < holdSeconds) {
       try {
-        forecast = forecastHold(fit, observed, holdSeconds, profile.limitMicrons);
+        forecast = forecastHold(fit, observed, profile, holdDataOf(t, p, r.startIndex, r.endIndex, chosenFit(fit)!.excluded));
       } catch (e) {
         if (!(e instanceof LogError)) throw e;
       }
     }
   }
   const c = classifyHold(fit, evidence, profile, forecast);
+  if (forecast) forecast = earlyCallWithVerdict(forecast, c.verdict, c.profileRules.some((x) => x.rule === "leak_rate" && !x.met));
+  let figures: HoldFigures | null = null;
+  if (primary !== null && highest) {
+    const r = pa.ranges[primary];
+    figures = holdFigures({
+      t, p, from: r.startIndex, to: r.endIndex, isolationSeen: r.isolationSeen, profileHoldSeconds: holdSeconds,
+      model: chosenFit(fit), climbMicronsPerMinute: c.climbMicronsPerMinute, judged: highest,
+    });
+  }
 
   let leakRate: LeakRate | null = null;
   if (options.volume && c.decay && c.climbMicronsPerMinute > 0) {
@@ -220,5 +223,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     leakRate,
     findings,
     import: log.summary,
+    figures,
+    certainty: c.certainty,
   };
 }

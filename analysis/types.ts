@@ -162,6 +162,15 @@ export interface Forecast {
   basedOnSeconds: number;
   /** Points for a chart band: seconds after isolation with predicted/low/high microns. */
   band: { tSeconds: number; microns: number; low: number; high: number }[];
+  /**
+   * The rule that decides the early call ("limit": the reading at the hold time; "leak_rate": the
+   * steady climb; "plateau": the level-off above the limit), null without a call. Absent in older results.
+   */
+  decidingRule?: "limit" | "leak_rate" | "plateau" | null;
+  /** Share (0–1) of the plausible continuations of the curve that give the call's verdict. */
+  agreement?: number;
+  /** How the call was made, in words (shown on the page under the call). */
+  basis?: string;
 }
 
 export interface Hold {
@@ -223,6 +232,55 @@ export interface LeakRate {
   micronLitresPerMinute: number;
 }
 
+/** One number of the hold, with what it is. */
+export interface Figure {
+  value: number;
+  /** What the number is, in plain words ("the last reading of the hold, as the gauge showed it"). */
+  definition: string;
+  /** Seconds from the first data row where it was read; null when it is not one reading (a fit, a difference). */
+  atSeconds: number | null;
+  /** For a smoothed value: the raw reading beside it. */
+  raw?: { value: number; atSeconds: number | null; definition: string };
+}
+
+/** Every number of the primary hold, each given once; every screen, the report and the e-mail quote these. */
+export interface HoldFigures {
+  /** The reading at isolation (or the first reading when the log starts in the hold), microns. */
+  startMicrons: Figure;
+  /** The last reading of the hold, microns. */
+  lastMicrons: Figure;
+  /** The highest reading the limit rule judges (smoothed, the raw highest beside it), microns. */
+  highestMicrons: Figure;
+  /** Last reading minus start, microns. */
+  riseMicrons: Figure;
+  /** The steady climb the leak rule judges, microns per minute. */
+  rateMicronsPerMinute: Figure;
+  /** Where the curve levels off (p0 + a of the fit), microns, or null without a level-off part. */
+  plateauMicrons: Figure | null;
+  /** Seconds from isolation to the last reading of the hold. */
+  holdSeconds: Figure;
+  /**
+   * What was measured at the profile's hold time, when the recorded hold reached it: the reading
+   * there and the highest up to there (the same value the limit rule judges).
+   */
+  atHoldTime: { holdSeconds: number; readingMicrons: Figure; highestMicrons: Figure } | null;
+}
+
+export type CertaintyWords = "sure" | "likely" | "unsure";
+
+/** The verdict's confidence: a calibrated probability that it is right, its words, and why it is not higher. */
+export interface Certainty {
+  /** 0–1, calibrated on simulated logs with known truth (analysis/confidence). */
+  confidence: number;
+  words: CertaintyWords;
+  /** What holds the confidence down, in plain words; empty when "sure". */
+  why: string[];
+  /** The evidence the confidence was read from (named numbers, see analysis/confidence/features.ts). */
+  evidence: Record<string, number>;
+  /** Which calibration table gave it. */
+  calibration: string;
+}
+
 /** The whole result: the CLI's --json shape and what the server stores. */
 export interface AnalysisResult {
   engineVersion: string;
@@ -242,4 +300,8 @@ export interface AnalysisResult {
   leakRate: LeakRate | null;
   findings: Finding[];
   import: ImportSummary;
+  /** Each number of the primary hold once, with its definition (null without a hold). Absent in older results. */
+  figures?: HoldFigures | null;
+  /** The confidence in words and why. Absent in older results. */
+  certainty?: Certainty;
 }

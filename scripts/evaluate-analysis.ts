@@ -1,7 +1,9 @@
 /**
  * Evaluation of the analysis on a fresh simulated set (seeds never used while tuning: 900001…).
  * Prints verdict accuracy with a confusion matrix, isolation within max(3 samples, 45 s), median
- * leak-rate and plateau errors, and the early-call rate at minute 4 of a 10-minute hold on clear cases.
+ * leak-rate and plateau errors; then (scripts/eval/) the early call at minute 4 of the hold against the
+ * truth, and the confidence's reliability table with its calibration error on held-out simulated,
+ * typed and independent logs (scripts/eval/independent.ts).
  *
  *   tsx scripts/evaluate-analysis.ts [count=500] [firstSeed=900001] [--readings] [--misses]
  *
@@ -9,9 +11,11 @@
  * tell analysis errors from import errors.
  */
 import { analyzeLog, analyzeReadings } from "../analysis";
-import { SCENARIOS, simulateLog, simulatedAsImported, type Scenario, type SimulatedLog } from "../analysis/simulate";
+import { SCENARIOS, simulateLog, simulatedAsImported, type SimulatedLog } from "../analysis/simulate";
 import type { AnalysisResult, Verdict } from "../analysis/types";
-import { DEFAULT_PROFILE } from "../analysis/profile";
+import { calibrationLines } from "./eval/calibration-section";
+import { earlyCallLines } from "./eval/early-call";
+import type { Judged } from "./eval/reliability";
 
 const count = Number(process.argv[2] ?? 500);
 const firstSeed = Number(process.argv[3] ?? 900001);
@@ -48,6 +52,8 @@ let errors = 0;
 const leakErr: number[] = [];
 const plateauErr: number[] = [];
 const misses: string[] = [];
+const judged: Judged[] = [];
+const independentCount = 400;
 const started = Date.now();
 for (let k = 0; k < count; k++) {
   const seed = firstSeed + k;
@@ -58,6 +64,7 @@ for (let k = 0; k < count; k++) {
   try {
     const r = analyse(sim);
     verdict = r.verdict;
+    judged.push({ confidence: r.confidence, right: verdict === truth.verdict });
     const tol = Math.max(3 * truth.sampleSeconds, 45);
     isoTotal++;
     const isoGood = truth.isolationAtSeconds === null ? r.isolationAt === null : r.isolationAt !== null && Math.abs(r.isolationAt - truth.isolationAtSeconds) <= tol;
@@ -76,30 +83,6 @@ for (let k = 0; k < count; k++) {
   confusion.set(key, (confusion.get(key) ?? 0) + 1);
 }
 
-// early call at minute 4 of a 10-minute hold, on clear cases (10-minute value ≤ 0.8× or ≥ 1.25× the limit)
-const clearScenarios: Scenario[] = ["tight_dry", "moisture", "leak", "leak_and_moisture"];
-let earlyTotal = 0;
-let earlyRight = 0;
-let earlyWrong = 0;
-for (let k = 0; earlyTotal < 100 && k < 400; k++) {
-  const sim = simulateLog({ scenario: clearScenarios[k % 4], seed: firstSeed + 50000 + k, holdMinutes: 10 });
-  const tr = sim.truth;
-  if (tr.isolationAtSeconds === null) continue;
-  const a = tr.plateauMicrons !== null ? tr.plateauMicrons - tr.isolationMicrons : 0;
-  const at10 = tr.isolationMicrons + a * (1 - Math.exp(-600 / (tr.tauSeconds ?? 1))) + tr.leakRateMicronsPerMinute * 10;
-  const limit = DEFAULT_PROFILE.limitMicrons;
-  if (at10 > 0.8 * limit && at10 < 1.25 * limit) continue;
-  earlyTotal++;
-  const expected = at10 <= limit ? "pass" : "fail";
-  try {
-    const r = analyse(sim, tr.isolationAtSeconds + 240);
-    if (r.forecast?.earlyCall === expected) earlyRight++;
-    else if (r.forecast?.earlyCall) earlyWrong++;
-  } catch {
-    /* counted as no call */
-  }
-}
-
 const pct = (a: number, b: number) => `${((100 * a) / Math.max(b, 1)).toFixed(1)} %`;
 console.log(`path: ${viaReadings ? "simulated readings → analyzeReadings (importer skipped)" : "CSV text → analyzeLog (importer included)"}`);
 console.log(`logs: ${count} (seeds ${firstSeed}…${firstSeed + count - 1}), ${((Date.now() - started) / 1000).toFixed(1)} s, errors ${errors}`);
@@ -107,10 +90,11 @@ console.log(`verdict accuracy:            ${pct(correct, count)}  (goal ≥ 95 %
 console.log(`isolation within tolerance:  ${pct(isoOk, isoTotal)}  (goal ≥ 95 %; max(3 samples, 45 s); none when the log starts in the hold)`);
 console.log(`median leak-rate error:      ${(100 * median(leakErr)).toFixed(2)} %  over ${leakErr.length} leaks (goal ≤ 5 %)`);
 console.log(`median plateau error:        ${(100 * median(plateauErr)).toFixed(2)} %  over ${plateauErr.length} plateaus (goal ≤ 10 %)`);
-console.log(`early call at minute 4:      ${earlyRight}/${earlyTotal} right, ${earlyWrong} wrong, rest no call  (goal ≥ 9/10)`);
 console.log("confusion (rows truth, columns result):");
 console.log(["truth \\ result", ...VERDICTS, "error"].map((s) => s.padEnd(18)).join(""));
 for (const tv of VERDICTS) {
   console.log([tv, ...[...VERDICTS, "error"].map((rv) => String(confusion.get(`${tv}→${rv}`) ?? 0))].map((s) => s.padEnd(18)).join(""));
 }
 if (process.argv.includes("--misses")) console.log(misses.join("\n"));
+console.log(earlyCallLines(firstSeed, independentCount).join("\n"));
+console.log(calibrationLines(judged, independentCount).join("\n"));

@@ -34,6 +34,9 @@ async function main() {
     { organizationId: org.id, name: "Shop standard", targetMicrons: 500, holdMinutes: 10, limitMicrons: 1000, leakRateMicronsPerMinute: 10, isDefault: true },
     { organizationId: org.id, name: "Strict (new installs, A2L)", targetMicrons: 300, holdMinutes: 15, limitMicrons: 500, leakRateMicronsPerMinute: 5, isDefault: false },
   ]);
+  // The invented demo shop keeps Central time: its reports and e-mails write times in it.
+  const { upsertOrganizationTimeZone } = await import("@/db/queries/settings");
+  await upsertOrganizationTimeZone(db(), { organizationId: org.id, timeZone: "America/Chicago" });
   const { seedDemoTests } = await import("./seed-tests");
   const { created: count } = await seedDemoTests(db(), { organizationId: org.id, members: people });
   // After the month of tests: seedDemoTests skips an organization that already has tests.

@@ -57,6 +57,10 @@ const REAL: Partial<Record<Permission, RealCall[]>> = {
       name: "PATCH /api/members/:missing",
       call: async (as) => (await handler(() => import("@/app/api/members/[userId]/route"), "PATCH"))(appRequest(`/api/members/${missingId}`, { method: "PATCH", body: JSON.stringify({ role: "lead" }), headers: { "content-type": "application/json" }, as }), routeParams({ userId: missingId })),
     },
+    {
+      name: "PUT /api/settings/shop {}",
+      call: async (as) => (await handler(() => import("@/app/api/settings/shop/route"), "PUT"))(appRequest("/api/settings/shop", { method: "PUT", body: "{}", headers: { "content-type": "application/json" }, as })),
+    },
   ],
   "tests.review": [{ name: "GET /api/review", call: async (as) => (await handler(() => import("@/app/api/review/route"), "GET"))(appRequest("/api/review", { as })) }],
   "records.manage": [{ name: "POST /api/sites {}", call: async (as) => (await handler(() => import("@/app/api/sites/route"), "POST"))(appRequest("/api/sites", { ...post({}), as })) }],

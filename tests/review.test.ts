@@ -118,7 +118,7 @@ describe("automatic routing into the lead's queue (product rule)", () => {
     const practice = await seedTest(crew.technician, { verdict: "leak", isPractice: true });
     const first = await routeNewTestToReview(db(), { organizationId: crew.owner.organizationId, testId: leak, actorId: crew.technician.userId });
     expect(first.routed).toBe(true);
-    expect(first.reasons.join(" ")).toMatch(/Leak likely/);
+    expect(first.reasons.join(" ")).toMatch(/Steady climb: leak likely/);
     const second = await routeNewTestToReview(db(), { organizationId: crew.owner.organizationId, testId: leak, actorId: crew.technician.userId });
     expect(second.routed).toBe(false);
     expect((await routeNewTestToReview(db(), { organizationId: crew.owner.organizationId, testId: pass, actorId: null })).routed).toBe(false);

@@ -4,6 +4,7 @@
  */
 import { durationWords } from "@/analysis/format";
 import type { AnalysisResult, Hold, ModelFit } from "@/analysis/types";
+import { storyOf } from "@/lib/verdict/story";
 
 export interface XY {
   x: number;
@@ -148,7 +149,8 @@ export function curveSummary(analysis: AnalysisResult, series: { t: number[]; p:
   const hold = primaryHold(analysis);
   if (analysis.isolationAt != null) parts.push(`Isolated at ${durationWords(analysis.isolationAt)} from the start.`);
   else parts.push("No isolation point found; the log may start in the hold.");
-  if (hold) parts.push(`During the hold the reading went from ${microns(hold.startMicrons)} to ${microns(hold.endMicrons)} microns in ${durationWords(hold.endSeconds - hold.isolatedAtSeconds)}.`);
+  const said = storyOf(analysis).holdSentence;
+  if (said) parts.push(`During the hold: ${said.charAt(0).toLowerCase()}${said.slice(1)}`);
   if (hold?.fit) parts.push(`Best-fitting shape: ${shapeWords(hold.fit.chosen)}.`);
   parts.push(`Limit ${microns(analysis.profile.limitMicrons)} microns.`);
   if (analysis.forecast)

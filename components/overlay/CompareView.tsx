@@ -131,7 +131,7 @@ export function CompareView({ ids }: { ids: string[] }) {
                     <Link href={`/tests/${t.id}`} className="underline-offset-2 hover:underline">{i + 1}. {t.title}</Link>
                     <span className="block text-caption font-normal text-fg-soft">{t.technicianName}</span>
                   </th>
-                  <td className="px-2 py-2">{t.analysisHidden ? <span className="text-caption text-fg-soft">Make your call first</span> : <VerdictBadge verdict={t.verdict} />}</td>
+                  <td className="px-2 py-2">{t.analysisHidden ? <span className="text-caption text-fg-soft">Make your call first</span> : <VerdictBadge verdict={t.verdict} meetsProfile={t.meetsProfile} />}</td>
                   <td className="px-2 py-2 text-right tabular-nums">{microns(t.decay?.startMicrons)}</td>
                   <td className="px-2 py-2 text-right tabular-nums">{microns(t.decay?.endMicrons)}</td>
                   <td className="px-2 py-2 text-right tabular-nums">{microns(t.decay?.riseMicrons)}</td>

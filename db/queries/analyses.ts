@@ -80,6 +80,7 @@ export async function listAnalysesByTest(db: Db, params: { organizationId: strin
       version: analyses.version,
       verdict: analyses.verdict,
       confidence: analyses.confidence,
+      meetsProfile: sql<boolean | null>`(${analyses.result}->>'meetsProfile')::boolean`,
       createdAt: analyses.createdAt,
       createdById: analyses.createdById,
       createdByName: user.name,

@@ -211,3 +211,16 @@ export async function getLatestSignOffByTest(db: Db, params: { organizationId: s
     .limit(1);
   return row ?? null;
 }
+
+/** Review events the report tells: sign-offs, send-backs, review requests and resubmissions. */
+const REVIEW_STORY_KINDS = ["signed_off", "sent_back", "review_requested", "help_requested", "resubmitted", "retest_uploaded"] as const;
+
+/** A test's review events, newest first, with who made each (null: Riseline itself, or a former member). */
+export async function listReviewEventsByTest(db: Db, params: { organizationId: string; testId: string }) {
+  return db
+    .select({ kind: testEvents.kind, at: testEvents.createdAt, note: testEvents.note, actorName: user.name, toStatus: testEvents.toStatus })
+    .from(testEvents)
+    .leftJoin(user, eq(user.id, testEvents.actorId))
+    .where(and(eq(testEvents.organizationId, params.organizationId), eq(testEvents.testId, params.testId), inArray(testEvents.kind, [...REVIEW_STORY_KINDS])))
+    .orderBy(desc(testEvents.createdAt));
+}

@@ -145,6 +145,7 @@ export async function listTestsByOrganization(db: Db, params: { viewer: Viewer; 
       startMicrons: sql<number | null>`(${analyses.result}->'decay'->>'startMicrons')::float8`,
       endMicrons: sql<number | null>`(${analyses.result}->'decay'->>'endMicrons')::float8`,
       leakRateMicronsPerMinute: sql<number | null>`(${analyses.result}->'decay'->>'leakRateMicronsPerMinute')::float8`,
+      meetsProfile: sql<boolean | null>`(${analyses.result}->>'meetsProfile')::boolean`,
       findingCodes: sql<string[]>`coalesce(array(select f.code from findings f where f.analysis_id = ${analyses.id} order by f.code), '{}')`,
     })
     .from(vacuumTests)
@@ -211,4 +212,14 @@ export async function updateIdempotencyKeyAnalysis(db: Db, params: { organizatio
     .update(idempotencyKeys)
     .set({ analysisId: params.analysisId })
     .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.key, params.key)));
+}
+
+/** Set (or clear) the note for the customer's copy of a test's report; false when there is no such test. */
+export async function updateTestCustomerNoteById(db: Db, params: { organizationId: string; testId: string; customerNote: string | null }): Promise<boolean> {
+  const rows = await db
+    .update(vacuumTests)
+    .set({ customerNote: params.customerNote, updatedAt: new Date() })
+    .where(and(eq(vacuumTests.organizationId, params.organizationId), eq(vacuumTests.id, params.testId)))
+    .returning({ id: vacuumTests.id });
+  return rows.length === 1;
 }

@@ -28,6 +28,8 @@ export const vacuumTests = pgTable(
     ambientC: real("ambient_c"),
     rigNote: text("rig_note"),
     notes: text("notes"),
+    /** A note for the customer's copy of the report; `notes` stay internal and never reach it. */
+    customerNote: text("customer_note"),
     isPractice: boolean("is_practice").default(false).notNull(),
     status: text("status", { enum: TEST_STATUSES }).default("submitted").notNull(),
     helpRequested: boolean("help_requested").default(false).notNull(),

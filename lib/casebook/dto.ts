@@ -3,6 +3,7 @@
  * job reference, the test's own title and notes, which name them) are only in `details`, and
  * `details` is null for everyone but owners and leads.
  */
+import { storyOf } from "@/lib/verdict/story";
 import type { AcceptanceProfile, Decay, Verdict } from "@/analysis/types";
 import type { EntryDetailRow } from "@/db/queries/casebook";
 import { canReadAllTests, type Role } from "@/lib/permissions";
@@ -44,6 +45,11 @@ export interface CasebookEntryDto {
   /** True when the analysis is withheld (an apprentice's uncalled practice test). */
   analysisHidden: boolean;
   verdict: Verdict | null;
+  /** The profile half of the story: whether the test met the shop's profile, in words (lib/verdict). */
+  meetsProfile: boolean | null;
+  profileSentence: string | null;
+  /** The hold in one sentence, from the engine's figures (lib/verdict/story.ts). */
+  holdSentence: string | null;
   isolationAt: number | null;
   decay: Decay | null;
   profile: Pick<AcceptanceProfile, "targetMicrons" | "limitMicrons"> | null;
@@ -74,6 +80,9 @@ export function toEntryDto(row: EntryDetailRow, pins: CasebookPinDto[], viewer: 
     lineSetFeet: row.lineSetFeet,
     analysisHidden,
     verdict: r?.verdict ?? null,
+    meetsProfile: r?.meetsProfile ?? null,
+    profileSentence: r ? storyOf(r).profile.sentence : null,
+    holdSentence: r ? storyOf(r).holdSentence : null,
     isolationAt: r?.isolationAt ?? null,
     decay: r?.decay ?? null,
     profile: r ? { targetMicrons: r.profile.targetMicrons, limitMicrons: r.profile.limitMicrons } : null,

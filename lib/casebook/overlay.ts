@@ -43,6 +43,7 @@ export interface OverlayTest {
   aligned: { t: number[]; p: number[] };
   analysisHidden: boolean;
   verdict: Verdict | null;
+  meetsProfile: boolean | null;
   decay: Decay | null;
 }
 
@@ -81,6 +82,7 @@ export async function loadOverlay(db: Db, viewer: Viewer, testIds: string[]): Pr
       aligned: { t: a.t, p: a.p },
       analysisHidden: isHidden,
       verdict: isHidden ? null : r.result.verdict,
+      meetsProfile: isHidden ? null : r.result.meetsProfile,
       decay: isHidden ? null : r.result.decay,
     });
   }

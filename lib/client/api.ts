@@ -24,6 +24,8 @@ export interface TestRecord {
   volumeLitres?: number | null;
   ambientC?: number | null;
   notes?: string | null;
+  /** Printed on the customer's copy of the report; `notes` stay internal. */
+  customerNote?: string | null;
   rigNote?: string | null;
   isPractice?: boolean;
   technician?: { id: string; name: string } | null;
@@ -53,6 +55,7 @@ export interface HistoryEntry {
   version: number;
   verdict: Verdict;
   confidence: number;
+  meetsProfile?: boolean | null;
   createdAt: string;
   createdBy: string | { id: string; name: string } | null;
   reason: string | null;

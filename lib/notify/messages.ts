@@ -4,12 +4,14 @@
  */
 import { composeMail, type OutgoingMail } from "@/lib/mail";
 import { env } from "@/lib/env";
-import { verdictLabel } from "@/lib/reports/words";
+import { storyLine } from "@/lib/reports/words";
 
 export interface TestSummary {
   id: string;
   title: string;
   verdict: string | null;
+  /** The profile half of the story, when the sender knows it. */
+  meetsProfile?: boolean | null;
   technicianName: string;
   siteName?: string | null;
 }
@@ -18,9 +20,9 @@ export function testUrl(testId: string): string {
   return new URL(`/tests/${testId}`, env().BETTER_AUTH_URL).toString();
 }
 
+/** The two statements (curve, profile) and the site, in the words of every screen. */
 function verdictLine(t: TestSummary): string {
-  const v = verdictLabel(t.verdict);
-  return `Verdict: ${v}.${t.siteName ? ` Site: ${t.siteName}.` : ""}`;
+  return `${storyLine(t.verdict, t.meetsProfile)}${t.siteName ? ` Site: ${t.siteName}.` : ""}`;
 }
 
 export function reviewRequestedMail(to: string, t: TestSummary, opts: { by: string | null; help: boolean; note?: string | null; automatic?: string }): OutgoingMail {
@@ -85,14 +87,24 @@ export function sentBackMail(to: string, t: TestSummary, opts: { by: string; req
   });
 }
 
-/** To a customer: the report as a PDF attachment, no link into the app (they are not members). */
-export function reportMail(to: string, t: TestSummary & { organizationName: string; testedAt: Date }, opts: { message?: string | null }): OutgoingMail {
+/**
+ * To a customer: the report as a PDF attachment, no link into the app (they are not members). The
+ * date is the shop's own calendar date (`testedOn`, in its time zone); `hold` is the report's own
+ * sentence of the hold's numbers, so the message and the PDF quote the same figures.
+ */
+export function reportMail(
+  to: string,
+  t: TestSummary & { organizationName: string; testedOn: string },
+  opts: { message?: string | null; hold?: string | null; customerNote?: string | null },
+): OutgoingMail {
   return composeMail({
     to,
     subject: `Vacuum test report — ${t.siteName ?? t.title}`,
     paragraphs: [
-      `${t.organizationName} sends you the report of the evacuation and decay test "${t.title}" made on ${t.testedAt.toISOString().slice(0, 10)} by ${t.technicianName}.`,
+      `${t.organizationName} sends you the report of the evacuation and decay test "${t.title}" made on ${t.testedOn} by ${t.technicianName}.`,
       verdictLine(t),
+      ...(opts.hold ? [opts.hold] : []),
+      ...(opts.customerNote ? [`Note for you: ${opts.customerNote}`] : []),
       ...(opts.message ? [opts.message] : []),
       "The report is attached as a PDF.",
     ],

@@ -1,16 +1,25 @@
 /**
- * Everything a test's report shows, as plain data: the printable page, the share page and the
- * PDF are all drawn from this one model, so they never disagree.
+ * Everything a test's report shows, as plain data: the printable page, the share page, the PDF and
+ * the report e-mail are all drawn from this one model, and its numbers and statements from the
+ * test's own story (lib/verdict/story.ts), so none of them can disagree with the test page.
+ * The report is the customer's and the warranty desk's copy: it carries the note for the customer
+ * and never the internal notes.
  */
 import type { Db } from "@/db/client";
 import { getAnalysisById } from "@/db/queries/analyses";
 import { getSiteById, getSystemById } from "@/db/queries/records";
-import { getLatestSignOffByTest, getOrganizationNameById } from "@/db/queries/review";
-import { getTestById } from "@/db/queries/tests";
+import { getOrganizationNameById, listReviewEventsByTest } from "@/db/queries/review";
+import { getRigByTest, listRigEventsByRig, listRigItemsByRig } from "@/db/queries/rigs";
+import { getOrganizationTimeZoneById } from "@/db/queries/settings";
+import { getTestById, getUploadByTest } from "@/db/queries/tests";
 import type { AcceptanceProfile, AnalysisResult, Finding } from "@/analysis/types";
 import type { TestStatus } from "@/db/schema";
-import { RULE_LABELS } from "@/components/verdict/words";
-import { REPORT_CAUTIONS, verdictLabel } from "./words";
+import { storyOf, type Story } from "@/lib/verdict/story";
+import { RULE_LABELS } from "@/lib/verdict/words";
+import { equipmentLines, type EquipmentLine } from "./equipment";
+import { reviewStoryOf, type ReviewStory } from "./review-story";
+import { dayInZone, whenInZone } from "./time";
+import { REPORT_CAUTIONS } from "./words";
 
 export interface ReportCurve {
   /** Minutes from the first data row. */
@@ -25,30 +34,45 @@ export interface ReportCurve {
 export interface ReportModel {
   testId: string;
   organizationName: string;
+  /** The shop's IANA time zone; every time below is written in it. */
+  timeZone: string;
   title: string;
   status: TestStatus;
   testedAt: string;
+  /** "March 3, 2026 at 2:05 PM CST". */
+  testedAtWords: string;
+  /** YYYY-MM-DD on the shop's calendar. */
+  testedOn: string;
   technicianName: string;
   customerName: string | null;
   siteName: string | null;
   siteAddress: string | null;
   system: { name: string; kind: string | null; refrigerant: string | null; lineSetFeet: number | null; liquidOd: string | null; suctionOd: string | null } | null;
   refrigerant: string | null;
+  /** The job's facts: line set, volume, ambient, as [label, value] rows (only those given). */
+  conditions: [string, string][];
+  rig: { name: string; truck: string | null; pieces: EquipmentLine[] } | null;
   rigNote: string | null;
-  notes: string | null;
+  /** The note for the customer; internal notes are never in the model. */
+  customerNote: string | null;
   isPractice: boolean;
   verdict: string | null;
+  /** The two statements and the numbers, from the analysis (null: not analysed). */
+  story: Story | null;
+  /** Kept for callers of the earlier model: the curve's headline. */
   verdictWords: string;
   confidence: number | null;
-  numbers: { label: string; value: string }[];
+  numbers: { label: string; value: string; definition: string }[];
   profile: AcceptanceProfile | null;
   meetsProfile: boolean | null;
   profileRules: { label: string; met: boolean; detail: string }[];
   findings: Pick<Finding, "title" | "message" | "severity" | "checks">[];
-  signOff: { by: string; at: string; note: string | null } | null;
+  review: ReviewStory;
   curve: ReportCurve | null;
   cautions: readonly string[];
   engineVersion: string | null;
+  calibration: string | null;
+  raw: { filename: string; sha256: string; sizeBytes: number } | null;
 }
 
 /** Most points the report draws; min/max per bucket keeps spikes and the lowest point. */
@@ -79,19 +103,18 @@ function thin(t: number[], p: number[]): { x: number[]; y: number[] } {
 
 const fmt = (v: number, digits = 0) => v.toLocaleString("en-US", { maximumFractionDigits: digits, minimumFractionDigits: digits });
 
-function numbersOf(r: AnalysisResult): { label: string; value: string }[] {
-  const out: { label: string; value: string }[] = [];
+/** The report's numbers: the pull-down and isolation, then the story's hold numbers (each once). */
+function numbersOf(r: AnalysisResult, story: Story): ReportModel["numbers"] {
+  const out: ReportModel["numbers"] = [];
   const pd = r.phases?.pulldown;
-  if (pd) out.push({ label: "Lowest reached before isolating", value: `${fmt(pd.lowestMicrons)} microns` });
-  if (r.isolationAt != null) out.push({ label: "Isolated at", value: `${fmt(r.isolationAt / 60, 1)} min into the log` });
-  const d = r.decay;
-  if (d) {
-    out.push({ label: "Hold", value: `${fmt(d.holdSeconds / 60, 1)} min` });
-    out.push({ label: "Start → end of hold", value: `${fmt(d.startMicrons)} → ${fmt(d.endMicrons)} microns (rise ${fmt(d.riseMicrons)})` });
-    out.push({ label: "Steady climb", value: `${fmt(d.leakRateMicronsPerMinute, 1)} microns/min` });
-    if (d.plateauMicrons != null) out.push({ label: "Levels off near", value: `${fmt(d.plateauMicrons)} microns` });
+  if (pd) out.push({ label: "Lowest before isolating", value: `${fmt(pd.lowestMicrons)} microns`, definition: "the lowest reading of the pull-down (3-reading median)" });
+  if (r.isolationAt != null) out.push({ label: "Isolated at", value: `${fmt(r.isolationAt / 60, 1)} min into the log`, definition: "when the pump was valved off" });
+  for (const n of story.numbers) {
+    const value = n.value.replace(/ µ\/min$/, " microns/min").replace(/ µ$/, " microns");
+    const beside = n.beside && n.beside.value !== n.value ? ` (single highest reading ${n.beside.value.replace(/ µ$/, " microns")})` : "";
+    out.push({ label: n.label, value: value + beside, definition: n.definition });
   }
-  if (r.leakRate) out.push({ label: "Leak rate", value: `${r.leakRate.mbarLitresPerSecond.toExponential(2)} mbar·L/s (volume ${fmt(r.leakRate.volumeLitres, 1)} L)` });
+  if (r.leakRate) out.push({ label: "Leak rate", value: `${r.leakRate.mbarLitresPerSecond.toExponential(2)} mbar·L/s (volume ${fmt(r.leakRate.volumeLitres, 1)} L)`, definition: "the steady climb times the system volume" });
   return out;
 }
 
@@ -109,6 +132,15 @@ function curveOf(series: { t: number[]; p: number[] }, r: AnalysisResult): Repor
   };
 }
 
+function conditionsOf(t: { lineSetFeet: number | null; liquidOd: string | null; suctionOd: string | null; volumeLitres: number | null; ambientC: number | null }, system: ReportModel["system"]): [string, string][] {
+  const out: [string, string][] = [];
+  const feet = t.lineSetFeet ?? system?.lineSetFeet ?? null;
+  if (feet) out.push(["Line set", `${fmt(feet)} ft, ${t.liquidOd ?? system?.liquidOd ?? "?"} in. liquid / ${t.suctionOd ?? system?.suctionOd ?? "?"} in. suction`]);
+  if (t.volumeLitres != null) out.push(["System volume", `${fmt(t.volumeLitres, 1)} L (${fmt(t.volumeLitres * 0.0353147, 2)} cu ft)`]);
+  if (t.ambientC != null) out.push(["Ambient temperature", `${fmt(t.ambientC, 1)} °C (${fmt(t.ambientC * 1.8 + 32)} °F)`]);
+  return out;
+}
+
 /**
  * The report of one test of the organization, or null when there is none. The caller has
  * already decided the reader may see it (a member who can see the test, or a valid share link).
@@ -116,45 +148,67 @@ function curveOf(series: { t: number[]; p: number[] }, r: AnalysisResult): Repor
 export async function buildReportModel(db: Db, params: { organizationId: string; testId: string }): Promise<ReportModel | null> {
   const org = params.organizationId;
   // Read as the organization (the caller checked access): the owner's view of the test.
-  const row = await getTestById(db, { viewer: { organizationId: org, userId: "", role: "owner" }, testId: params.testId });
+  const owner = { organizationId: org, userId: "", role: "owner" as const };
+  const row = await getTestById(db, { viewer: owner, testId: params.testId });
   if (!row) return null;
   const t = row.test;
-  const [orgName, analysis, site, system, signOff] = await Promise.all([
+  const [orgName, timeZone, analysis, site, system, events, rig, upload] = await Promise.all([
     getOrganizationNameById(db, { organizationId: org }),
+    getOrganizationTimeZoneById(db, { organizationId: org }),
     t.currentAnalysisId ? getAnalysisById(db, { organizationId: org, analysisId: t.currentAnalysisId }) : null,
     t.siteId ? getSiteById(db, { organizationId: org, siteId: t.siteId }) : null,
     t.systemId ? getSystemById(db, { organizationId: org, systemId: t.systemId }) : null,
-    getLatestSignOffByTest(db, { organizationId: org, testId: t.id }),
+    listReviewEventsByTest(db, { organizationId: org, testId: t.id }),
+    getRigByTest(db, { viewer: owner, testId: t.id }),
+    getUploadByTest(db, { organizationId: org, testId: t.id }),
   ]);
+  const testedOn = dayInZone(t.testedAt, timeZone);
+  const [items, rigEvents] = rig
+    ? await Promise.all([listRigItemsByRig(db, { organizationId: org, rigId: rig.id }), listRigEventsByRig(db, { organizationId: org, rigId: rig.id, limit: 500 })])
+    : [[], []];
   const r = analysis?.result ?? null;
+  const story = r ? storyOf(r) : null;
+  const sys = system
+    ? { name: system.name, kind: system.kind, refrigerant: system.refrigerant, lineSetFeet: system.lineSetFeet, liquidOd: system.liquidOd, suctionOd: system.suctionOd }
+    : null;
   return {
     testId: t.id,
     organizationName: orgName ?? "",
+    timeZone,
     title: t.title,
     status: t.status,
     testedAt: t.testedAt.toISOString(),
+    testedAtWords: whenInZone(t.testedAt, timeZone),
+    testedOn,
     technicianName: row.createdByName,
     customerName: site?.customerName ?? null,
     siteName: site?.name ?? null,
     siteAddress: site?.address ?? null,
-    system: system
-      ? { name: system.name, kind: system.kind, refrigerant: system.refrigerant, lineSetFeet: system.lineSetFeet, liquidOd: system.liquidOd, suctionOd: system.suctionOd }
-      : null,
+    system: sys,
     refrigerant: t.refrigerant ?? system?.refrigerant ?? null,
+    conditions: conditionsOf(t, sys),
+    rig: rig ? { name: rig.name, truck: rig.truck, pieces: equipmentLines(items, rigEvents, testedOn) } : null,
     rigNote: t.rigNote,
-    notes: t.notes,
+    customerNote: t.customerNote,
     isPractice: t.isPractice,
     verdict: r?.verdict ?? null,
-    verdictWords: verdictLabel(r?.verdict ?? null),
+    story,
+    verdictWords: story?.curve.headline ?? "not analysed",
     confidence: r?.confidence ?? null,
-    numbers: r ? numbersOf(r) : [],
+    numbers: r && story ? numbersOf(r, story) : [],
     profile: analysis?.profile ?? null,
     meetsProfile: r?.meetsProfile ?? null,
-    profileRules: (r?.profileRules ?? []).map((x) => ({ label: RULE_LABELS[x.rule] ?? x.rule, met: x.met, detail: x.detail })),
+    profileRules: (r?.profileRules ?? []).map((x) => ({ label: storyRuleLabel(x.rule), met: x.met, detail: x.detail })),
     findings: (r?.findings ?? []).map((f) => ({ title: f.title, message: f.message, severity: f.severity, checks: f.checks })),
-    signOff: signOff && t.status === "signed_off" ? { by: signOff.actorName ?? "A former member", at: signOff.at.toISOString(), note: signOff.note } : null,
+    review: reviewStoryOf(t.status, events, timeZone),
     curve: analysis && r ? curveOf(analysis.series, r) : null,
     cautions: REPORT_CAUTIONS,
     engineVersion: r?.engineVersion ?? null,
+    calibration: r?.certainty?.calibration ?? null,
+    raw: upload ? { filename: upload.filename, sha256: upload.sha256, sizeBytes: upload.sizeBytes } : null,
   };
+}
+
+function storyRuleLabel(rule: keyof typeof RULE_LABELS): string {
+  return RULE_LABELS[rule] ?? rule;
 }

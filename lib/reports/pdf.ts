@@ -1,11 +1,16 @@
 /**
- * The report as a PDF (pdfkit, built-in Helvetica). The curve is drawn with vector paths:
- * log-scale microns against minutes, the hold shaded, a dashed isolation marker and a dashed
- * limit line, like the chart on screen.
+ * The report as a PDF (pdfkit), drawn from the same sections as the HTML report
+ * (lib/reports/document.ts), in the app's own font: IBM Plex Sans from @fontsource/ibm-plex-sans,
+ * embedded from its WOFF files (fontkit reads WOFF), so every character prints (glyphs.ts writes the
+ * few the font lacks in words). The curve is drawn with vector paths: log-scale microns against
+ * minutes, the hold shaded, a dashed isolation marker and a dashed limit line, like the chart on screen.
  */
+import path from "node:path";
 import PDFDocument from "pdfkit";
 import type { ReportCurve, ReportModel } from "./model";
 import { logAxisOf } from "./axis";
+import { reportDocument, type Block } from "./document";
+import { pdfText } from "./glyphs";
 
 export { logAxisOf };
 
@@ -32,7 +37,7 @@ function drawCurve(doc: PDFKit.PDFDocument, curve: ReportCurve, x0: number, y0: 
   for (let d = minLog; d <= maxLog; d++) {
     const y = py(10 ** d);
     doc.moveTo(x0, y).lineTo(x0 + w, y).stroke();
-    doc.text((10 ** d).toLocaleString("en-US"), x0 - 44, y - 3, { width: 40, align: "right" });
+    doc.text(pdfText((10 ** d).toLocaleString("en-US")), x0 - 44, y - 3, { width: 40, align: "right" });
   }
   const stepMin = xMax > 120 ? 30 : xMax > 60 ? 15 : xMax > 20 ? 5 : 2;
   for (let m = 0; m <= xMax + 1e-9; m += stepMin) {
@@ -64,97 +69,104 @@ function drawCurve(doc: PDFKit.PDFDocument, curve: ReportCurve, x0: number, y0: 
   doc.restore();
 }
 
-function heading(doc: PDFKit.PDFDocument, text: string) {
-  if (doc.y > doc.page.height - 120) doc.addPage();
-  doc.moveDown(0.6).fillColor(ACCENT).font("Helvetica-Bold").fontSize(12).text(text).moveDown(0.2).font("Helvetica").fontSize(10).fillColor(INK);
+/** The font files, shipped with the app (a dependency, read from node_modules at run time). */
+const FONT_DIR = path.join(process.cwd(), "node_modules", "@fontsource", "ibm-plex-sans", "files");
+export const PDF_FONTS = {
+  regular: path.join(FONT_DIR, "ibm-plex-sans-latin-400-normal.woff"),
+  semibold: path.join(FONT_DIR, "ibm-plex-sans-latin-600-normal.woff"),
+} as const;
+const REGULAR = "Plex";
+const CURVE_HEIGHT = 210;
+const SEMIBOLD = "Plex-Semibold";
+
+/** A section heading, on a new page when less than `keepWith` points would follow it on this one. */
+function heading(doc: PDFKit.PDFDocument, text: string, keepWith = 60) {
+  if (doc.y > doc.page.height - doc.page.margins.bottom - keepWith - 20) doc.addPage();
+  doc.moveDown(0.6).fillColor(ACCENT).font(SEMIBOLD).fontSize(12).text(pdfText(text)).moveDown(0.2).font(REGULAR).fontSize(10).fillColor(INK);
 }
 
-function pairs(doc: PDFKit.PDFDocument, rows: [string, string | null | undefined][]) {
+function pairs(doc: PDFKit.PDFDocument, rows: [string, string][], keyWidth = 150) {
   const left = doc.page.margins.left;
   for (const [k, v] of rows) {
-    if (v == null || v === "") continue;
+    if (doc.y > doc.page.height - doc.page.margins.bottom - 30) doc.addPage();
     const y = doc.y;
-    doc.fillColor(MUTED).text(k, left, y, { width: 150 });
+    doc.fillColor(MUTED).text(pdfText(k), left, y, { width: keyWidth });
     const yAfterKey = doc.y;
-    doc.fillColor(INK).text(v, left + 160, y, { width: doc.page.width - left - doc.page.margins.right - 160 });
+    doc.fillColor(INK).text(pdfText(v), left + keyWidth + 10, y, { width: doc.page.width - left - doc.page.margins.right - keyWidth - 10 });
     doc.y = Math.max(doc.y, yAfterKey);
   }
   doc.x = left;
 }
 
+function drawBlock(doc: PDFKit.PDFDocument, b: Block, m: ReportModel) {
+  const left = doc.page.margins.left;
+  switch (b.kind) {
+    case "paragraph":
+      doc.font(b.tone === "strong" ? SEMIBOLD : REGULAR).fillColor(b.tone === "muted" ? MUTED : INK).text(pdfText(b.text)).font(REGULAR).fillColor(INK).moveDown(0.2);
+      return;
+    case "rows":
+      pairs(doc, b.rows);
+      return;
+    case "numbers":
+      for (const r of b.rows) {
+        pairs(doc, [[r.label, r.value]]);
+        doc.fontSize(8).fillColor(MUTED).text(pdfText(r.definition), left + 160, doc.y, { width: doc.page.width - left - doc.page.margins.right - 160 }).fontSize(10).fillColor(INK);
+        doc.x = left;
+      }
+      return;
+    case "list":
+      b.items.forEach((item, i) => doc.text(pdfText(`${b.numbered ? `${i + 1}.` : "•"} ${item}`), { indent: 0 }).moveDown(0.15));
+      return;
+    case "finding":
+      doc.font(SEMIBOLD).text(pdfText(b.title)).font(REGULAR).text(pdfText(b.message));
+      if (b.checks.length) {
+        doc.fillColor(MUTED).text("Check, in this order:");
+        b.checks.forEach((c, i) => doc.text(pdfText(`${i + 1}. ${c}`), left + 12));
+        doc.x = left;
+        doc.fillColor(INK);
+      }
+      doc.moveDown(0.3);
+      return;
+    case "curve": {
+      if (!m.curve) return;
+      const x0 = left + 56;
+      const w = doc.page.width - doc.page.margins.right - x0;
+      const h = CURVE_HEIGHT;
+      if (doc.y + h + 40 > doc.page.height - doc.page.margins.bottom) doc.addPage();
+      const y0 = doc.y + 4;
+      drawCurve(doc, m.curve, x0, y0, w, h);
+      doc.x = left;
+      doc.y = y0 + h + 30;
+      return;
+    }
+  }
+}
+
 /** The report PDF as bytes. `compress: false` leaves content streams readable (tests count the path operators). */
 export async function renderReportPdf(m: ReportModel, opts: { compress?: boolean } = {}): Promise<Buffer> {
-  const doc = new PDFDocument({ size: "LETTER", margin: 54, compress: opts.compress ?? true, info: { Title: `Vacuum test report — ${m.title}`, Author: m.organizationName, Creator: "Riseline" } });
+  const doc = new PDFDocument({ size: "LETTER", margin: 54, compress: opts.compress ?? true, info: { Title: pdfText(`Vacuum test report - ${m.title}`), Author: pdfText(m.organizationName), Creator: "Riseline" } });
+  doc.registerFont(REGULAR, PDF_FONTS.regular);
+  doc.registerFont(SEMIBOLD, PDF_FONTS.semibold);
   const chunks: Buffer[] = [];
   doc.on("data", (c: Buffer) => chunks.push(c));
   const done = new Promise<void>((resolve, reject) => {
     doc.on("end", () => resolve());
     doc.on("error", reject);
   });
+  const d = reportDocument(m);
 
-  doc.font("Helvetica").fillColor(MUTED).fontSize(10).text(m.organizationName);
-  doc.font("Helvetica-Bold").fillColor(INK).fontSize(18).text("Evacuation and decay test report");
-  doc.font("Helvetica").fontSize(12).text(m.title);
-  if (m.isPractice) doc.fillColor(MUTED).fontSize(10).text("Practice test (training record, not a job record).");
-  doc.moveDown(0.5);
-
-  doc.font("Helvetica-Bold").fontSize(14).fillColor(m.verdict === "pass" ? ACCENT : LIMIT).text(`Verdict: ${m.verdictWords}`);
-  doc.font("Helvetica").fontSize(10).fillColor(INK);
-  if (m.meetsProfile != null && m.profile) doc.text(`${m.meetsProfile ? "Meets" : "Does not meet"} the acceptance profile "${m.profile.name}".`);
-  if (m.confidence != null) doc.fillColor(MUTED).text(`Confidence ${Math.round(m.confidence * 100)} %.`).fillColor(INK);
-
-  heading(doc, "The job");
-  pairs(doc, [
-    ["Customer", m.customerName],
-    ["Site", m.siteName],
-    ["Address", m.siteAddress],
-    ["System", m.system ? [m.system.name, m.system.kind].filter(Boolean).join(", ") : null],
-    ["Refrigerant", m.refrigerant],
-    ["Line set", m.system?.lineSetFeet ? `${m.system.lineSetFeet} ft, ${m.system.liquidOd ?? "?"} in. liquid / ${m.system.suctionOd ?? "?"} in. suction` : null],
-    ["Technician", m.technicianName],
-    ["Tested", new Date(m.testedAt).toUTCString()],
-    ["Rig", m.rigNote],
-    ["Notes", m.notes],
-  ]);
-
-  if (m.curve) {
-    heading(doc, "The curve");
-    const x0 = doc.page.margins.left + 56;
-    const w = doc.page.width - doc.page.margins.right - x0;
-    const h = 210;
-    if (doc.y + h + 40 > doc.page.height - doc.page.margins.bottom) doc.addPage();
-    const y0 = doc.y + 4;
-    drawCurve(doc, m.curve, x0, y0, w, h);
-    doc.x = doc.page.margins.left;
-    doc.y = y0 + h + 30;
-    doc.fontSize(8).fillColor(MUTED).text("Shaded: the hold after isolation. Dashed red: the profile's limit. Dashed green: isolation.").fontSize(10).fillColor(INK);
+  doc.font(REGULAR).fillColor(MUTED).fontSize(10).text(pdfText(d.organizationName));
+  doc.font(SEMIBOLD).fillColor(INK).fontSize(18).text(pdfText(d.title));
+  doc.font(REGULAR).fontSize(12).text(pdfText(d.subtitle));
+  if (d.practice) doc.fillColor(MUTED).fontSize(10).text(pdfText(d.practice));
+  doc.fontSize(10).fillColor(INK);
+  for (const s of d.sections) {
+    // The curve keeps its heading with it (the chart is 210 pt tall plus its axis labels).
+    heading(doc, s.heading, s.blocks[0]?.kind === "curve" ? CURVE_HEIGHT + 50 : 60);
+    for (const b of s.blocks) drawBlock(doc, b, m);
   }
-
-  heading(doc, "The numbers");
-  pairs(doc, m.numbers.map((n) => [n.label, n.value]));
-
-  if (m.profile) {
-    heading(doc, `Acceptance profile: ${m.profile.name}`);
-    doc.text(`Isolate at or below ${m.profile.targetMicrons} microns, hold ${m.profile.holdMinutes} min, stay at or below ${m.profile.limitMicrons} microns, steady climb under ${m.profile.leakRateMicronsPerMinute} microns/min.`);
-    for (const r of m.profileRules) doc.text(`${r.met ? "Met" : "NOT met"}: ${r.label} (${r.detail})`);
-  }
-
-  if (m.findings.length) {
-    heading(doc, "Findings");
-    for (const f of m.findings) {
-      doc.font("Helvetica-Bold").text(f.title).font("Helvetica").text(f.message);
-      if (f.checks.length) doc.fillColor(MUTED).text(`Check: ${f.checks.join("; ")}`).fillColor(INK);
-      doc.moveDown(0.3);
-    }
-  }
-
-  heading(doc, "Sign-off");
-  doc.text(m.signOff ? `Signed off by ${m.signOff.by} on ${new Date(m.signOff.at).toUTCString()}.${m.signOff.note ? ` ${m.signOff.note}` : ""}` : "Not signed off.");
-
-  heading(doc, "Cautions");
-  doc.fontSize(9);
-  for (const c of m.cautions) doc.text(`• ${c}`).moveDown(0.2);
-  doc.fillColor(MUTED).fontSize(8).moveDown(0.5).text(`Made with Riseline${m.engineVersion ? ` (analysis ${m.engineVersion})` : ""}. Test id ${m.testId}.`);
+  doc.moveDown(0.8).fillColor(MUTED).fontSize(8);
+  for (const line of d.footer) doc.text(pdfText(line));
 
   doc.end();
   await done;

@@ -1,10 +1,18 @@
-/** Words the report, the PDF and the e-mails share, built on the product's verdict words. */
-import type { Verdict } from "@/analysis/types";
-import { VERDICT_TEXT } from "@/components/verdict/words";
+/** Words the report, the PDF and the e-mails share, built on the product's one vocabulary (lib/verdict). */
+import { curveWords, outcomeOf } from "@/lib/verdict/words";
 
+/** The curve statement's headline ("Steady climb: leak likely"), or "not analysed". */
 export function verdictLabel(verdict: string | null | undefined): string {
   if (!verdict) return "not analysed";
-  return VERDICT_TEXT[verdict as Verdict]?.headline ?? verdict;
+  return curveWords(verdict).headline;
+}
+
+/** Both statements in one line for a message: "Tight and dry. The shop's profile was not met." ("Passed." only for both). */
+export function storyLine(verdict: string | null | undefined, meetsProfile: boolean | null | undefined): string {
+  if (!verdict) return "Not analysed yet.";
+  const profile = meetsProfile === true ? "was met" : meetsProfile === false ? "was not met" : null;
+  const outcome = outcomeOf(verdict, meetsProfile);
+  return `${verdictLabel(verdict)}.${profile ? ` The shop's profile ${profile}.` : ""}${outcome.label === "Passed" ? " Passed." : ""}`;
 }
 
 /** The cautions every report carries (see the trade primer); the verdict never replaces them. */

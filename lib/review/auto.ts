@@ -17,14 +17,14 @@ import { verdictLabel } from "@/lib/reports/words";
 
 export interface RoutedTest {
   routed: boolean;
-  /** Why it entered the queue, in words ("verdict: Leak likely", "misses the profile", …). */
+  /** Why it entered the queue, in words ("the curve: Steady climb: leak likely", "misses the profile", …). */
   reasons: string[];
   mailIds: string[];
 }
 
 function reasonsOf(due: { verdict: string | null; meetsProfile: boolean | null; helpRequested: boolean }): string[] {
   const r: string[] = [];
-  if (due.verdict !== "pass") r.push(`verdict: ${verdictLabel(due.verdict)}`);
+  if (due.verdict !== "pass") r.push(`the curve: ${verdictLabel(due.verdict)}`);
   if (due.meetsProfile !== true) r.push("misses the acceptance profile");
   if (due.helpRequested) r.push("the technician asked for help");
   return r;
@@ -64,7 +64,7 @@ export async function reviewRowsOfNewTest(
   const event = automaticReviewEvent(organizationId, testId, automatic);
   const technicianName = k.technicianName ?? (await getUserEmailById(db, { organizationId, userId: params.technicianId }))?.name ?? "A technician";
   const siteName = k.siteName !== undefined ? k.siteName : params.siteId ? ((await getSiteById(db, { organizationId, siteId: params.siteId }))?.name ?? null) : null;
-  const summary = { id: testId, title: k.title, verdict: k.verdict, technicianName, siteName };
+  const summary = { id: testId, title: k.title, verdict: k.verdict, meetsProfile: k.meetsProfile, technicianName, siteName };
   const reviewers = await listReviewerEmailsByOrganization(db, { organizationId });
   const mails = reviewers.map((to) => ({
     ...reviewRequestedMail(to, summary, { by: null, help: k.helpRequested, automatic }), id: randomUUID(), organizationId, testId,
@@ -89,7 +89,7 @@ export async function queueNewTestForReview(tx: Db, params: { organizationId: st
   const reasons = reasonsOf(due);
   const automatic = reasons.join("; ");
   await insertTestEvent(tx, automaticReviewEvent(params.organizationId, due.id, automatic));
-  const summary = await namesForMail(tx, params.organizationId, params.actorId, due);
+  const summary = { ...(await namesForMail(tx, params.organizationId, params.actorId, due)), meetsProfile: due.meetsProfile };
   const reviewers = await listReviewerEmailsByOrganization(tx, { organizationId: params.organizationId });
   const mailIds = await queueMail(
     tx,

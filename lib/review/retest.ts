@@ -143,7 +143,7 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
         organizationId: org, testId, actorId: actor.userId, kind: "retest_uploaded", fromStatus: locked.status, toStatus: check.to,
         note: [`${input.file.filename} (analysis version ${version})`, note].filter(Boolean).join(" — "),
       });
-      const summary = { id: testId, title: locked.title, verdict: run.result.verdict, technicianName: detail.createdByName, siteName: detail.siteName };
+      const summary = { id: testId, title: locked.title, verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, technicianName: detail.createdByName, siteName: detail.siteName };
       const reviewers = (await listReviewerEmailsByOrganization(tx, { organizationId: org })).filter((e) => e !== actor.email);
       const mailIds = await queueMail(
         tx,

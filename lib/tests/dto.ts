@@ -23,6 +23,8 @@ export interface TestDto {
   volumeLitres: number | null;
   ambientC: number | null;
   notes: string | null;
+  /** For the customer's copy of the report; `notes` stay internal. */
+  customerNote: string | null;
   rigNote: string | null;
   currentAnalysisId: string | null;
 }
@@ -41,6 +43,8 @@ export interface TestListItem {
   startMicrons: number | null;
   endMicrons: number | null;
   leakRateMicronsPerMinute: number | null;
+  /** Whether the current analysis met the shop's profile (null when not analysed or hidden). */
+  meetsProfile: boolean | null;
   findingCodes: string[];
 }
 
@@ -49,6 +53,7 @@ export interface AnalysisHistoryEntry {
   version: number;
   verdict: string;
   confidence: number;
+  meetsProfile: boolean | null;
   createdAt: string;
   createdBy: { id: string; name: string };
   reason: string | null;
@@ -78,6 +83,7 @@ export function toTestDto(row: TestDetailRow): TestDto {
     volumeLitres: t.volumeLitres,
     ambientC: t.ambientC,
     notes: t.notes,
+    customerNote: t.customerNote,
     rigNote: t.rigNote,
     currentAnalysisId: t.currentAnalysisId,
   };

@@ -93,6 +93,7 @@ function toHistoryEntry(h: Awaited<ReturnType<typeof listAnalysesByTest>>[number
     version: h.version,
     verdict: h.verdict,
     confidence: h.confidence,
+    meetsProfile: h.meetsProfile,
     createdAt: h.createdAt.toISOString(),
     createdBy: { id: h.createdById, name: h.createdByName },
     reason: h.reason,
@@ -164,7 +165,7 @@ export async function listTests(db: Db, viewer: Viewer, q: ListTestsQuery): Prom
 
 /** A practice test in an apprentice's list before their call: the row, but nothing of the analysis. */
 function withoutAnalysis(item: TestListItem): TestListItem {
-  return { ...item, verdict: null, confidence: null, startMicrons: null, endMicrons: null, leakRateMicronsPerMinute: null, findingCodes: [] };
+  return { ...item, verdict: null, confidence: null, startMicrons: null, endMicrons: null, leakRateMicronsPerMinute: null, meetsProfile: null, findingCodes: [] };
 }
 
 function toListItem(r: Awaited<ReturnType<typeof listTestsByOrganization>>[number]): TestListItem {
@@ -182,6 +183,7 @@ function toListItem(r: Awaited<ReturnType<typeof listTestsByOrganization>>[numbe
     startMicrons: r.startMicrons,
     endMicrons: r.endMicrons,
     leakRateMicronsPerMinute: r.leakRateMicronsPerMinute,
+    meetsProfile: r.meetsProfile,
     findingCodes: r.findingCodes,
   };
 }

@@ -5,7 +5,8 @@
 import { AppError } from "@/lib/errors";
 import { env } from "@/lib/env";
 import { assertTextLog, decodeLogText, MULTIPART_SLACK_BYTES, readBodyCapped } from "./files";
-import { parseInput, testMetadataSchema, typedReadingsSchema, type TypedReadings } from "./schemas";
+import { parseInput, testMetadataSchema, typedReadingsSchema } from "./schemas";
+import { typedReadingsToCsv } from "./typed";
 import type { UploadInput } from "./upload";
 
 export interface ReceivedFile {
@@ -50,25 +51,6 @@ export async function readPreviewFile(req: Request): Promise<{ file: ReceivedFil
   return { file: await fileOf(form), fields: fieldsOf(form) };
 }
 
-/** Two digits. */
-const pad = (n: number) => String(n).padStart(2, "0");
-
-/** Typed readings as the CSV a gauge would have written: clock times or elapsed minutes. */
-export function typedReadingsToCsv(r: TypedReadings): { text: string; importDefaults: UploadInput["importDefaults"] } {
-  if (r.timeMode === "clock") {
-    const lines = r.readings.map((x) => {
-      const [h, m, s = "00"] = String(x.time).trim().split(":");
-      return `${pad(Number(h))}:${m}:${s.length === 1 ? `0${s}` : s},${x.microns}`;
-    });
-    return { text: ["Time,Vacuum (microns)", ...lines].join("\n") + "\n", importDefaults: { timeColumn: 0, pressureColumn: 1, unit: "micron" } };
-  }
-  const lines = r.readings.map((x) => `${Number(x.time)},${x.microns}`);
-  return {
-    text: ["Elapsed (min),Vacuum (microns)", ...lines].join("\n") + "\n",
-    importDefaults: { timeColumn: 0, pressureColumn: 1, unit: "micron", timeUnit: "min" },
-  };
-}
-
 /** The upload in a POST /api/tests request (without the idempotency key). */
 export async function readUploadRequest(req: Request): Promise<UploadInput> {
   if (isJson(req)) {
@@ -83,9 +65,9 @@ export async function readUploadRequest(req: Request): Promise<UploadInput> {
     const { readings, timeMode, ...rest } = obj;
     const typed = parseInput(typedReadingsSchema, { readings, timeMode }, "body");
     const metadata = parseInput(testMetadataSchema, rest, "body");
-    const { text, importDefaults } = typedReadingsToCsv(typed);
+    const { text, importDefaults, isolationAtSeconds } = typedReadingsToCsv(typed);
     const bytes = new TextEncoder().encode(text);
-    return { metadata, source: "typed", filename: "typed-readings.csv", contentType: "text/csv", bytes, text, importDefaults };
+    return { metadata, source: "typed", filename: "typed-readings.csv", contentType: "text/csv", bytes, text, importDefaults, isolationAtSeconds };
   }
   const ct = (req.headers.get("content-type") ?? "").toLowerCase();
   if (!ct.includes("multipart/form-data"))

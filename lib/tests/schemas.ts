@@ -62,6 +62,8 @@ export const testMetadataSchema = z
     volumeLitres: optionalNumber(0.01, 10000),
     ambientC: optionalNumber(-60, 70),
     notes: optionalText(4000),
+    /** For the customer's copy of the report (the notes above stay internal). */
+    customerNote: optionalText(2000),
     rigNote: optionalText(1000),
     isPractice: formBoolean.default(false),
     profileId: optionalUuid,
@@ -111,6 +113,11 @@ export const typedReadingsSchema = z
     });
   });
 export type TypedReadings = z.infer<typeof typedReadingsSchema>;
+
+/** PATCH /api/tests/:id — the note for the customer's copy of the report (empty clears it). */
+export const testNoteSchema = z
+  .object({ customerNote: z.string().trim().max(2000, "at most 2,000 characters").transform((v) => (v === "" ? null : v)) })
+  .strict();
 
 export const reanalysisSchema = z
   .object({

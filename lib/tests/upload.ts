@@ -47,6 +47,8 @@ export interface UploadInput {
   text: string;
   /** Importer choices the source implies (typed readings name their own columns). */
   importDefaults?: AnalyzeOptions["import"];
+  /** The isolation the source implies (typed "minutes since isolation": the first reading). */
+  isolationAtSeconds?: number;
   idempotencyKey?: string;
 }
 
@@ -175,7 +177,7 @@ export async function uploadOptionsOf(db: Database, org: string, input: UploadIn
   const profile = await resolveProfile(db, { organizationId: org, profileId: m.profileId });
   const overrides = importOptionsOf(m);
   const imp = input.importDefaults || overrides ? { ...(input.importDefaults ?? {}), ...(overrides ?? {}) } : undefined;
-  return compactOptions({ import: imp, profile, volume: volumeOf(m), ambientC: m.ambientC });
+  return compactOptions({ import: imp, profile, volume: volumeOf(m), ambientC: m.ambientC, isolationAtSeconds: input.isolationAtSeconds });
 }
 
 /** The first upload for a key already used; a key spent on a re-test is not a new test's key (409). */
@@ -292,6 +294,7 @@ function newTestRows(a: NewTestArgs): NewTestRows {
       ambientC: m.ambientC ?? null,
       rigNote: m.rigNote ?? null,
       notes: m.notes ?? null,
+      customerNote: m.customerNote ?? null,
       isPractice: m.isPractice,
       verdict: a.result.verdict,
       currentAnalysisId: a.analysisId,

@@ -12,11 +12,14 @@ describe("analyzeLog", () => {
   it("returns every field of AnalysisResult", () => {
     const r = analyzeLog(golden("scenario-leak.csv"));
     expect(r.engineVersion).toBe(ENGINE_VERSION);
-    for (const key of ["verdict", "confidence", "reasons", "isolationAt", "decay", "meetsProfile", "profile", "profileRules", "forecast", "holds", "phases", "leakRate", "findings", "import"]) {
+    for (const key of ["verdict", "confidence", "reasons", "isolationAt", "decay", "meetsProfile", "profile", "profileRules", "forecast", "holds", "phases", "leakRate", "findings", "import", "figures", "certainty"]) {
       expect(r).toHaveProperty(key);
     }
     expect(r.profileRules.map((x) => x.rule)).toEqual(["target", "hold_time", "limit", "leak_rate"]);
-    expect(r.forecast!.atHoldSeconds).toBe(600);
+    // The hold ran past the profile's 10 minutes: what was measured then stands, no forecast looks back.
+    expect(r.forecast).toBeNull();
+    expect(r.figures!.atHoldTime!.holdSeconds).toBe(600);
+    expect(r.certainty!.confidence).toBe(r.confidence);
     expect(r.holds[r.phases.primary!].fit).not.toBeNull();
     expect(JSON.parse(JSON.stringify(r))).toEqual(r);
   });

@@ -70,11 +70,26 @@ describe("verdict (default profile: common practice, no published source)", () =
     expect(c.reasons.join(" ")).toMatch(/profile is not met/);
   });
 
-  it("keeps confidence within 0–1 and higher for a clear leak than for a borderline one", () => {
+  it("keeps confidence within 0.05–0.99 and higher for a clear leak than for one whose climb is within the scatter of the threshold", () => {
     const clear = classifyHold(fitOf("climb", { p0: 300, l: 200 / 60 }), evidence({ maxMicrons: 3000 }), DEFAULT_PROFILE, null);
-    const borderline = classifyHold(fitOf("climb", { p0: 300, l: 21 / 60 }), evidence({ maxMicrons: 620 }), DEFAULT_PROFILE, null);
-    expect(clear.confidence).toBeLessThanOrEqual(1);
-    expect(borderline.confidence).toBeGreaterThan(0);
+    const noisy = fitOf("climb", { p0: 300, l: 21 / 60 });
+    noisy.fits.climb!.residualSd = 60;
+    const borderline = classifyHold(noisy, evidence({ maxMicrons: 620, readings: 12 }), DEFAULT_PROFILE, null);
+    for (const c of [clear, borderline]) {
+      expect(c.confidence).toBeGreaterThanOrEqual(0.05);
+      expect(c.confidence).toBeLessThanOrEqual(0.99);
+    }
     expect(clear.confidence).toBeGreaterThan(borderline.confidence);
+    expect(clear.certainty.words).toBe("sure");
+    expect(borderline.certainty.words).not.toBe("sure");
+    expect(borderline.certainty.why.join(" ")).toMatch(/close to the 20 microns\/min/);
+  });
+
+  it("quotes the same highest value in the limit rule and in the reasons, with the single highest reading beside a smoothed one", () => {
+    const c = classifyHold(fitOf("plateau", { p0: 300, a: 2300, tauSeconds: 150 }), evidence({ maxMicrons: 2650, rawMaxMicrons: 2790 }), DEFAULT_PROFILE, null);
+    const limit = c.profileRules.find((r) => r.rule === "limit")!;
+    expect(limit.detail).toContain("highest 2,650 microns (smoothed over 5 readings; highest single reading 2,790)");
+    const plateauOnly = classifyHold(fitOf("flat", { p0: 1500 }), evidence({ maxMicrons: 2650, rawMaxMicrons: 2790 }), DEFAULT_PROFILE, null);
+    expect(plateauOnly.reasons.join(" ")).toContain("highest 2,650 microns (smoothed over 5 readings; highest single reading 2,790)");
   });
 });

@@ -19,6 +19,9 @@ export interface SeedOptions {
   isPractice?: boolean;
   helpRequested?: boolean;
   rigNote?: string;
+  /** Internal notes (never on the customer's copy) and the note for the customer. */
+  notes?: string;
+  customerNote?: string;
 }
 
 const ISOLATION_SECONDS = 20 * 60;
@@ -97,6 +100,8 @@ export async function seedTest(member: TestMember, opts: SeedOptions = {}): Prom
       isPractice: opts.isPractice ?? false,
       helpRequested: opts.helpRequested ?? false,
       rigNote: opts.rigNote ?? "Gauge on a core tool at the suction valve; 3/8 in. hoses, cores out.",
+      notes: opts.notes ?? null,
+      customerNote: opts.customerNote ?? null,
       testedAt: opts.testedAt ?? new Date(),
     });
     const a = await insertAnalysis(tx, {

@@ -105,7 +105,7 @@ describe("technician on a phone", () => {
     await page.getByLabel("Pressure unit").selectOption("torr");
     await page.getByLabel("Elapsed time counts in").selectOption("s");
     await page.getByRole("button", { name: "Analyse with these columns" }).click();
-    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Leak likely");
+    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Steady climb: leak likely");
     await expectChartDrawn(page);
     expect(errors).toEqual([]);
     await context.close();
@@ -128,7 +128,7 @@ describe("technician on a phone", () => {
     }
     await expect.poll(() => page.getByLabel("Row 15 minutes since isolation").inputValue()).toBe("14");
     await page.getByRole("button", { name: "Analyse readings" }).click();
-    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Leak likely");
+    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Steady climb: leak likely");
     await expectChartDrawn(page);
     if (SHOTS) await page.screenshot({ path: "/tmp/tech-typed-360.png", fullPage: true });
     expect(errors).toEqual([]);

@@ -122,7 +122,7 @@ describe("trainer's bench journeys", () => {
     expect(await inkOf(page, "practice-chart")).toBeGreaterThan(1000);
     // no verdict on the page before the call
     expect(await page.getByTestId("practice-analysis").count()).toBe(0);
-    expect(await page.getByText("Leak likely").count()).toBe(0);
+    expect(await page.getByText("leak likely").count()).toBe(0);
     await shot(page, "practice-before");
     await page.getByLabel("Leak", { exact: true }).check();
     await page.getByLabel("Why? (a few words)").fill("It keeps climbing in a straight line.");
@@ -130,7 +130,7 @@ describe("trainer's bench journeys", () => {
     await page.getByTestId("practice-analysis").waitFor({ timeout: 60_000 });
     expect(await page.getByTestId("my-call").textContent()).toContain("It keeps climbing in a straight line.");
     expect(await page.getByTestId("call-match").textContent()).toContain("matches the analysis");
-    expect(await page.getByTestId("practice-analysis").textContent()).toContain("Leak likely");
+    expect(await page.getByTestId("practice-analysis").textContent()).toContain("Steady climb: leak likely");
     await shot(page, "practice-after");
     expect(errors).toEqual([]);
 

@@ -39,7 +39,7 @@ const VERDICTS: { value: string; label: string }[] = [
   { value: "moisture", label: "Moisture" },
   { value: "leak_and_moisture", label: "Leak + moisture" },
   { value: "inconclusive", label: "Can't tell" },
-  { value: "pass", label: "Passed" },
+  { value: "pass", label: "Tight and dry" },
 ];
 
 export function ReviewQueue({ technicians }: { technicians: { id: string; name: string }[] }) {
@@ -78,10 +78,10 @@ export function ReviewQueue({ technicians }: { technicians: { id: string; name: 
                     {t.systemName ? ` · ${t.systemName}` : ""} · {waited(t.waitingSince)}
                   </p>
                   <div className="mt-1 flex flex-wrap gap-1.5">
-                    <VerdictBadge verdict={t.verdict} />
-                    {t.meetsProfile === false && <Badge tone="attention">Misses profile</Badge>}
+                    <VerdictBadge verdict={t.verdict} meetsProfile={t.meetsProfile} />
+                    {t.meetsProfile === false && t.verdict !== "pass" && <Badge tone="attention">Misses profile</Badge>}
                     {t.helpRequested && <Badge tone="attention">Help asked</Badge>}
-                    {t.endMicrons != null && <Badge>{Math.round(t.endMicrons).toLocaleString("en-US")} microns at end</Badge>}
+                    {t.endMicrons != null && <Badge>last reading {Math.round(t.endMicrons).toLocaleString("en-US")} microns</Badge>}
                   </div>
                 </div>
               </Link>

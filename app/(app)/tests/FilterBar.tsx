@@ -28,7 +28,7 @@ export function FilterBar({ value, onChange, canSeeAll }: Props) {
       <div className="grid gap-3 border-t border-surface-line px-4 py-4 sm:grid-cols-2 lg:grid-cols-3">
         <Select label="Verdict" value={value.verdict} onChange={(e) => set("verdict", e.target.value)}>
           <option value="">Any verdict</option>
-          {Object.entries(VERDICT_TEXT).map(([k, t]) => <option key={k} value={k}>{t.headline}</option>)}
+          {Object.entries(VERDICT_TEXT).map(([k, t]) => <option key={k} value={k}>{t.label}</option>)}
         </Select>
         {canSeeAll && (
           <Select label="Technician" value={value.technicianId} onChange={(e) => set("technicianId", e.target.value)}>

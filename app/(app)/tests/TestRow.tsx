@@ -27,7 +27,7 @@ export function TestRow({ item, showTechnician = true }: { item: TestListItem; s
       className="block rounded-card border border-surface-line bg-surface-raised px-4 py-3 shadow-card hover:border-tide-400"
     >
       <div className="flex flex-wrap items-center justify-between gap-2">
-        <VerdictBadge verdict={item.verdict as Verdict | null} />
+        <VerdictBadge verdict={item.verdict as Verdict | null} meetsProfile={item.meetsProfile} />
         <span className="text-caption text-fg-soft">{shortDate(item.testedAt)}</span>
       </div>
       <p className="mt-1 break-words text-lead font-semibold text-fg">{item.title}</p>
@@ -39,7 +39,7 @@ export function TestRow({ item, showTechnician = true }: { item: TestListItem; s
       <div className="mt-1 flex flex-wrap items-center gap-x-4 gap-y-1 text-body tabular-nums">
         {item.startMicrons != null && (
           <span>
-            {n(item.startMicrons)} → {n(item.endMicrons)} µ
+            {n(item.startMicrons)} µ at isolation, last {n(item.endMicrons)} µ
           </span>
         )}
         {item.leakRateMicronsPerMinute != null && item.leakRateMicronsPerMinute > 0 && <span>{Number(item.leakRateMicronsPerMinute.toPrecision(3))} µ/min climb</span>}

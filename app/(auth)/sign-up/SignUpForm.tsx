@@ -16,7 +16,8 @@ function shopSlug(name: string): string {
 
 export function SignUpForm() {
   const router = useRouter();
-  const [form, setForm] = useState({ name: "", email: "", password: "", shop: "" });
+  // The shop's time zone is proposed from this device; reports write times in it (changeable under Shop).
+  const [form, setForm] = useState(() => ({ name: "", email: "", password: "", shop: "", timeZone: (typeof Intl !== "undefined" && Intl.DateTimeFormat().resolvedOptions().timeZone) || "UTC" }));
   const [fieldErrors, setFieldErrors] = useState<Partial<Record<keyof typeof form, string>>>({});
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -54,6 +55,10 @@ export function SignUpForm() {
       return;
     }
     await authClient.organization.setActive({ organizationId: org.data.id });
+    if (form.timeZone.trim()) {
+      // A zone the server does not know leaves the shop at UTC; the owner can set it under Shop.
+      await fetch("/api/settings/shop", { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ timeZone: form.timeZone.trim() }) }).catch(() => null);
+    }
     router.replace("/home");
     router.refresh();
   }
@@ -73,6 +78,7 @@ export function SignUpForm() {
         hint={`At least ${MIN_PASSWORD} characters. A short sentence works well.`}
       />
       <Input label="Shop name" autoComplete="organization" value={form.shop} onChange={set("shop")} error={fieldErrors.shop} hint="The company or crew the test records belong to." />
+      <Input label="Shop time zone" autoComplete="off" value={form.timeZone} onChange={set("timeZone")} hint="Reports write times in it. Proposed from this device." />
       <Button type="submit" size="lg" block busy={busy}>
         Create account and shop
       </Button>

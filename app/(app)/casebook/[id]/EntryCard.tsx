@@ -60,7 +60,7 @@ export function EntryCard({ index, entry, curate, collectionId, picked, onToggle
     >
       <div className="space-y-3">
         <p className="flex flex-wrap items-center gap-2 text-caption text-fg-soft">
-          {entry.analysisHidden ? <span>Make your practice call first</span> : <VerdictBadge verdict={entry.verdict} />}
+          {entry.analysisHidden ? <span>Make your practice call first</span> : <VerdictBadge verdict={entry.verdict} meetsProfile={entry.meetsProfile} />}
           <span>{new Date(entry.testedAt).toLocaleDateString("en-US", { dateStyle: "medium" })} · {entry.technicianName}{entry.refrigerant ? ` · ${entry.refrigerant}` : ""}</span>
           {entry.canOpenTest && <Link className="underline" href={`/tests/${entry.testId}`}>Open the test</Link>}
         </p>
@@ -111,11 +111,11 @@ export function EntryCard({ index, entry, curate, collectionId, picked, onToggle
             ))}
           </ol>
         )}
-        {!entry.analysisHidden && entry.decay && (
-          <p className="text-caption text-fg-soft">
-            Hold {durationWords(entry.decay.holdSeconds)}: {microns(entry.decay.startMicrons)} → {microns(entry.decay.endMicrons)} microns
-            {entry.decay.leakRateMicronsPerMinute > 0 ? `, climbing ${entry.decay.leakRateMicronsPerMinute.toFixed(1)} microns/min` : ""}
-            {entry.decay.plateauMicrons != null ? `, levelling near ${microns(entry.decay.plateauMicrons)}` : ""}
+        {!entry.analysisHidden && (entry.holdSentence || entry.profileSentence) && (
+          <p className="text-caption text-fg-soft" data-testid="entry-story">
+            {entry.holdSentence}
+            {entry.decay && entry.decay.leakRateMicronsPerMinute > 0 ? ` Climbing ${entry.decay.leakRateMicronsPerMinute.toFixed(1)} microns/min.` : ""}
+            {entry.decay?.plateauMicrons != null ? ` Levelling near ${microns(entry.decay.plateauMicrons)} microns.` : ""} {entry.profileSentence}
           </p>
         )}
         {curate && (

@@ -3,16 +3,19 @@ import { db } from "@/db/client";
 import { listInvitationsByOrganization, listMembersByOrganization } from "@/db/queries/members";
 import { pageActor } from "@/lib/session";
 import { can } from "@/lib/permissions";
+import { getOrganizationTimeZoneById } from "@/db/queries/settings";
 import { MembersManager, type InvitationRow, type MemberRow } from "./MembersManager";
+import { ShopTimeZone } from "./ShopTimeZone";
 
 export const metadata: Metadata = { title: "Shop" };
 
 export default async function MembersPage() {
   const actor = await pageActor("members.read");
   const canManage = can(actor.role, "members.manage");
-  const [members, invitations] = await Promise.all([
+  const [members, invitations, timeZone] = await Promise.all([
     listMembersByOrganization(db(), { organizationId: actor.organizationId }),
     canManage ? listInvitationsByOrganization(db(), { organizationId: actor.organizationId }) : Promise.resolve([]),
+    getOrganizationTimeZoneById(db(), { organizationId: actor.organizationId }),
   ]);
   const memberRows: MemberRow[] = members.map((m) => ({ userId: m.userId, name: m.name, email: m.email, role: m.role, joinedAt: m.joinedAt.toISOString() }));
   const inviteRows: InvitationRow[] = invitations.map((i) => ({ id: i.id, email: i.email, role: i.role ?? "", expiresAt: i.expiresAt.toISOString() }));
@@ -26,6 +29,7 @@ export default async function MembersPage() {
         </p>
       </header>
       <MembersManager members={memberRows} invitations={inviteRows} canManage={canManage} selfUserId={actor.userId} />
+      <ShopTimeZone timeZone={timeZone} canManage={canManage} />
     </div>
   );
 }

@@ -1,6 +1,7 @@
 import { Card, LinkButton } from "@/components/ui";
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
 import { confidenceWords } from "@/components/verdict/words";
+import { certaintyWordsOf } from "@/analysis/confidence";
 import type { HistoryEntry } from "@/lib/client/api";
 import { dateTimeWords, durationWords } from "./format";
 import { versionHref } from "./version";
@@ -52,8 +53,8 @@ export function HistoryList({ history, currentId, testId, shownId }: { history: 
               <details className="rounded-xl border border-surface-line" open={sorted.length === 1}>
                 <summary className="flex min-h-tap cursor-pointer flex-wrap items-center gap-2 px-3 py-2">
                   <span className="font-semibold">Version {h.version}</span>
-                  <VerdictBadge verdict={h.verdict} />
-                  <span className="text-caption text-fg-soft">{confidenceWords(h.confidence)}</span>
+                  <VerdictBadge verdict={h.verdict} meetsProfile={h.meetsProfile} />
+                  {h.verdict !== "inconclusive" && <span className="text-caption text-fg-soft">{confidenceWords(h.confidence)} — {certaintyWordsOf(h.confidence)}</span>}
                   {h.version === currentVersion && <span className="rounded-full bg-tide-50 px-2 py-0.5 text-caption font-semibold text-tide-800 dark:bg-tide-900 dark:text-tide-100">shown above</span>}
                 </summary>
                 <div className="space-y-1 border-t border-surface-line px-3 py-2 text-body">

@@ -11,7 +11,7 @@ export function ImportPanel({ analysis, test }: { analysis: AnalysisResult; test
     ["Volume", test.volumeLitres != null ? `${test.volumeLitres} L` : null],
     ["Ambient", test.ambientC != null ? `${test.ambientC} °C (${Math.round(test.ambientC * 1.8 + 32)} °F)` : null],
     ["Rig", test.rigNote],
-    ["Notes", test.notes],
+    ["Internal notes", test.notes],
   ];
   return (
     <details className="mt-3">

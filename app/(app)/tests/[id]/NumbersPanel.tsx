@@ -1,11 +1,13 @@
 import type { AnalysisResult } from "@/analysis/types";
+import { PA_PER_MICRON } from "@/analysis/units";
 import { Card } from "@/components/ui";
 import { shapeWords, primaryHold } from "@/components/curve/model";
+import { storyOf, type StoryNumber } from "@/lib/verdict/story";
 import { atWords, microns, minutesShort, pascals, scientific, sig3 } from "./format";
 
-function Item({ label, value, si, testId }: { label: string; value: string; si?: string; testId?: string }) {
+function Item({ label, value, si, testId, title }: { label: string; value: string; si?: string; testId?: string; title?: string }) {
   return (
-    <div className="rounded-lg bg-surface-sunken px-3 py-2">
+    <div className="rounded-lg bg-surface-sunken px-3 py-2" title={title}>
       <dt className="text-caption text-fg-soft">{label}</dt>
       <dd className="text-title tabular-nums" data-testid={testId}>{value}</dd>
       {si && <dd className="text-caption text-fg-soft tabular-nums">{si}</dd>}
@@ -13,32 +15,53 @@ function Item({ label, value, si, testId }: { label: string; value: string; si?:
   );
 }
 
-/** The hold in numbers: microns first, SI beside; the leak rate when the volume is known. */
+/** The SI line under a number: pascals for microns, Pa/min for a rate, the raw reading beside a smoothed one. */
+function siOf(n: StoryNumber, holdCut: boolean): string | undefined {
+  if (n.beside && n.beside.value !== n.value) return `smoothed; single highest reading ${n.beside.value}`;
+  if (n.key === "rate") return `${sig3(n.raw * PA_PER_MICRON)} Pa/min`;
+  if (n.key === "hold") return holdCut ? "cut short by the end of the log" : undefined;
+  return pascals(n.raw);
+}
+
+/**
+ * The hold in numbers, each once and from the engine's figures (lib/verdict/story.ts): microns first,
+ * SI beside, the raw reading beside a smoothed one, what each number is on hover and in the list below.
+ */
 export function NumbersPanel({ analysis }: { analysis: AnalysisResult }) {
-  const d = analysis.decay;
+  const story = storyOf(analysis);
   const pd = analysis.phases?.pulldown;
   const hold = primaryHold(analysis);
   const lr = analysis.leakRate;
+  const d = analysis.decay;
   return (
     <Card title="The numbers">
-      <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3">
+      <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3" data-testid="numbers">
         <Item label="Isolated at" value={analysis.isolationAt != null ? minutesShort(analysis.isolationAt) : "Not found"} si={analysis.isolationAt != null ? "from the first reading" : "log may start in the hold"} testId="isolation-at" />
-        {pd && <Item label="Lowest before isolating" value={`${microns(pd.lowestMicrons)} µ`} si={pascals(pd.lowestMicrons)} />}
-        {d && (
-          <>
-            <Item label="Hold start" value={`${microns(d.startMicrons)} µ`} si={pascals(d.startMicrons)} />
-            <Item label="Hold end" value={`${microns(d.endMicrons)} µ`} si={pascals(d.endMicrons)} />
-            <Item label="Rise" value={`${microns(d.riseMicrons)} µ`} si={pascals(d.riseMicrons)} />
-            <Item label="Hold time" value={minutesShort(d.holdSeconds)} si={hold && !hold.complete ? "cut short by the end of the log" : undefined} />
-            <Item label="Steady climb" value={`${sig3(d.leakRateMicronsPerMinute)} µ/min`} si={`${sig3(d.leakRateMicronsPerMinute * 0.133322)} Pa/min`} />
-            <Item label="Plateau" value={d.plateauMicrons != null ? `${microns(d.plateauMicrons)} µ` : "None"} si={d.plateauMicrons != null ? pascals(d.plateauMicrons) : undefined} />
-            <Item label="Time constant" value={d.timeConstantSeconds != null ? minutesShort(d.timeConstantSeconds) : "—"} si={d.timeConstantSeconds != null ? "to ~63 % of the plateau" : undefined} />
-          </>
-        )}
+        {pd && <Item label="Lowest before isolating" value={`${microns(pd.lowestMicrons)} µ`} si={`3-reading median · ${pascals(pd.lowestMicrons)}`} title="the lowest reading of the pull-down, as a median of 3 readings so one wild reading does not count" />}
+        {story.numbers.map((n) => (
+          <Item key={n.key} label={n.label} value={n.value} si={siOf(n, !!hold && !hold.complete)} testId={`number-${n.key}`} title={n.definition} />
+        ))}
+        {d && d.timeConstantSeconds != null && <Item label="Time constant" value={minutesShort(d.timeConstantSeconds)} si="to ~63 % of the plateau" />}
         {hold?.fit && <Item label="Curve shape" value={shapeWords(hold.fit.chosen)} />}
         {analysis.phases?.breakAtSeconds != null && <Item label="Vacuum broken" value={atWords(analysis.phases.breakAtSeconds)} />}
       </dl>
       <p className="mt-2 text-caption text-fg-soft">µ = microns of mercury (mTorr). 1 micron = 0.133322 Pa.</p>
+      {story.numbers.length > 0 && (
+        <details className="mt-2">
+          <summary className="inline-flex min-h-tap cursor-pointer items-center text-body text-tide-700 underline dark:text-tide-300">What each number is</summary>
+          <dl className="mt-1 space-y-1 text-caption" data-testid="number-definitions">
+            {story.numbers.map((n) => (
+              <div key={n.key}>
+                <dt className="inline font-semibold">{n.label}: </dt>
+                <dd className="inline text-fg-soft">
+                  {n.definition}
+                  {n.beside ? `; beside it, ${n.beside.definition}` : ""}.
+                </dd>
+              </div>
+            ))}
+          </dl>
+        </details>
+      )}
       {lr && (
         <div className="mt-4">
           <h3 className="text-lead font-semibold">Leak rate for {sig3(lr.volumeLitres)} L</h3>

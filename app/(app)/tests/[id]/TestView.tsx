@@ -9,7 +9,6 @@ import { SafetyNote } from "@/components/verdict/SafetyNote";
 import { Alert, Button, Card, LinkButton, Spinner } from "@/components/ui";
 import { ApiError } from "@/lib/client/api";
 import { FindingsList } from "./FindingsList";
-import { ForecastPanel } from "./ForecastPanel";
 import { HistoryList } from "./HistoryList";
 import { NumbersPanel } from "./NumbersPanel";
 import { RawDownload } from "./RawDownload";
@@ -22,9 +21,10 @@ import { RigForTest } from "@/components/planner/RigForTest";
 import { PlanCompare } from "./PlanCompare";
 import { getTestView, testViewKey, versionHref } from "./version";
 import { VersionBanner } from "./VersionBanner";
+import { CustomerNote } from "./CustomerNote";
 
 /** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
-export function TestView({ id, canReanalyse, canShare }: { id: string; canReanalyse: boolean; canShare: boolean }) {
+export function TestView({ id, canReanalyse, canShare, userId }: { id: string; canReanalyse: boolean; canShare: boolean; userId?: string }) {
   // ?analysis=<id> shows an earlier analysis version (from the history); none shows the current one.
   const analysisId = useSearchParams()?.get("analysis") || null;
   const q = useQuery({ queryKey: testViewKey(id, analysisId), queryFn: ({ signal }) => getTestView(id, analysisId, signal) });
@@ -96,7 +96,6 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
       <div className="grid gap-5 lg:grid-cols-2">
         <NumbersPanel analysis={analysis} />
         <div className="space-y-5">
-          <ForecastPanel analysis={analysis} />
           <SafetyNote full />
         </div>
       </div>
@@ -108,6 +107,7 @@ export function TestView({ id, canReanalyse, canShare }: { id: string; canReanal
         {canReanalyse && !earlier && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
         <div className="space-y-5">
           <HistoryList history={history} currentId={test.currentAnalysisId} testId={id} shownId={version?.analysisId ?? null} />
+          <CustomerNote testId={id} note={test.customerNote ?? null} canWrite={canShare || (!!userId && test.technician?.id === userId)} onSaved={() => void q.refetch()} />
           <Card title="Record">
             <RawDownload testId={id} upload={upload} />
             <ImportPanel analysis={analysis} test={test} />

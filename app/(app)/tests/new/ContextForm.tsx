@@ -113,7 +113,8 @@ export function ContextForm({ value, onChange, canCreateJob }: Props) {
           <option value="C">°C</option>
         </Select>
       </div>
-      <Textarea label="Notes" rows={3} value={value.notes} onChange={(e) => set("notes", e.target.value)} className="sm:col-span-2" />
+      <Textarea label="Notes (internal, never on the customer’s report)" rows={3} value={value.notes} onChange={(e) => set("notes", e.target.value)} className="sm:col-span-2" />
+      <Textarea label="Note for the customer (printed on the report)" rows={2} value={value.customerNote} onChange={(e) => set("customerNote", e.target.value)} className="sm:col-span-2" />
       <Input label="Rig note" placeholder="e.g. core tools both sides, 3/8″ hoses, no manifold" value={value.rigNote} onChange={(e) => set("rigNote", e.target.value)} className="sm:col-span-2" />
       <label className="flex min-h-tap items-center gap-3 text-body sm:col-span-2">
         <input type="checkbox" className="h-6 w-6 accent-tide-600" checked={value.isPractice} onChange={(e) => set("isPractice", e.target.checked)} />

@@ -102,7 +102,10 @@ export function TypedReadings({ busy, onSubmit }: Props) {
           ))}
         </div>
       </fieldset>
-      <p className="text-caption text-fg-soft">Type a reading and press Enter for the next row. You can paste a column of numbers, or two columns (time and microns).</p>
+      <p className="text-caption text-fg-soft">
+        {mode === "minutes" ? "The first row is the moment you valved off the pump (minute 0 = isolation). " : "Clock times may include the pull-down; Riseline finds the isolation. "}
+        Type a reading and press Enter for the next row; an empty last row is left out. You can paste a column of numbers, or two columns (time and microns).
+      </p>
       <table ref={tableRef} className="w-full border-separate border-spacing-y-1.5">
         <caption className="sr-only">Readings</caption>
         <thead>

@@ -28,6 +28,8 @@ export interface TestContext {
   ambient: string;
   ambientUnit: "C" | "F";
   notes: string;
+  /** Printed on the customer's copy of the report; `notes` stay internal. */
+  customerNote: string;
   rigNote: string;
   isPractice: boolean;
 }
@@ -49,6 +51,7 @@ export const EMPTY_CONTEXT: TestContext = {
   ambient: "",
   ambientUnit: "F",
   notes: "",
+  customerNote: "",
   rigNote: "",
   isPractice: false,
 };
@@ -97,6 +100,7 @@ export function contextFields(ctx: TestContext): Record<string, string | number 
   const c = ambientCelsius(ctx);
   if (c !== undefined) out.ambientC = c;
   text("notes", ctx.notes);
+  text("customerNote", ctx.customerNote);
   text("rigNote", ctx.rigNote);
   if (ctx.isPractice) out.isPractice = true;
   return out;

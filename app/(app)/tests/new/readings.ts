@@ -74,10 +74,17 @@ export interface CheckedReadings {
   problems: string[];
 }
 
+/**
+ * The readings to send and the problems to show. Rows after the last one with a reading are left
+ * out, even with a time filled in (Enter after the last reading adds a row with the next time);
+ * a row with neither time nor reading is skipped anywhere.
+ */
 export function checkReadings(rows: ReadingRow[], mode: TimeMode): CheckedReadings {
   const readings: { time: string | number; microns: number }[] = [];
   const problems: string[] = [];
-  rows.forEach((r, i) => {
+  let last = rows.length - 1;
+  while (last >= 0 && rows[last].microns.trim() === "") last--;
+  rows.slice(0, last + 1).forEach((r, i) => {
     const n = i + 1;
     if (r.time.trim() === "" && r.microns.trim() === "") return;
     const p = parseNumber(r.microns);
@@ -92,5 +99,13 @@ export function checkReadings(rows: ReadingRow[], mode: TimeMode): CheckedReadin
     if (p !== null && p >= 0 && time !== null) readings.push({ time, microns: p });
   });
   if (problems.length === 0 && readings.length < 5) problems.push("Enter at least 5 readings taken after isolating the pump.");
+  if (problems.length === 0 && mode === "minutes" && readings.length > 1) {
+    for (let i = 1; i < readings.length; i++) {
+      if (Number(readings[i].time) <= Number(readings[i - 1].time)) {
+        problems.push(`Row ${i + 1}: ${readings[i].time} min is not after ${readings[i - 1].time} min; minutes count up from the isolation.`);
+        break;
+      }
+    }
+  }
   return { readings, problems };
 }

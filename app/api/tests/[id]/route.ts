@@ -2,6 +2,8 @@ import { z } from "zod";
 import { db } from "@/db/client";
 import { route, uuidParam } from "@/lib/api/handler";
 import { loadTestDetail, loadTestDetailAtAnalysis } from "@/lib/tests/read";
+import { setCustomerNote } from "@/lib/tests/customer-note";
+import { testNoteSchema } from "@/lib/tests/schemas";
 
 export const dynamic = "force-dynamic";
 
@@ -16,4 +18,9 @@ const query = z.object({
  */
 export const GET = route({ permission: "member", params: uuidParam, query }, async ({ actor, params, query }) =>
   query.analysisId ? loadTestDetailAtAnalysis(db(), actor, params.id, query.analysisId) : loadTestDetail(db(), actor, params.id),
+);
+
+/** PATCH /api/tests/:id — { customerNote }: the note on the customer's copy of the report. */
+export const PATCH = route({ permission: "member", params: uuidParam, body: testNoteSchema }, async ({ actor, params, body }) =>
+  setCustomerNote(db(), actor, params.id, body.customerNote),
 );

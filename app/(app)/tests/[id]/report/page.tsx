@@ -7,16 +7,14 @@ import { ReportView } from "@/components/review/ReportView";
 import { getTestById } from "@/db/queries/tests";
 import { practiceGate } from "@/lib/practice/gate";
 import { buildReportModel } from "@/lib/reports/model";
-import { can } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
-import { TestReviewSection } from "@/components/review/TestReviewSection";
 
 export const metadata: Metadata = { title: "Report" };
 export const dynamic = "force-dynamic";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-/** The printable report of a test the member can see. */
+/** The printable report of a test the member can see: the report only (review, comments and sharing live on the test page). */
 export default async function ReportPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const actor = await pageActor();
@@ -37,10 +35,6 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
         <LinkButton href={`/api/tests/${id}/report?download=1`} variant="secondary" prefetch={false}>Download PDF</LinkButton>
       </div>
       <ReportView model={model} />
-      {/* The lead's desk for this test, on screen only (until the test page mounts it too). */}
-      <div className="mx-auto mt-8 max-w-3xl print:hidden">
-        <TestReviewSection testId={id} canShare={can(actor.role, "reports.share")} />
-      </div>
     </div>
   );
 }
