@@ -27,7 +27,6 @@ export function rfc5987Value(text: string): string {
  */
 export function safeFilename(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? "";
-  // eslint-disable-next-line no-control-regex
   const clean = base.replace(/[\u0000-\u001f\u007f-\u009f"\\]/g, "").replace(/^[.\s]+/, "").trim();
   return [...clean].slice(-150).join("") || "log.csv";
 }
