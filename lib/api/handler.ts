@@ -36,6 +36,8 @@ interface Spec<B, Q, P> {
    * "multipart" (and reads its own body, with its own cap and checks).
    */
   accepts?: readonly BodyKind[];
+  /** Largest JSON body, bytes, for a route whose JSON carries a whole log; MAX_JSON_BYTES otherwise. */
+  maxJsonBytes?: number;
 }
 
 interface Call<B, Q, P> {
@@ -103,10 +105,10 @@ function guardRequest(req: Request, accepts: readonly BodyKind[] = ["json"]): vo
   assertAcceptedBody(req, accepts);
 }
 
-async function partsOf<B, Q, P>(spec: Omit<Spec<B, Q, P>, "permission">, req: Request, ctx?: RouteContext) {
+async function partsOf<B, Q, P>(spec: Omit<Spec<B, Q, P>, "permission" | "accepts">, req: Request, ctx?: RouteContext) {
   const params = await parsePart(spec.params, ctx ? await ctx.params : {}, "path");
   const query = await parsePart(spec.query, Object.fromEntries(new URL(req.url).searchParams), "query");
-  const body = spec.body ? await parsePart(spec.body, await readJsonBody(req), "body") : (undefined as B);
+  const body = spec.body ? await parsePart(spec.body, await readJsonBody(req, spec.maxJsonBytes), "body") : (undefined as B);
   return { params, query, body };
 }
 

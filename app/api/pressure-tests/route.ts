@@ -12,7 +12,7 @@ export const GET = route({ permission: "member", query: pressureTestListQuery },
 });
 
 /** Record a nitrogen standing-pressure test from typed readings or a logger CSV; answers with the verdict worked out. */
-export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema }, async ({ actor, body }) => {
+export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ actor, body }) => {
   if (body.jobId && !(await isJobOfOrganization(db(), { organizationId: actor.organizationId, jobId: body.jobId })))
     throw new AppError("invalid_input", "jobId: no such job in this shop");
   let evaluated;
