@@ -94,6 +94,9 @@ function buildAuth() {
     rateLimit: { enabled: authRateLimitEnabled(), window: 60, max: 30, storage: "database" },
     hooks: { before: lockoutBefore, after: lockoutAfter },
     logger: authLogger,
+    // Unexpected errors (a database that does not answer) reach our route handler, which logs them
+    // without their query parameters and answers 503; better-auth would print them whole.
+    onAPIError: { throw: true },
     advanced: {
       useSecureCookies: e.RISELINE_MODE === "production",
       // One joined query for a session and its user instead of two (every request reads them).

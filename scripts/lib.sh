@@ -30,10 +30,10 @@ ensure_chromium() {
   fi
 }
 
-# The app's port for a profile (3000 demo, 3100 test, 3200 dev, 3300 bench), moved by RISELINE_PORT_OFFSET.
+# The app's port for a profile (3000 demo, 3100 test, 3200 dev, 3300 bench, 3400 faults), moved by RISELINE_PORT_OFFSET.
 app_port() {
   local base
-  case "$1" in demo) base=3000 ;; test) base=3100 ;; dev) base=3200 ;; bench) base=3300 ;; *) return 2 ;; esac
+  case "$1" in demo) base=3000 ;; test) base=3100 ;; dev) base=3200 ;; bench) base=3300 ;; faults) base=3400 ;; *) return 2 ;; esac
   echo $((base + ${RISELINE_PORT_OFFSET:-0}))
 }
 

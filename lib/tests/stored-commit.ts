@@ -3,7 +3,9 @@
  * then write the rows in one transaction; if the transaction fails the file is deleted again, so
  * neither side keeps an orphan.
  *
- *  - Storage failing or timing out → 503 storage_unavailable, nothing written.
+ *  - Storage failing or timing out → 503 storage_unavailable, nothing written. A store that timed
+ *    out may still write the object once it wakes, so the object is deleted again later (a few
+ *    tries over about three minutes; a process that stops meanwhile leaves it to the orphan sweep).
  *  - The request gone (the client disconnected or gave up) before the commit → the transaction is
  *    rolled back and the file deleted: an upload nobody is waiting for is never committed later.
  *  - The transaction failing → the object is deleted, then: a lost Idempotency-Key race (the
@@ -36,6 +38,28 @@ export interface RawObject {
   sha256: string;
 }
 
+/** Seconds after a failed store before each try to delete what it may still write. */
+const DELETE_AGAIN_AFTER_SECONDS = [2, 5, 10, 20, 40, 80];
+
+/**
+ * Deletes an object whose upload failed or timed out, now and again later: a frozen store answers
+ * nothing, then writes the object when it wakes. After the first delete that succeeds, one more
+ * 30 s later catches a write the store was still holding. Timers never keep a process alive.
+ */
+export function deleteAgainLater(key: string, what: string, attempt = 0, confirmed = false): void {
+  const seconds = confirmed ? 30 : DELETE_AGAIN_AFTER_SECONDS[attempt];
+  if (seconds === undefined) {
+    log.error(`${what} may be left in storage after a failed upload`, { objectKey: key });
+    return;
+  }
+  setTimeout(() => {
+    deleteObject(key).then(
+      () => (confirmed ? undefined : deleteAgainLater(key, what, 0, true)),
+      () => (confirmed ? undefined : deleteAgainLater(key, what, attempt + 1)),
+    );
+  }, seconds * 1000).unref();
+}
+
 function assertStillWanted(signal: AbortSignal | undefined): void {
   if (signal?.aborted) throw new RequestGone();
 }
@@ -52,10 +76,8 @@ export async function storeThenCommit<T>(
   try {
     await putRawLog(object.key, object.bytes, object.filename, object.sha256, signal);
   } catch (err) {
-    if (signal?.aborted) {
-      await deleteObject(object.key).catch(() => {});
-      throw new RequestGone();
-    }
+    deleteAgainLater(object.key, what); // the store may still write it
+    if (signal?.aborted) throw new RequestGone();
     throw err;
   }
   try {
@@ -65,7 +87,7 @@ export async function storeThenCommit<T>(
       return out;
     });
   } catch (err) {
-    await deleteObject(object.key).catch((e) => log.error(`orphan ${what} left in storage`, { objectKey: object.key, err: describeError(e) }));
+    await deleteObject(object.key).catch(() => deleteAgainLater(object.key, what));
     if (err instanceof KeyTaken) return onKeyTaken();
     if (err instanceof AppError || err instanceof RequestGone) throw err;
     const failure = failureOf(err);

@@ -9,6 +9,8 @@ import { toNextJsHandler } from "better-auth/next-js";
 import { db } from "@/db/client";
 import { assertAcceptedBody } from "@/lib/api/body";
 import { assertSameOrigin } from "@/lib/api/csrf";
+import { isDatabaseUnreachable } from "@/lib/api/failures";
+import { describeError, log } from "@/lib/log";
 import { getAuth } from "@/lib/auth";
 import { env } from "@/lib/env";
 import { AppError, errorResponse, type AppErrorCode } from "@/lib/errors";
@@ -60,8 +62,10 @@ async function handle(req: Request, run: (r: Request) => Promise<Response>): Pro
   let res: Response;
   try {
     res = await run(withClientIp(req));
-  } catch {
-    res = new Response(null, { status: 500 });
+  } catch (err) {
+    if (isDatabaseUnreachable(err)) return authError("database_unavailable");
+    log.error("auth request failed", { path: new URL(req.url).pathname, err: describeError(err) });
+    res = authError("internal");
   }
   if (res.status >= 500 && !(await databaseAnswers())) return authError("database_unavailable");
   return res;
