@@ -71,9 +71,10 @@ describe("password guessing", () => {
     }
     expect(lockSeconds.slice(0, LOCKOUT_RULE.freeFailures)).toEqual([0, 0, 0, 0, 0]);
     const [a, b, c] = lockSeconds.slice(LOCKOUT_RULE.freeFailures);
-    expect(a).toBeGreaterThanOrEqual(28);
-    expect(Math.abs(b - 2 * a)).toBeLessThanOrEqual(3);
-    expect(Math.abs(c - 4 * a)).toBeLessThanOrEqual(5);
+    // Seconds left, read just after each request: a busy machine shaves a few off each.
+    expect(a).toBeGreaterThanOrEqual(LOCKOUT_RULE.baseLockSeconds - 5);
+    expect(Math.abs(b - 2 * LOCKOUT_RULE.baseLockSeconds)).toBeLessThanOrEqual(6);
+    expect(Math.abs(c - 4 * LOCKOUT_RULE.baseLockSeconds)).toBeLessThanOrEqual(8);
   });
 
   it("clears the count on a right password once the lock has passed", async () => {
