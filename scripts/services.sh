@@ -43,7 +43,9 @@ SOCKDIR="$PG_HOME/run"
 PGLOG="$PG_HOME/pg.log"
 
 # Runs a PostgreSQL binary as the user the server runs as (see the top of this file).
-as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+# As root it starts from / : the postgres user cannot enter a private checkout, which would make
+# each PostgreSQL tool warn "could not change directory" (every path it gets is absolute).
+as_pg() { if [ "$(id -u)" = 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi; }
 
 ensure_postgres_installed() {
   if [ ! -x "$PGBIN/postgres" ]; then
