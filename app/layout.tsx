@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { headers } from "next/headers";
 import "@fontsource/ibm-plex-sans/400.css";
 import "@fontsource/ibm-plex-sans/500.css";
 import "@fontsource/ibm-plex-sans/600.css";
@@ -23,11 +24,16 @@ export const viewport: Viewport = {
 /** Applies the saved theme (or the system's) before paint, so there is no flash. */
 const themeScript = `try{var t=localStorage.getItem("rl-theme");if(t==="dark"||(!t&&matchMedia("(prefers-color-scheme: dark)").matches))document.documentElement.classList.add("dark")}catch(e){}`;
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+/**
+ * Every page is rendered per request: the Content-Security-Policy's nonce (proxy.ts) is new each
+ * time, and Next.js puts it on its own scripts; our one inline script carries it too.
+ */
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const nonce = (await headers()).get("x-nonce") ?? undefined;
   return (
     <html lang="en" suppressHydrationWarning>
       <head>
-        <script dangerouslySetInnerHTML={{ __html: themeScript }} />
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
       <body className="min-h-dvh bg-surface text-fg antialiased">
         <Providers>{children}</Providers>

@@ -29,12 +29,16 @@ const PLAIN: Record<string, string> = {
   ORGANIZATION_SLUG_ALREADY_TAKEN: "That shop address is taken; try again.",
   INVITATION_NOT_FOUND: "This invitation is no longer open. Ask the shop owner for a new one.",
   YOU_ARE_NOT_THE_RECIPIENT_OF_THE_INVITATION: "This invitation was sent to a different e-mail address.",
+  EMAIL_VERIFICATION_REQUIRED_BEFORE_ACCEPTING_OR_REJECTING_INVITATION: "Open the link in the invitation e-mail to join: it confirms the address is yours.",
+  CROSS_SITE: "This request came from another site and was refused. Open Riseline itself and try again there.",
 };
 
 /** A failure from the auth client in plain words for the person at the form. */
 export function authErrorMessage(err: AuthClientError | null | undefined): string {
   if (!err) return "Something went wrong. Please try again.";
+  if (err.code === "ACCOUNT_LOCKED" && err.message) return err.message;
   if (err.status === 429) return "Too many attempts; wait a minute and try again.";
+  if (err.status === 503) return "Riseline's database is not answering just now; nothing was changed. Try again in a moment.";
   if (err.code && PLAIN[err.code]) return PLAIN[err.code];
   if (err.status && err.status >= 500) return "Riseline could not finish this on its side. Please try again.";
   return err.message || "Something went wrong. Please try again.";

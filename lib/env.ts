@@ -34,6 +34,23 @@ const schema = z.object({
   ENGINE_INLINE_MAX_KB: z.coerce.number().int().min(0).default(256),
   /** Longest one analysis may run in a worker before that worker is replaced and the upload fails cleanly. */
   ENGINE_TIMEOUT_MS: z.coerce.number().int().positive().default(60_000),
+  /** Largest JSON request body accepted, bytes (413 above it). Typed readings (20,000 at most) fit in well under 1 MiB. */
+  MAX_JSON_BYTES: z.coerce.number().int().positive().default(1024 * 1024),
+  /**
+   * Addresses (IPs or CIDR ranges, comma-separated) of the reverse proxies in front of the app whose
+   * X-Forwarded-For is believed. Empty (the default): X-Forwarded-For is ignored and the client is the
+   * TCP peer, so a client cannot pick its own rate-limit bucket.
+   */
+  TRUSTED_PROXIES: z.string().default(""),
+  /** PostgreSQL: longest wait for a pooled connection, and longest one statement may run (ms). */
+  PG_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(3000),
+  PG_STATEMENT_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
+  /** S3: longest wait to connect, and longest silence on an open request (ms). */
+  S3_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(3000),
+  S3_REQUEST_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
+  /** SMTP: longest wait to connect and for the greeting, and longest silence on a connection (ms). */
+  SMTP_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(5000),
+  SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
   /** "bundled": the worker entry Next.js built; "source": lib/tests/engine-worker.ts through tsx (vitest, scripts). */
   ENGINE_WORKER_ENTRY: z.enum(["bundled", "source"]).default("bundled"),
 });
@@ -56,6 +73,12 @@ export function env(): Env {
 /** True where the catcher's mailbox page and other helpers for trying the product may show. */
 export function isLocalMode(): boolean {
   return env().RISELINE_MODE !== "production";
+}
+
+/** The mode and the Node environment only, for code that runs before the full configuration is needed (the proxy). */
+export function runtimeMode(): { mode: Env["RISELINE_MODE"]; nodeEnv: string } {
+  const mode = schema.shape.RISELINE_MODE.safeParse(process.env.RISELINE_MODE);
+  return { mode: mode.success ? mode.data : "development", nodeEnv: process.env.NODE_ENV ?? "development" };
 }
 
 export function authRateLimitEnabled(): boolean {

@@ -13,6 +13,12 @@ export type AppErrorCode =
   | "database_unavailable"
   | "analysis_unavailable"
   | "rate_limited"
+  | "cross_site"
+  | "unsupported_media_type"
+  | "body_too_large"
+  | "unstorable_input"
+  | "idempotency_mismatch"
+  | "account_locked"
   | "internal";
 
 const STATUS: Record<AppErrorCode, number> = {
@@ -29,6 +35,12 @@ const STATUS: Record<AppErrorCode, number> = {
   database_unavailable: 503,
   analysis_unavailable: 503,
   rate_limited: 429,
+  cross_site: 403,
+  unsupported_media_type: 415,
+  body_too_large: 413,
+  unstorable_input: 422,
+  idempotency_mismatch: 422,
+  account_locked: 429,
   internal: 500,
 };
 
@@ -46,6 +58,12 @@ const DEFAULT_MESSAGE: Record<AppErrorCode, string> = {
   database_unavailable: "The database is not answering. Nothing was saved; please try again.",
   analysis_unavailable: "The analysis could not finish for this log. Nothing was saved; please try again.",
   rate_limited: "Too many attempts; wait a minute and try again.",
+  cross_site: "This request came from another site and was refused. Open Riseline itself and try again there.",
+  unsupported_media_type: "Send this request as JSON (Content-Type: application/json).",
+  body_too_large: "The request body is too large.",
+  unstorable_input: "Some of the input cannot be stored as it is; correct it and send again.",
+  idempotency_mismatch: "This Idempotency-Key was already used for a different request; send a new key for a new request.",
+  account_locked: "Too many wrong passwords for this account; wait and try again.",
   internal: "Something went wrong on our side. Nothing was lost; please try again.",
 };
 
@@ -73,7 +91,15 @@ export interface ErrorBody {
   error: { code: AppErrorCode; message: string; details?: Record<string, unknown> };
 }
 
+/** Seconds to wait before a retry, for the Retry-After header of a 429 or 503 (RFC 9110 §10.2.3). */
+function retryAfterOf(err: AppError): number | null {
+  const given = err.details?.retryAfterSeconds;
+  if (typeof given === "number" && Number.isFinite(given) && given > 0) return Math.ceil(given);
+  return err.status === 503 ? 5 : null;
+}
+
 export function errorResponse(err: AppError): Response {
   const body: ErrorBody = { error: { code: err.code, message: err.message, details: err.details } };
-  return Response.json(body, { status: err.status });
+  const retryAfter = retryAfterOf(err);
+  return Response.json(body, { status: err.status, headers: retryAfter ? { "retry-after": String(retryAfter) } : undefined });
 }

@@ -1,6 +1,6 @@
 import nodemailer, { type Transporter } from "nodemailer";
 import { env } from "@/lib/env";
-import { log } from "@/lib/log";
+import { describeError, log } from "@/lib/log";
 
 export interface OutgoingMail {
   to: string;
@@ -18,6 +18,12 @@ const IDLE_CLOSE_MS = 1500;
 
 let transport: Transporter | null = null;
 
+/**
+ * The pooled transport. Every wait is bounded (nodemailer's defaults are 2 minutes to connect and
+ * 10 minutes of silence): connecting and the server's greeting within SMTP_CONNECT_TIMEOUT_MS, and
+ * a connection silent for SMTP_SOCKET_TIMEOUT_MS is dropped — so a frozen mail server fails a send
+ * (the message stays in the outbox) instead of holding it.
+ */
 function transporter(): Transporter {
   if (!transport) {
     const e = env();
@@ -29,9 +35,13 @@ function transporter(): Transporter {
       port: e.SMTP_PORT,
       secure: false,
       ignoreTLS: true,
+      connectionTimeout: e.SMTP_CONNECT_TIMEOUT_MS,
+      greetingTimeout: e.SMTP_CONNECT_TIMEOUT_MS,
+      socketTimeout: e.SMTP_SOCKET_TIMEOUT_MS,
+      dnsTimeout: e.SMTP_CONNECT_TIMEOUT_MS,
     });
     // A pooled connection can fail while idle; the next send reconnects, so log and go on.
-    pooled.on("error", (err) => log.warn("SMTP connection closed with an error", { err: String(err) }));
+    pooled.on("error", (err) => log.warn("SMTP connection closed with an error", { err: describeError(err) }));
     transport = pooled;
   }
   return transport;

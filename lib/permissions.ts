@@ -59,5 +59,13 @@ export function canReadAllTests(role: Role): boolean {
   return can(role, "tests.read_all");
 }
 
+/**
+ * Customers' e-mail addresses and phone numbers: for the roles that manage records (owner, lead,
+ * technician — they call and visit customers). Trainers and apprentices see customers' names only.
+ */
+export function canSeeCustomerContact(role: Role): boolean {
+  return can(role, "records.manage");
+}
+
 /** Roles the owner may hand out in an invitation (ownership is transferred, not invited). */
 export const INVITABLE_ROLES: readonly Role[] = ["lead", "technician", "trainer", "apprentice"];

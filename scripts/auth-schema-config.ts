@@ -6,5 +6,6 @@ import { organization } from "better-auth/plugins";
 export const auth = betterAuth({
   database: drizzleAdapter({} as never, { provider: "pg" }),
   emailAndPassword: { enabled: true },
+  rateLimit: { storage: "database" },
   plugins: [organization()],
 });

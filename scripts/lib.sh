@@ -30,10 +30,10 @@ ensure_chromium() {
   fi
 }
 
-# The app's port for a profile (3000 demo, 3100 test, 3200 dev, 3300 bench), moved by RISELINE_PORT_OFFSET.
+# The app's port for a profile (3000 demo, 3100 test, 3200 dev, 3300 bench, 3400 faults), moved by RISELINE_PORT_OFFSET.
 app_port() {
   local base
-  case "$1" in demo) base=3000 ;; test) base=3100 ;; dev) base=3200 ;; bench) base=3300 ;; *) return 2 ;; esac
+  case "$1" in demo) base=3000 ;; test) base=3100 ;; dev) base=3200 ;; bench) base=3300 ;; faults) base=3400 ;; *) return 2 ;; esac
   echo $((base + ${RISELINE_PORT_OFFSET:-0}))
 }
 
@@ -58,4 +58,43 @@ stop_group() {
   for _ in $(seq 1 30); do kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
   kill -KILL -- "-$pid" 2>/dev/null || true
   rm -f "$pidfile"
+}
+
+# Runs a command in its own process group (setsid) and starts it again whenever it exits, with a
+# message and back-off (1 s, doubling up to 30 s; back to 1 s after a run of a minute or more),
+# until the caller's INT/TERM trap sets SUPERVISING=0. Output is appended to the log file.
+#   supervise NAME PIDFILE LOGFILE [--ready FUNCTION] -- COMMAND...
+# FUNCTION, if given, runs once after the first start (e.g. to wait for the health check); if it
+# fails the supervisor returns 1.
+supervise() {
+  local name=$1 pidfile=$2 logfile=$3 ready="" delay=1 started rc
+  shift 3
+  if [ "${1:-}" = "--ready" ]; then ready=$2; shift 2; fi
+  [ "${1:-}" = "--" ] && shift
+  SUPERVISING=1
+  while [ "$SUPERVISING" = 1 ]; do
+    started=$(date +%s)
+    setsid "$@" >>"$logfile" 2>&1 &
+    echo $! >"$pidfile"
+    if [ -n "$ready" ]; then
+      "$ready" || return 1
+      ready=""
+    fi
+    rc=0
+    wait "$(cat "$pidfile")" || rc=$?
+    [ "$SUPERVISING" = 1 ] || break
+    if [ $(($(date +%s) - started)) -ge 60 ]; then delay=1; fi
+    say "$name stopped (exit $rc) at $(date +%H:%M:%S); starting it again in $delay s. The other services keep running. Its log: $logfile"
+    sleep "$delay" &
+    SUPERVISE_SLEEP_PID=$!
+    wait "$SUPERVISE_SLEEP_PID" || true
+    delay=$((delay * 2 > 30 ? 30 : delay * 2))
+  done
+}
+
+# Stops what supervise started: the command's process group and a back-off sleep, if any.
+stop_supervised() {
+  SUPERVISING=0
+  if [ -n "${SUPERVISE_SLEEP_PID:-}" ]; then kill "$SUPERVISE_SLEEP_PID" 2>/dev/null || true; fi
+  stop_group "$1"
 }

@@ -1,8 +1,10 @@
 #!/usr/bin/env bash
 # Start or stop Riseline's local services for one profile, all on loopback.
-#   scripts/services.sh start demo|test|dev|bench     scripts/services.sh stop demo|test|dev|bench
-#   scripts/services.sh env demo|test|dev|bench       (prints the connection settings)
+#   scripts/services.sh start demo|test|dev|bench|faults     scripts/services.sh stop PROFILE
+#   scripts/services.sh env PROFILE                   (prints the connection settings)
 #   scripts/services.sh reset PROFILE                 (stops it and deletes its data)
+#   scripts/services.sh pg-stop|pg-start|fakes-stop|fakes-start|fakes-pid PROFILE
+#                                                     (one part at a time, for the fault tests)
 # PostgreSQL comes from Debian's package; s3rver and the SMTP catcher run in scripts/fakes.mjs.
 #
 # RISELINE_PORT_OFFSET (default 0, a multiple of 1000) moves every port of every profile, so two
@@ -16,13 +18,14 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 action=${1:?start|stop}
-profile=${2:?demo|test|dev|bench}
+profile=${2:?demo|test|dev|bench|faults}
 
 case "$profile" in
   demo) PG_PORT=54329; S3_PORT=4569; SMTP_PORT=2525 ;;
   test) PG_PORT=54339; S3_PORT=4579; SMTP_PORT=2535 ;;
   dev) PG_PORT=54349; S3_PORT=4589; SMTP_PORT=2545 ;;
   bench) PG_PORT=54359; S3_PORT=4599; SMTP_PORT=2555 ;;
+  faults) PG_PORT=54369; S3_PORT=4609; SMTP_PORT=2565 ;;
   *) echo "unknown profile $profile" >&2; exit 2 ;;
 esac
 OFFSET=${RISELINE_PORT_OFFSET:-0}
@@ -40,7 +43,9 @@ SOCKDIR="$PG_HOME/run"
 PGLOG="$PG_HOME/pg.log"
 
 # Runs a PostgreSQL binary as the user the server runs as (see the top of this file).
-as_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+# As root it starts from / : the postgres user cannot enter a private checkout, which would make
+# each PostgreSQL tool warn "could not change directory" (every path it gets is absolute).
+as_pg() { if [ "$(id -u)" = 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi; }
 
 ensure_postgres_installed() {
   if [ ! -x "$PGBIN/postgres" ]; then
@@ -126,6 +131,11 @@ MAILBOX_DIR=$ROOT/mail
 ENV
     ;;
   pgdata) echo "$PGDATA" ;;
+  pg-stop) stop_pg ;;
+  pg-start) start_pg ;;
+  fakes-stop) stop_fakes ;;
+  fakes-start) start_fakes ;;
+  fakes-pid) cat "$ROOT/run/fakes.pid" ;;
   reset) stop_fakes; stop_pg; rm -rf "$PG_HOME" "$ROOT" ;;
   *) echo "unknown action $action" >&2; exit 2 ;;
 esac

@@ -1,7 +1,9 @@
 #!/usr/bin/env bash
 # `npm test`: the whole suite on its own services (separate database, bucket, ports, data dirs):
 # type-check, lint, unit and integration tests (vitest), then the browser journeys against a
-# production build. Stops everything it started; exits non-zero on any failure.
+# production build, the fault tests (scripts/faults.sh: parts stopped, frozen and killed) and a
+# check that no secret reached any log of the run. Stops everything it started; exits non-zero on
+# any failure.
 set -uo pipefail
 cd "$(dirname "$0")/.."
 . scripts/lib.sh
@@ -44,7 +46,14 @@ step() {
 step "Migrations on an empty database" ./node_modules/.bin/tsx scripts/migrate.ts
 step "Type-check" ./node_modules/.bin/tsc --noEmit -p .
 step "Lint" ./node_modules/.bin/eslint -c scripts/eslint.config.mjs .
-step "Unit and integration tests" ./node_modules/.bin/vitest run --config tests/vitest.config.ts \
+# Runs a command with its output also kept in a log file (the secrets check reads it).
+logged() {
+  local logfile=$1; shift
+  "$@" 2>&1 | tee "$logfile"
+  return "${PIPESTATUS[0]}"
+}
+
+step "Unit and integration tests" logged "$ROOT/unit.log" ./node_modules/.bin/vitest run --config tests/vitest.config.ts \
   --reporter=default --reporter=json --outputFile.json="$ROOT/unit.json"
 
 say "Production build for the journeys"
@@ -53,8 +62,10 @@ if ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1; then
   setsid ./node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" >"$ROOT/next.log" 2>&1 &
   echo $! >"$ROOT/run/next.pid"
   if wait_for_url "http://127.0.0.1:$PORT/api/health" 90; then
-    step "Browser journeys (Chromium)" ./node_modules/.bin/vitest run --config tests/journeys/vitest.config.ts \
+    step "Browser journeys (Chromium)" logged "$ROOT/journeys.log" ./node_modules/.bin/vitest run --config tests/journeys/vitest.config.ts \
       --reporter=default --reporter=json --outputFile.json="$ROOT/journeys.json"
+    step "Fault tests (S3 stopped and frozen, PostgreSQL stopped, the server killed)" bash scripts/faults.sh \
+      --reporter=default --reporter=json --outputFile.json="$PWD/$ROOT/faults.json"
   else
     echo "The app did not start; last lines of $ROOT/next.log:"; tail -30 "$ROOT/next.log"
     failed+=("Start the app")
@@ -64,7 +75,11 @@ else
   failed+=("Production build")
 fi
 
-node scripts/test-summary.mjs "$ROOT/unit.json" "$ROOT/journeys.json"
+stop_group "$ROOT/run/next.pid" # its log is complete once it has stopped
+step "No secret in any log of this run" env LOG_SECRETS_FILES="$ROOT/next.log,$ROOT/unit.log,$ROOT/journeys.log" \
+  ./node_modules/.bin/vitest run --config tests/secrets/vitest.config.ts
+
+node scripts/test-summary.mjs "$ROOT/unit.json" "$ROOT/journeys.json" "$ROOT/faults.json"
 if [ ${#failed[@]} -gt 0 ]; then
   printf 'Failed steps: %s\n' "${failed[*]}"
   exit 1

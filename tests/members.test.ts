@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
+import { POST as acceptInvite } from "@/app/api/invitations/[id]/accept/route";
 import { GET as listMembers } from "@/app/api/members/route";
 import { GET as listInvites, POST as invite } from "@/app/api/members/invitations/route";
 import { DELETE as cancelInvite } from "@/app/api/members/invitations/[id]/route";
@@ -33,11 +34,15 @@ describe("members and invitations (common practice, no published source: owner-o
     const link = new URL(firstAppLink(mail));
     expect(link.pathname).toBe(`/invite/${invitation.id}`);
     const invitationId = link.pathname.split("/").pop()!;
+    const key = link.searchParams.get("key")!;
 
     const up = await authPost(appRequest("/api/auth/sign-up/email", json({ email, password: PASSWORD, name: "Ivy Invitee" })));
     expect(up.status).toBe(200);
     const cookie = cookieOf(up);
-    const accept = await authPost(appRequest("/api/auth/organization/accept-invitation", { ...json({ invitationId }), headers: { "content-type": "application/json", cookie } }));
+    const accept = await acceptInvite(
+      appRequest(`/api/invitations/${invitationId}/accept`, { ...json({ key }), headers: { "content-type": "application/json", cookie } }),
+      routeParams({ id: invitationId }),
+    );
     expect(accept.status).toBe(200);
 
     const members = await membersOf(owner);

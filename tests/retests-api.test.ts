@@ -116,15 +116,15 @@ describe("POST /api/tests/:id/retests", () => {
     expect(await listKeys(`orgs/${tech.organizationId}/tests/${id}/`)).toHaveLength(1);
   });
 
-  it("refuses a new upload that reuses a re-test's Idempotency-Key (409 naming the header, RFC 9110 §15.5.10); nothing new saved", async () => {
+  it("refuses a new upload that reuses a re-test's Idempotency-Key (422 naming the header, IETF Idempotency-Key draft §2.7); nothing new saved", async () => {
     const { technician: tech, lead } = crew;
     const id = await sentBackTest(tech, lead, "Key spent on a re-test");
     const key = randomUUID();
     expect((await retest(id, tech, { body: sampleText(PASS), name: PASS }, { key })).status).toBe(201);
     const before = await db().execute<{ n: number }>(sql`select count(*)::int as n from vacuum_tests where organization_id = ${tech.organizationId}`);
     const res = await uploadPost(uploadRequest("/api/tests", { as: tech, file: { body: sampleText(PASS), name: PASS }, headers: { "idempotency-key": key } }));
-    expect(res.status).toBe(409);
-    expect((await res.json()).error.message).toMatch(/^Idempotency-Key: .*re-test/);
+    expect(res.status).toBe(422);
+    expect((await res.json()).error.message).toMatch(/^Idempotency-Key: .*different request/);
     const after = await db().execute<{ n: number }>(sql`select count(*)::int as n from vacuum_tests where organization_id = ${tech.organizationId}`);
     expect(after.rows[0].n).toBe(before.rows[0].n);
   });
@@ -171,7 +171,8 @@ describe("POST /api/tests/:id/retests", () => {
     const id = await sentBackTest(tech, lead, "Database trouble");
     const before = await stateOf(id);
     setRetestFaultForTests(async (tx) => {
-      await tx.execute(sql`select 1/0`);
+      // The database goes away mid-transaction: the server ends this very connection.
+      await tx.execute(sql`select pg_terminate_backend(pg_backend_pid())`);
     });
     const r = await retest(id, tech, { body: sampleText(PASS), name: PASS });
     expect(r.status).toBe(503);

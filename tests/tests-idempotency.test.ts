@@ -1,18 +1,20 @@
 /**
  * Idempotent uploads (Idempotency-Key header, as in the IETF httpapi draft
  * "The Idempotency-Key HTTP Header Field"): a retry returns the first test, never a duplicate,
- * also when two identical requests race; keys are scoped to the organization.
+ * also when two identical requests race (§2.6); keys are scoped to the person who sent them
+ * (§2.2); the same key with a different request is refused with 422 (§2.4 fingerprint, §2.7).
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { POST as testsPost } from "@/app/api/tests/route";
-import { createShop, addMember, type TestMember } from "./helpers/members";
+import { POST as reanalyse } from "@/app/api/tests/[id]/analyses/route";
+import { createShop, addMember, appRequest, routeParams, type TestMember } from "./helpers/members";
 import { countRows, jsonRequest, listKeys, sampleText, uploadRequest } from "./helpers/uploads";
 
 const SAMPLE = "sample-2-elapsed-mtorr.csv";
 
-async function send(as: TestMember, key: string) {
-  const res = await testsPost(uploadRequest("/api/tests", { as, file: { body: sampleText(SAMPLE), name: SAMPLE }, headers: { "idempotency-key": key } }));
+async function send(as: TestMember, key: string, file = SAMPLE, fields: Record<string, string> = {}) {
+  const res = await testsPost(uploadRequest("/api/tests", { as, file: { body: sampleText(file), name: file }, fields, headers: { "idempotency-key": key } }));
   return { status: res.status, body: await res.json() };
 }
 
@@ -52,6 +54,50 @@ describe("Idempotency-Key on POST /api/tests", () => {
     const all = await listKeys(`orgs/${owner.organizationId}/tests/`);
     expect(all.filter((k) => k.includes([...ids][0]!))).toHaveLength(1);
     expect(all).toHaveLength(after.uploads);
+  });
+
+  it("scopes keys to the person (§2.2): another technician's same key makes their own test, never answers with the first", async () => {
+    const key = randomUUID();
+    const other = await addMember(owner.organizationId, "technician");
+    const a = await send(tech, key);
+    const b = await send(other, key);
+    expect([a.status, b.status]).toEqual([201, 201]);
+    expect(b.body.test.id).not.toBe(a.body.test.id);
+    expect(b.body.test.technician?.id ?? b.body.test.createdById).not.toBe(tech.userId);
+  });
+
+  it("refuses the same key with another file (§2.7): 422 naming the header; the second log is not stored", async () => {
+    const key = randomUUID();
+    const first = await send(tech, key);
+    expect(first.status).toBe(201);
+    const before = await countRows(owner.organizationId);
+    const second = await send(tech, key, "sample-4-minutes-torr.csv");
+    expect(second.status).toBe(422);
+    expect(second.body.error.code).toBe("idempotency_mismatch");
+    expect(second.body.error.message).toMatch(/^Idempotency-Key: you already used this key for a different request/);
+    expect(await countRows(owner.organizationId)).toEqual(before);
+  });
+
+  it("refuses the same key and file with other fields (422): the fingerprint covers the fields too", async () => {
+    const key = randomUUID();
+    expect((await send(tech, key, SAMPLE, { title: "Rooftop unit" })).status).toBe(201);
+    expect((await send(tech, key, SAMPLE, { title: "Basement unit" })).status).toBe(422);
+    expect((await send(tech, key, SAMPLE, { title: "Rooftop unit" })).status).toBe(200);
+  });
+
+  it("applies to re-analysis: a retry answers with the same version; other overrides with the key are a 422", async () => {
+    const { body } = await send(tech, randomUUID());
+    const id = body.test.id;
+    const key = randomUUID();
+    const run = (reason: string) =>
+      reanalyse(appRequest(`/api/tests/${id}/analyses`, { method: "POST", as: tech, body: JSON.stringify({ reason }), headers: { "content-type": "application/json", "idempotency-key": key } }), routeParams({ id }));
+    const a = await run("moved isolation");
+    const b = await run("moved isolation");
+    expect([a.status, b.status]).toEqual([201, 200]);
+    const [va, vb] = [await a.json(), await b.json()];
+    expect(vb.analysisId).toBe(va.analysisId);
+    expect(vb.version).toBe(va.version);
+    expect((await run("something else")).status).toBe(422);
   });
 
   it("scopes keys by organization: the same key in another shop makes its own test", async () => {

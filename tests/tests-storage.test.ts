@@ -115,7 +115,7 @@ describe("a store fails mid-upload: 503 and no orphan on either side", () => {
     expect(await countRows(owner.organizationId)).toEqual(empty);
   });
 
-  it("with the transaction failing on a constraint, answers 503, rolls back every row and deletes the stored object (compensation)", async () => {
+  it("with the transaction failing on a constraint, answers 409 (a retry cannot help, so not 503), rolls back every row and deletes the stored object (compensation)", async () => {
     let seenKey = "";
     setUploadFaultForTests(async (tx, ctx) => {
       seenKey = ctx.objectKey;
@@ -125,8 +125,8 @@ describe("a store fails mid-upload: 503 and no orphan on either side", () => {
         values (${owner.organizationId}, ${ctx.testId}, ${ctx.objectKey}, 'x', 1, 'dup.csv', 'text/csv')`); // unique object_key violated
     });
     const r = await post(owner, { body: sampleText(SAMPLE), name: SAMPLE }, { newSiteName: "Rolled back site" });
-    expect(r.status).toBe(503);
-    expect(r.body.error.code).toBe("database_unavailable");
+    expect(r.status).toBe(409);
+    expect(r.body.error.code).toBe("conflict");
     expect(seenKey).toMatch(new RegExp(`^orgs/${owner.organizationId}/tests/`));
     expect(await listKeys(`orgs/${owner.organizationId}/`)).toEqual([]);
     expect(await countRows(owner.organizationId)).toEqual(empty);

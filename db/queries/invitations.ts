@@ -1,4 +1,4 @@
-import { and, eq } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { invitation, organization, user } from "@/db/schema";
 
@@ -45,4 +45,17 @@ export async function getPendingInvitationByOrganization(db: Db, params: { organ
     .where(and(eq(invitation.id, params.id), eq(invitation.organizationId, params.organizationId), eq(invitation.status, "pending")))
     .limit(1);
   return row ?? null;
+}
+
+/**
+ * Marks a user's address verified — only ever after they proved they read it (the invitation
+ * link's key, lib/invitation-key.ts). Matches the address too, so a changed address is not.
+ */
+export async function markEmailVerifiedByUser(db: Db, params: { userId: string; email: string }): Promise<boolean> {
+  const rows = await db
+    .update(user)
+    .set({ emailVerified: true, updatedAt: new Date() })
+    .where(and(eq(user.id, params.userId), sql`lower(${user.email}) = ${params.email.trim().toLowerCase()}`))
+    .returning({ id: user.id });
+  return rows.length === 1;
 }

@@ -4,12 +4,17 @@ import { customers, jobs, sites, systems } from "@/db/schema";
 
 /** Customers, sites, systems and jobs of one organization. Every query is scoped inside. */
 
-export async function listCustomersByOrganization(db: Db, params: { organizationId: string }) {
-  return db
+/**
+ * The organization's customers by name. Their e-mail and phone come only `withContact` (roles that
+ * manage records, lib/permissions.ts canSeeCustomerContact); otherwise they are null.
+ */
+export async function listCustomersByOrganization(db: Db, params: { organizationId: string; withContact: boolean }) {
+  const rows = await db
     .select({ id: customers.id, name: customers.name, email: customers.email, phone: customers.phone })
     .from(customers)
     .where(eq(customers.organizationId, params.organizationId))
     .orderBy(asc(customers.name));
+  return params.withContact ? rows : rows.map((r) => ({ ...r, email: null, phone: null }));
 }
 
 export async function createCustomer(db: Db, params: { organizationId: string; name: string; email?: string | null; phone?: string | null }) {

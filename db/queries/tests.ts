@@ -167,12 +167,12 @@ export async function countTestsByOrganization(db: Db, params: { organizationId:
   return row?.n ?? 0;
 }
 
-/** The test an idempotency key already produced in this organization, if any. */
-export async function getIdempotencyKeyByKey(db: Db, params: { organizationId: string; key: string }) {
+/** What one person's idempotency key already produced in this organization, if anything. */
+export async function getIdempotencyKeyByKey(db: Db, params: { organizationId: string; userId: string; key: string }) {
   const [row] = await db
-    .select({ testId: idempotencyKeys.testId, userId: idempotencyKeys.userId, analysisId: idempotencyKeys.analysisId })
+    .select({ testId: idempotencyKeys.testId, analysisId: idempotencyKeys.analysisId, requestFingerprint: idempotencyKeys.requestFingerprint })
     .from(idempotencyKeys)
-    .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.key, params.key)))
+    .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.userId, params.userId), eq(idempotencyKeys.key, params.key)))
     .limit(1);
   return row ?? null;
 }
@@ -184,7 +184,7 @@ export async function getIdempotencyKeyByKey(db: Db, params: { organizationId: s
  */
 export async function insertIdempotencyKey(
   db: Db,
-  params: { organizationId: string; key: string; userId: string; testId: string; analysisId?: string | null },
+  params: { organizationId: string; key: string; userId: string; testId: string; analysisId?: string | null; requestFingerprint: string },
 ): Promise<boolean> {
   const rows = await db.insert(idempotencyKeys).values(params).onConflictDoNothing().returning({ key: idempotencyKeys.key });
   return rows.length === 1;
@@ -207,11 +207,11 @@ export async function getUploadByTest(db: Db, params: { organizationId: string; 
 }
 
 /** Record which analysis a claimed key made (a re-test: claimed first, the analysis inserted after). */
-export async function updateIdempotencyKeyAnalysis(db: Db, params: { organizationId: string; key: string; analysisId: string }): Promise<void> {
+export async function updateIdempotencyKeyAnalysis(db: Db, params: { organizationId: string; userId: string; key: string; analysisId: string }): Promise<void> {
   await db
     .update(idempotencyKeys)
     .set({ analysisId: params.analysisId })
-    .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.key, params.key)));
+    .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.userId, params.userId), eq(idempotencyKeys.key, params.key)));
 }
 
 /** Set (or clear) the note for the customer's copy of a test's report; false when there is no such test. */

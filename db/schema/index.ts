@@ -6,3 +6,4 @@ export * from "./rigs";
 export * from "./pressure";
 export * from "./casebook";
 export * from "./settings";
+export * from "./security";

@@ -100,7 +100,11 @@ export const findings = pgTable(
   (t) => [index("findings_analysis_idx").on(t.analysisId), index("findings_org_code_idx").on(t.organizationId, t.code)],
 );
 
-/** A retried upload (or re-test upload) with the same key returns the first result instead of a duplicate. */
+/**
+ * A retried upload, re-test upload or re-analysis with the same key returns the first result
+ * instead of a duplicate (IETF httpapi draft "The Idempotency-Key HTTP Header Field"): a key is
+ * scoped to the person who sent it, and stored with the fingerprint of the request it came with.
+ */
 export const idempotencyKeys = pgTable(
   "idempotency_keys",
   {
@@ -110,9 +114,11 @@ export const idempotencyKeys = pgTable(
     testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
     /** Set for a re-test upload: the analysis it made (a retry answers with that one). */
     analysisId: uuid("analysis_id").references(() => analyses.id, { onDelete: "cascade" }),
+    /** SHA-256 of the request's meaning (route, file, fields); null for keys stored before it was kept. */
+    requestFingerprint: text("request_fingerprint"),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [primaryKey({ columns: [t.organizationId, t.key] })],
+  (t) => [primaryKey({ columns: [t.organizationId, t.userId, t.key] })],
 );
 
 /** A test shared with a member who could not otherwise see it. */

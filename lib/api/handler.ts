@@ -1,11 +1,17 @@
-import { z, ZodError, type ZodType } from "zod";
+import { z, type ZodType } from "zod";
 import { db } from "@/db/client";
 import { getMembershipByUser } from "@/db/queries/members";
 import { getAuth } from "@/lib/auth";
-import { AppError, errorResponse } from "@/lib/errors";
-import { LogError } from "@/analysis/errors";
+import { AppError } from "@/lib/errors";
+import { describeError, log } from "@/lib/log";
 import { can, type Permission, type Role } from "@/lib/permissions";
-import { log } from "@/lib/log";
+import { assertAcceptedBody, readJsonBody, type BodyKind } from "./body";
+import { assertSameOrigin } from "./csrf";
+import { isDatabaseUnreachable } from "./failures";
+import { toErrorResponse, zodDetails } from "./respond";
+import { assertStorable } from "./storable";
+
+export { toErrorResponse } from "./respond";
 
 /** Who is calling: a signed-in member acting inside their active organization. */
 export interface Actor {
@@ -25,6 +31,13 @@ interface Spec<B, Q, P> {
   body?: ZodType<B>;
   query?: ZodType<Q>;
   params?: ZodType<P>;
+  /**
+   * What a state-changing request may carry: JSON by default. A route that takes files says
+   * "multipart" (and reads its own body, with its own cap and checks).
+   */
+  accepts?: readonly BodyKind[];
+  /** Largest JSON body, bytes, for a route whose JSON carries a whole log; MAX_JSON_BYTES otherwise. */
+  maxJsonBytes?: number;
 }
 
 interface Call<B, Q, P> {
@@ -35,13 +48,28 @@ interface Call<B, Q, P> {
   params: P;
 }
 
-/** Reads the session and the membership; throws 401 / 403 AppErrors. */
+/** The signed-in user, or 401; a database that does not answer is a 503, never a 500. */
+export async function requireSession(headers: Headers) {
+  try {
+    const session = await getAuth().api.getSession({ headers });
+    if (!session) throw new AppError("unauthenticated");
+    return session;
+  } catch (err) {
+    if (err instanceof AppError) throw err;
+    if (isDatabaseUnreachable(err)) throw new AppError("database_unavailable");
+    log.error("session lookup failed", { err: describeError(err) });
+    throw new AppError("internal");
+  }
+}
+
+/** Reads the session and the membership; throws 401 / 403 / 503 AppErrors. */
 export async function requireActor(headers: Headers): Promise<Actor> {
-  const session = await getAuth().api.getSession({ headers });
-  if (!session) throw new AppError("unauthenticated");
+  const session = await requireSession(headers);
   const organizationId = session.session.activeOrganizationId;
   if (!organizationId) throw new AppError("no_organization");
-  const membership = await getMembershipByUser(db(), { organizationId, userId: session.user.id });
+  const membership = await getMembershipByUser(db(), { organizationId, userId: session.user.id }).catch((err: unknown) => {
+    throw isDatabaseUnreachable(err) ? new AppError("database_unavailable") : err;
+  });
   if (!membership) throw new AppError("no_organization");
   return {
     userId: session.user.id,
@@ -59,15 +87,9 @@ export function requirePermission(actor: Actor, permission: Permission | "member
   }
 }
 
-function zodDetails(err: ZodError, where: string) {
-  return {
-    where,
-    issues: err.issues.map((i) => ({ path: i.path.join("."), message: i.message })),
-  };
-}
-
 async function parsePart<T>(schema: ZodType<T> | undefined, value: unknown, where: string): Promise<T> {
   if (!schema) return undefined as T;
+  assertStorable(value, where);
   const parsed = await schema.safeParseAsync(value);
   if (!parsed.success) {
     const first = parsed.error.issues[0];
@@ -77,25 +99,27 @@ async function parsePart<T>(schema: ZodType<T> | undefined, value: unknown, wher
   return parsed.data;
 }
 
-/** Maps any thrown value to a response. Details go to the log, never to the client. */
-export function toErrorResponse(err: unknown, req: Request): Response {
-  if (err instanceof AppError) return errorResponse(err);
-  if (err instanceof LogError) {
-    return errorResponse(new AppError("invalid_file", err.message, { reason: err.code, line: err.line, column: err.column }));
-  }
-  if (err instanceof ZodError) return errorResponse(new AppError("invalid_input", undefined, zodDetails(err, "request")));
-  const code = (err as { code?: string })?.code;
-  if (code === "ECONNREFUSED" || code === "57P01" || code === "53300") {
-    log.error("database unavailable", { url: req.url, err: String(err) });
-    return errorResponse(new AppError("database_unavailable"));
-  }
-  log.error("unhandled error", { url: req.url, err: err instanceof Error ? err.stack ?? err.message : String(err) });
-  return errorResponse(new AppError("internal"));
+/** The checks every request passes before anyone is looked up: same origin, accepted body type. */
+function guardRequest(req: Request, accepts: readonly BodyKind[] = ["json"]): void {
+  assertSameOrigin(req);
+  assertAcceptedBody(req, accepts);
+}
+
+async function partsOf<B, Q, P>(spec: Omit<Spec<B, Q, P>, "permission" | "accepts">, req: Request, ctx?: RouteContext) {
+  const params = await parsePart(spec.params, ctx ? await ctx.params : {}, "path");
+  const query = await parsePart(spec.query, Object.fromEntries(new URL(req.url).searchParams), "query");
+  const body = spec.body ? await parsePart(spec.body, await readJsonBody(req, spec.maxJsonBytes), "body") : (undefined as B);
+  return { params, query, body };
+}
+
+function answer(out: unknown): Response {
+  return out instanceof Response ? out : Response.json(out);
 }
 
 /**
- * The one wrapper for every API route: session → organization → role → zod parse of params,
- * query and JSON body → call → typed error mapping. A handler cannot skip a step.
+ * The one wrapper for every API route: same-origin and body-type checks → session →
+ * organization → role → zod parse of params, query and JSON body (capped, storable) → call →
+ * typed error mapping. A handler cannot skip a step.
  */
 export function route<B = undefined, Q = undefined, P = undefined>(
   spec: Spec<B, Q, P>,
@@ -103,39 +127,45 @@ export function route<B = undefined, Q = undefined, P = undefined>(
 ) {
   return async (req: Request, ctx?: RouteContext): Promise<Response> => {
     try {
+      guardRequest(req, spec.accepts);
       const actor = await requireActor(req.headers);
       requirePermission(actor, spec.permission);
-      const params = await parsePart(spec.params, ctx ? await ctx.params : {}, "path");
-      const query = await parsePart(spec.query, Object.fromEntries(new URL(req.url).searchParams), "query");
-      let body: B = undefined as B;
-      if (spec.body) {
-        let json: unknown;
-        try {
-          json = await req.json();
-        } catch {
-          throw new AppError("invalid_input", "The request body is not valid JSON.");
-        }
-        body = await parsePart(spec.body, json, "body");
-      }
-      const out = await fn({ req, actor, body, query, params });
-      return out instanceof Response ? out : Response.json(out);
+      const { params, query, body } = await partsOf(spec, req, ctx);
+      return answer(await fn({ req, actor, body, query, params }));
     } catch (err) {
       return toErrorResponse(err, req);
     }
   };
 }
 
-/** For routes that anyone may call (share links, health): zod parse and error mapping only. */
+/** For a signed-in person who need not belong to a shop yet (joining one): no membership check. */
+export function signedInRoute<B = undefined, P = undefined>(
+  spec: { body?: ZodType<B>; params?: ZodType<P> },
+  fn: (call: { req: Request; user: { id: string; email: string; emailVerified: boolean }; body: B; params: P }) => Promise<Response | unknown>,
+) {
+  return async (req: Request, ctx?: RouteContext): Promise<Response> => {
+    try {
+      guardRequest(req);
+      const session = await requireSession(req.headers);
+      const { params, body } = await partsOf(spec, req, ctx);
+      const user = { id: session.user.id, email: session.user.email, emailVerified: session.user.emailVerified };
+      return answer(await fn({ req, user, body, params }));
+    } catch (err) {
+      return toErrorResponse(err, req);
+    }
+  };
+}
+
+/** For routes that anyone may call (share links, health): origin check, zod parse and error mapping. */
 export function publicRoute<Q = undefined, P = undefined>(
   spec: { query?: ZodType<Q>; params?: ZodType<P> },
   fn: (call: { req: Request; query: Q; params: P }) => Promise<Response | unknown>,
 ) {
   return async (req: Request, ctx?: RouteContext): Promise<Response> => {
     try {
-      const params = await parsePart(spec.params, ctx ? await ctx.params : {}, "path");
-      const query = await parsePart(spec.query, Object.fromEntries(new URL(req.url).searchParams), "query");
-      const out = await fn({ req, query, params });
-      return out instanceof Response ? out : Response.json(out);
+      guardRequest(req);
+      const { params, query } = await partsOf(spec, req, ctx);
+      return answer(await fn({ req, query, params }));
     } catch (err) {
       return toErrorResponse(err, req);
     }

@@ -37,10 +37,8 @@ export interface TestRecord {
   [key: string]: unknown;
 }
 
-export interface CreatedTest {
-  test: TestRecord;
-  analysis: AnalysisResult;
-}
+/** A new test with its verdict — or an apprentice's practice test, whose verdict waits for their call at `practiceCallUrl`. */
+export type CreatedTest = { test: TestRecord; analysis: AnalysisResult; practiceCallUrl?: undefined } | { test: TestRecord; analysis: null; practiceCallUrl: string };
 
 /** A row of the tests list: the server's shape, with the verdict typed as the analysis' Verdict. */
 export type TestListItem = Omit<ServerTestListItem, "verdict"> & { verdict: Verdict | null };

@@ -9,7 +9,8 @@
  *  - In the transaction: the new upload row, analysis version n + 1 made current (earlier versions
  *    stay in the history), sent_back → waiting_review, the audit event "retest_uploaded" and the
  *    leads' e-mail in the outbox; the e-mail is delivered after commit.
- *  - An Idempotency-Key already used for this re-test answers with the same analysis; two identical
+ *  - An Idempotency-Key the same person already used for this same re-test answers with the same
+ *    analysis; used for a different request it is a 422 (lib/tests/idempotency.ts); two identical
  *    concurrent requests race on the idempotency_keys primary key, the loser rolls back and
  *    deletes its object.
  *
@@ -28,9 +29,10 @@ import { AppError } from "@/lib/errors";
 import { retestUploadedMail } from "@/lib/notify/messages";
 import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
 import { can } from "@/lib/permissions";
-import { rawLogKey } from "@/lib/storage";
+import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "@/lib/tests/engine-pool";
 import { sha256Hex } from "@/lib/tests/files";
+import { assertSameRequest, requestFingerprint, type SpentKey } from "@/lib/tests/idempotency";
 import { KeyTaken, storeThenCommit } from "@/lib/tests/stored-commit";
 import { compactOptions, resolveProfile } from "@/lib/tests/options";
 import { requireVisibleTest } from "@/lib/tests/read";
@@ -41,6 +43,8 @@ export interface RetestInput {
   file: ReceivedFile;
   note?: string | null;
   idempotencyKey?: string;
+  /** The request's signal: once it aborts (the client went away), nothing is committed. */
+  signal?: AbortSignal;
 }
 
 export interface RetestOutcome {
@@ -80,9 +84,10 @@ async function optionsForRetest(db: Database, org: string, currentAnalysisId: st
 }
 
 /** The answer for a key already used: the same analysis, the test's status now. */
-async function replay(db: Database, actor: Actor, testId: string, seen: { testId: string; analysisId: string | null }): Promise<RetestOutcome> {
+async function replay(db: Database, actor: Actor, testId: string, seen: SpentKey, fingerprint: string): Promise<RetestOutcome> {
+  assertSameRequest(seen, fingerprint);
   if (seen.testId !== testId || !seen.analysisId)
-    throw new AppError("conflict", "Idempotency-Key: this key was already used for another request; send a new key.", { field: "Idempotency-Key" });
+    throw new AppError("idempotency_mismatch", "Idempotency-Key: you already used this key for another request; send a new key.", { field: "Idempotency-Key" });
   const [analysis, state] = await Promise.all([
     getAnalysisById(db, { organizationId: actor.organizationId, analysisId: seen.analysisId }),
     requireVisibleTest(db, actor, testId),
@@ -98,9 +103,12 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
   const detail = await requireVisibleTest(db, actor, testId); // other organization or not visible → 404
   if (!mayUploadRetest(actor, detail.test.createdById))
     throw new AppError("forbidden", "Only the technician who made this test, a lead or the owner can upload its re-test.");
+  const sha256 = sha256Hex(input.file.bytes);
+  const fingerprint = requestFingerprint("POST /api/tests/:id/retests", { testId, sha256, filename: input.file.filename, note });
+  const keyOf = { organizationId: org, userId: actor.userId, key: input.idempotencyKey ?? "" };
   if (input.idempotencyKey) {
-    const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
-    if (seen) return replay(db, actor, testId, seen);
+    const seen = await getIdempotencyKeyByKey(db, keyOf);
+    if (seen) return replay(db, actor, testId, seen, fingerprint);
   }
   const early = checkTransition(detail.test.status, "resubmit");
   if (!early.ok) throw new AppError("conflict", `${early.message} A re-test log goes onto a test that was sent back.`, { status: detail.test.status });
@@ -110,8 +118,7 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
 
   const analysisId = randomUUID();
   const objectKey = retestLogKey(org, testId, randomUUID(), input.file.filename);
-  const sha256 = sha256Hex(input.file.bytes);
-  const object = { key: objectKey, bytes: input.file.bytes, contentType: input.file.contentType, sha256 };
+  const object = { key: objectKey, bytes: input.file.bytes, filename: input.file.filename, sha256 };
 
   const outcome = await storeThenCommit<RetestOutcome>(
     db,
@@ -122,20 +129,20 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
       if (!locked) throw new AppError("not_found", "No such test.");
       // The key first: a concurrent twin waits here for this row, then finds it taken.
       if (input.idempotencyKey) {
-        const claimed = await insertIdempotencyKey(tx, { organizationId: org, key: input.idempotencyKey, userId: actor.userId, testId });
+        const claimed = await insertIdempotencyKey(tx, { ...keyOf, testId, requestFingerprint: fingerprint });
         if (!claimed) throw new KeyTaken();
       }
       const check = checkTransition(locked.status, "resubmit");
       if (!check.ok) throw new AppError("conflict", check.message, { status: locked.status });
       await insertUpload(tx, {
-        organizationId: org, testId, objectKey, sha256, sizeBytes: input.file.bytes.byteLength, filename: input.file.filename, contentType: input.file.contentType || "text/csv",
+        organizationId: org, testId, objectKey, sha256, sizeBytes: input.file.bytes.byteLength, filename: input.file.filename, contentType: RAW_LOG_CONTENT_TYPE,
       });
       const version = await getNextAnalysisVersionByTest(tx, { organizationId: org, testId });
       await insertAnalysis(tx, {
         id: analysisId, organizationId: org, testId, version, options, result: run.result, series: run.series,
         reason: `Re-test: ${input.file.filename}`, createdById: actor.userId,
       });
-      if (input.idempotencyKey) await updateIdempotencyKeyAnalysis(tx, { organizationId: org, key: input.idempotencyKey, analysisId });
+      if (input.idempotencyKey) await updateIdempotencyKeyAnalysis(tx, { ...keyOf, analysisId });
       await updateTestCurrentAnalysis(tx, { organizationId: org, testId, analysisId, verdict: run.result.verdict });
       const moved = await updateTestStatusById(tx, { organizationId: org, testId, fromStatus: locked.status, toStatus: check.to });
       if (!moved) throw new AppError("conflict");
@@ -154,10 +161,11 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
     },
     async () => {
       // Lost the race for the key: answer with the winner's re-test.
-      const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
-      if (seen) return replay(db, actor, testId, seen);
+      const seen = await getIdempotencyKeyByKey(db, keyOf);
+      if (seen) return replay(db, actor, testId, seen, fingerprint);
       throw new AppError("conflict", "The same re-test is being saved by another request; try again.");
     },
+    input.signal,
   );
   // After commit: the leads' e-mail; a failure stays in the outbox for resend and never undoes the re-test.
   await deliverMailSoon(db, outcome.mailIds);

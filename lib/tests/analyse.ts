@@ -1,14 +1,18 @@
 /**
  * Re-analysis: re-read the raw file from storage (never modified), run the engine with the
  * test's earlier options plus the caller's overrides, store version n + 1 and point the test at it.
+ * With an Idempotency-Key, a retry of the same request answers with the version it made (never a
+ * second one), and the key with other overrides is a 422 (lib/tests/idempotency.ts).
  */
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database } from "@/db/client";
 import { getAnalysisById, getNextAnalysisVersionByTest, insertAnalysis } from "@/db/queries/analyses";
-import { getUploadByTest, lockTestById, updateTestCurrentAnalysis } from "@/db/queries/tests";
+import { getIdempotencyKeyByKey, getUploadByTest, insertIdempotencyKey, lockTestById, updateTestCurrentAnalysis } from "@/db/queries/tests";
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
-import { log } from "@/lib/log";
+import { describeError, log } from "@/lib/log";
+import { randomUUID } from "node:crypto";
+import { assertSameRequest, requestFingerprint, type SpentKey } from "./idempotency";
 import { getObjectBytes } from "@/lib/storage";
 import { analyseOffThread } from "./engine-pool";
 import { decodeLogText } from "./files";
@@ -21,16 +25,41 @@ export function mayReanalyse(viewer: Viewer, createdById: string): boolean {
   return viewer.role === "owner" || viewer.role === "lead" || viewer.userId === createdById;
 }
 
+export interface ReanalysisOutcome {
+  analysis: AnalysisResult;
+  version: number;
+  analysisId: string;
+  /** False when a retried Idempotency-Key answers with the version it made before. */
+  created: boolean;
+}
+
+class KeyTaken extends Error {}
+
+/** The version an earlier request with this key made, when it was the same request (422 otherwise). */
+async function replay(db: Database, org: string, testId: string, spent: SpentKey, fingerprint: string): Promise<ReanalysisOutcome> {
+  assertSameRequest(spent, fingerprint);
+  const earlier = spent.analysisId && spent.testId === testId ? await getAnalysisById(db, { organizationId: org, analysisId: spent.analysisId }) : null;
+  if (!earlier) throw new AppError("idempotency_mismatch", "Idempotency-Key: you already used this key for another request; send a new key.", { field: "Idempotency-Key" });
+  return { analysis: earlier.result, version: earlier.version, analysisId: earlier.id, created: false };
+}
+
 export async function reanalyseTest(
   db: Database,
   viewer: Viewer,
   testId: string,
   input: ReanalysisInput,
-): Promise<{ analysis: AnalysisResult; version: number; analysisId: string }> {
+  idempotencyKey?: string,
+): Promise<ReanalysisOutcome> {
   const row = await requireRevealedTest(db, viewer, testId);
   if (!mayReanalyse(viewer, row.test.createdById))
     throw new AppError("forbidden", "Only the technician who uploaded this test, a lead or the owner can re-analyse it.");
   const org = viewer.organizationId;
+  const fingerprint = requestFingerprint("POST /api/tests/:id/analyses", { testId, input });
+  const keyOf = { organizationId: org, userId: viewer.userId, key: idempotencyKey ?? "" };
+  if (idempotencyKey) {
+    const spent = await getIdempotencyKeyByKey(db, keyOf);
+    if (spent) return replay(db, org, testId, spent, fingerprint);
+  }
   const [current, upload] = await Promise.all([
     row.test.currentAnalysisId ? getAnalysisById(db, { organizationId: org, analysisId: row.test.currentAnalysisId }) : null,
     getUploadByTest(db, { organizationId: org, testId }),
@@ -50,15 +79,17 @@ export async function reanalyseTest(
   try {
     bytes = await getObjectBytes(upload.objectKey);
   } catch (err) {
-    log.error("raw log not readable", { objectKey: upload.objectKey, err: String(err) });
+    log.error("raw log not readable", { objectKey: upload.objectKey, err: describeError(err) });
     throw new AppError("storage_unavailable", "File storage is not answering; the analysis was not changed. Please try again.");
   }
   const run = await analyseOffThread(decodeLogText(bytes), options); // LogError → 422 naming the option
 
-  return db.transaction(async (tx) => {
+  const analysisId = randomUUID();
+  const saving = db.transaction(async (tx) => {
     if (!(await lockTestById(tx, { organizationId: org, testId }))) throw new AppError("not_found", "No such test.");
     const version = await getNextAnalysisVersionByTest(tx, { organizationId: org, testId });
     const saved = await insertAnalysis(tx, {
+      id: analysisId,
       organizationId: org,
       testId,
       version,
@@ -68,7 +99,15 @@ export async function reanalyseTest(
       reason: input.reason ?? null,
       createdById: viewer.userId,
     });
+    // A concurrent twin with the same key waits on this row, then finds it taken and rolls back.
+    if (idempotencyKey && !(await insertIdempotencyKey(tx, { ...keyOf, testId, analysisId, requestFingerprint: fingerprint }))) throw new KeyTaken();
     await updateTestCurrentAnalysis(tx, { organizationId: org, testId, analysisId: saved.id, verdict: run.result.verdict });
-    return { analysis: run.result, version, analysisId: saved.id };
+    return { analysis: run.result, version, analysisId: saved.id, created: true };
+  });
+  return saving.catch(async (err: unknown) => {
+    if (!(err instanceof KeyTaken)) throw err;
+    const spent = await getIdempotencyKeyByKey(db, keyOf);
+    if (!spent) throw new AppError("conflict", "The same re-analysis is being saved by another request; try again.");
+    return replay(db, org, testId, spent, fingerprint);
   });
 }

@@ -5,6 +5,7 @@
 import { createHash } from "node:crypto";
 import { AppError } from "@/lib/errors";
 import { env } from "@/lib/env";
+import { readBodyCapped as readCapped } from "@/lib/api/body";
 
 /** Room for the form fields and multipart framing beside the file itself. */
 export const MULTIPART_SLACK_BYTES = 256 * 1024;
@@ -36,34 +37,9 @@ function tooLarge(sizeBytes: number): AppError {
   });
 }
 
-/**
- * The request body, read with a hard cap: refuses early on a Content-Length over the limit and
- * stops reading as soon as the body passes it (a chunked upload has no Content-Length).
- */
-export async function readBodyCapped(req: Request, capBytes: number): Promise<Uint8Array<ArrayBuffer>> {
-  const declared = Number(req.headers.get("content-length") ?? NaN);
-  if (Number.isFinite(declared) && declared > capBytes) throw tooLarge(declared);
-  if (!req.body) return new Uint8Array(0);
-  const reader = req.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > capBytes) {
-      await reader.cancel().catch(() => {});
-      throw tooLarge(total);
-    }
-    chunks.push(value);
-  }
-  const out = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    out.set(c, at);
-    at += c.byteLength;
-  }
-  return out;
+/** The request body under a hard cap (413 naming the file's size above it). */
+export function readBodyCapped(req: Request, capBytes: number): Promise<Uint8Array<ArrayBuffer>> {
+  return readCapped(req, capBytes, tooLarge);
 }
 
 /** Refuse anything that is not a text log, by its declared type, its name and its bytes. */

@@ -37,21 +37,27 @@ export async function requireRevealedTest(db: Db, viewer: Viewer, testId: string
   return row;
 }
 
+/** What POST /api/tests answers: the test and its analysis, or no analysis and where to make the practice call first. */
+export type TestSummary = { test: TestDto; analysis: AnalysisResult } | { test: TestDto; analysis: null; practiceCallUrl: string };
+
 /**
  * The test and its current analysis only (what POST /api/tests answers with). `known` is what a
  * new upload just computed and wrote, so it need not read its own test back — unless the viewer
- * makes practice calls, whose gate decides whether the analysis shows.
+ * makes practice calls, whose gate decides whether the analysis shows: an apprentice's own
+ * practice upload is saved, and answered with where to make the call instead of the verdict.
  */
 export async function loadTestSummary(
   db: Db,
   viewer: Viewer,
   testId: string,
   known?: { result?: AnalysisResult; row?: TestDetailRow },
-): Promise<Pick<TestDetail, "test" | "analysis">> {
+): Promise<TestSummary> {
   if (known?.result && known.row && known.row.test.createdById === viewer.userId && !practisesCalls(viewer.role)) {
     return { test: toTestDto(known.row), analysis: known.result };
   }
-  const row = await requireRevealedTest(db, viewer, testId);
+  const row = await requireVisibleTest(db, viewer, testId);
+  const gate = await practiceGate(db, { organizationId: viewer.organizationId, testId, userId: viewer.userId, role: viewer.role });
+  if (gate === "hidden") return { test: { ...toTestDto(row), verdict: null }, analysis: null, practiceCallUrl: `/practice/${testId}` };
   if (known?.result) return { test: toTestDto(row), analysis: known.result };
   const current = row.test.currentAnalysisId ? await getAnalysisById(db, { organizationId: viewer.organizationId, analysisId: row.test.currentAnalysisId }) : null;
   if (!current) throw new AppError("internal", "This test has no analysis yet.");

@@ -2,6 +2,8 @@
  * Turning a POST /api/tests (or /api/imports/preview) request into an upload: multipart with a
  * file, or JSON with typed readings written out as an equivalent CSV (stored as the raw file).
  */
+import { mediaTypeOf, readJsonBody } from "@/lib/api/body";
+import { assertStorable } from "@/lib/api/storable";
 import { AppError } from "@/lib/errors";
 import { env } from "@/lib/env";
 import { assertTextLog, decodeLogText, MULTIPART_SLACK_BYTES, readBodyCapped } from "./files";
@@ -30,6 +32,7 @@ async function fileOf(form: FormData): Promise<ReceivedFile> {
   const file = form.get("file");
   if (!file || typeof file === "string") throw new AppError("invalid_input", "file: choose a gauge log to upload.", { field: "file" });
   const bytes = new Uint8Array(await file.arrayBuffer());
+  assertStorable(file.name, "file name");
   const filename = (file.name || "log.csv").slice(-200);
   assertTextLog(bytes, file.type, filename);
   return { filename, contentType: file.type || "text/csv", bytes, text: decodeLogText(bytes) };
@@ -38,11 +41,12 @@ async function fileOf(form: FormData): Promise<ReceivedFile> {
 function fieldsOf(form: FormData): Record<string, string> {
   const out: Record<string, string> = {};
   for (const [k, v] of form.entries()) if (k !== "file" && typeof v === "string") out[k] = v;
+  assertStorable(out, "form");
   return out;
 }
 
 function isJson(req: Request): boolean {
-  return (req.headers.get("content-type") ?? "").toLowerCase().includes("application/json");
+  return mediaTypeOf(req.headers) === "application/json";
 }
 
 /** Just the file, for the preview (nothing saved). */
@@ -54,13 +58,8 @@ export async function readPreviewFile(req: Request): Promise<{ file: ReceivedFil
 /** The upload in a POST /api/tests request (without the idempotency key). */
 export async function readUploadRequest(req: Request): Promise<UploadInput> {
   if (isJson(req)) {
-    const raw = await readBodyCapped(req, env().MAX_UPLOAD_BYTES);
-    let json: unknown;
-    try {
-      json = JSON.parse(new TextDecoder().decode(raw));
-    } catch {
-      throw new AppError("invalid_input", "The request body is not valid JSON.");
-    }
+    const json = await readJsonBody(req); // typed readings: under the JSON cap
+    assertStorable(json, "body");
     const obj = (json && typeof json === "object" ? json : {}) as Record<string, unknown>;
     const { readings, timeMode, ...rest } = obj;
     const typed = parseInput(typedReadingsSchema, { readings, timeMode }, "body");
@@ -69,8 +68,7 @@ export async function readUploadRequest(req: Request): Promise<UploadInput> {
     const bytes = new TextEncoder().encode(text);
     return { metadata, source: "typed", filename: "typed-readings.csv", contentType: "text/csv", bytes, text, importDefaults, isolationAtSeconds };
   }
-  const ct = (req.headers.get("content-type") ?? "").toLowerCase();
-  if (!ct.includes("multipart/form-data"))
+  if (mediaTypeOf(req.headers) !== "multipart/form-data")
     throw new AppError("unsupported_file", "Send the log as multipart/form-data (field 'file') or typed readings as JSON.");
   const form = await readForm(req);
   const file = await fileOf(form);

@@ -6,11 +6,15 @@
  *    the re-test upload.
  *  - Storage failing → 503, no rows written.
  *  - The transaction failing → the stored object is deleted again (compensation), 503.
- *  - An Idempotency-Key already used in the organization returns the first test; two identical
- *    concurrent requests race on the idempotency_keys primary key inside the transaction, the
- *    loser rolls back, deletes its object and returns the winner's test.
- *  - newJob creates the visit inside that same transaction, so a retry never makes a second job
- *    and a failed upload leaves none behind. It needs records.manage (403 before anything runs).
+ *  - An Idempotency-Key the same person already used for the same request returns the first
+ *    test; used for a different request (another file or fields) it is a 422 and nothing is saved
+ *    (lib/tests/idempotency.ts). Two identical concurrent requests race on the idempotency_keys
+ *    primary key inside the transaction, the loser rolls back, deletes its object and returns the
+ *    winner's test.
+ *  - newSiteName, newSystemName and newJob create records (a site, a system, a visit) inside that
+ *    same transaction, so a retry never makes a second one and a failed upload leaves none behind.
+ *    They need records.manage, like POST /api/sites (403 naming the field before anything runs).
+ *  - The request's signal aborting (the client gone) before the commit leaves nothing behind.
  */
 import { entersReviewOnUpload, reviewRowsOfNewTest } from "@/lib/review/auto";
 import { deliverWhenQuiet, uploadInProgress } from "@/lib/notify/when-quiet";
@@ -19,10 +23,12 @@ import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
 import { getJobById, getSiteById, getSystemById, createJob, createSite, createSystem } from "@/db/queries/records";
 import { getIdempotencyKeyByKey, insertNewTestTogether, isIdempotencyKeyTaken, type NewTestRows, type TestDetailRow } from "@/db/queries/tests";
+import { assertSameRequest, requestFingerprint, type SpentKey } from "./idempotency";
+import { assertStorableRun } from "./storable-result";
 import { analysisRowsOf } from "@/db/queries/analyses";
 import { AppError } from "@/lib/errors";
 import { can, type Role } from "@/lib/permissions";
-import { rawLogKey } from "@/lib/storage";
+import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "./engine-pool";
 import { sha256Hex } from "./files";
 import { KeyTaken, storeThenCommit } from "./stored-commit";
@@ -50,6 +56,8 @@ export interface UploadInput {
   /** The isolation the source implies (typed "minutes since isolation": the first reading). */
   isolationAtSeconds?: number;
   idempotencyKey?: string;
+  /** The request's signal: once it aborts (the client went away), nothing is committed. */
+  signal?: AbortSignal;
 }
 
 export interface UploadOutcome {
@@ -165,10 +173,24 @@ function answerRowOf(test: TestDetailRow["test"], who: Uploader, names: RecordNa
   };
 }
 
-/** newJob needs records.manage (owner, lead, technician): checked before anything is analysed or stored. */
-function assertMayCreateJob(who: Uploader, m: TestMetadata): void {
-  if (m.newJob && !(who.role && can(who.role, "records.manage")))
-    throw new AppError("forbidden", `newJob: your role (${who.role ?? "unknown"}) cannot create jobs; upload without a new visit, or ask a technician or lead to add it.`, { field: "newJob" });
+/** The fields of an upload that create records, and what each creates. */
+const CREATING_FIELDS = [
+  ["newSiteName", "sites", "pick an existing site"],
+  ["newSystemName", "systems", "pick an existing system"],
+  ["newJob", "jobs", "upload without a new visit"],
+] as const;
+
+/**
+ * newSiteName, newSystemName and newJob need records.manage (owner, lead, technician), as the
+ * records routes do: checked before anything is analysed or stored. Scripts that pass no role
+ * (the seed) are trusted.
+ */
+function assertMayCreateRecords(who: Uploader, m: TestMetadata): void {
+  if (!who.role || can(who.role, "records.manage")) return;
+  for (const [field, what, instead] of CREATING_FIELDS) {
+    if (m[field])
+      throw new AppError("forbidden", `${field}: your role (${who.role}) cannot create ${what}; ${instead}, or ask a technician or lead to add it.`, { field });
+  }
 }
 
 /** The engine options of a new test: importer choices, the profile, the volume, the ambient. */
@@ -180,11 +202,17 @@ export async function uploadOptionsOf(db: Database, org: string, input: UploadIn
   return compactOptions({ import: imp, profile, volume: volumeOf(m), ambientC: m.ambientC, isolationAtSeconds: input.isolationAtSeconds });
 }
 
-/** The first upload for a key already used; a key spent on a re-test is not a new test's key (409). */
-function replayOf(seen: { testId: string; analysisId: string | null }): UploadOutcome {
+/** The first upload for a key already used by this person for this same request (422 otherwise). */
+function replayOf(seen: SpentKey, fingerprint: string): UploadOutcome {
+  assertSameRequest(seen, fingerprint);
   if (seen.analysisId)
-    throw new AppError("conflict", "Idempotency-Key: this key was already used for a re-test upload; send a new key for a new test.", { field: "Idempotency-Key" });
+    throw new AppError("idempotency_mismatch", "Idempotency-Key: you already used this key for a re-test upload; send a new key for a new test.", { field: "Idempotency-Key" });
   return { testId: seen.testId, created: false };
+}
+
+/** What an upload means, for its Idempotency-Key's fingerprint. */
+function fingerprintOf(input: UploadInput, sha256: string): string {
+  return requestFingerprint("POST /api/tests", { source: input.source, sha256, filename: input.filename, metadata: input.metadata, importDefaults: input.importDefaults });
 }
 
 /** Run the whole pipeline for one upload. Throws LogError (422) or AppError. */
@@ -199,19 +227,22 @@ export async function createTestFromUpload(db: Database, who: Uploader, input: U
 
 async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): Promise<UploadOutcome> {
   const org = who.organizationId;
+  const sha256 = sha256Hex(input.bytes);
+  const fingerprint = fingerprintOf(input, sha256);
+  const keyOf = { organizationId: org, userId: who.userId, key: input.idempotencyKey ?? "" };
   if (input.idempotencyKey) {
-    const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
-    if (seen) return replayOf(seen);
+    const seen = await getIdempotencyKeyByKey(db, keyOf);
+    if (seen) return replayOf(seen, fingerprint);
   }
-  assertMayCreateJob(who, input.metadata);
+  assertMayCreateRecords(who, input.metadata);
   const options = await uploadOptionsOf(db, org, input);
   const run = await analyseOffThread(input.text, options); // LogError → 422 before anything is stored
+  assertStorableRun(run); // numbers no column can hold → 422, not a failed insert
 
   const testId = randomUUID();
   const analysisId = randomUUID();
   const objectKey = rawLogKey(org, testId, input.filename);
-  const sha256 = sha256Hex(input.bytes);
-  const object = { key: objectKey, bytes: input.bytes, contentType: input.contentType, sha256 };
+  const object = { key: objectKey, bytes: input.bytes, filename: input.filename, sha256 };
 
   const { outcome, mailIds } = await storeThenCommit<{ outcome: UploadOutcome; mailIds: string[] }>(
     db,
@@ -230,7 +261,7 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
       const review = entersReviewOnUpload(known)
         ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known })
         : null;
-      const rows = newTestRows({ who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, title, options, result: run.result, series: run.series, testedAt, review });
+      const rows = newTestRows({ who, input, testId, analysisId, objectKey, sha256, fingerprint, siteId, systemId, jobId, title, options, result: run.result, series: run.series, testedAt, review });
       const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
         throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
       });
@@ -240,10 +271,11 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
     },
     async () => {
       // Lost the race for the key: answer with the winner's test.
-      const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
-      if (seen) return { outcome: replayOf(seen), mailIds: [] };
+      const seen = await getIdempotencyKeyByKey(db, keyOf);
+      if (seen) return { outcome: replayOf(seen, fingerprint), mailIds: [] };
       throw new AppError("conflict", "The same upload is being saved by another request; try again.");
     },
+    input.signal,
   );
   // The leads' e-mail goes after commit, at the next quiet moment: it never holds up a verdict.
   deliverWhenQuiet(db, mailIds);
@@ -257,6 +289,8 @@ interface NewTestArgs {
   analysisId: string;
   objectKey: string;
   sha256: string;
+  /** The request's fingerprint, stored with its Idempotency-Key. */
+  fingerprint: string;
   siteId: string | null;
   systemId: string | null;
   jobId: string | null;
@@ -308,12 +342,14 @@ function newTestRows(a: NewTestArgs): NewTestRows {
       sha256: a.sha256,
       sizeBytes: a.input.bytes.byteLength,
       filename: a.input.filename,
-      contentType: a.input.contentType || "text/csv",
+      contentType: RAW_LOG_CONTENT_TYPE, // stored and served as this, whatever the browser claimed
     },
     analysis: analysis.analysis,
     findings: analysis.findings,
     events: a.review ? [a.review.event] : [],
     mails: a.review?.mails ?? [],
-    idempotencyKey: a.input.idempotencyKey ? { organizationId: org, key: a.input.idempotencyKey, userId: a.who.userId, testId: a.testId } : null,
+    idempotencyKey: a.input.idempotencyKey
+      ? { organizationId: org, key: a.input.idempotencyKey, userId: a.who.userId, testId: a.testId, requestFingerprint: a.fingerprint }
+      : null,
   };
 }

@@ -14,7 +14,26 @@ export const DESKTOP = { viewport: { width: 1280, height: 860 } };
 export interface Session {
   browser: Browser;
   newContext: (opts?: Parameters<Browser["newContext"]>[0]) => Promise<BrowserContext>;
+  /** Closes the browser; throws if any page met a Content-Security-Policy violation meanwhile. */
   close: () => Promise<void>;
+  /** What the browser refused under the Content-Security-Policy so far, page by page. */
+  cspViolations: string[];
+}
+
+/**
+ * Every page of every context reports what the CSP blocked: Chromium logs each refusal to the
+ * console ("Refused to … because it violates the following Content Security Policy directive").
+ * The journeys then prove the app — charts included — works under the policy (proxy.ts).
+ */
+function watchCsp(context: BrowserContext, violations: string[]): BrowserContext {
+  const watch = (page: Page) =>
+    page.on("console", (msg) => {
+      const text = msg.text();
+      if (/Content Security Policy|Content-Security-Policy/i.test(text)) violations.push(`${page.url()}: ${text.slice(0, 300)}`);
+    });
+  context.pages().forEach(watch);
+  context.on("page", watch);
+  return context;
 }
 
 export async function launch(): Promise<Session> {
@@ -25,10 +44,15 @@ export async function launch(): Promise<Session> {
       "--disable-background-networking", "--disable-component-update", "--disable-sync",
     ],
   });
+  const cspViolations: string[] = [];
   return {
     browser,
-    newContext: (opts) => browser.newContext({ baseURL: APP_URL, ...opts }),
-    close: () => browser.close(),
+    cspViolations,
+    newContext: async (opts) => watchCsp(await browser.newContext({ baseURL: APP_URL, ...opts }), cspViolations),
+    close: async () => {
+      await browser.close();
+      if (cspViolations.length) throw new Error(`Content-Security-Policy violations:\n${cspViolations.join("\n")}`);
+    },
   };
 }
 

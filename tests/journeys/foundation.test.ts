@@ -57,7 +57,8 @@ describe("foundation journey on a 360 px phone (common practice, no published so
         inviteHref = await page.getByTestId("mail-message").locator('a[href*="/invite/"]').first().getAttribute("href");
       } else await page.waitForTimeout(500);
     }
-    expect(inviteHref).toMatch(/\/invite\/[A-Za-z0-9_-]+$/);
+    // The link carries the key that proves the address is the reader's (lib/invitation-key.ts).
+    expect(inviteHref).toMatch(/\/invite\/[A-Za-z0-9_-]+\?key=[A-Za-z0-9_-]+$/);
     await ownerCtx.close();
 
     // 5. The technician opens the link in a fresh browser and creates the account.

@@ -4,7 +4,7 @@ import { db } from "@/db/client";
 import { listMembersByOrganization } from "@/db/queries/members";
 import { listCustomersByOrganization, listJobsByOrganization, listSitesByOrganization } from "@/db/queries/records";
 import { Card, EmptyState } from "@/components/ui";
-import { can } from "@/lib/permissions";
+import { can, canSeeCustomerContact } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
 import { NewCustomerForm, NewJobForm, NewSiteForm } from "./RecordForms";
 
@@ -16,7 +16,7 @@ export default async function RecordsPage() {
   const actor = await pageActor();
   const org = actor.organizationId;
   const [customers, sites, jobs, members] = await Promise.all([
-    listCustomersByOrganization(db(), { organizationId: org }),
+    listCustomersByOrganization(db(), { organizationId: org, withContact: canSeeCustomerContact(actor.role) }),
     listSitesByOrganization(db(), { organizationId: org }),
     listJobsByOrganization(db(), { organizationId: org }),
     listMembersByOrganization(db(), { organizationId: org }),
@@ -49,7 +49,7 @@ export default async function RecordsPage() {
             {customers.map((c) => (
               <li key={c.id} className="py-2">
                 <p className="font-medium">{c.name}</p>
-                <p className="text-caption text-fg-soft">{[c.email, c.phone].filter(Boolean).join(" · ") || "No contact details"}</p>
+                <p className="text-caption text-fg-soft">{canSeeCustomerContact(actor.role) ? [c.email, c.phone].filter(Boolean).join(" · ") || "No contact details" : "Contact details: ask a technician or lead"}</p>
               </li>
             ))}
           </ul>

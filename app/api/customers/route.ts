@@ -2,6 +2,7 @@ import { z } from "zod";
 import { db } from "@/db/client";
 import { createCustomer, listCustomersByOrganization } from "@/db/queries/records";
 import { route } from "@/lib/api/handler";
+import { canSeeCustomerContact } from "@/lib/permissions";
 
 export const dynamic = "force-dynamic";
 
@@ -12,9 +13,9 @@ const customerSchema = z.object({
   phone: z.preprocess(blank, z.string().trim().max(40).nullable().optional()),
 });
 
-/** GET /api/customers — { items } of the organization, by name. */
+/** GET /api/customers — { items } of the organization, by name; e-mail and phone only for roles that manage records. */
 export const GET = route({ permission: "member" }, async ({ actor }) => ({
-  items: await listCustomersByOrganization(db(), { organizationId: actor.organizationId }),
+  items: await listCustomersByOrganization(db(), { organizationId: actor.organizationId, withContact: canSeeCustomerContact(actor.role) }),
 }));
 
 /** POST /api/customers — 201 { customer }. */

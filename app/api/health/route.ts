@@ -6,18 +6,25 @@ import { engineMode } from "@/lib/tests/engine-pool";
 
 export const dynamic = "force-dynamic";
 
+/** Health answers within about two seconds whatever the stores do (a frozen one never answers). */
+const CHECK_TIMEOUT_MS = 2000;
+
 async function databaseReachable(): Promise<boolean> {
+  let timer: NodeJS.Timeout | undefined;
   try {
-    await db().execute(sql`select 1`);
+    const timeout = new Promise<never>((_, reject) => (timer = setTimeout(() => reject(new Error("timeout")), CHECK_TIMEOUT_MS)));
+    await Promise.race([db().execute(sql`select 1`), timeout]);
     return true;
   } catch {
     return false;
+  } finally {
+    clearTimeout(timer);
   }
 }
 
-/** GET /api/health — both stores (they decide `ok`), and where the analysis engine runs. */
+/** GET /api/health — both stores (they decide `ok`; 503 when either is down), and where the analysis engine runs. */
 export const GET = publicRoute({}, async () => {
-  const [database, bucket] = await Promise.all([databaseReachable(), bucketReachable()]);
+  const [database, bucket] = await Promise.all([databaseReachable(), bucketReachable(CHECK_TIMEOUT_MS)]);
   const ok = database && bucket;
   return Response.json(
     { ok, database: database ? "ok" : "unreachable", bucket: bucket ? "ok" : "unreachable", engine: engineMode() },

@@ -16,7 +16,7 @@ export const GET = route({ permission: "member", query: pressureTestListQuery },
  * verdict worked out. A test any reading of which went above the rated test pressure is saved only
  * with `overPressureAcknowledged: true`, and the record keeps who acknowledged it and when.
  */
-export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema }, async ({ actor, body }) => {
+export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ actor, body }) => {
   if (body.jobId && !(await isJobOfOrganization(db(), { organizationId: actor.organizationId, jobId: body.jobId })))
     throw new AppError("invalid_input", "jobId: no such job in this shop");
   let evaluated;

@@ -9,15 +9,18 @@ export const dynamic = "force-dynamic";
 
 /**
  * POST /api/tests — upload a gauge log (multipart `file` + metadata) or typed readings (JSON).
- * 201 { test, analysis } for a new test; 200 with the first test for a retried Idempotency-Key.
+ * 201 { test, analysis } for a new test; 200 with the first test for a retried Idempotency-Key
+ * (the same person, the same request; a different request with the key is a 422).
+ * An apprentice's practice test is saved and answered 201 with `analysis: null` and
+ * `practiceCallUrl`: the verdict shows once they have made their call there.
  */
-export const POST = route({ permission: "tests.upload" }, async ({ req, actor }) => {
+export const POST = route({ permission: "tests.upload", accepts: ["json", "multipart"] }, async ({ req, actor }) => {
   const rawKey = req.headers.get("idempotency-key");
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const input = await readUploadRequest(req);
-  const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey });
-  const { test, analysis } = await loadTestSummary(db(), actor, outcome.testId, outcome);
-  return Response.json({ test, analysis }, { status: outcome.created ? 201 : 200 });
+  const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey, signal: req.signal });
+  const summary = await loadTestSummary(db(), actor, outcome.testId, outcome);
+  return Response.json(summary, { status: outcome.created ? 201 : 200 });
 });
 
 /** GET /api/tests — the tests the caller may see, newest first, cursor-paginated. */

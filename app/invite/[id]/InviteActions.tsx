@@ -4,11 +4,14 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Alert, Button, Input } from "@/components/ui";
 import { authClient, authErrorMessage, type AuthClientError } from "@/lib/auth-client";
+import { ApiError, apiFetch } from "@/lib/client/api";
 
 const MIN_PASSWORD = 10;
 
 interface Props {
   invitationId: string;
+  /** The key from the e-mailed link (it proves the address is the reader's); null when the link lost it. */
+  invitationKey: string | null;
   invitedEmail: string;
   shopName: string;
   /** E-mail of the person signed in in this browser, if anyone. */
@@ -19,7 +22,7 @@ interface Props {
  * Signed in as the invited e-mail: one button. Signed in as someone else: sign out first.
  * Signed out: create the account for the invited e-mail, or sign in to an existing one; then accept.
  */
-export function InviteActions({ invitationId, invitedEmail, shopName, signedInEmail }: Props) {
+export function InviteActions({ invitationId, invitationKey, invitedEmail, shopName, signedInEmail }: Props) {
   const router = useRouter();
   const [mode, setMode] = useState<"create" | "sign-in">("create");
   const [name, setName] = useState("");
@@ -35,10 +38,21 @@ export function InviteActions({ invitationId, invitedEmail, shopName, signedInEm
   }
 
   async function accept() {
-    const res = await authClient.organization.acceptInvitation({ invitationId });
-    if (res.error) return fail(res.error);
+    try {
+      await apiFetch(`/api/invitations/${encodeURIComponent(invitationId)}/accept`, { method: "POST", body: JSON.stringify({ key: invitationKey }) });
+    } catch (err) {
+      return fail(err instanceof ApiError ? { status: err.status, code: err.code, message: err.message } : null);
+    }
     router.replace("/home");
     router.refresh();
+  }
+
+  if (!invitationKey) {
+    return (
+      <Alert tone="warning" title="Open the link from the e-mail">
+        This address is missing the key from the invitation e-mail. Open the link in the e-mail sent to {invitedEmail} itself: it proves the address is yours.
+      </Alert>
+    );
   }
 
   if (signedInEmail && !sameUser) {

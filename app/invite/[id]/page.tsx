@@ -10,8 +10,10 @@ import { InviteActions } from "./InviteActions";
 
 export const metadata: Metadata = { title: "Invitation" };
 
-export default async function InvitePage({ params }: { params: Promise<{ id: string }> }) {
+export default async function InvitePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ key?: string | string[] }> }) {
   const { id } = await params;
+  const rawKey = (await searchParams).key;
+  const inviteKey = typeof rawKey === "string" ? rawKey : null;
   const invitation = await getInvitationForAcceptById(db(), { id });
   const open = invitation && invitation.status === "pending" && invitation.expiresAt > new Date();
 
@@ -45,6 +47,7 @@ export default async function InvitePage({ params }: { params: Promise<{ id: str
     >
       <InviteActions
         invitationId={invitation.id}
+        invitationKey={inviteKey}
         invitedEmail={invitation.email}
         shopName={invitation.organizationName}
         signedInEmail={session?.user.email ?? null}

@@ -7,7 +7,7 @@ import { importOptionsOf } from "@/lib/tests/options";
 export const dynamic = "force-dynamic";
 
 /** POST /api/imports/preview — multipart `file` (+ optional column/unit choices) → columns, first rows, detection. */
-export const POST = route({ permission: "tests.upload" }, async ({ req }) => {
+export const POST = route({ permission: "tests.upload", accepts: ["multipart"] }, async ({ req }) => {
   const { file, fields } = await readPreviewFile(req);
   const overrides = parseInput(importOverridesSchema, fields, "form");
   return previewLog(file.text, importOptionsOf(overrides) ?? {});

@@ -57,7 +57,11 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
                 <Link href={`/tests/${t.id}`} className="font-medium text-tide-700 underline dark:text-tide-200">{t.title}</Link>
                 <p className="text-caption text-fg-soft">{day(t.testedAt)} · {t.technicianName}{t.isPractice ? " · practice" : ""}</p>
               </div>
-              <VerdictBadge verdict={t.verdict as Verdict | null} meetsProfile={t.meetsProfile} />
+              {t.practiceCallUrl ? (
+                <Link href={t.practiceCallUrl} className="text-caption font-medium text-tide-700 underline dark:text-tide-200">Make your call</Link>
+              ) : (
+                <VerdictBadge verdict={t.verdict as Verdict | null} meetsProfile={t.meetsProfile} />
+              )}
             </li>
           ))}
         </ol>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { headers } from "next/headers";
 import { notFound, redirect } from "next/navigation";
 import { db } from "@/db/client";
 import { LinkButton } from "@/components/ui";
@@ -25,10 +26,11 @@ export default async function ReportPage({ params }: { params: Promise<{ id: str
   if (gate === "hidden") redirect(`/practice/${id}`);
   const model = await buildReportModel(db(), { organizationId: actor.organizationId, testId: id });
   if (!model) notFound();
+  const nonce = (await headers()).get("x-nonce") ?? undefined; // the page's CSP nonce (proxy.ts)
   return (
     <div className="px-4 py-5 sm:py-8 print:p-0">
       {/* Print only the report: the app's navigation and these buttons stay on screen. */}
-      <style>{"@media print{body *{visibility:hidden}.report,.report *{visibility:visible}.report{position:absolute;inset:0 auto auto 0;width:100%}@page{margin:14mm}}"}</style>
+      <style nonce={nonce}>{"@media print{body *{visibility:hidden}.report,.report *{visibility:visible}.report{position:absolute;inset:0 auto auto 0;width:100%}@page{margin:14mm}}"}</style>
       <div className="mx-auto mb-4 flex max-w-3xl flex-wrap gap-2 print:hidden">
         <LinkButton href={`/tests/${id}`} variant="quiet">← Back to the test</LinkButton>
         <PrintButton />

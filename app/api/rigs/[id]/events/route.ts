@@ -16,7 +16,7 @@ export const GET = route({ permission: "member", params: rigParams }, async ({ a
  * reading, or a gauge log whose lowest reading is taken), gauge cleaned or checked, hose gaskets,
  * pump hour-meter reading.
  */
-export const POST = route({ permission: "member", params: rigParams, body: rigEventSchema }, async ({ actor, params, body }) => {
+export const POST = route({ permission: "member", params: rigParams, body: rigEventSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ actor, params, body }) => {
   await requireRigAccess(db(), viewerOf(actor), params.id, "manage");
   if (body.itemId && !(await getRigItemById(db(), { organizationId: actor.organizationId, rigId: params.id, itemId: body.itemId })))
     throw new AppError("invalid_input", "itemId: not an item of this rig");
