@@ -61,9 +61,21 @@ export interface ImportOptions {
   pressureColumn?: string | number;
   unit?: PressureUnit;
   timeUnit?: "s" | "min";
+  /**
+   * How the pressure readings write their numbers, when the importer could not tell: "point" = a
+   * comma groups thousands ("4,150" is 4150), "comma" = a comma is the decimal mark ("4,150" is 4.15).
+   */
+  decimalMark?: "point" | "comma";
   /** Defaults: 64 MiB (maxBytes, counted in characters) and 1,000,000 data rows (see DEFAULT_MAX_BYTES and DEFAULT_MAX_ROWS in import/index.ts). */
   maxBytes?: number;
   maxRows?: number;
+}
+
+/** Why the importer is not sure, by topic, so a screen can ask the right question. */
+export interface UnsureReason {
+  /** decimal_mark: thousands separator or decimal comma; unit: no unit named; time: time unit or format guessed; columns: a column guessed; date_order: day/month order guessed. */
+  code: "decimal_mark" | "unit" | "time" | "columns" | "date_order";
+  message: string;
 }
 
 /** What the importer read and what it had to assume. */
@@ -86,6 +98,12 @@ export interface ImportSummary {
   temperatureColumn: string | null;
   /** True when a choice was a guess the user should confirm. */
   unsure: boolean;
+  /** Each guess behind `unsure`, with its topic (empty when sure). */
+  unsureReasons?: UnsureReason[];
+  /** The thousands separator of the pressure readings ("," or "."), or null when none was seen. */
+  thousandsSeparator?: string | null;
+  /** Rows whose time cell was not a time, skipped (a few garbled rows do not refuse a log). */
+  badTimeRows?: number;
   /** What was assumed, in words ("unit taken as microns: the header names none"). */
   assumptions: string[];
 }

@@ -11,9 +11,10 @@ import Papa from "papaparse";
 import { LogError } from "../errors";
 import { groupedInteger } from "../format";
 import type { Finding, ImportedLog, ImportOptions, ImportSummary, PressureUnit } from "../types";
+import { UNITS_UNDERSTOOD } from "../units";
 import { chooseColumns } from "./columns";
 import { duplicatesFinding, reorderedFinding } from "./findings";
-import { RowReader, type RowsRead, type RowsResult } from "./rows";
+import { RowReader, type NumberSettings, type RowsRead, type RowsResult } from "./rows";
 import type { TimeSpec } from "./timespec";
 import { sniffLayout } from "./sniff";
 
@@ -50,6 +51,8 @@ function checkOptions(options: ImportOptions): { maxBytes: number; maxRows: numb
     throw new LogError("invalid_option", `unit '${String(options.unit)}' is not one of ${PRESSURE_UNITS.join(", ")}`);
   if (options.timeUnit !== undefined && options.timeUnit !== "s" && options.timeUnit !== "min")
     throw new LogError("invalid_option", `timeUnit '${String(options.timeUnit)}' must be "s" or "min"`);
+  if (options.decimalMark !== undefined && options.decimalMark !== "point" && options.decimalMark !== "comma")
+    throw new LogError("invalid_option", `decimalMark '${String(options.decimalMark)}' must be "point" or "comma"`);
   for (const key of ["timeColumn", "pressureColumn"] as const) {
     const v = options[key];
     if (v !== undefined && typeof v !== "string" && typeof v !== "number")
@@ -94,8 +97,14 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
   const choice = chooseColumns(layout, options);
   const body = layout.headerOffset === 0 ? text : text.slice(layout.headerOffset);
   const firstLine = layout.headerLine + 1;
+  const numbers: NumberSettings = {
+    hint: layout.decimalHint,
+    decimalMark: options.decimalMark,
+    // a point may group thousands ("12.500") only where the comma is the decimal mark
+    pointMayGroup: options.decimalMark === "comma" || (options.decimalMark === undefined && layout.decimalHint?.decimal === ","),
+  };
   const readWith = (timeSpec: TimeSpec): RowsResult => {
-    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length);
+    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length, numbers);
     // Rows are read a chunk at a time and dropped after, so the parsed cells die young (cheap
     // to collect) instead of a table of every row being held to the end. At most maxRows + 2
     // rows (header and one over the limit) are read, as with a whole-text parse with `preview`.
@@ -128,10 +137,11 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
 
   let spec = choice.time;
   let result = readWith(spec);
-  if (spec.alternate && (!result.ok || result.read.footerRows > 0)) {
-    // The day/month order was a guess from the first rows: a later row may prove the other.
+  const strays = (r: RowsResult) => (r.ok ? r.read.footerRows + r.read.badTimeRows : Infinity);
+  if (spec.alternate && strays(result) > 0) {
+    // The day/month order (or clock against stopwatch) was a guess from the first rows: a later row may prove the other.
     const other = readWith(spec.alternate);
-    if (other.ok && (!result.ok || other.read.footerRows < result.read.footerRows)) {
+    if (other.ok && strays(other) < strays(result)) {
       spec = spec.alternate;
       result = other;
     }
@@ -215,9 +225,28 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
   if (duplicates > 0) findings.push(duplicatesFinding(duplicates, n, firstDuplicateAt));
 
   if (choice.unitAssumed) {
-    if (largestAboveZero(microns) < SMALL_VALUES_LIMIT)
-      assumptions.push(`every reading is below ${SMALL_VALUES_LIMIT}: that looks like Torr or mbar rather than microns; set the unit if so`);
+    const largest = largestAboveZero(microns);
+    if (largest < SMALL_VALUES_LIMIT) {
+      const column = layout.header[choice.pressureIndex];
+      throw new LogError(
+        "unknown_unit",
+        `column '${column}' names no unit, and every reading is below ${SMALL_VALUES_LIMIT} (the highest is ${largest}): too small for microns, more like Torr, mbar or kPa; choose the unit (units understood: ${UNITS_UNDERSTOOD.join(", ")})`,
+        { column },
+      );
+    }
   }
+  const unsureReasons = [...choice.unsureReasons];
+  if (spec !== choice.time && spec.unsure) unsureReasons.push({ code: "date_order", message: spec.assumptions[spec.assumptions.length - 1] });
+  const grouping = read.grouping;
+  if (grouping) {
+    assumptions.push(grouping.why);
+    if (grouping.unsure) {
+      unsure = true;
+      unsureReasons.push(grouping.unsure);
+    }
+  }
+  if (read.firstBadTime)
+    assumptions.push(`${read.badTimeRows} row${read.badTimeRows === 1 ? "" : "s"} whose time is not a time skipped (first at line ${read.firstBadTime.line}: '${read.firstBadTime.cell.trim().slice(0, 40)}')`);
   if (read.unitsSeen > 1) assumptions.push("the unit column changes between rows: each reading converted with its own unit");
   if (read.footerRows > 0) assumptions.push(`${read.footerRows} line${read.footerRows === 1 ? "" : "s"} at the end with no time ignored (footer)`);
   if (read.ignoredLines > 0) assumptions.push(`${read.ignoredLines} line${read.ignoredLines === 1 ? "" : "s"} with a single cell or a repeated header ignored (not data)`);
@@ -235,13 +264,16 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
     unit: read.unit,
     timeFormat: spec.format,
     delimiter: layout.delimiter,
-    decimalComma: layout.decimalComma,
+    decimalComma: grouping ? (grouping.large ? grouping.mark === "." : grouping.mark === ",") : layout.decimalComma,
     headerLine: layout.headerLine,
     columns: header,
     timeColumn: choice.dateIndex >= 0 ? `${header[choice.dateIndex]} + ${header[choice.timeIndex]}` : header[choice.timeIndex],
     pressureColumn: header[choice.pressureIndex],
     temperatureColumn: choice.temperatureIndex >= 0 ? header[choice.temperatureIndex] : null,
     unsure,
+    unsureReasons,
+    thousandsSeparator: grouping?.large ? grouping.mark : null,
+    badTimeRows: read.badTimeRows,
     assumptions,
   };
   return {

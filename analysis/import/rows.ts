@@ -8,13 +8,19 @@ import type { PressureUnit } from "../types";
 import { micronsPerUnit, parsePressureUnit } from "../units";
 import type { ColumnChoice } from "./columns";
 import { gaugeError, unknownUnitError } from "./columns";
+import { AmbiguousCells, ambiguousDigits, ambiguousMark, readWatched, settleGrouping, type GroupingDecision, type SeparatorHint } from "./grouping";
 import { classifyNonNumber, parseReading } from "./numbers";
 import type { TimeSpec } from "./timespec";
 
 /** A dash cell ("---") is taken as over-range when the nearest reading is at least this high (microns). */
 export const DASH_OVER_RANGE_MICRONS = 5000;
+/** A dash or blank cell is over range only when that reading is also at least this share of the log's highest reading (the gauge's top). */
+const DASH_SHARE_OF_TOP = 0.5;
 /** Rows at the end whose time is not a time are taken as a footer (and ignored) up to this many. */
 const MAX_FOOTER_ROWS = 10;
+/** Rows elsewhere whose time is not a time are skipped, and said, up to this many or this share of the rows; more refuse the log. */
+const MAX_BAD_TIME_ROWS = 10;
+const MAX_BAD_TIME_SHARE = 0.02;
 const HALF_DAY_SECONDS = 43200;
 
 export interface RowsRead {
@@ -35,7 +41,22 @@ export interface RowsRead {
   unitsSeen: number;
   /** Skipped cells marked below the gauge's range ("<20"). */
   underRange: number;
+  /** Rows skipped because their time was not a time (a few garbled rows), and the first such line and cell. */
+  badTimeRows: number;
+  firstBadTime: { line: number; cell: string } | null;
+  /** How an ambiguous "4,150" was settled for the pressure column, or null when no cell was ambiguous. */
+  grouping: GroupingDecision | null;
 }
+
+/** How the pressure column's numbers are to be settled: the file's lean, a forced answer, and whether a point may group thousands. */
+export interface NumberSettings {
+  hint: SeparatorHint;
+  /** From the caller: "point" (a comma groups thousands) or "comma" (a comma is the decimal mark). */
+  decimalMark?: "point" | "comma";
+  pointMayGroup: boolean;
+}
+
+const UNIT_WORDS: Record<PressureUnit, string> = { micron: "microns", mtorr: "mTorr", torr: "Torr", mmhg: "mmHg", pa: "Pa", kpa: "kPa", mbar: "mbar", hpa: "hPa", psia: "psia", inhg: "inHg" };
 
 export type RowsResult = { ok: true; read: RowsRead } | { ok: false; line: number; cell: string };
 
@@ -70,6 +91,7 @@ export class RowReader {
   private badRows = 0;
   private lastGood = -1;
   private underRange = 0;
+  private readonly ambiguous = new AmbiguousCells();
 
   constructor(
     private readonly choice: ColumnChoice,
@@ -77,6 +99,7 @@ export class RowReader {
     private readonly decimalComma: boolean,
     private readonly firstLine: number,
     private readonly fieldCount: number,
+    private readonly numbers: NumberSettings = { hint: null, pointMayGroup: false },
   ) {
     this.temperatureC = choice.temperatureIndex >= 0 ? [] : null;
     this.factor = choice.unit ? micronsPerUnit(choice.unit) : NaN;
@@ -90,7 +113,8 @@ export class RowReader {
    */
   addRows(rows: string[][]): void {
     const { timeIndex, dateIndex, pressureIndex, unitIndex, temperatureIndex, temperatureFahrenheit } = this.choice;
-    const { rawSeconds, microns, temperatureC, overRangeRaw, dashRaw, dashBefore, decimalComma, fieldCount, firstLine } = this;
+    const { rawSeconds, microns, temperatureC, overRangeRaw, dashRaw, dashBefore, decimalComma, fieldCount, firstLine, ambiguous } = this;
+    const pointMayGroup = this.numbers.pointMayGroup;
     const parse = this.spec.parse;
     const rollover = this.spec.rollover;
     const base = this.index; // row index (0 = header) of rows[0]
@@ -162,8 +186,9 @@ export class RowReader {
       }
 
       const cell = row[pressureIndex];
-      const v = cell === undefined ? NaN : parseReading(cell, decimalComma);
+      const v = cell === undefined ? NaN : readWatched(cell, ambiguous, true, pointMayGroup);
       if (v === v && v >= 0 && factor === factor) {
+        if (ambiguousDigits === ambiguousDigits) ambiguous.note(microns.length, ambiguousDigits, factor, cell, ambiguousMark);
         rawSeconds.push(t);
         microns.push(v * factor);
         if (temperatureC !== null) {
@@ -174,7 +199,7 @@ export class RowReader {
         skipped++;
         const kind = cell === undefined ? "blank" : classifyNonNumber(cell);
         if (kind === "over_range") overRangeRaw.push(t);
-        else if (kind === "dashes") { dashRaw.push(t); dashBefore.push(microns.length); }
+        else if (kind === "dashes" || kind === "blank") { dashRaw.push(t); dashBefore.push(microns.length); }
         else if (kind === "under_range") underRange++;
       }
     }
@@ -195,18 +220,26 @@ export class RowReader {
     this.underRange = underRange;
   }
 
-  /** What was read, or the first row whose time is not a time (unless those rows are a footer). */
+  /** What was read, or the first row whose time is not a time (unless those rows are a footer or a few garbled rows). */
   finish(): RowsResult {
     const { microns, overRangeRaw, dashRaw, dashBefore, firstBad, badRows } = this;
+    let footerRows = 0;
+    let badTimeRows = 0;
     if (firstBad >= 0) {
-      const footer = this.lastGood < firstBad && badRows <= MAX_FOOTER_ROWS;
-      if (!footer) return { ok: false, line: this.firstLine + firstBad, cell: this.firstBadCell };
+      if (this.lastGood < firstBad && badRows <= MAX_FOOTER_ROWS) footerRows = badRows;
+      else if (badRows <= Math.max(MAX_BAD_TIME_ROWS, MAX_BAD_TIME_SHARE * this.count)) badTimeRows = badRows;
+      else return { ok: false, line: this.firstLine + firstBad, cell: this.firstBadCell };
     }
+    const grouping = this.settleNumbers();
 
+    // dashes and blanks: over range when the reading before them (the first reading when none is) is near the gauge's top
+    let top = 0;
+    for (let i = 0; i < microns.length; i++) if (microns[i] > top) top = microns[i];
+    const threshold = Math.max(DASH_OVER_RANGE_MICRONS, DASH_SHARE_OF_TOP * top);
     for (let k = 0; k < dashRaw.length; k++) {
       const before = dashBefore[k];
       const near = before > 0 ? microns[before - 1] : microns.length > 0 ? microns[0] : NaN;
-      if (near >= DASH_OVER_RANGE_MICRONS) overRangeRaw.push(dashRaw[k]);
+      if (near >= threshold) overRangeRaw.push(dashRaw[k]);
     }
 
     return {
@@ -220,12 +253,30 @@ export class RowReader {
         rows: this.count,
         skipped: this.skipped,
         ignoredLines: this.ignoredLines,
-        footerRows: firstBad >= 0 ? badRows : 0,
+        footerRows,
         unit: this.firstUnit ?? "micron",
         unitsSeen: this.unitsSeen,
         underRange: this.underRange,
+        badTimeRows,
+        firstBadTime: badTimeRows > 0 ? { line: this.firstLine + firstBad, cell: this.firstBadCell } : null,
+        grouping,
       },
     };
+  }
+
+  /** Settle an ambiguous "4,150" for the whole pressure column (grouping.ts), or as the caller said. */
+  private settleNumbers(): GroupingDecision | null {
+    const { ambiguous, numbers } = this;
+    if (ambiguous.index.length === 0) return null;
+    const unitWord = UNIT_WORDS[this.firstUnit ?? "micron"];
+    const forced = numbers.decimalMark;
+    if (forced) {
+      // "point": a comma groups thousands; "comma": a point does
+      const large = (forced === "point") === (ambiguous.mark === ",");
+      const d = settleGrouping(this.microns, ambiguous, null, unitWord, large);
+      return d && { ...d, why: `'${ambiguous.example}' read with ${forced === "point" ? "a decimal point (a comma groups thousands)" : "a decimal comma (a point groups thousands)"}, as asked` };
+    }
+    return settleGrouping(this.microns, ambiguous, numbers.hint, unitWord);
   }
 }
 
