@@ -10,6 +10,7 @@ import { diagnose } from "./diagnose";
 import { fitHoldModels } from "./fit";
 import { forecastHold } from "./forecast";
 import { importLog } from "./import";
+import { judgeFieldHolds, lastReadings, spikeMask, spikeSecondsOf } from "./holds";
 import { findPhases } from "./phases";
 import { checkOptions } from "./profile";
 import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFitResult, ImportedLog, LeakRate } from "./types";
@@ -42,17 +43,22 @@ function median(values: number[]): number | null {
   return v.length ? v[v.length >> 1] : null;
 }
 
-/** Highest running median (5 readings, 3 for short holds) of p[from..to] up to time `untilSeconds`. */
-function robustMax(p: number[], from: number, to: number, untilSeconds: number, t: number[]): number {
+/**
+ * Highest running median (5 readings, 3 for short holds) of p[from..to] up to time `untilSeconds`,
+ * readings marked in `skip` (spikes, indexed from `from`) left out.
+ */
+function robustMax(p: number[], from: number, to: number, untilSeconds: number, t: number[], skip: Uint8Array): number {
   const half = to - from + 1 >= 15 ? 2 : 1;
   const w = new Float64Array(5);
   let best = 0;
   for (let i = from; i <= to && t[i] <= untilSeconds; i++) {
+    if (skip[i - from]) continue;
     // the window's median by insertion sort into a fixed buffer (at most 5 readings), no allocation
     const lo = Math.max(i - half, from);
     const hi = Math.min(i + half, to);
     let m = 0;
     for (let j = lo; j <= hi; j++) {
+      if (skip[j - from]) continue;
       const v = p[j];
       let k = m++;
       while (k > 0 && w[k - 1] > v) {
@@ -66,8 +72,8 @@ function robustMax(p: number[], from: number, to: number, untilSeconds: number, 
   return best;
 }
 
-/** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings). */
-function lateSlopePerMinute(t: number[], p: number[], from: number, to: number): number | null {
+/** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings), `skip` left out. */
+function lateSlopePerMinute(t: number[], p: number[], from: number, to: number, skip: Uint8Array): number | null {
   const mid = t[from] + (t[to] - t[from]) / 2;
   let n = 0;
   let sx = 0;
@@ -75,6 +81,7 @@ function lateSlopePerMinute(t: number[], p: number[], from: number, to: number):
   let sxx = 0;
   let sxy = 0;
   for (let i = to; i >= from && t[i] >= mid; i--) {
+    if (skip[i - from]) continue;
     const x = t[i] - mid;
     n++;
     sx += x;
@@ -147,7 +154,9 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     holdSeconds,
   });
   pa.ranges.forEach((r, k) => {
-    pa.phases.holds[k].fit = fitHold(t, p, r.startIndex, r.endIndex);
+    const hold = pa.phases.holds[k];
+    hold.fit = fitHold(t, p, r.startIndex, r.endIndex);
+    hold.spikeSeconds = spikeSecondsOf(hold.fit, t, r.startIndex);
   });
 
   const primary = pa.phases.primary;
@@ -159,8 +168,9 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     const hold = pa.phases.holds[primary];
     fit = hold.fit;
     const observed = hold.endSeconds - hold.isolatedAtSeconds;
-    const maxMicrons = robustMax(p, r.startIndex, r.endIndex, t[r.startIndex] + holdSeconds, t);
-    const tail = p.slice(Math.max(r.endIndex - 2, r.startIndex), r.endIndex + 1).sort((x, y) => x - y);
+    const skip = spikeMask(fit, r.endIndex - r.startIndex + 1);
+    const maxMicrons = robustMax(p, r.startIndex, r.endIndex, t[r.startIndex] + holdSeconds, t, skip);
+    const tail = lastReadings(p, r.startIndex, r.endIndex, skip, 3).sort((x, y) => x - y);
     evidence = {
       holdSeconds: observed,
       readings: r.endIndex - r.startIndex + 1,
@@ -168,7 +178,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
       endMicrons: tail[tail.length >> 1],
       maxMicrons,
       isolationSeen: r.isolationSeen,
-      lateSlopeMicronsPerMinute: lateSlopePerMinute(t, p, r.startIndex, r.endIndex),
+      lateSlopeMicronsPerMinute: lateSlopePerMinute(t, p, r.startIndex, r.endIndex, skip),
     };
     if (fit && chosenFit(fit)) {
       try {
@@ -178,7 +188,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
       }
     }
   }
-  const c = classifyHold(fit, evidence, profile, forecast);
+  const c = judgeFieldHolds(classifyHold(fit, evidence, profile, forecast), pa, t, p, evidence, profile);
 
   let leakRate: LeakRate | null = null;
   if (options.volume && c.decay && c.climbMicronsPerMinute > 0) {

@@ -192,6 +192,10 @@ export interface Hold {
   /** Whether the hold ran to its end (not cut by the end of the log mid-rise …). */
   complete: boolean;
   endedBy: "end_of_log" | "break" | "pulldown";
+  /** Seconds of the first over-range row when the hold climbed out of the gauge's range (a gross leak), else null. */
+  leftRangeAtSeconds?: number | null;
+  /** Seconds of the readings left out of the fit as spikes (one or two wild readings: a bumped hose). */
+  spikeSeconds?: number[];
   fit: HoldFitResult | null;
 }
 
@@ -230,6 +234,8 @@ export interface Decay {
   holdSeconds: number;
   /** 0 when the chosen model has no climb. */
   leakRateMicronsPerMinute: number;
+  /** True when the climb is a lower bound: the hold left the gauge's range, so the rise beyond it is unseen. */
+  leakRateAtLeast?: boolean;
   plateauMicrons: number | null;
   timeConstantSeconds: number | null;
 }

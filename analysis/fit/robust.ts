@@ -7,6 +7,11 @@ import { medianInPlace } from "./median";
 export const SPIKE_K = 5;
 /** Never call more than this fraction of the readings spikes: beyond it the model is wrong, not the points. */
 export const SPIKE_MAX_FRACTION = 0.05;
+/**
+ * …except that a few are always allowed: one or two wild readings (a bumped hose, a hand on the gauge),
+ * perhaps twice, are spikes even in a hand-typed hold of a dozen readings.
+ */
+export const SPIKE_MAX_ALWAYS = 3;
 /** A spike must also be off by more than this many microns (a few resolution steps of a micron gauge). */
 export const SPIKE_MIN_MICRONS = 5;
 
@@ -23,7 +28,8 @@ export const SPIKE_BLOCK_MIN = 100;
  * blocks of max(100, n/20) readings, and a reading is a spike when it lies more than k robust sd from its
  * block's median residual (robust sd = 1.4826·MAD of the block, consistent with σ for Gaussian noise,
  * floored at 1 micron, one resolution step) and is off by more than SPIKE_MIN_MICRONS. If more than
- * SPIKE_MAX_FRACTION of the readings would be flagged, none are (the model is wrong, not the points).
+ * max(SPIKE_MAX_ALWAYS, SPIKE_MAX_FRACTION of the readings) would be flagged, none are (the model is
+ * wrong, not the points).
  * Reference: F. R. Hampel, J. Amer. Statist. Assoc. 69 (1974) 383 (the MAD-based outlier identifier);
  * P. J. Rousseeuw & C. Croux, J. Amer. Statist. Assoc. 88 (1993) 1273 (the 1.4826 factor).
  */
@@ -56,5 +62,5 @@ export function findSpikesInResiduals(resid: Float64Array, k = SPIKE_K): number[
       if (off > k * scale && off > SPIKE_MIN_MICRONS) out.push(i);
     }
   }
-  return out.length > SPIKE_MAX_FRACTION * n ? [] : out;
+  return out.length > Math.max(SPIKE_MAX_ALWAYS, SPIKE_MAX_FRACTION * n) ? [] : out;
 }

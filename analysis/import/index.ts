@@ -31,6 +31,8 @@ const PARSE_CHUNK_CHARS = 1 << 18;
 const MAX_PARSE_CHUNKS = 256;
 /** Fewest usable readings the analysis can work with. */
 export const MIN_READINGS = 5;
+/** Fewest when over-range rows follow the last reading: a gross leak leaves the gauge's range after isolation and two readings. */
+export const MIN_READINGS_LEFT_RANGE = 3;
 /** With no unit named, readings all below this look like Torr or mbar rather than microns. */
 const SMALL_VALUES_LIMIT = 30;
 
@@ -155,7 +157,8 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
     const found = countDataLines(text, layout.headerOffset);
     throw new LogError("too_many_rows", `the file has about ${formatCount(found)} data rows; the limit is ${formatCount(maxRows)}`);
   }
-  if (read.microns.length < MIN_READINGS)
+  const leftRange = read.overRangeRaw.length > 0 && read.rawSeconds.length > 0 && maxOf(read.overRangeRaw) > maxOf(read.rawSeconds);
+  if (read.microns.length < (leftRange ? MIN_READINGS_LEFT_RANGE : MIN_READINGS))
     throw new LogError("too_few_readings", `only ${read.microns.length} usable reading${read.microns.length === 1 ? "" : "s"} (of ${read.rows} rows); at least ${MIN_READINGS} are needed`);
 
   return assemble(read, layout, choice, spec);
@@ -189,6 +192,13 @@ function repeatedStamps(tSeconds: number[]): { duplicates: number; firstDuplicat
       duplicates++;
     }
   return { duplicates, firstDuplicateAt };
+}
+
+/** The largest value (−Infinity for none), in one loop. */
+function maxOf(values: number[]): number {
+  let max = -Infinity;
+  for (let i = 0; i < values.length; i++) if (values[i] > max) max = values[i];
+  return max;
 }
 
 /** The largest reading, or 0 when none is above zero. */
