@@ -66,7 +66,7 @@ function modelInterval(fit: ModelFit, tSeconds: number, observedSeconds: number)
 export function forecastHold(fit: HoldFitResult, observedHoldSeconds: number, atHoldSeconds: number, limitMicrons: number): Forecast {
   const chosen = fit.fits[fit.chosen];
   const all = Object.values(fit.fits).filter((f): f is ModelFit => !!f && Number.isFinite(f.aicc) && f.stopReason !== "non_finite");
-  const bestAicc = Math.min(...all.map((f) => f.aicc));
+  const bestAicc = all.reduce((m, f) => Math.min(m, f.aicc), Infinity);
   const plausible = all.filter((f) => f.aicc <= bestAicc + AICC_MARGIN && f !== chosen);
   const observed = Math.max(observedHoldSeconds, 1e-9);
   const at = (t: number) => {

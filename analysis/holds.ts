@@ -65,7 +65,7 @@ function grossLeak(c: Classification, pa: PhaseAnalysis, t: number[], p: number[
     e.isolationSeen ? `Isolated at ${fmt(e.startMicrons)} microns.` : `The log starts in the hold at ${fmt(e.startMicrons)} microns; the isolation is not in the log.`,
     `It climbed out of the gauge's range ${after < 120 ? `${fmt(after)} seconds` : `${minutes(after)} minutes`} after isolation (last reading in range ${fmt(last)} microns): a gross leak or an open valve, climbing at least ${fmt(rate)} microns per minute.`,
   ];
-  if (both) reasons.push(...c.reasons.slice(1).filter((x) => x.startsWith("It levels off")));
+  if (both) for (const x of c.reasons.slice(1)) if (x.startsWith("It levels off")) reasons.push(x);
   const profileRules = c.profileRules.map((rule) =>
     rule.rule === "leak_rate"
       ? { ...rule, met: false, detail: `climbed at least ${fmt(rate)} microns/min (a leak at ${profile.leakRateMicronsPerMinute} or more)` }

@@ -259,7 +259,7 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
     }
   }
 
-  assumptions.unshift(...spec.assumptions);
+  const all = spec.assumptions.concat(assumptions);
   return {
     timeIndex,
     dateIndex,
@@ -270,7 +270,7 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
     unit,
     unitAssumed,
     time: spec,
-    assumptions,
+    assumptions: all,
     unsure: unsure || spec.unsure,
     unsureReasons: [...(spec.unsure ? [{ code: spec.dated ? "date_order" : "time", message: spec.assumptions[spec.assumptions.length - 1] ?? spec.description } as UnsureReason] : []), ...reasons],
   };

@@ -211,7 +211,7 @@ function largestAboveZero(microns: number[]): number {
 function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice: ReturnType<typeof chooseColumns>, spec: typeof choice.time): ImportedLog {
   const assumptions = [...choice.assumptions];
   if (layout.unitsRow) assumptions.unshift(`units read from the row under the column names (line ${layout.headerLine + 1})`);
-  if (spec !== choice.time) assumptions.push(...spec.assumptions.slice(-1));
+  if (spec !== choice.time && spec.assumptions.length > 0) assumptions.push(spec.assumptions[spec.assumptions.length - 1]);
   let unsure = choice.unsure;
   const n = read.microns.length;
   const t0 = read.firstRaw;

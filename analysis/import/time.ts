@@ -95,10 +95,16 @@ function readMeridiem(secondsOfDay: number): number {
   return isPm ? secondsOfDay + 12 * 3600 : secondsOfDay;
 }
 
-/** Reads an optional zone: Z, UTC, GMT, ±HH, ±HHMM, ±HH:MM → seconds to subtract; NaN if malformed. */
+/** Reads an optional zone: Z, UTC, GMT, ±HH, ±HHMM, ±HH:MM, or UTC/GMT followed by one of those → seconds to subtract; NaN if malformed. */
 function readZone(): number {
   skipSpaces();
   if (pos >= str.length) return 0;
+  const word = str.slice(pos, pos + 3).toUpperCase();
+  if (word === "UTC" || word === "GMT") {
+    pos += 3;
+    skipSpaces();
+    if (pos >= str.length) return 0;
+  }
   const c = str.charCodeAt(pos);
   if (c === 90 || c === 122) {
     pos++;
@@ -122,12 +128,6 @@ function readZone(): number {
       }
     } else return NaN;
     return sign * offset;
-  }
-  const word = str.slice(pos, pos + 3).toUpperCase();
-  if (word === "UTC" || word === "GMT") {
-    pos += 3;
-    const more = readZone();
-    return more;
   }
   return NaN;
 }

@@ -94,7 +94,19 @@ function orderWords(order: DateOrder): string {
   return order === "ymd" ? "year-month-day" : order === "dmy" ? "day/month/year" : "month/day/year";
 }
 
-function dateTimeSpec(samples: string[], order: DateOrder, unsure: boolean, withAlternate: boolean): TimeSpec {
+/** The same spec read the other day/month way, for a guessed order (the retry when a later row disproves it). */
+function withOtherOrder(spec: TimeSpec, order: DateOrder, other: TimeSpec): TimeSpec {
+  other.assumptions.push(`dates read as ${orderWords(order === "dmy" ? "mdy" : "dmy")}: a later row did not fit ${orderWords(order)}`);
+  spec.alternate = other;
+  return spec;
+}
+
+function dateTimeSpec(samples: string[], order: DateOrder, unsure: boolean): TimeSpec {
+  const spec = dateTimeSpecOnce(samples, order, unsure);
+  return unsure && order !== "ymd" ? withOtherOrder(spec, order, dateTimeSpecOnce(samples, order === "dmy" ? "mdy" : "dmy", false)) : spec;
+}
+
+function dateTimeSpecOnce(samples: string[], order: DateOrder, unsure: boolean): TimeSpec {
   const isIso = order === "ymd" && samples.some((s) => /\d[Tt]\d/.test(s));
   const zoned = samples.length > 0 && samples.every((s) => hasZone(s));
   const assumptions: string[] = [];
@@ -111,11 +123,6 @@ function dateTimeSpec(samples: string[], order: DateOrder, unsure: boolean, with
     unsure,
     description: isIso ? `ISO 8601${zoned ? " with zone" : ""}` : `date and time (${orderWords(order)})`,
   };
-  if (withAlternate && unsure && order !== "ymd") {
-    const other: DateOrder = order === "dmy" ? "mdy" : "dmy";
-    spec.alternate = dateTimeSpec(samples, other, false, false);
-    spec.alternate.assumptions.push(`dates read as ${orderWords(other)}: a later row did not fit ${orderWords(order)}`);
-  }
   return spec;
 }
 
@@ -138,27 +145,8 @@ export function detectTimeSpec(
     const found = dateOrderOf(dateSamples, parseDateOnly);
     if (!found || !fits(samples, (s) => parseClock(s) === parseClock(s))) return null;
     const { order, unsure } = found;
-    let lastDateCell = "";
-    let lastDays = NaN;
-    const assumptions = ["times carry no zone: read as local wall time (only differences are used)"];
-    if (unsure) assumptions.push(`dates read as ${orderWords(order)}: every day in the first rows is 12 or less, so the order is a guess`);
-    return {
-      format: "date_and_time",
-      parse: (timeCell, dateCell) => {
-        if (dateCell !== lastDateCell) {
-          lastDateCell = dateCell;
-          lastDays = parseDateOnly(dateCell, order);
-        }
-        return lastDays * 86400 + parseClock(timeCell);
-      },
-      rollover: false,
-      dated: true,
-      zoned: false,
-      alternate: null,
-      assumptions,
-      unsure,
-      description: `separate date (${orderWords(order)}) and time columns`,
-    };
+    const spec = dateAndTimeSpec(order, unsure);
+    return unsure && order !== "ymd" ? withOtherOrder(spec, order, dateAndTimeSpec(order === "dmy" ? "mdy" : "dmy", false)) : spec;
   }
 
   const headerUnit = timeUnitFromHeader(header);
@@ -218,7 +206,7 @@ export function detectTimeSpec(
   }
 
   const found = dateOrderOf(samples, parseDateTime);
-  if (found) return dateTimeSpec(samples, found.order, found.unsure, true);
+  if (found) return dateTimeSpec(samples, found.order, found.unsure);
 
   // Month names ("Jun 14 2026 13:05:00", "14-Jun-2026 1:05 PM"): the engine's date parser, read as UTC wall time.
   if (fits(samples, (s) => /[A-Za-z]{3}/.test(s) && parseNamedMonth(s) === parseNamedMonth(s))) {
@@ -255,6 +243,31 @@ export function detectTimeSpec(
     };
   }
   return duration;
+}
+
+/** Separate date and time columns, the date read in the given order. */
+function dateAndTimeSpec(order: DateOrder, unsure: boolean): TimeSpec {
+  let lastDateCell = "";
+  let lastDays = NaN;
+  const assumptions = ["times carry no zone: read as local wall time (only differences are used)"];
+  if (unsure) assumptions.push(`dates read as ${orderWords(order)}: every day in the first rows is 12 or less, so the order is a guess`);
+  return {
+    format: "date_and_time",
+    parse: (timeCell, dateCell) => {
+      if (dateCell !== lastDateCell) {
+        lastDateCell = dateCell;
+        lastDays = parseDateOnly(dateCell, order);
+      }
+      return lastDays * 86400 + parseClock(timeCell);
+    },
+    rollover: false,
+    dated: true,
+    zoned: false,
+    alternate: null,
+    assumptions,
+    unsure,
+    description: `separate date (${orderWords(order)}) and time columns`,
+  };
 }
 
 /** Elapsed time written with colons, h:mm:ss or mm:ss, minutes past 59 allowed ("75:30"). */
