@@ -36,29 +36,28 @@ export type SeparatorHint = FileDecimalHint | null;
 
 /** Ambiguous cells seen while reading, and the proof either way found in the column. */
 export class AmbiguousCells {
-  /** Reading indices (into the microns read so far) of ambiguous cells, ascending. */
+  /** Reading indices (into the microns read so far) of ambiguous cells, ascending; each was read as its thousands reading. */
   readonly index: number[] = [];
-  /** The cell's digits as an integer (its thousands reading, in the cell's own unit). */
-  readonly digits: number[] = [];
-  /** Microns per unit for that row. */
-  readonly factor: number[] = [];
-  /** The first ambiguous cell as written, and its mark ("," or "."), for the message. */
+  /** The first ambiguous cell as written, its digits as an integer, and its mark ("," or "."), for the message. */
   example = "";
+  exampleDigits = 0;
   mark = "";
+  /** Set by readWatched: the cell just read was ambiguous (its mark in `lastMark`). */
+  last = false;
+  lastMark = "";
   /** Cells that prove a mark's role: a comma or point as the decimal mark, or grouping thousands. */
   commaDecimal = 0;
   commaGroups = 0;
   pointDecimal = 0;
   pointGroups = 0;
 
-  note(readingIndex: number, digits: number, factor: number, cell: string, mark: string): void {
+  note(readingIndex: number, cell: string): void {
     if (this.index.length === 0) {
       this.example = cell.trim();
-      this.mark = mark;
+      this.mark = this.lastMark;
+      this.exampleDigits = Number(this.example.replace(/[,.+]/g, ""));
     }
     this.index.push(readingIndex);
-    this.digits.push(digits);
-    this.factor.push(factor);
   }
 
   /** Proof that the ambiguous mark groups thousands (large) or is the decimal mark (small). */
@@ -69,23 +68,39 @@ export class AmbiguousCells {
   }
 }
 
-/** Set by readWatched when the cell was ambiguous: its digits as an integer (NaN otherwise) and its mark. */
-export let ambiguousDigits = NaN;
-export let ambiguousMark = "";
+/**
+ * The thousands reading of a cell written d[d[d]] mark ddd ("4,150", "12.500"), with the mark at
+ * `markAt`, or NaN when the cell is not in that form (no regular expression: this runs on every reading).
+ */
+function groupedOne(s: string, markAt: number): number {
+  const n = s.length;
+  if (n - markAt !== 4) return NaN;
+  let start = 0;
+  if (s.charCodeAt(0) === 43) start = 1; // '+'
+  const lead = markAt - start;
+  if (lead < 1 || lead > 3) return NaN;
+  let v = 0;
+  for (let i = start; i < n; i++) {
+    if (i === markAt) continue;
+    const d = s.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return NaN;
+    v = v * 10 + d;
+  }
+  return v;
+}
 
-const GROUPED_ONE = /^[+]?(\d{1,3})[,.](\d{3})$/;
 const COMMA_GROUPS = /^[+]?\d{1,3}(,\d{3})+(\.\d+)?$/;
 const POINT_GROUPS = /^[+]?\d{1,3}(\.\d{3})+(,\d+)?$/;
 const SPACE_GROUPS = /^[+]?\d{1,3}([ \u00a0\u202f']\d{3})+$/;
-const COMMA_DECIMAL = /^[+-]?\d*,\d+$/;
 
 /**
  * Read a pressure cell while the column's convention is open. Unambiguous cells are read by their
  * only meaning (and counted as proof); an ambiguous one ("4,150", and "12.500" when `pointMayGroup`)
- * is read as `large` says and reported through ambiguousDigits. Returns NaN for a cell that is no number.
+ * is read as its thousands reading and flagged in `ev.last` (settleGrouping divides it by 1,000 if the
+ * column says so). Returns NaN for a cell that is no number.
  */
-export function readWatched(cell: string, ev: AmbiguousCells, large: boolean, pointMayGroup: boolean): number {
-  ambiguousDigits = NaN;
+export function readWatched(cell: string, ev: AmbiguousCells, pointMayGroup: boolean): number {
+  ev.last = false;
   let s = cell;
   const n = s.length;
   if (n === 0) return NaN;
@@ -97,27 +112,31 @@ export function readWatched(cell: string, ev: AmbiguousCells, large: boolean, po
   if (comma === -1) {
     if (point === -1) return SPACE_GROUPS.test(s) ? Number(s.replace(/[ \u00a0\u202f']/g, "")) : plain(s);
     if (!pointMayGroup || s.length < 5 || s.charCodeAt(s.length - 4) !== 46) {
-      if (POINT_GROUPS.test(s) && s.indexOf(".", point + 1) !== -1) { ev.pointGroups++; return plain(s.split(".").join("")); }
+      if (s.indexOf(".", point + 1) !== -1 && POINT_GROUPS.test(s)) { ev.pointGroups++; return plain(s.split(".").join("")); }
       const v = plain(s);
       if (v === v) ev.pointDecimal++;
       return v;
     }
   }
-  const g = GROUPED_ONE.exec(s);
-  if (g) {
-    if (g[1] === "0") {
-      if (comma !== -1) ev.commaDecimal++;
-      else ev.pointDecimal++;
-      return plain(s.replace(",", "."));
+  const mark = comma !== -1 ? comma : point;
+  if ((comma === -1 || point === -1) && s.indexOf(comma !== -1 ? "," : ".", mark + 1) === -1) {
+    const digits = groupedOne(s, mark);
+    if (digits === digits) {
+      if (mark === (s.charCodeAt(0) === 43 ? 2 : 1) && s.charCodeAt(mark - 1) === 48) {
+        // "0,535": no thousands group starts with a zero
+        if (comma !== -1) ev.commaDecimal++;
+        else ev.pointDecimal++;
+        return digits / 1000;
+      }
+      ev.last = true;
+      ev.lastMark = comma !== -1 ? "," : ".";
+      return digits;
     }
-    const digits = Number(g[1]) * 1000 + Number(g[2]);
-    ambiguousDigits = digits;
-    ambiguousMark = comma !== -1 ? "," : ".";
-    return large ? digits : digits / 1000;
   }
   if (point === -1) {
+    const v = decimalCommaNumber(s, comma);
+    if (v === v) { ev.commaDecimal++; return v; }
     if (COMMA_GROUPS.test(s)) { ev.commaGroups++; return plain(s.split(",").join("")); }
-    if (COMMA_DECIMAL.test(s)) { ev.commaDecimal++; return plain(s.replace(",", ".")); }
     return NaN;
   }
   if (comma === -1) {
@@ -131,6 +150,33 @@ export function readWatched(cell: string, ev: AmbiguousCells, large: boolean, po
   if (comma > point && POINT_GROUPS.test(s)) { ev.pointGroups++; ev.commaDecimal++; return plain(s.split(".").join("").replace(",", ".")); }
   return NaN;
 }
+
+/**
+ * "0,5933" (digits, one comma at `comma`, digits) read without building a new string: the digits as one
+ * integer over a power of ten, which is the correctly rounded value while the integer is below 2^53 (the
+ * same value Number("0.5933") gives). NaN when the cell is not in that form or too long to be exact.
+ */
+function decimalCommaNumber(s: string, comma: number): number {
+  const n = s.length;
+  if (comma === n - 1 || n > 16) return NaN;
+  let start = 0;
+  let sign = 1;
+  const c0 = s.charCodeAt(0);
+  if (c0 === 45 || c0 === 43) {
+    start = 1;
+    if (c0 === 45) sign = -1;
+  }
+  let v = 0;
+  for (let i = start; i < n; i++) {
+    if (i === comma) continue;
+    const d = s.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return NaN;
+    v = v * 10 + d;
+  }
+  return (sign * v) / POWERS_OF_TEN[n - 1 - comma];
+}
+
+const POWERS_OF_TEN = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16];
 
 function plain(s: string): number {
   if (s.length === 0) return NaN;
@@ -153,35 +199,32 @@ export interface GroupingDecision {
   why: string;
 }
 
-/** The ambiguous reading k (in microns) with its mark grouping thousands or not. */
-function valueOf(ev: AmbiguousCells, k: number, large: boolean): number {
-  return (large ? ev.digits[k] : ev.digits[k] / 1000) * ev.factor[k];
+/** An ambiguous reading (microns, read as its thousands reading) with its mark grouping thousands or not. */
+function valueOf(largeMicrons: number, large: boolean): number {
+  return large ? largeMicrons : largeMicrons / 1000;
 }
 
-/** Successive-reading jumps (ratio above JUMP_RATIO) with the ambiguous readings read large, and read small. */
+/**
+ * Successive-reading jumps (ratio above JUMP_RATIO) with the ambiguous readings read large, and read
+ * small. Only pairs of one ambiguous and one plain reading can differ between the two readings of the
+ * column (two ambiguous ones, or two plain ones, keep their ratio either way), so only those are looked
+ * at: O(ambiguous cells), not O(readings).
+ */
 function jumps(microns: number[], ev: AmbiguousCells): { large: number; small: number } {
-  const n = microns.length;
   let large = 0;
   let small = 0;
-  let k = 0;
-  let prevL = NaN;
-  let prevS = NaN;
-  for (let i = 0; i < n; i++) {
-    let vl = microns[i];
-    let vs = vl;
-    if (k < ev.index.length && ev.index[k] === i) {
-      vl = valueOf(ev, k, true);
-      vs = valueOf(ev, k, false);
-      k++;
-    }
-    if (vl > 0 && prevL > 0) {
-      if ((vl > prevL ? vl / prevL : prevL / vl) > JUMP_RATIO) large++;
-      if ((vs > prevS ? vs / prevS : prevS / vs) > JUMP_RATIO) small++;
-    }
-    if (vl > 0) {
-      prevL = vl;
-      prevS = vs;
-    }
+  const idx = ev.index;
+  const m = idx.length;
+  const count = (plainValue: number, ambiguousLarge: number) => {
+    if (!(plainValue > 0 && ambiguousLarge > 0)) return;
+    const small1 = ambiguousLarge / 1000;
+    if ((ambiguousLarge > plainValue ? ambiguousLarge / plainValue : plainValue / ambiguousLarge) > JUMP_RATIO) large++;
+    if ((small1 > plainValue ? small1 / plainValue : plainValue / small1) > JUMP_RATIO) small++;
+  };
+  for (let k = 0; k < m; k++) {
+    const i = idx[k];
+    if (i > 0 && (k === 0 || idx[k - 1] !== i - 1)) count(microns[i - 1], microns[i]);
+    if (i + 1 < microns.length && (k + 1 === m || idx[k + 1] !== i + 1)) count(microns[i + 1], microns[i]);
   }
   return { large, small };
 }
@@ -197,7 +240,10 @@ function plausible(microns: number[], ev: AmbiguousCells, large: boolean): boole
   let k = 0;
   for (let i = 0; i < n; i++) {
     let v = microns[i];
-    if (k < ev.index.length && ev.index[k] === i) v = valueOf(ev, k++, large);
+    if (k < ev.index.length && ev.index[k] === i) {
+      v = valueOf(v, large);
+      k++;
+    }
     if (!(v > 0)) continue;
     if (v < min) min = v;
     if (v > max) max = v;
@@ -215,11 +261,11 @@ function plausible(microns: number[], ev: AmbiguousCells, large: boolean): boole
 export function settleGrouping(microns: number[], ev: AmbiguousCells, hint: SeparatorHint, unitWord: string, forced?: boolean): GroupingDecision | null {
   if (ev.index.length === 0) return null;
   if (forced !== undefined) {
-    for (let k = 0; k < ev.index.length; k++) microns[ev.index[k]] = valueOf(ev, k, forced);
+    if (!forced) for (let k = 0; k < ev.index.length; k++) microns[ev.index[k]] /= 1000;
     return { mark: ev.mark, large: forced, unsure: null, why: "as asked" };
   }
-  const asLarge = groupedInteger(ev.digits[0]);
-  const asSmall = String(ev.digits[0] / 1000);
+  const asLarge = groupedInteger(ev.exampleDigits);
+  const asSmall = String(ev.exampleDigits / 1000);
   const both = `'${ev.example}' is ${asLarge} or ${asSmall} ${unitWord}`;
   const because = (large: boolean, why: string): GroupingDecision => ({ mark: ev.mark, large, unsure: null, why: `${both}: read as ${large ? asLarge : asSmall}, because ${why}` });
   let d: GroupingDecision;
@@ -241,6 +287,6 @@ export function settleGrouping(microns: number[], ev: AmbiguousCells, hint: Sepa
       d = { mark: ev.mark, large: true, unsure: { code: "decimal_mark", message }, why: message };
     }
   }
-  for (let k = 0; k < ev.index.length; k++) microns[ev.index[k]] = valueOf(ev, k, d.large);
+  if (!d.large) for (let k = 0; k < ev.index.length; k++) microns[ev.index[k]] /= 1000;
   return d;
 }

@@ -8,8 +8,9 @@ import type { PressureUnit } from "../types";
 import { micronsPerUnit, parsePressureUnit } from "../units";
 import type { ColumnChoice } from "./columns";
 import { gaugeError, unknownUnitError } from "./columns";
-import { AmbiguousCells, ambiguousDigits, ambiguousMark, readWatched, settleGrouping, type GroupingDecision, type SeparatorHint } from "./grouping";
+import { AmbiguousCells, readWatched, settleGrouping, type GroupingDecision } from "./grouping";
 import { classifyNonNumber, parseReading } from "./numbers";
+import type { FileDecimalHint } from "./decimal";
 import type { TimeSpec } from "./timespec";
 
 /** A dash cell ("---") is taken as over-range when the nearest reading is at least this high (microns). */
@@ -50,7 +51,7 @@ export interface RowsRead {
 
 /** How the pressure column's numbers are to be settled: the file's lean, a forced answer, and whether a point may group thousands. */
 export interface NumberSettings {
-  hint: SeparatorHint;
+  hint: FileDecimalHint | null;
   /** From the caller: "point" (a comma groups thousands) or "comma" (a comma is the decimal mark). */
   decimalMark?: "point" | "comma";
   pointMayGroup: boolean;
@@ -186,9 +187,9 @@ export class RowReader {
       }
 
       const cell = row[pressureIndex];
-      const v = cell === undefined ? NaN : readWatched(cell, ambiguous, true, pointMayGroup);
+      const v = cell === undefined ? NaN : readWatched(cell, ambiguous, pointMayGroup);
       if (v === v && v >= 0 && factor === factor) {
-        if (ambiguousDigits === ambiguousDigits) ambiguous.note(microns.length, ambiguousDigits, factor, cell, ambiguousMark);
+        if (ambiguous.last) ambiguous.note(microns.length, cell);
         rawSeconds.push(t);
         microns.push(v * factor);
         if (temperatureC !== null) {

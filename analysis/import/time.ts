@@ -171,8 +171,8 @@ let cachedDaySeconds = NaN;
  * space instead of T). The date's day count is cached by its digits, so a log of one day computes it
  * once. NaN = not this exact form (the general parser then decides).
  */
-function parseIsoFast(s: string): number {
-  let n = s.length;
+function parseIsoFast(s: string, length = s.length): number {
+  let n = length;
   let fraction = 0;
   if (n === 23 || n === 24) {
     // ".sss" milliseconds
@@ -213,6 +213,24 @@ function parseIsoFast(s: string): number {
 }
 
 /**
+ * Fixed-position fast path for "YYYY-MM-DDTHH:MM:SS±HH:MM" and "…±HHMM" (ISO 8601 with an offset from
+ * UTC): the stamp less the offset, seconds since 1970 UTC. NaN = not this exact form.
+ */
+function parseIsoOffsetFast(s: string): number {
+  const n = s.length;
+  const sign = s.charCodeAt(19);
+  if ((n !== 25 && n !== 24) || (sign !== 43 && sign !== 45)) return NaN;
+  if (n === 25 && s.charCodeAt(22) !== 58) return NaN;
+  const m0 = n === 25 ? 23 : 22;
+  const h0 = s.charCodeAt(20) - 48, h1 = s.charCodeAt(21) - 48, i0 = s.charCodeAt(m0) - 48, i1 = s.charCodeAt(m0 + 1) - 48;
+  if (!(h0 >= 0 && h0 <= 9 && h1 >= 0 && h1 <= 9 && i0 >= 0 && i0 <= 5 && i1 >= 0 && i1 <= 9)) return NaN;
+  const base = parseIsoFast(s, 19);
+  if (base !== base) return NaN;
+  const offset = (h0 * 10 + h1) * 3600 + (i0 * 10 + i1) * 60;
+  return sign === 45 ? base + offset : base - offset;
+}
+
+/**
  * Parse a date-and-time stamp: ISO 8601 ("2026-06-14T13:05:00Z", "2026-06-14 13:05:00.5+02:00")
  * or a day-first / month-first form ("14/06/2026 13:05:00", "6/14/2026 1:05:00 PM").
  * Returns seconds since 1970 (UTC when a zone is given, wall time otherwise), or NaN.
@@ -221,6 +239,8 @@ export function parseDateTime(cell: string, order: DateOrder): number {
   if (order === "ymd") {
     const fast = parseIsoFast(cell);
     if (fast === fast) return fast;
+    const zoned = parseIsoOffsetFast(cell);
+    if (zoned === zoned) return zoned;
   }
   str = cell;
   pos = 0;
