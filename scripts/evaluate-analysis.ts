@@ -1,7 +1,9 @@
 /**
  * Evaluation of the analysis on a fresh simulated set (seeds never used while tuning: 900001…).
  * Prints verdict accuracy with a confusion matrix, isolation within max(3 samples, 45 s), median
- * leak-rate and plateau errors, and the early-call rate at minute 4 of a 10-minute hold on clear cases.
+ * leak-rate and plateau errors, and the early-call rate at minute 4 of a 10-minute hold on clear cases;
+ * then the same figures on field logs (evaluate-field.ts: every layout, field artifacts, typed and
+ * out-of-range scenarios; seeds from firstSeed + 100,000) with accuracy per artifact and per layout.
  *
  *   tsx scripts/evaluate-analysis.ts [count=500] [firstSeed=900001] [--readings] [--misses]
  *
@@ -12,6 +14,7 @@ import { analyzeLog, analyzeReadings } from "../analysis";
 import { SCENARIOS, simulateLog, simulatedAsImported, type Scenario, type SimulatedLog } from "../analysis/simulate";
 import type { AnalysisResult, Verdict } from "../analysis/types";
 import { DEFAULT_PROFILE } from "../analysis/profile";
+import { evaluateField } from "./evaluate-field";
 
 const count = Number(process.argv[2] ?? 500);
 const firstSeed = Number(process.argv[3] ?? 900001);
@@ -114,3 +117,4 @@ for (const tv of VERDICTS) {
   console.log([tv, ...[...VERDICTS, "error"].map((rv) => String(confusion.get(`${tv}→${rv}`) ?? 0))].map((s) => s.padEnd(18)).join(""));
 }
 if (process.argv.includes("--misses")) console.log(misses.join("\n"));
+console.log(evaluateField(count, firstSeed + 100_000, (sim) => analyse(sim), process.argv.includes("--misses")).join("\n"));

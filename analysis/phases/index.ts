@@ -99,7 +99,11 @@ function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBi
   const sample = Math.max((t[to] - t[from]) / Math.max(to - from, 1), 1e-9);
   const reach = Math.max(2, Math.ceil(90 / sample));
   const lo = Math.max(from, bins.start[first] - reach);
-  const hi = Math.min(to, bins.start[last + 1] - 1 + reach);
+  // on the right, over the whole floor (bins within half the threshold of the trough, before the rise):
+  // a long flat floor may hold the corner beyond the bins that tie with the trough
+  let floor = last;
+  while (floor + 1 < Math.min(endBin, r) && y[floor + 1] <= yb + threshold / 2) floor++;
+  const hi = Math.min(to, bins.start[Math.max(last, floor) + 1] - 1 + reach);
   return hingeSplit(t, p, from, to, trough, lo, hi);
 }
 
