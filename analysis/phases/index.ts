@@ -42,8 +42,15 @@ export interface PhaseAnalysis {
   pulldownRange: { startIndex: number; endIndex: number } | null;
 }
 
-/** A hold cut short by a new pull-down must last this long to count (shorter rises are hops). */
+/**
+ * A hold cut short by a new pull-down counts when it lasted this long, or at least SHORT_REPULL_SECONDS
+ * with a rise of SHORT_REPULL_RISE_MICRONS or more: a technician who sees a brisk rise may open to the
+ * pump again within two minutes, while oil hopping in the coil moves the reading tens of microns for
+ * under a minute or so (common practice, no published source).
+ */
 const MIN_REPULL_HOLD_SECONDS = 180;
+const SHORT_REPULL_SECONDS = 90;
+const SHORT_REPULL_RISE_MICRONS = 100;
 
 function firstIndexAtOrAfter(t: ArrayLike<number>, seconds: number): number {
   const i = lastIndexAtOrBefore(t, seconds);
@@ -185,11 +192,9 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
   // keep real holds; overrides move the isolation of the hold that contains it
   // a re-pull after a real hold comes minutes later; shorter rises inside a pull-down are hops
   // a hold that climbs out of the gauge's range counts with three readings, however short (a gross leak)
-  let holdsIdx = candidates.filter(
-    (c) =>
-      c.end - c.start >= 2 &&
-      (c.leftRangeAt !== null || t[c.end] - t[c.start] >= (c.endedBy === "pulldown" ? Math.max(minHoldSeconds, MIN_REPULL_HOLD_SECONDS) : minHoldSeconds)),
-  );
+  const long = (c: Candidate) => t[c.end] - t[c.start] >= (c.endedBy === "pulldown" ? Math.max(minHoldSeconds, MIN_REPULL_HOLD_SECONDS) : minHoldSeconds);
+  const briskRepull = (c: Candidate) => c.endedBy === "pulldown" && t[c.end] - t[c.start] >= Math.max(minHoldSeconds, SHORT_REPULL_SECONDS) && p[c.end] - p[c.start] >= SHORT_REPULL_RISE_MICRONS;
+  let holdsIdx = candidates.filter((c) => c.end - c.start >= 2 && (c.leftRangeAt !== null || long(c) || briskRepull(c)));
   if (options.isolationAtSeconds !== undefined && !options.holdWindow) {
     const s = firstIndexAtOrAfter(t, options.isolationAtSeconds);
     const host = candidates.find((c) => c.end >= s) ?? null;
