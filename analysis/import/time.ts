@@ -77,6 +77,8 @@ function readClock(maxHours: number): number {
     }
   }
   if (h > maxHours) return NaN;
+  // a clock reads 24:00 only as the end of the day (ISO 8601:2019 §5.3.2); "24:15" is minutes and seconds
+  if (maxHours === 24 && h === 24 && (m !== 0 || s !== 0)) return NaN;
   return h * 3600 + m * 60 + s;
 }
 
