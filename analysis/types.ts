@@ -76,6 +76,8 @@ export interface UnsureReason {
   /** decimal_mark: thousands separator or decimal comma; unit: no unit named; time: time unit or format guessed; columns: a column guessed; date_order: day/month order guessed. */
   code: "decimal_mark" | "unit" | "time" | "columns" | "date_order";
   message: string;
+  /** For decimal_mark: the two readings of the example cell, each with the importer option that gives it. */
+  choices?: { decimalMark: "point" | "comma"; cell: string; reads: string }[];
 }
 
 /** What the importer read and what it had to assume. */

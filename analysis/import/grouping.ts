@@ -284,7 +284,14 @@ export function settleGrouping(microns: number[], ev: AmbiguousCells, hint: Sepa
     else if (hint && hint.decimal !== ev.mark) d = because(true, hint.why);
     else {
       const message = `${both}: nothing in the file tells which; read as ${asLarge} (the larger reading cannot pass a leaking or wet system by mistake). Confirm how the readings are written.`;
-      d = { mark: ev.mark, large: true, unsure: { code: "decimal_mark", message }, why: message };
+      // "point" makes a comma group thousands; "comma" makes a comma the decimal mark (and a point group thousands)
+      const largeMark = ev.mark === "," ? "point" : "comma";
+      const smallMark = ev.mark === "," ? "comma" : "point";
+      const choices = [
+        { decimalMark: largeMark, cell: ev.example, reads: `${asLarge} ${unitWord}` },
+        { decimalMark: smallMark, cell: ev.example, reads: `${asSmall} ${unitWord}` },
+      ] as NonNullable<UnsureReason["choices"]>;
+      d = { mark: ev.mark, large: true, unsure: { code: "decimal_mark", message, choices }, why: message };
     }
   }
   if (!d.large) for (let k = 0; k < ev.index.length; k++) microns[ev.index[k]] /= 1000;
