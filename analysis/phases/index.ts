@@ -11,7 +11,7 @@
 import type { Hold, Phases } from "../types";
 import { findBreak, joinSpikeSplits, lastIndexAtOrBefore } from "./breaks";
 import { hingeSplit } from "./hinge";
-import { binReadings, medianIntervalSeconds, relativeNoise, zigzag, type Bins } from "./smooth";
+import { binReadings, medianIntervalSeconds, relativeNoise, removeShortExcursions, resolutionMicrons, zigzag, type Bins } from "./smooth";
 
 export { medianIntervalSeconds, relativeNoise } from "./smooth";
 
@@ -76,7 +76,7 @@ function argmaxMedian3(p: ArrayLike<number>, from: number, to: number): number {
 }
 
 /** Place the isolation near trough bin `b` with a change-point fit on the raw readings. */
-function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBin: number, endBin: number, threshold: number, endIndex: number, noiseLog: number): number {
+function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBin: number, endBin: number, threshold: number, endIndex: number, noiseLog: number, stepMicrons: number): number {
   const y = bins.logMicrons;
   const yb = y[b];
   let peak = yb;
@@ -111,7 +111,32 @@ function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBi
   let floor = last;
   while (floor + 1 < Math.min(endBin, r) && y[floor + 1] <= yb + threshold / 2) floor++;
   const hi = Math.min(to, bins.start[Math.max(last, floor) + 1] - 1 + reach);
-  return hingeSplit(t, p, from, to, trough, lo, hi);
+  const split = hingeSplit(t, p, from, to, trough, lo, hi);
+  return stepMicrons >= COARSE_STEP_MICRONS ? endOfFloor(p, split, endIndex) : split;
+}
+
+/** A display step this coarse (microns) hides the corner in a run of equal readings. */
+const COARSE_STEP_MICRONS = 5;
+/** Readings above the floor in a row that end it (one alone is a flicker between two steps). */
+const FLOOR_END_READINGS = 3;
+
+/**
+ * On a coarse gauge the pull-down's last step and the start of the rise read the same, so the two-line
+ * fit puts the corner at the start of that run of equal readings; the pump was valved off at its end,
+ * where the readings leave the floor for good (FLOOR_END_READINGS in a row above it). The floor is the
+ * reading at the split. Common practice, no published source.
+ */
+function endOfFloor(p: number[], split: number, endIndex: number): number {
+  const floor = p[split];
+  let last = split;
+  let above = 0;
+  for (let i = split + 1; i <= endIndex; i++) {
+    if (p[i] <= floor) {
+      last = i;
+      above = 0;
+    } else if (++above >= FLOOR_END_READINGS) break;
+  }
+  return last;
 }
 
 interface Candidate {
@@ -154,7 +179,10 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
     const bins = binReadings(t, p);
     const sigmaLog = noiseFraction / Math.LN10;
     const threshold = Math.max(Math.log10(1.15), 4 * sigmaLog);
-    const pivots = zigzag(bins.logMicrons, threshold);
+    removeShortExcursions(bins.logMicrons, threshold);
+    // a coarse gauge flickers between two steps: a turn must move more than two and a half of them
+    const step = resolutionMicrons(p);
+    const pivots = zigzag(bins.logMicrons, threshold, step >= 5 ? 2.5 * step : 0);
     let prevPeakBin = 0;
     let sawFall = false;
     for (let k = 0; k < pivots.length; k++) {
@@ -177,7 +205,7 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
       let start = 0;
       let seen = false;
       if (fallBefore) {
-        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog);
+        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog, step);
         seen = start > 0;
       }
       if (end <= start) end = Math.min(start + 1, n - 1);

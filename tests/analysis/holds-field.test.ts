@@ -171,3 +171,35 @@ describe("holds robust to the field (common practice, no published source)", () 
     expect(r.decay!.leakRateAtLeast).toBe(true);
   });
 });
+
+describe("phase helpers for field logs (common practice, no published source)", () => {
+  it("a two-reading spike and a two-reading dip in a sparse log (one reading a minute) are taken out of the smoothed series; a turn of the curve is kept", async () => {
+    const { removeShortExcursions } = await import("@/analysis/phases/smooth");
+    const y = Float64Array.from([3.36, 3.36, 3.87, 3.86, 3.36, 3.37, 3.0, 3.0, 3.37, 3.37].map((v) => v));
+    expect(removeShortExcursions(y, 0.06)).toBe(4);
+    for (const v of y) expect(v).toBeGreaterThan(3.3);
+    const turn = Float64Array.from([4.3, 3.9, 3.4, 2.5, 2.6, 2.8, 3.0]);
+    expect(removeShortExcursions(turn, 0.06)).toBe(0);
+  });
+
+  it("the display step of a coarse gauge is found from the readings below 1,000 microns: 100, 10 or 1", async () => {
+    const { resolutionMicrons } = await import("@/analysis/phases/smooth");
+    const base = Array.from({ length: 200 }, (_, i) => 250 + 3 * Math.sin(i) + i);
+    expect(resolutionMicrons(base.map((v) => Math.round(v / 100) * 100))).toBe(100);
+    expect(resolutionMicrons(base.map((v) => Math.round(v / 10) * 10))).toBe(10);
+    expect(resolutionMicrons(base.map((v) => Math.round(v)))).toBe(1);
+  });
+
+  it("on a coarse gauge the isolation is the end of the run of equal readings at the floor, where the rise leaves it", () => {
+    const t: number[] = [];
+    const p: number[] = [];
+    for (let s = 0; s <= 3600; s += 10) {
+      const v = s <= 2400 ? 120 + 20000 * Math.exp(-s / 200) : 120 + 900 * (1 - Math.exp(-(s - 2400) / 300));
+      t.push(s);
+      p.push(Math.max(100, Math.round(v / 100) * 100));
+    }
+    const r = analyzeReadings(readings(t, p));
+    expect(Math.abs(r.isolationAt! - 2400)).toBeLessThanOrEqual(60);
+    expect(r.verdict).toBe("moisture");
+  });
+});
