@@ -138,7 +138,7 @@ export function pulldownFindings(ctx: DiagnoseContext): Finding[] {
 }
 
 /** Longest stretch whose readings stay within ±6 % inside [lo, hi] microns (two-pointer scan, O(n)). */
-function longestStall(v: number[], at: (k: number) => number, lo: number, hi: number): { seconds: number; microns: number; startSeconds: number; endK: number } | null {
+function longestStall(v: ArrayLike<number>, at: (k: number) => number, lo: number, hi: number): { seconds: number; microns: number; startSeconds: number; endK: number } | null {
   let best: { seconds: number; microns: number; startSeconds: number; endK: number } | null = null;
   let s = 0;
   for (let k = 0; k < v.length; k++) {

@@ -103,6 +103,17 @@ function isPlainRow(cells: string[]): boolean {
 /** Split one line on a delimiter, honouring double quotes ("a,b" is one cell; "" is a quote). */
 export function splitLine(line: string, delimiter: string): string[] {
   if (line.indexOf('"') === -1) return line.split(delimiter);
+  // every cell quoted, no quote or delimiter inside one ("00:10"<TAB>"4,150"): split and unwrap
+  const simple = line.split(delimiter);
+  let plainQuoted = true;
+  for (let k = 0; k < simple.length && plainQuoted; k++) {
+    const c = simple[k];
+    if (c.length < 2 || c.charCodeAt(0) !== 34 || c.charCodeAt(c.length - 1) !== 34 || c.indexOf('"', 1) !== c.length - 1) plainQuoted = false;
+  }
+  if (plainQuoted) {
+    for (let k = 0; k < simple.length; k++) simple[k] = simple[k].slice(1, -1);
+    return simple;
+  }
   const cells: string[] = [];
   let cell = "";
   let quoted = false;
