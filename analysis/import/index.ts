@@ -16,6 +16,7 @@ import { chooseColumns } from "./columns";
 import { duplicatesFinding, reorderedFinding } from "./findings";
 import { RowReader, type NumberSettings, type RowsRead, type RowsResult } from "./rows";
 import type { TimeSpec } from "./timespec";
+import { plainQuotedCells } from "./quotes";
 import { sniffLayout } from "./sniff";
 
 /** 64 MiB: a 24-hour 1 Hz log is about 2.5 MB, so this leaves a wide margin. */
@@ -98,6 +99,8 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
     throw new LogError("too_few_readings", `only 0 usable readings: the file has a header (line ${layout.headerLine + 1}) but no data rows; at least ${MIN_READINGS} are needed`, { line: layout.headerLine + 1 });
   const choice = chooseColumns(layout, options);
   const body = layout.headerOffset === 0 ? text : text.slice(layout.headerOffset);
+  // every cell quoted and the quotes carry nothing: papaparse's fast path, quotes taken off as read (quotes.ts)
+  const quotedOnly = plainQuotedCells(body, layout.delimiter);
   const firstLine = layout.headerLine + 1;
   const numbers: NumberSettings = {
     hint: layout.decimalHint,
@@ -106,7 +109,7 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
     pointMayGroup: options.decimalMark === "comma" || (options.decimalMark === undefined && layout.decimalHint?.decimal === ","),
   };
   const readWith = (timeSpec: TimeSpec): RowsResult => {
-    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length, numbers);
+    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length, numbers, quotedOnly);
     // Rows are read a chunk at a time and dropped after, so the parsed cells die young (cheap
     // to collect) instead of a table of every row being held to the end. At most maxRows + 2
     // rows (header and one over the limit) are read, as with a whole-text parse with `preview`.
@@ -129,6 +132,7 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
       newline: layout.newline,
       header: false,
       skipEmptyLines: false,
+      ...(quotedOnly ? { fastMode: true } : {}),
       preview: rowsLeft,
       chunkSize: Math.max(chunkChars, Math.ceil(body.length / MAX_PARSE_CHUNKS)),
       chunk,

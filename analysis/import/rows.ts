@@ -101,6 +101,8 @@ export class RowReader {
     private readonly firstLine: number,
     private readonly fieldCount: number,
     private readonly numbers: NumberSettings = { hint: null, pointMayGroup: false },
+    /** Every cell arrives with its quotes on (papaparse's fast path on a fully quoted file): take them off. */
+    private readonly unwrap = false,
   ) {
     this.temperatureC = choice.temperatureIndex >= 0 ? [] : null;
     this.factor = choice.unit ? micronsPerUnit(choice.unit) : NaN;
@@ -121,9 +123,10 @@ export class RowReader {
     const base = this.index; // row index (0 = header) of rows[0]
     let k = 0;
     if (base === 0 && rows.length > 0) {
-      this.header = rows[0];
+      this.header = this.unwrap ? rows[0].map((c) => unquote(c) ?? "") : rows[0];
       k = 1;
     }
+    const unwrap = this.unwrap;
     const header = this.header;
     let { factor, firstUnit, lastUnitCell, unitsSeen, firstRaw, prevRaw, dayOffset, count, skipped, ignoredLines, firstBad, badRows, lastGood, underRange } = this;
 
@@ -134,7 +137,7 @@ export class RowReader {
         if (row[0].trim().length > 0) ignoredLines++;
         continue;
       }
-      const timeCell = row[timeIndex];
+      const timeCell = unwrap ? unquote(row[timeIndex]) : row[timeIndex];
       if (timeCell === undefined || (timeCell.length === 0 && (dateIndex < 0 || row[dateIndex] === ""))) {
         // A row with no time at all cannot be placed; count it as read and skipped.
         if (row.join("").trim().length === 0) continue;
@@ -142,10 +145,11 @@ export class RowReader {
         skipped++;
         continue;
       }
-      let t = parse(timeCell, dateIndex >= 0 ? (row[dateIndex] ?? "") : "");
+      const dateCell = dateIndex >= 0 ? (unwrap ? unquote(row[dateIndex]) : row[dateIndex]) ?? "" : "";
+      let t = parse(timeCell, dateCell);
       if (t !== t) {
         const trimmed = timeCell.trim();
-        if (trimmed !== timeCell) t = parse(trimmed, dateIndex >= 0 ? (row[dateIndex] ?? "").trim() : "");
+        if (trimmed !== timeCell) t = parse(trimmed, dateCell.trim());
         if (t !== t) {
           // The header again (logs joined from two exports): not data.
           if (trimmed === (header[timeIndex] ?? "").trim()) {
@@ -173,7 +177,7 @@ export class RowReader {
       count++;
 
       if (unitIndex >= 0) {
-        const unitCell = row[unitIndex] ?? "";
+        const unitCell = (unwrap ? unquote(row[unitIndex]) : row[unitIndex]) ?? "";
         if (unitCell !== lastUnitCell && unitCell.trim().length > 0) {
           const parsed = parsePressureUnit(unitCell);
           if (!parsed) throw lineError(unknownUnitError(header[unitIndex] ?? "unit", unitCell.trim()), firstLine + i);
@@ -186,14 +190,14 @@ export class RowReader {
         }
       }
 
-      const cell = row[pressureIndex];
+      const cell = unwrap ? unquote(row[pressureIndex]) : row[pressureIndex];
       const v = cell === undefined ? NaN : readWatched(cell, ambiguous, pointMayGroup);
       if (v === v && v >= 0 && factor === factor) {
-        if (ambiguous.last) ambiguous.note(microns.length, cell);
+        if (ambiguous.last) ambiguous.note(microns.length, cell as string);
         rawSeconds.push(t);
         microns.push(v * factor);
         if (temperatureC !== null) {
-          const tc = parseReading(row[temperatureIndex] ?? "", decimalComma);
+          const tc = parseReading((unwrap ? unquote(row[temperatureIndex]) : row[temperatureIndex]) ?? "", decimalComma);
           temperatureC.push(temperatureFahrenheit ? ((tc - 32) * 5) / 9 : tc);
         }
       } else {
@@ -279,6 +283,11 @@ export class RowReader {
     }
     return settleGrouping(this.microns, ambiguous, numbers.hint, unitWord);
   }
+}
+
+/** A cell without its surrounding quotes ('"4,150"' → "4,150"); undefined stays undefined. */
+function unquote(cell: string | undefined): string | undefined {
+  return cell !== undefined && cell.length >= 2 && cell.charCodeAt(0) === 34 ? cell.slice(1, -1) : cell;
 }
 
 function lineError(e: LogError, line: number): LogError {
