@@ -16,7 +16,6 @@ import { chooseColumns } from "./columns";
 import { duplicatesFinding, reorderedFinding } from "./findings";
 import { RowReader, type NumberSettings, type RowsRead, type RowsResult } from "./rows";
 import type { TimeSpec } from "./timespec";
-import { plainQuotedCells } from "./quotes";
 import { sniffLayout } from "./sniff";
 
 /** 64 MiB: a 24-hour 1 Hz log is about 2.5 MB, so this leaves a wide margin. */
@@ -99,8 +98,9 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
     throw new LogError("too_few_readings", `only 0 usable readings: the file has a header (line ${layout.headerLine + 1}) but no data rows; at least ${MIN_READINGS} are needed`, { line: layout.headerLine + 1 });
   const choice = chooseColumns(layout, options);
   const body = layout.headerOffset === 0 ? text : text.slice(layout.headerOffset);
-  // every cell quoted and the quotes carry nothing: papaparse's fast path, quotes taken off as read (quotes.ts)
-  const quotedOnly = plainQuotedCells(body, layout.delimiter);
+  // a header quoted cell by cell: try papaparse's fast path, the row reader taking the quotes off and
+  // giving up (for the quote-aware path) at the first row that shows a quote carried something (rows.ts)
+  let fast = body.charCodeAt(0) === 34 && layout.delimiter.length === 1;
   const firstLine = layout.headerLine + 1;
   const numbers: NumberSettings = {
     hint: layout.decimalHint,
@@ -109,13 +109,21 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
     pointMayGroup: options.decimalMark === "comma" || (options.decimalMark === undefined && layout.decimalHint?.decimal === ","),
   };
   const readWith = (timeSpec: TimeSpec): RowsResult => {
-    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length, numbers, quotedOnly);
+    const result = readOnce(timeSpec, fast);
+    if (result !== null) return result;
+    fast = false;
+    return readOnce(timeSpec, false)!;
+  };
+  /** One pass; null when the fast path met a row whose quotes carried something. */
+  const readOnce = (timeSpec: TimeSpec, quotedFast: boolean): RowsResult | null => {
+    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length, numbers, quotedFast);
     // Rows are read a chunk at a time and dropped after, so the parsed cells die young (cheap
     // to collect) instead of a table of every row being held to the end. At most maxRows + 2
     // rows (header and one over the limit) are read, as with a whole-text parse with `preview`.
     let rowsLeft = maxRows + 2;
     const chunk = (results: Papa.ParseResult<string[]>, parser: Papa.Parser): void => {
       const rows = results.data;
+      if (reader.notPlain) return;
       if (rows.length >= rowsLeft) {
         reader.addRows(rows.length > rowsLeft ? rows.slice(0, rowsLeft) : rows);
         rowsLeft = 0;
@@ -124,6 +132,7 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
       }
       rowsLeft -= rows.length;
       reader.addRows(rows);
+      if (reader.notPlain) parser.abort();
     };
     // papaparse's string streamer honours chunkSize and calls `chunk` synchronously, before
     // parse returns; its typings only list chunked parsing for files, hence the widened type.
@@ -132,13 +141,13 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
       newline: layout.newline,
       header: false,
       skipEmptyLines: false,
-      ...(quotedOnly ? { fastMode: true } : {}),
+      ...(quotedFast ? { fastMode: true } : {}),
       preview: rowsLeft,
       chunkSize: Math.max(chunkChars, Math.ceil(body.length / MAX_PARSE_CHUNKS)),
       chunk,
     };
     Papa.parse<string[]>(body, config);
-    return reader.finish();
+    return reader.notPlain ? null : reader.finish();
   };
 
   let spec = choice.time;

@@ -93,6 +93,8 @@ export class RowReader {
   private lastGood = -1;
   private underRange = 0;
   private readonly ambiguous = new AmbiguousCells();
+  /** On the fast path, a row showed that the quotes carry something: read the file again the quote-aware way. */
+  notPlain = false;
 
   constructor(
     private readonly choice: ColumnChoice,
@@ -101,7 +103,11 @@ export class RowReader {
     private readonly firstLine: number,
     private readonly fieldCount: number,
     private readonly numbers: NumberSettings = { hint: null, pointMayGroup: false },
-    /** Every cell arrives with its quotes on (papaparse's fast path on a fully quoted file): take them off. */
+    /**
+     * Cells arrive with their quotes on (papaparse's fast path, a plain split, on a file quoted cell by
+     * cell): take them off, and stop (`notPlain`) at the first row that shows a quote carried something —
+     * a delimiter or line break inside a cell gives a row of another length or a last cell not closed.
+     */
     private readonly unwrap = false,
   ) {
     this.temperatureC = choice.temperatureIndex >= 0 ? [] : null;
@@ -122,17 +128,25 @@ export class RowReader {
     const rollover = this.spec.rollover;
     const base = this.index; // row index (0 = header) of rows[0]
     let k = 0;
+    const unwrap = this.unwrap;
     if (base === 0 && rows.length > 0) {
-      this.header = this.unwrap ? rows[0].map((c) => unquote(c) ?? "") : rows[0];
+      if (unwrap && !plainQuotedRow(rows[0], fieldCount)) {
+        this.notPlain = true;
+        return;
+      }
+      this.header = unwrap ? rows[0].map((c) => unquote(c) ?? "") : rows[0];
       k = 1;
     }
-    const unwrap = this.unwrap;
     const header = this.header;
     let { factor, firstUnit, lastUnitCell, unitsSeen, firstRaw, prevRaw, dayOffset, count, skipped, ignoredLines, firstBad, badRows, lastGood, underRange } = this;
 
     for (; k < rows.length; k++) {
       const row = rows[k];
       const i = base + k;
+      if (unwrap && !plainQuotedRow(row, fieldCount)) {
+        this.notPlain = true;
+        return;
+      }
       if (row.length === 1 && fieldCount > 1) {
         if (row[0].trim().length > 0) ignoredLines++;
         continue;
@@ -283,6 +297,21 @@ export class RowReader {
     }
     return settleGrouping(this.microns, ambiguous, numbers.hint, unitWord);
   }
+}
+
+/**
+ * A row of a quoted-cell file split plainly that a quote-aware parse would give the same: as many cells
+ * as the header, each opening and closing with a quote and holding none (a blank line is fine).
+ */
+function plainQuotedRow(row: string[], fieldCount: number): boolean {
+  if (row.length === 1 && row[0].length === 0) return true;
+  if (row.length !== fieldCount) return false;
+  for (let j = 0; j < row.length; j++) {
+    const c = row[j];
+    const n = c.length;
+    if (n < 2 || c.charCodeAt(0) !== 34 || c.charCodeAt(n - 1) !== 34 || c.indexOf('"', 1) !== n - 1) return false;
+  }
+  return true;
 }
 
 /** A cell without its surrounding quotes ('"4,150"' → "4,150"); undefined stays undefined. */

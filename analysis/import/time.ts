@@ -292,8 +292,44 @@ export function parseClock(cell: string): number {
   return s === s && atEnd() ? s : NaN;
 }
 
+/**
+ * Fast path for a stopwatch cell of digits only: m+:ss or h+:mm:ss, minutes and seconds two digits each
+ * and under 60 → seconds; NaN for anything else (the general reader below then decides).
+ */
+function colonDurationFast(s: string): number {
+  const n = s.length;
+  if (n < 4 || n > 12) return NaN;
+  const c2 = s.charCodeAt(n - 3);
+  if (c2 !== 58) return NaN;
+  const s0 = s.charCodeAt(n - 2) - 48, s1 = s.charCodeAt(n - 1) - 48;
+  if (!(s0 >= 0 && s0 <= 5 && s1 >= 0 && s1 <= 9)) return NaN;
+  let head = n - 3; // digits before the last colon
+  let minutes = 0;
+  let hours = 0;
+  let hasHours = false;
+  if (head >= 4 && s.charCodeAt(head - 3) === 58) {
+    const m0 = s.charCodeAt(head - 2) - 48, m1 = s.charCodeAt(head - 1) - 48;
+    if (!(m0 >= 0 && m0 <= 5 && m1 >= 0 && m1 <= 9)) return NaN;
+    minutes = m0 * 10 + m1;
+    head -= 3;
+    hasHours = true;
+  }
+  let lead = 0;
+  for (let i = 0; i < head; i++) {
+    const d = s.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return NaN;
+    lead = lead * 10 + d;
+  }
+  if (head === 0) return NaN;
+  if (hasHours) hours = lead;
+  else minutes = lead;
+  return hours * 3600 + minutes * 60 + s0 * 10 + s1;
+}
+
 /** Parse an elapsed duration written with colons: "1:02:03" (h:mm:ss), "65:30" (mm:ss) → seconds. */
 export function parseColonDuration(cell: string): number {
+  const fast = colonDurationFast(cell);
+  if (fast === fast) return fast;
   str = cell;
   pos = 0;
   skipSpaces();

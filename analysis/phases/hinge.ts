@@ -109,3 +109,40 @@ export function hingeSplit(
   }
   return best;
 }
+
+/** Windows longer than this many readings are searched coarse to fine (a multi-day log's flat floor). */
+export const HINGE_FULL_READINGS = 20000;
+
+/**
+ * hingeSplit for any window length in time linear in HINGE_FULL_READINGS rather than the window: a
+ * window longer than that is first searched on every k-th reading (k = ⌈length / HINGE_FULL_READINGS⌉),
+ * then again on every reading within HINGE_FULL_READINGS / 2 of that split, the split searched within
+ * 2k readings of it. The two lines are then fitted to the readings near the corner only, which is where
+ * they matter. Same result as hingeSplit on windows up to HINGE_FULL_READINGS.
+ */
+export function hingeSplitBounded(
+  t: ArrayLike<number>,
+  microns: ArrayLike<number>,
+  from: number,
+  to: number,
+  fallback: number,
+  splitFrom = from,
+  splitTo = to,
+): number {
+  const n = to - from + 1;
+  if (n <= HINGE_FULL_READINGS) return hingeSplit(t, microns, from, to, fallback, splitFrom, splitTo);
+  const k = Math.ceil(n / HINGE_FULL_READINGS);
+  const m = Math.floor((n - 1) / k) + 1;
+  const tc = new Float64Array(m);
+  const pc = new Float64Array(m);
+  for (let j = 0; j < m; j++) {
+    tc[j] = t[from + j * k];
+    pc[j] = microns[from + j * k];
+  }
+  const toCoarse = (i: number) => Math.min(m - 1, Math.max(0, Math.round((i - from) / k)));
+  const coarse = from + k * hingeSplit(tc, pc, 0, m - 1, toCoarse(fallback), toCoarse(splitFrom), toCoarse(splitTo));
+  const half = HINGE_FULL_READINGS >> 1;
+  const lo = Math.max(from, coarse - half);
+  const hi = Math.min(to, coarse + half);
+  return hingeSplit(t, microns, lo, hi, coarse, Math.max(splitFrom, coarse - 2 * k, lo), Math.min(splitTo, coarse + 2 * k, hi));
+}

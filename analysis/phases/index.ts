@@ -10,7 +10,7 @@
  */
 import type { Hold, Phases } from "../types";
 import { findBreak, joinSpikeSplits, lastIndexAtOrBefore } from "./breaks";
-import { hingeSplit } from "./hinge";
+import { hingeSplitBounded } from "./hinge";
 import { binReadings, medianIntervalSeconds, relativeNoise, removeShortExcursions, resolutionMicrons, zigzag, type Bins } from "./smooth";
 
 export { medianIntervalSeconds, relativeNoise } from "./smooth";
@@ -111,7 +111,7 @@ function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBi
   let floor = last;
   while (floor + 1 < Math.min(endBin, r) && y[floor + 1] <= yb + threshold / 2) floor++;
   const hi = Math.min(to, bins.start[Math.max(last, floor) + 1] - 1 + reach);
-  const split = hingeSplit(t, p, from, to, trough, lo, hi);
+  const split = hingeSplitBounded(t, p, from, to, trough, lo, hi);
   return stepMicrons >= COARSE_STEP_MICRONS ? endOfFloor(p, split, endIndex) : split;
 }
 

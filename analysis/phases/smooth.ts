@@ -31,6 +31,25 @@ export function medianOf(values: ArrayLike<number>, from: number, to: number): n
   return medianInPlace(scratch, 0, n);
 }
 
+/** A bin holding more readings than this is summarised by the median of this many spread evenly over it. */
+const BIN_MEDIAN_READINGS = 63;
+
+/**
+ * Median of a bin of readings, values[from, to): of every reading when there are at most
+ * BIN_MEDIAN_READINGS, else of that many taken at an even stride. The bins only smooth the series for
+ * finding its turns (the isolation is then placed on every reading), and the median of 63 readings is
+ * within a few per cent of the bin's own (its sampling spread is 1.25/√63 ≈ 16 % of the readings'
+ * scatter), so a long log's thousands of readings a bin need not all be copied and selected.
+ */
+function binMedian(values: ArrayLike<number>, from: number, to: number): number {
+  const n = to - from;
+  if (n <= BIN_MEDIAN_READINGS) return medianOf(values, from, to);
+  if (scratch.length < BIN_MEDIAN_READINGS) scratch = new Float64Array(64);
+  const step = n / BIN_MEDIAN_READINGS;
+  for (let k = 0; k < BIN_MEDIAN_READINGS; k++) scratch[k] = values[from + Math.floor(k * step)];
+  return medianInPlace(scratch, 0, BIN_MEDIAN_READINGS);
+}
+
 /** Median of values[from, to) when they are known to be ascending: the middle one (or the mean of the two). */
 function medianOfAscending(values: ArrayLike<number>, from: number, to: number): number {
   const n = to - from;
@@ -112,7 +131,7 @@ export function binReadings(t: ArrayLike<number>, microns: ArrayLike<number>, ma
   const raw = new Float64Array(count);
   for (let j = 0; j < count; j++) {
     tMid[j] = ascending ? medianOfAscending(t, start[j], start[j + 1]) : medianOf(t, start[j], start[j + 1]);
-    raw[j] = Math.log10(medianOf(microns, start[j], start[j + 1]));
+    raw[j] = Math.log10(binMedian(microns, start[j], start[j + 1]));
   }
   return { start, tSeconds: tMid, logMicrons: runningMedian(raw, count >= 60 ? 5 : 3), count };
 }
