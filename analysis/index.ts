@@ -189,6 +189,9 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     }
   }
   const c = judgeFieldHolds(classifyHold(fit, evidence, profile, forecast), pa, t, p, evidence, profile);
+  // a reading that may be 1,000-fold off must be impossible to miss: the doubt goes with the verdict
+  const doubt = log.summary.unsureReasons?.find((u) => u.code === "decimal_mark");
+  const reasons = doubt ? [...c.reasons, `Check the readings before relying on this: ${doubt.message}`] : c.reasons;
 
   let leakRate: LeakRate | null = null;
   if (options.volume && c.decay && c.climbMicronsPerMinute > 0) {
@@ -218,7 +221,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     engineVersion: ENGINE_VERSION,
     verdict: c.verdict,
     confidence: c.confidence,
-    reasons: c.reasons,
+    reasons,
     isolationAt,
     decay: c.decay,
     meetsProfile: c.meetsProfile,

@@ -174,6 +174,7 @@ describe("thousands separator or decimal comma, decided for the whole column (co
     expect(r.import.unsureReasons).toEqual([expect.objectContaining({ code: "decimal_mark", message: expect.stringMatching(/is .* or .* microns: nothing in the file tells which; read as/) })]);
     expect(r.verdict).not.toBe("pass");
     expect(r.verdict).toBe("moisture");
+    expect(r.reasons.at(-1)).toMatch(/^Check the readings before relying on this: '.*' is .* or .* microns/);
   });
 
   it("the caller's answer settles it: decimalMark 'comma' reads the same cells as decimals, 'point' as thousands", () => {
