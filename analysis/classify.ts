@@ -25,7 +25,7 @@ export interface HoldEvidence {
   startMicrons: number;
   /** Median of the last three readings, microns. */
   endMicrons: number;
-  /** Highest reading (3-point median) up to the profile's hold time, microns. */
+  /** Highest reading (running median, spikes left out) over the whole hold, microns. */
   maxMicrons: number;
   isolationSeen: boolean;
   /** Least-squares slope of the readings over the last half of the hold (microns per minute), or null. */

@@ -169,7 +169,8 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     fit = hold.fit;
     const observed = hold.endSeconds - hold.isolatedAtSeconds;
     const skip = spikeMask(fit, r.endIndex - r.startIndex + 1);
-    const maxMicrons = robustMax(p, r.startIndex, r.endIndex, t[r.startIndex] + holdSeconds, t, skip);
+    // over the whole hold, not only its first `holdSeconds`: a hold that passes the limit later is not tight
+    const maxMicrons = robustMax(p, r.startIndex, r.endIndex, Infinity, t, skip);
     const tail = lastReadings(p, r.startIndex, r.endIndex, skip, 3).sort((x, y) => x - y);
     evidence = {
       holdSeconds: observed,

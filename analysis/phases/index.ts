@@ -108,8 +108,10 @@ function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBi
   const lo = Math.max(from, bins.start[first] - reach);
   // on the right, over the whole floor (bins within half the threshold of the trough, before the rise):
   // a long flat floor may hold the corner beyond the bins that tie with the trough
+  // (on a coarse gauge the floor flickers between two steps: a step and a half above it is still floor)
+  const flicker = stepMicrons >= COARSE_STEP_MICRONS ? Math.log10((10 ** yb + 1.5 * stepMicrons) / 10 ** yb) : 0;
   let floor = last;
-  while (floor + 1 < Math.min(endBin, r) && y[floor + 1] <= yb + threshold / 2) floor++;
+  while (floor + 1 < Math.min(endBin, r) && y[floor + 1] <= yb + Math.max(threshold / 2, flicker)) floor++;
   const hi = Math.min(to, bins.start[Math.max(last, floor) + 1] - 1 + reach);
   const split = hingeSplitBounded(t, p, from, to, trough, lo, hi);
   return stepMicrons >= COARSE_STEP_MICRONS ? endOfFloor(p, split, endIndex) : split;

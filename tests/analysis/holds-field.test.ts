@@ -172,6 +172,36 @@ describe("holds robust to the field (common practice, no published source)", () 
   });
 });
 
+describe("never a pass on a hold whose readings pass the limit (common practice, no published source)", () => {
+  it("a coarse gauge's floor flickering between 100 and 200 for half an hour, then a climb to 17,000 in the last minute and a half: a leak, not a pass", () => {
+    const t: number[] = [];
+    const p: number[] = [];
+    for (let s = 0; s <= 1200; s += 2) {
+      t.push(s);
+      p.push(Math.max(100, Math.round((150 + 20000 * Math.exp(-s / 150)) / 100) * 100));
+    }
+    for (let s = 1202; s <= 3400; s += 2) {
+      t.push(s);
+      p.push(s % 10 < 4 ? 200 : 100);
+    }
+    for (let s = 3402; s <= 3480; s += 2) {
+      t.push(s);
+      p.push(Math.round((150 + 200 * (s - 3400)) / 100) * 100);
+    }
+    const r = analyzeReadings(readings(t, p));
+    expect(r.verdict).not.toBe("pass");
+    expect(r.verdict).toBe("leak");
+    expect(Math.abs(r.isolationAt! - 3400)).toBeLessThanOrEqual(45);
+  });
+
+  it("a slow creep that passes the limit only after the profile's ten minutes is not a pass either", () => {
+    const c = curve({ plateau: 600, tau: 100, leak: 15, holdS: 3600 });
+    const r = analyzeReadings(readings(c.t, c.p));
+    expect(r.profileRules.find((x) => x.rule === "limit")?.met).toBe(false);
+    expect(r.verdict).not.toBe("pass");
+  });
+});
+
 describe("phase helpers for field logs (common practice, no published source)", () => {
   it("a two-reading spike and a two-reading dip in a sparse log (one reading a minute) are taken out of the smoothed series; a turn of the curve is kept", async () => {
     const { removeShortExcursions } = await import("@/analysis/phases/smooth");
