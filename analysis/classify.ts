@@ -23,7 +23,7 @@ export interface HoldEvidence {
   startMicrons: number;
   /** The last reading of the hold, as the gauge showed it, microns. */
   endMicrons: number;
-  /** Highest running median (figures.ts) up to the profile's hold time, microns: what the limit rule judges. */
+  /** Highest running median (figures.ts, spikes left out) over the whole hold, microns: what the limit rule judges. */
   maxMicrons: number;
   /** Highest single reading over the same part of the hold, microns (shown beside the smoothed one). */
   rawMaxMicrons?: number;

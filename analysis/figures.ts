@@ -19,10 +19,12 @@ export interface JudgedHighest {
 /**
  * The highest reading of p[from..to] up to time `untilSeconds` (seconds from the first data row),
  * smoothed by a running median of 5 readings (3 for holds under 15 readings) so one wild reading
- * (a bumped hose) does not decide the limit, and the highest single reading beside it.
+ * (a bumped hose) does not decide the limit, and the highest single reading beside it (spikes
+ * included: it is what the gauge showed). Readings marked in `skip` (indexed from `from`: the spikes
+ * the fit left out) take no part in the smoothed value.
  * Running median: J. W. Tukey, Exploratory Data Analysis (1977), ch. 7 (from memory).
  */
-export function judgedHighest(t: number[], p: number[], from: number, to: number, untilSeconds: number): JudgedHighest {
+export function judgedHighest(t: number[], p: number[], from: number, to: number, untilSeconds: number, skip?: Uint8Array): JudgedHighest {
   const half = to - from + 1 >= 15 ? 2 : 1;
   const w = new Float64Array(5);
   let best = 0;
@@ -30,11 +32,17 @@ export function judgedHighest(t: number[], p: number[], from: number, to: number
   let raw = 0;
   let rawAt = t[from];
   for (let i = from; i <= to && t[i] <= untilSeconds; i++) {
+    if (p[i] > raw) {
+      raw = p[i];
+      rawAt = t[i];
+    }
+    if (skip?.[i - from]) continue;
     // the window's median by insertion sort into a fixed buffer (at most 5 readings), no allocation
     const lo = Math.max(i - half, from);
     const hi = Math.min(i + half, to);
     let m = 0;
     for (let j = lo; j <= hi; j++) {
+      if (skip?.[j - from]) continue;
       const v = p[j];
       let k = m++;
       while (k > 0 && w[k - 1] > v) {
@@ -46,10 +54,6 @@ export function judgedHighest(t: number[], p: number[], from: number, to: number
     if (w[m >> 1] > best) {
       best = w[m >> 1];
       bestAt = t[i];
-    }
-    if (p[i] > raw) {
-      raw = p[i];
-      rawAt = t[i];
     }
   }
   return { smoothedMicrons: best, smoothedAtSeconds: bestAt, rawMicrons: raw, rawAtSeconds: rawAt };
@@ -70,10 +74,10 @@ function lastIndexAtOrBefore(t: number[], from: number, to: number, seconds: num
 const fmt = (x: number) => groupedInteger(Math.round(x));
 const min1 = (s: number) => (s / 60).toFixed(1);
 
-function highestFigure(h: JudgedHighest, judgedSeconds: number, isolatedAtSeconds: number): Figure {
+function highestFigure(h: JudgedHighest, judgedSeconds: number, isolatedAtSeconds: number, judgedByLimit: boolean): Figure {
   return {
     value: h.smoothedMicrons,
-    definition: `the highest reading in the first ${min1(judgedSeconds)} min of the hold, smoothed over 5 readings so one wild reading does not count; the limit rule judges this value`,
+    definition: `the highest reading in the first ${min1(judgedSeconds)} min of the hold, smoothed over 5 readings so one wild reading (or a spike left out of the fit) does not count${judgedByLimit ? "; the limit rule judges this value" : ""}`,
     atSeconds: h.smoothedAtSeconds,
     raw: {
       value: h.rawMicrons,
@@ -96,8 +100,10 @@ export interface FiguresInput {
   model: ModelFit | null;
   /** The steady climb the verdict judged, microns per minute. */
   climbMicronsPerMinute: number;
-  /** The highest the limit rule judged (judgedHighest up to the profile's hold time). */
+  /** The highest the limit rule judged (judgedHighest over the whole hold). */
   judged: JudgedHighest;
+  /** Readings of the hold the fit left out as spikes (indices from `from`), kept out of the smoothed highest. */
+  skip?: Uint8Array;
 }
 
 /** The hold's figures (see the file comment). Units: microns, microns per minute, seconds. */
@@ -105,7 +111,6 @@ export function holdFigures(x: FiguresInput): HoldFigures {
   const { t, p, from, to } = x;
   const iso = t[from];
   const holdSeconds = t[to] - iso;
-  const judgedSeconds = Math.min(holdSeconds, x.profileHoldSeconds);
   const start: Figure = {
     value: p[from],
     definition: x.isolationSeen ? "the reading when the pump was valved off (isolation)" : "the first reading of the log, which starts in the hold (the isolation is not in the log)",
@@ -127,13 +132,13 @@ export function holdFigures(x: FiguresInput): HoldFigures {
         definition: `the reading at ${min1(x.profileHoldSeconds)} min of the hold, the profile's hold time (the last reading at or before it, at ${min1(t[i] - iso)} min)`,
         atSeconds: t[i],
       },
-      highestMicrons: highestFigure(x.judged, judgedSeconds, iso),
+      highestMicrons: highestFigure(judgedHighest(t, p, from, to, iso + x.profileHoldSeconds, x.skip), x.profileHoldSeconds, iso, false),
     };
   }
   return {
     startMicrons: start,
     lastMicrons: last,
-    highestMicrons: highestFigure(x.judged, judgedSeconds, iso),
+    highestMicrons: highestFigure(x.judged, holdSeconds, iso, true),
     riseMicrons: { value: p[to] - p[from], definition: `the last reading minus the start (${fmt(p[to])} − ${fmt(p[from])})`, atSeconds: null },
     rateMicronsPerMinute: {
       value: x.climbMicronsPerMinute,

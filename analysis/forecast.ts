@@ -223,7 +223,7 @@ function judgeContinuations(fit: ModelFit, data: HoldData | null, observedSecond
     passed.push(call.verdict === "pass");
     failRule.push(call.leak ? "leak_rate" : plateau !== null && levelled && plateau > profile.limitMicrons ? "plateau" : "limit");
   }
-  const top = Math.max(...logW.filter(Number.isFinite));
+  const top = logW.reduce((m, x) => (Number.isFinite(x) && x > m ? x : m), -Infinity);
   const w = logW.map((x) => (Number.isFinite(x) ? Math.exp(x - top) : 0));
   const total = w.reduce((a, b) => a + b, 0);
   const ess = total > 0 ? total ** 2 / w.reduce((a, b) => a + b * b, 0) : 0;
@@ -257,7 +257,7 @@ export function forecastHold(fit: HoldFitResult, observedHoldSeconds: number, pr
   const atHoldSeconds = profile.holdMinutes * 60;
   const chosen = fit.fits[fit.chosen];
   const all = Object.values(fit.fits).filter((f): f is ModelFit => !!f && Number.isFinite(f.aicc) && f.stopReason !== "non_finite");
-  const bestAicc = Math.min(...all.map((f) => f.aicc));
+  const bestAicc = all.reduce((m, f) => Math.min(m, f.aicc), Infinity);
   const plausible = all.filter((f) => f.aicc <= bestAicc + AICC_MARGIN);
   const observed = Math.max(observedHoldSeconds, 1e-9);
   // Every model the data cannot reject votes on the call, and the chosen one always does.
@@ -304,7 +304,7 @@ export function forecastHold(fit: HoldFitResult, observedHoldSeconds: number, pr
     const counted = all.filter(usable);
     if (counted.some((x) => x.f === chosen)) {
       const judged = counted.map((x) => x.j!);
-      const best = Math.min(...counted.map((x) => x.f.aicc));
+      const best = counted.reduce((m, x) => Math.min(m, x.f.aicc), Infinity);
       // Akaike weights over the voting models (Burnham & Anderson 2002, §2.9, from memory).
       const weights = counted.map((x) => Math.exp(-(x.f.aicc - best) / 2));
       const total = weights.reduce((x, y) => x + y, 0);

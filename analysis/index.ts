@@ -11,6 +11,7 @@ import { fitHoldModels } from "./fit";
 import { holdFigures, judgedHighest } from "./figures";
 import { earlyCallWithVerdict, forecastHold } from "./forecast";
 import { importLog } from "./import";
+import { judgeFieldHolds, spikeMask, spikeSecondsOf } from "./holds";
 import { findPhases } from "./phases";
 import { checkOptions } from "./profile";
 import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFigures, HoldFitResult, ImportedLog, LeakRate } from "./types";
@@ -43,8 +44,8 @@ function median(values: number[]): number | null {
   return v.length ? v[v.length >> 1] : null;
 }
 
-/** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings). */
-function lateSlopePerMinute(t: number[], p: number[], from: number, to: number): number | null {
+/** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings), `skip` left out. */
+function lateSlopePerMinute(t: number[], p: number[], from: number, to: number, skip: Uint8Array): number | null {
   const mid = t[from] + (t[to] - t[from]) / 2;
   let n = 0;
   let sx = 0;
@@ -52,6 +53,7 @@ function lateSlopePerMinute(t: number[], p: number[], from: number, to: number):
   let sxx = 0;
   let sxy = 0;
   for (let i = to; i >= from && t[i] >= mid; i--) {
+    if (skip[i - from]) continue;
     const x = t[i] - mid;
     n++;
     sx += x;
@@ -139,7 +141,9 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     holdSeconds,
   });
   pa.ranges.forEach((r, k) => {
-    pa.phases.holds[k].fit = fitHold(t, p, r.startIndex, r.endIndex);
+    const hold = pa.phases.holds[k];
+    hold.fit = fitHold(t, p, r.startIndex, r.endIndex);
+    hold.spikeSeconds = spikeSecondsOf(hold.fit, t, r.startIndex);
   });
 
   const primary = pa.phases.primary;
@@ -152,7 +156,9 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     const hold = pa.phases.holds[primary];
     fit = hold.fit;
     const observed = hold.endSeconds - hold.isolatedAtSeconds;
-    highest = judgedHighest(t, p, r.startIndex, r.endIndex, t[r.startIndex] + holdSeconds);
+    const skip = spikeMask(fit, r.endIndex - r.startIndex + 1);
+    // over the whole hold, not only its first `holdSeconds`: a hold that passes the limit later is not tight
+    highest = judgedHighest(t, p, r.startIndex, r.endIndex, Infinity, skip);
     evidence = {
       holdSeconds: observed,
       readings: r.endIndex - r.startIndex + 1,
@@ -161,7 +167,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
       maxMicrons: highest.smoothedMicrons,
       rawMaxMicrons: highest.rawMicrons,
       isolationSeen: r.isolationSeen,
-      lateSlopeMicronsPerMinute: lateSlopePerMinute(t, p, r.startIndex, r.endIndex),
+      lateSlopeMicronsPerMinute: lateSlopePerMinute(t, p, r.startIndex, r.endIndex, skip),
     };
     // A forecast only looks ahead of the data: none once the hold reached the profile's hold time.
     if (fit && chosenFit(fit) && observed < holdSeconds) {
@@ -172,7 +178,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
       }
     }
   }
-  const c = classifyHold(fit, evidence, profile, forecast);
+  const c = judgeFieldHolds(classifyHold(fit, evidence, profile, forecast), pa, t, p, evidence, profile);
   if (forecast) forecast = earlyCallWithVerdict(forecast, c.verdict, c.profileRules.some((x) => x.rule === "leak_rate" && !x.met));
   let figures: HoldFigures | null = null;
   if (primary !== null && highest) {
@@ -180,8 +186,12 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     figures = holdFigures({
       t, p, from: r.startIndex, to: r.endIndex, isolationSeen: r.isolationSeen, profileHoldSeconds: holdSeconds,
       model: chosenFit(fit), climbMicronsPerMinute: c.climbMicronsPerMinute, judged: highest,
+      skip: spikeMask(fit, r.endIndex - r.startIndex + 1),
     });
   }
+  // a reading that may be 1,000-fold off must be impossible to miss: the doubt goes with the verdict
+  const doubt = log.summary.unsureReasons?.find((u) => u.code === "decimal_mark");
+  const reasons = doubt ? [...c.reasons, `Check the readings before relying on this: ${doubt.message}`] : c.reasons;
 
   let leakRate: LeakRate | null = null;
   if (options.volume && c.decay && c.climbMicronsPerMinute > 0) {
@@ -211,7 +221,7 @@ function analyzeChecked(log: ImportedLog, options: AnalyzeOptions, profile: Acce
     engineVersion: ENGINE_VERSION,
     verdict: c.verdict,
     confidence: c.confidence,
-    reasons: c.reasons,
+    reasons,
     isolationAt,
     decay: c.decay,
     meetsProfile: c.meetsProfile,

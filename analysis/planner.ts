@@ -132,7 +132,7 @@ export function flowPathOf(input: PlannerInput, openingScale = 1): FlowElement[]
         { name: "Schrader core left in (depressed)", diameterCm: 0.15 * s, lengthCm: 1.5, parallel: n, assumed: true },
         { name: "Core depressor in hose end", diameterCm: 0.3 * s, lengthCm: 1.5, parallel: n, assumed: true },
       ];
-  path.unshift(...line);
+  for (let i = line.length - 1; i >= 0; i--) path.unshift(line[i]);
   path.push(hose);
   if (input.manifold) {
     path.push({ name: "Manifold passages and valves", diameterCm: 0.5 * s, lengthCm: 15, parallel: 1, assumed: true });

@@ -49,6 +49,7 @@ const importSchema = z
     pressureColumn: z.union([z.string().min(1), z.number().int().nonnegative()]),
     unit: z.enum(["micron", "mtorr", "torr", "mmhg", "pa", "kpa", "mbar", "hpa", "psia", "inhg"]),
     timeUnit: z.enum(["s", "min"]),
+    decimalMark: z.enum(["point", "comma"]),
     maxBytes: z.number().int().positive(),
     maxRows: z.number().int().positive(),
   })

@@ -61,9 +61,23 @@ export interface ImportOptions {
   pressureColumn?: string | number;
   unit?: PressureUnit;
   timeUnit?: "s" | "min";
+  /**
+   * How the pressure readings write their numbers, when the importer could not tell: "point" = a
+   * comma groups thousands ("4,150" is 4150), "comma" = a comma is the decimal mark ("4,150" is 4.15).
+   */
+  decimalMark?: "point" | "comma";
   /** Defaults: 64 MiB (maxBytes, counted in characters) and 1,000,000 data rows (see DEFAULT_MAX_BYTES and DEFAULT_MAX_ROWS in import/index.ts). */
   maxBytes?: number;
   maxRows?: number;
+}
+
+/** Why the importer is not sure, by topic, so a screen can ask the right question. */
+export interface UnsureReason {
+  /** decimal_mark: thousands separator or decimal comma; unit: no unit named; time: time unit or format guessed; columns: a column guessed; date_order: day/month order guessed. */
+  code: "decimal_mark" | "unit" | "time" | "columns" | "date_order";
+  message: string;
+  /** For decimal_mark: the two readings of the example cell, each with the importer option that gives it. */
+  choices?: { decimalMark: "point" | "comma"; cell: string; reads: string }[];
 }
 
 /** What the importer read and what it had to assume. */
@@ -86,6 +100,12 @@ export interface ImportSummary {
   temperatureColumn: string | null;
   /** True when a choice was a guess the user should confirm. */
   unsure: boolean;
+  /** Each guess behind `unsure`, with its topic (empty when sure). */
+  unsureReasons?: UnsureReason[];
+  /** The thousands separator of the pressure readings ("," or "."), or null when none was seen. */
+  thousandsSeparator?: string | null;
+  /** Rows whose time cell was not a time, skipped (a few garbled rows do not refuse a log). */
+  badTimeRows?: number;
   /** What was assumed, in words ("unit taken as microns: the header names none"). */
   assumptions: string[];
 }
@@ -183,6 +203,10 @@ export interface Hold {
   /** Whether the hold ran to its end (not cut by the end of the log mid-rise …). */
   complete: boolean;
   endedBy: "end_of_log" | "break" | "pulldown";
+  /** Seconds of the first over-range row when the hold climbed out of the gauge's range (a gross leak), else null. */
+  leftRangeAtSeconds?: number | null;
+  /** Seconds of the readings left out of the fit as spikes (one or two wild readings: a bumped hose). */
+  spikeSeconds?: number[];
   fit: HoldFitResult | null;
 }
 
@@ -221,6 +245,8 @@ export interface Decay {
   holdSeconds: number;
   /** 0 when the chosen model has no climb. */
   leakRateMicronsPerMinute: number;
+  /** True when the climb is a lower bound: the hold left the gauge's range, so the rise beyond it is unseen. */
+  leakRateAtLeast?: boolean;
   plateauMicrons: number | null;
   timeConstantSeconds: number | null;
 }

@@ -8,7 +8,13 @@
  *   npm run bench:analysis            (all sizes)
  *   tsx scripts/bench-analysis.ts --child 100000     (one size, JSON on stdout)
  *
- * Goals: analysis ≤ 1.5 × bare parse, linear growth, the 1-hour log in < 100 ms.
+ * Then every shape of field export (bench-shapes.ts: US dates with AM/PM and a unit column, European
+ * semicolons with decimal commas, quoted TSV with thousands separators, serial days, Unix ms, ISO with
+ * an offset, a multi-day pull-down) at 500,000 rows, each in its own child, against a bare Papa.parse.
+ *
+ *   tsx scripts/bench-analysis.ts --shape "Unix ms, µmHg"   (one shape, JSON on stdout)
+ *
+ * Goals: analysis ≤ 1.5 × bare parse for every shape, linear growth, the 1-hour log in < 100 ms.
  */
 import { spawnSync } from "node:child_process";
 import os from "node:os";
@@ -16,6 +22,10 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import Papa from "papaparse";
 import { importLog } from "../analysis/import";
+import { SHAPES, shapeTable, timeShape, type ShapeResult } from "./bench-shapes";
+
+/** Rows of each field-export shape (goal: analysis ≤ 1.5 × a bare parse of the same file, for any shape). */
+const SHAPE_ROWS = 500_000;
 
 const SIZES = [3_600, 10_000, 100_000, 1_000_000];
 const START_MS = Date.UTC(2026, 5, 14, 13, 5, 0);
@@ -185,6 +195,17 @@ function parent(): void {
     );
   }
   console.log(lines.join("\n"));
+  const shapes: ShapeResult[] = [];
+  for (const shape of SHAPES) {
+    const r = spawnSync(process.execPath, ["--import", "tsx", script, "--shape", shape], { encoding: "utf8", maxBuffer: 1 << 20, cwd: path.resolve(path.dirname(script), "..") });
+    if (r.status !== 0) {
+      process.stderr.write(`shape '${shape}' failed (exit ${r.status}): ${r.stderr}\n`);
+      process.exitCode = 1;
+      continue;
+    }
+    shapes.push(JSON.parse(r.stdout.trim().split("\n").at(-1)!));
+  }
+  if (shapes.length > 0) console.log("\n" + shapeTable(shapes));
   const hour = results.find((r) => r.rows === 3_600);
   if (hour) console.log(`\n1-hour 1 Hz log (3,600 rows): analyzeLog ${f(hour.analyzeMs)} ms warm (${f(hour.coldAnalyzeMs)} ms cold, the first call in a fresh process), importLog ${f(hour.importMs)} ms (goal < 100 ms)`);
   const notes = [...new Set(results.map((r) => r.note).filter((n): n is string => n !== null))];
@@ -195,5 +216,9 @@ function parent(): void {
 
 const isMain = process.argv[1] !== undefined && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
 const childAt = process.argv.indexOf("--child");
-if (isMain && childAt >= 0) child(Number(process.argv[childAt + 1])).then((r) => console.log(JSON.stringify(r)));
+const shapeAt = process.argv.indexOf("--shape");
+if (isMain && shapeAt >= 0) {
+  const shape = process.argv[shapeAt + 1];
+  import("../analysis/index").then((mod) => console.log(JSON.stringify(timeShape(shape, SHAPE_ROWS, (t) => Papa.parse(t), mod.analyzeLog))));
+} else if (isMain && childAt >= 0) child(Number(process.argv[childAt + 1])).then((r) => console.log(JSON.stringify(r)));
 else if (isMain) parent();

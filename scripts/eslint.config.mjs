@@ -25,6 +25,19 @@ const config = [
       "no-restricted-properties": ["error", { object: "process", property: "env", message: "analysis/ is pure: pass options in." }],
     },
   },
+  {
+    // Data-sized arrays never go through the call stack: a million readings spread as arguments overflow it
+    // (tests/analysis/stack-safety.test.ts also finds recursion).
+    files: ["analysis/**/*.ts", "app/api/**/*.ts", "lib/tests/**/*.ts"],
+    rules: {
+      "no-restricted-syntax": [
+        "error",
+        { selector: "CallExpression > SpreadElement", message: "No argument spreading here: loop over the array (a log's readings overflow the call stack)." },
+        { selector: "NewExpression > SpreadElement", message: "No argument spreading here: loop over the array (a log's readings overflow the call stack)." },
+        { selector: "CallExpression[callee.property.name='apply'][arguments.length=2]", message: "No Function.prototype.apply with an argument array: loop over it." },
+      ],
+    },
+  },
 ];
 
 export default config;

@@ -1,7 +1,9 @@
 /**
  * Evaluation of the analysis on a fresh simulated set (seeds never used while tuning: 900001…).
  * Prints verdict accuracy with a confusion matrix, isolation within max(3 samples, 45 s), median
- * leak-rate and plateau errors; then (scripts/eval/) the early call at minute 4 of the hold against the
+ * leak-rate and plateau errors; then the same figures on field logs (evaluate-field.ts: every layout,
+ * field artifacts, typed and out-of-range scenarios; seeds from firstSeed + 100,000) with accuracy per
+ * artifact and per layout; then (scripts/eval/) the early call at minute 4 of the hold against the
  * truth, and the confidence's reliability table with its calibration error on held-out simulated,
  * typed and independent logs (scripts/eval/independent.ts).
  *
@@ -16,6 +18,7 @@ import type { AnalysisResult, Verdict } from "../analysis/types";
 import { calibrationLines } from "./eval/calibration-section";
 import { earlyCallLines } from "./eval/early-call";
 import type { Judged } from "./eval/reliability";
+import { evaluateField } from "./evaluate-field";
 
 const count = Number(process.argv[2] ?? 500);
 const firstSeed = Number(process.argv[3] ?? 900001);
@@ -96,5 +99,6 @@ for (const tv of VERDICTS) {
   console.log([tv, ...[...VERDICTS, "error"].map((rv) => String(confusion.get(`${tv}→${rv}`) ?? 0))].map((s) => s.padEnd(18)).join(""));
 }
 if (process.argv.includes("--misses")) console.log(misses.join("\n"));
+console.log(evaluateField(count, firstSeed + 100_000, (sim) => analyse(sim), process.argv.includes("--misses")).join("\n"));
 console.log(earlyCallLines(firstSeed, independentCount).join("\n"));
 console.log(calibrationLines(judged, independentCount).join("\n"));

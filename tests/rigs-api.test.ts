@@ -153,6 +153,15 @@ describe("/api/rigs roles and scoping", () => {
     expect(foreign.status).toBe(404);
   });
 
+  it("takes the lowest of a 300,000-row blank-off log (a day and a half at 2 s) without spreading the readings onto the call stack (V8's limit; engine behaviour, no published source)", async () => {
+    const rows = ["elapsed_s,vacuum (microns)"];
+    for (let i = 0; i < 300_000; i++) rows.push(`${i * 2},${Math.round(25 + 20000 * Math.exp(-i / 200)) + (i % 7)}`);
+    rows[250_001] = "500002,21";
+    const res = await addEvent(appRequest(`/api/rigs/${rigId}/events`, post({ kind: "blank_off", itemId: pumpId, occurredOn: "2026-03-04", logText: rows.join("\n") }, crew.technician)), routeParams({ id: rigId }));
+    expect(res.status).toBe(201);
+    expect((await res.json()).event.lowestMicrons).toBe(21);
+  });
+
   it("anonymous callers get 401", async () => {
     const res = await listRigs(appRequest("/api/rigs", { as: null }));
     expect(res.status).toBe(401);

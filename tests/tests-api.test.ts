@@ -23,7 +23,7 @@ async function upload(as: TestMember, name: string, fields: Record<string, strin
 
 const get = (fn: typeof detailGet, path: string, as: TestMember | null, id: string) => fn(appRequest(path, { as }), routeParams({ id }));
 
-describe("the six sample layouts (expected verdicts: fixtures/samples/EXPECTED.md, invented data with known truth)", () => {
+describe("the ten sample layouts (expected verdicts: fixtures/samples/EXPECTED.md, invented data with known truth)", () => {
   let owner: TestMember;
   beforeAll(async () => {
     owner = await createShop();
@@ -35,6 +35,10 @@ describe("the six sample layouts (expected verdicts: fixtures/samples/EXPECTED.m
     ["sample-4-minutes-torr.csv", "leak_and_moisture"],
     ["sample-5-semicolon-pa-comma.csv", "leak"],
     ["sample-6-iso-mbar-extra.csv", "leak"],
+    ["sample-7-tsv-quoted-thousands.csv", "moisture"],
+    ["sample-8-typed-minutes.csv", "leak"],
+    ["sample-9-us-ampm-repull.csv", "pass"],
+    ["sample-10-eu-semicolon-dropouts.csv", "leak_and_moisture"],
   ];
   for (const [name, verdict] of expected) {
     it(`uploads ${name} → 201 with verdict ${verdict} (RFC 9110 §15.3.2 201 Created; EXPECTED.md)`, async () => {
@@ -281,6 +285,42 @@ describe("import preview", () => {
     expect(typeof body.detected.unsure).toBe("boolean");
     expect(await countRows(owner.organizationId)).toMatchObject({ tests: 0, uploads: 0 });
     expect(await listKeys(`orgs/${owner.organizationId}/`)).toEqual([]);
+  });
+
+  // A wet hold whose every reading is "d,ddd" microns in a tab file with nothing else to tell: 12,500 or 12.5?
+  const ambiguous = '"t (s)"\t"Vacuum (microns)"\n' + Array.from({ length: 80 }, (_, i) => `"${i * 15}"\t"${(1200 + Math.round(10800 * (1 - Math.exp(-i / 12)))).toLocaleString("en-US")}"`).join("\n");
+
+  it("asks before any verdict when a reading could be 1,000-fold apart: unsure, with both readings to choose from (common practice, no published source)", async () => {
+    const res = await previewPost(uploadRequest("/api/imports/preview", { as: owner, file: { body: ambiguous, name: "tsv.csv" } }));
+    expect(res.status).toBe(200);
+    const { detected } = await res.json();
+    expect(detected.unsure).toBe(true);
+    const reason = detected.unsureReasons.find((r: { code: string }) => r.code === "decimal_mark");
+    expect(reason.choices).toEqual([
+      { decimalMark: "point", cell: "1,200", reads: "1,200 microns" },
+      { decimalMark: "comma", cell: "1,200", reads: "1.2 microns" },
+    ]);
+  });
+
+  it("the technician's answer is used: decimalMark=comma reads '1,200' as 1.2 microns, point as 1,200 (the larger reading, a wet system, never a pass)", async () => {
+    const small = await testsPost(uploadRequest("/api/tests", { as: owner, file: { body: ambiguous, name: "tsv.csv" }, fields: { decimalMark: "comma" } }));
+    const large = await testsPost(uploadRequest("/api/tests", { as: owner, file: { body: ambiguous, name: "tsv.csv" }, fields: { decimalMark: "point" } }));
+    expect(small.status).toBe(201);
+    expect(large.status).toBe(201);
+    const [s, l] = [await small.json(), await large.json()];
+    expect(s.analysis.import.unsure).toBe(false);
+    expect(s.analysis.decay.startMicrons).toBeCloseTo(1.2, 6);
+    expect(l.analysis.decay.startMicrons).toBe(1200);
+    expect(l.analysis.verdict).toBe("moisture");
+  });
+
+  it("an unknown unit in the header is a 422 naming it, with the columns and first rows for the unit choice", async () => {
+    const res = await previewPost(uploadRequest("/api/imports/preview", { as: owner, file: { body: "time,pressure (furlongs)\n0,500\n10,510\n20,520\n30,530\n40,540\n", name: "f.csv" } }));
+    expect(res.status).toBe(422);
+    const body = await res.json();
+    expect(body.error.message).toMatch(/'furlongs' is not a pressure unit known here; units understood:/);
+    expect(body.error.details).toMatchObject({ reason: "unknown_unit", columns: ["time", "pressure (furlongs)"] });
+    expect(body.error.details.rows.length).toBeGreaterThan(0);
   });
 
   it("answers 422 with the importer's message for an unreadable file (RFC 9110 §15.5.21 422)", async () => {

@@ -113,7 +113,8 @@ export function pulldownFindings(ctx: DiagnoseContext): Finding[] {
 
   // freeze risk: a stall between 1,000 and 4,588 microns (water boiling, cooling itself, freezing)
   const stall = longestStall(smooth, at, 1000, TRIPLE_POINT_MICRONS);
-  const lowAfter = stall ? Math.min(...smooth.slice(stall.endK)) : Infinity;
+  let lowAfter = Infinity;
+  if (stall) for (let k = stall.endK; k < smooth.length; k++) if (smooth[k] < lowAfter) lowAfter = smooth[k];
   const cold = ctx.ambientC !== null && ctx.ambientC <= 5 && (ctx.verdict === "moisture" || ctx.verdict === "leak_and_moisture");
   if ((stall && stall.seconds >= 420 && lowAfter < 0.7 * stall.microns) || cold) {
     const level = stall?.microns ?? pd.lowestMicrons;
@@ -137,7 +138,7 @@ export function pulldownFindings(ctx: DiagnoseContext): Finding[] {
 }
 
 /** Longest stretch whose readings stay within ±6 % inside [lo, hi] microns (two-pointer scan, O(n)). */
-function longestStall(v: number[], at: (k: number) => number, lo: number, hi: number): { seconds: number; microns: number; startSeconds: number; endK: number } | null {
+function longestStall(v: ArrayLike<number>, at: (k: number) => number, lo: number, hi: number): { seconds: number; microns: number; startSeconds: number; endK: number } | null {
   let best: { seconds: number; microns: number; startSeconds: number; endK: number } | null = null;
   let s = 0;
   for (let k = 0; k < v.length; k++) {

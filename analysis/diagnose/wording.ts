@@ -23,16 +23,16 @@ export function finding(
   return { code, severity, title, message, evidence, checks, cautions, atSeconds };
 }
 
-/** 3-point running median of values[from..to] inclusive (edges copied). */
-export function median3(values: ArrayLike<number>, from: number, to: number): number[] {
-  const out: number[] = [];
+/** 3-point running median of values[from..to] inclusive (edges copied), in one typed array. */
+export function median3(values: ArrayLike<number>, from: number, to: number): Float64Array {
+  const out = new Float64Array(Math.max(0, to - from + 1));
   for (let i = from; i <= to; i++) {
-    if (i === from || i === to) out.push(values[i]);
+    if (i === from || i === to) out[i - from] = values[i];
     else {
       const a = values[i - 1];
       const b = values[i];
       const c = values[i + 1];
-      out.push(Math.max(Math.min(a, b), Math.min(Math.max(a, b), c)));
+      out[i - from] = Math.max(Math.min(a, b), Math.min(Math.max(a, b), c));
     }
   }
   return out;

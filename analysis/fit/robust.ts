@@ -7,6 +7,11 @@ import { medianInPlace } from "./median";
 export const SPIKE_K = 5;
 /** Never call more than this fraction of the readings spikes: beyond it the model is wrong, not the points. */
 export const SPIKE_MAX_FRACTION = 0.05;
+/**
+ * …except that a few are always allowed: one or two wild readings (a bumped hose, a hand on the gauge),
+ * perhaps twice, are spikes even in a hand-typed hold of a dozen readings.
+ */
+export const SPIKE_MAX_ALWAYS = 3;
 /** A spike must also be off by more than this many microns (a few resolution steps of a micron gauge). */
 export const SPIKE_MIN_MICRONS = 5;
 
@@ -22,8 +27,10 @@ export const SPIKE_BLOCK_MIN = 100;
  * shape a little, so the test is local: the residuals (reading − fit, microns) are cut into consecutive
  * blocks of max(100, n/20) readings, and a reading is a spike when it lies more than k robust sd from its
  * block's median residual (robust sd = 1.4826·MAD of the block, consistent with σ for Gaussian noise,
- * floored at 1 micron, one resolution step) and is off by more than SPIKE_MIN_MICRONS. If more than
- * SPIKE_MAX_FRACTION of the readings would be flagged, none are (the model is wrong, not the points).
+ * floored at 1 micron, one resolution step) and is off by more than SPIKE_MIN_MICRONS, in a run of at
+ * most SPIKE_MAX_RUN successive readings (isolatedRuns). If more than
+ * max(SPIKE_MAX_ALWAYS, SPIKE_MAX_FRACTION of the readings) would be flagged, none are (the model is
+ * wrong, not the points).
  * Reference: F. R. Hampel, J. Amer. Statist. Assoc. 69 (1974) 383 (the MAD-based outlier identifier);
  * P. J. Rousseeuw & C. Croux, J. Amer. Statist. Assoc. 88 (1993) 1273 (the 1.4826 factor).
  */
@@ -56,5 +63,25 @@ export function findSpikesInResiduals(resid: Float64Array, k = SPIKE_K): number[
       if (off > k * scale && off > SPIKE_MIN_MICRONS) out.push(i);
     }
   }
-  return out.length > SPIKE_MAX_FRACTION * n ? [] : out;
+  const isolated = isolatedRuns(out);
+  return isolated.length > Math.max(SPIKE_MAX_ALWAYS, SPIKE_MAX_FRACTION * n) ? [] : isolated;
+}
+
+/** Longest run of successive flagged readings that is still a spike: a bumped hose gives one or two. */
+export const SPIKE_MAX_RUN = 2;
+
+/**
+ * Of the flagged indices (ascending), those in runs of at most SPIKE_MAX_RUN successive readings: a
+ * longer run is the curve doing something the first fit did not follow (a climb at the end of the log),
+ * never a spike to leave out — leaving it out could hide a rise above the limit.
+ */
+function isolatedRuns(flagged: number[]): number[] {
+  const out: number[] = [];
+  for (let a = 0; a < flagged.length; ) {
+    let b = a;
+    while (b + 1 < flagged.length && flagged[b + 1] === flagged[b] + 1) b++;
+    if (b - a + 1 <= SPIKE_MAX_RUN) for (let k = a; k <= b; k++) out.push(flagged[k]);
+    a = b + 1;
+  }
+  return out;
 }

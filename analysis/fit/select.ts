@@ -8,8 +8,14 @@ import { HOLD_MODEL_KINDS, HOLD_MODEL_PARAMS } from "./models";
 export const AICC_MARGIN = 4;
 /** A plateau whose τ exceeds this multiple of the observed hold cannot be told from a straight climb. */
 export const TAU_MAX_HOLD_MULTIPLE = 3;
-/** A plateau whose τ is below this many sample intervals is a step, not a rise that levels off. */
+/**
+ * A plateau whose τ is below this many sample intervals, and below TAU_STEP_SECONDS, is a step, not a rise
+ * that levels off. The second bound keeps a real quick level-off (water flashing off within a minute or
+ * two) in a hand-typed or sparse log: its τ is then under two samples, yet its level and any climb after
+ * it are seen plainly.
+ */
 export const TAU_MIN_SAMPLE_INTERVALS = 2;
+export const TAU_STEP_SECONDS = 20;
 /**
  * A term that moves the curve over the hold by less than this (microns, two gauge resolution steps) or by
  * less than the scatter of one reading (the fit's residual sd) cannot be seen on the chart and changes no
@@ -50,8 +56,8 @@ export function ineligibleReason(fit: ModelFit, ctx: SelectionContext): string |
     if (a <= 0) return "falls instead of rising to a level";
     if (tauSeconds > TAU_MAX_HOLD_MULTIPLE * ctx.holdSeconds)
       return `τ ${tauSeconds.toFixed(0)} s is over ${TAU_MAX_HOLD_MULTIPLE}× the ${ctx.holdSeconds.toFixed(0)} s hold (reads as a climb)`;
-    if (tauSeconds < TAU_MIN_SAMPLE_INTERVALS * ctx.sampleSeconds)
-      return `τ ${tauSeconds.toFixed(1)} s is under ${TAU_MIN_SAMPLE_INTERVALS} sample intervals (a step)`;
+    if (tauSeconds < Math.min(TAU_MIN_SAMPLE_INTERVALS * ctx.sampleSeconds, TAU_STEP_SECONDS))
+      return `τ ${tauSeconds.toFixed(1)} s is under ${TAU_MIN_SAMPLE_INTERVALS} sample intervals and ${TAU_STEP_SECONDS} s (a step)`;
     if (a < minEffect) return `plateau height ${a.toFixed(1)} microns is under ${minEffect.toFixed(1)} (reading scatter)`;
   }
   if (l !== undefined && Math.abs(l) * ctx.holdSeconds < minEffect)
@@ -61,7 +67,7 @@ export function ineligibleReason(fit: ModelFit, ctx: SelectionContext): string |
 
 /**
  * Pick the hold model. Rule: (1) drop models that are physically indistinguishable from a simpler one —
- * a plateau that falls, has τ beyond 3× the observed hold (a climb) or below 2 sample intervals (a step),
+ * a plateau that falls, has τ beyond 3× the observed hold (a climb) or below both 2 sample intervals and 20 s (a step),
  * or a term that moves the curve over the hold by less than max(2 microns, the residual sd); (2) take the lowest AICc of the rest;
  * (3) replace it by the simplest model nested inside it whose AICc is within 4 of it. A margin of 4 means
  * the extra term must make the data about e² ≈ 7 times more likely; Burnham & Anderson (2002) read

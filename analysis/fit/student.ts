@@ -8,12 +8,16 @@ function logGamma(x: number): number {
     0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059,
     12.507343278686905, -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7,
   ];
-  if (x < 0.5) return Math.log(Math.PI / Math.sin(Math.PI * x)) - logGamma(1 - x);
+  // reflection Γ(x)Γ(1 − x) = π / sin(πx) for x < 0.5, so the series below always runs at x ≥ 0.5
+  const reflect = x < 0.5;
+  const head = reflect ? Math.log(Math.PI / Math.sin(Math.PI * x)) : 0;
+  if (reflect) x = 1 - x;
   x -= 1;
   let a = c[0];
   const t = x + 7.5;
   for (let i = 1; i < 9; i++) a += c[i] / (x + i);
-  return 0.5 * Math.log(2 * Math.PI) + (x + 0.5) * Math.log(t) - t + Math.log(a);
+  const series = 0.5 * Math.log(2 * Math.PI) + (x + 0.5) * Math.log(t) - t + Math.log(a);
+  return reflect ? head - series : series;
 }
 
 /** Continued fraction for the incomplete beta function (modified Lentz). Reference: Press et al., Numerical Recipes (3rd ed.) §6.4. */
@@ -66,7 +70,13 @@ export function studentTCdf(t: number, dof: number): number {
  */
 export function studentTQuantile(p: number, dof: number): number {
   if (!(p > 0 && p < 1) || !(dof > 0)) return NaN;
-  if (p < 0.5) return -studentTQuantile(1 - p, dof);
+  // symmetric about 0: t_p = −t_(1−p)
+  if (p < 0.5) return -upperStudentTQuantile(1 - p, dof);
+  return upperStudentTQuantile(p, dof);
+}
+
+/** studentTQuantile for p in [0.5, 1). */
+function upperStudentTQuantile(p: number, dof: number): number {
   let lo = 0;
   let hi = 1;
   while (studentTCdf(hi, dof) < p) hi *= 2;

@@ -180,7 +180,8 @@ export function searchTimeConstant(
 ): TimeConstantSearch {
   const basis = projectionBasis(t, p, withClimb);
   // the grid only brackets the minimum: on a long hold it runs on ≤ GRID_FIT_POINTS group means
-  const coarse = t.length > GRID_FIT_POINTS ? projectionBasis(...groupMeans(t, p, GRID_FIT_POINTS), withClimb) : basis;
+  const grouped = t.length > GRID_FIT_POINTS ? groupMeans(t, p, GRID_FIT_POINTS) : null;
+  const coarse = grouped ? projectionBasis(grouped[0], grouped[1], withClimb) : basis;
   const lo = Math.log(tauMinSeconds);
   const hi = Math.log(tauMaxSeconds);
   const gridU: number[] = [];

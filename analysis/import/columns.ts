@@ -3,11 +3,11 @@
  * and the first rows' cells — and what unit the pressure is in.
  */
 import { LogError } from "../errors";
-import type { ImportOptions, PressureUnit } from "../types";
+import type { ImportOptions, PressureUnit, UnsureReason } from "../types";
 import { type GaugeUnit, namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../units";
 import { classifyNonNumber, parseReading } from "./numbers";
 import type { Layout } from "./sniff";
-import { detectTimeSpec, type TimeSpec } from "./timespec";
+import { detectTimeSpec, detectTimeSpecLoosely, type TimeSpec } from "./timespec";
 
 export interface ColumnChoice {
   timeIndex: number;
@@ -25,10 +25,14 @@ export interface ColumnChoice {
   time: TimeSpec;
   assumptions: string[];
   unsure: boolean;
+  /** The guesses behind `unsure` made here (columns, unit) and by the time format (time, date order). */
+  unsureReasons: UnsureReason[];
 }
 
-const TIME_WORDS = new Set(["time", "timestamp", "datetime", "date", "elapsed", "clock", "stamp", "ts", "t", "runtime", "duration", "zeit", "hora", "utc", "local", "sec", "seconds", "min", "minutes"]);
-const PRESSURE_WORDS = new Set(["pressure", "vacuum", "vac", "reading", "value", "gauge", "level", "p", "press", "abs", "absolute"]);
+const TIME_WORDS = new Set(["time", "timestamp", "datetime", "date", "elapsed", "clock", "stamp", "ts", "t", "runtime", "duration", "zeit", "hora", "utc", "local", "sec", "secs", "seconds", "min", "mins", "minute", "minutes", "hour", "hours", "epoch", "unix", "excel", "serial", "uhrzeit", "datum", "heure", "tiempo", "fecha"]);
+const DATE_WORDS = new Set(["date", "datum", "fecha"]);
+const CLOCK_WORDS = new Set(["time", "zeit", "uhrzeit", "hora", "heure"]);
+const PRESSURE_WORDS = new Set(["pressure", "vacuum", "vac", "reading", "readings", "value", "gauge", "level", "p", "press", "abs", "absolute", "druck", "vakuum", "pression", "vide", "vacio", "presion"]);
 const TEMPERATURE_WORDS = new Set(["temp", "temperature", "ambient", "degf", "degc", "fahrenheit", "celsius", "tamb", "oat"]);
 const UNIT_WORDS = new Set(["unit", "units", "uom"]);
 const IGNORED_WORDS = new Set(["battery", "batt", "sensor", "id", "serial", "rssi", "signal", "status", "humidity", "rh", "voltage", "volts", "note", "notes", "comment", "event", "index", "record", "channel", "name", "device", "model", "flag", "flags", "alarm"]);
@@ -97,6 +101,29 @@ function unknownUnitError(header: string, unitText: string): LogError {
   return new LogError("unknown_unit", `column '${header}': ${why}; units understood: ${UNITS_UNDERSTOOD.join(", ")}`, { column: header });
 }
 
+/** Words in brackets after a pressure header that qualify it rather than name a unit ("Vacuum (system)"). */
+const QUALIFIER_WORDS = new Set([
+  "abs", "absolute", "avg", "average", "mean", "min", "max", "raw", "live", "actual", "system", "sensor", "probe", "gauge", "channel", "ch",
+  "left", "right", "inlet", "outlet", "suction", "liquid", "discharge", "high", "low", "side", "port", "vacuum", "pressure", "reading", "value",
+  "calibrated", "corrected", "filtered", "smoothed", "remote", "wireless", "main", "aux", "display", "a", "b", "c", "at", "core", "tool",
+  "pump", "hose", "manifold", "unit", "units", "of", "the", "in", "on", "off", "rig", "indoor", "outdoor", "coil",
+]);
+
+/**
+ * The text a pressure header names as its unit when that is no unit known here ("pressure (furlongs)",
+ * "Vacuum [xyz]"), or null: bracketed words that are neither a unit, nor a label with digits, nor
+ * words that only qualify the column.
+ */
+export function unknownUnitNamed(header: string): string | null {
+  const m = /[([]\s*([^()[\]]+?)\s*[)\]]/.exec(header);
+  if (!m) return null;
+  const inside = m[1];
+  if (/\d/.test(inside) || parsePressureUnit(inside)) return null;
+  const words = unitTokens(inside);
+  if (words.length === 0 || words.every((w) => QUALIFIER_WORDS.has(w))) return null;
+  return inside;
+}
+
 function findTime(layout: Layout, options: ImportOptions, taken: Set<number>): { timeIndex: number; dateIndex: number; spec: TimeSpec } {
   const { header, decimalComma } = layout;
   const tokens = header.map((h) => unitTokens(h));
@@ -115,8 +142,8 @@ function findTime(layout: Layout, options: ImportOptions, taken: Set<number>): {
   }
 
   // Separate date and time columns.
-  const dateOnly = tokens.findIndex((t) => t.includes("date") && !t.includes("time"));
-  const timeOnly = tokens.findIndex((t, i) => i !== dateOnly && t.includes("time") && !t.includes("date"));
+  const dateOnly = tokens.findIndex((t) => hasWord(t, DATE_WORDS) && !hasWord(t, CLOCK_WORDS));
+  const timeOnly = tokens.findIndex((t, i) => i !== dateOnly && hasWord(t, CLOCK_WORDS) && !hasWord(t, DATE_WORDS));
   if (dateOnly >= 0 && timeOnly >= 0) {
     const spec = detect(timeOnly, dateOnly);
     if (spec) return { timeIndex: timeOnly, dateIndex: dateOnly, spec };
@@ -135,10 +162,13 @@ function findTime(layout: Layout, options: ImportOptions, taken: Set<number>): {
   }
   if (named.length > 0) {
     const i = named[0];
-    const k = layout.sampleRows.findIndex((r) => (r[i] ?? "").trim().length > 0);
+    // blame the first cell that is not in the form most cells are written in (or the first cell)
+    const loose = detectTimeSpecLoosely(header[i], columnCells(layout, i), decimalComma);
+    const blamed = loose ? layout.sampleRows.findIndex((r) => (r[i] ?? "").trim().length > 0 && !(loose.parse((r[i] ?? "").trim(), "") === loose.parse((r[i] ?? "").trim(), ""))) : -1;
+    const k = blamed >= 0 ? blamed : layout.sampleRows.findIndex((r) => (r[i] ?? "").trim().length > 0);
     const line = k >= 0 ? layout.sampleLines[k] : layout.headerLine + 2;
     const cell = k >= 0 ? layout.sampleRows[k][i].trim() : "";
-    throw new LogError("bad_time", `line ${line}: time '${cell}' in column '${header[i]}' is not a time`, { line, column: header[i] });
+    throw new LogError("bad_time", `line ${line}: time '${cell}' in column '${header[i]}' is not a time${loose ? ` (expected ${loose.description})` : ""}`, { line, column: header[i] });
   }
   throw new LogError("no_time_column", `no time column found; columns seen: ${describeColumns(header)}`);
 }
@@ -148,6 +178,7 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
   const { header, decimalComma } = layout;
   const tokens = header.map((h) => unitTokens(h));
   const assumptions: string[] = [];
+  const reasons: UnsureReason[] = [];
   let unsure = false;
 
   let pressureIndex = -1;
@@ -181,6 +212,7 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
       if (numeric.length === 1) {
         pressureIndex = numeric[0];
         assumptions.push(`pressure read from column '${header[pressureIndex]}': the only other numeric column (its header does not say pressure)`);
+        reasons.push({ code: "columns", message: assumptions[assumptions.length - 1] });
         unsure = true;
       }
     }
@@ -201,11 +233,13 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
     if (parsed && parsed.gauge) throw gaugeError(pressureHeader, pressureHeader, parsed.gaugeUnit);
     if (parsed && !parsed.gauge) unit = parsed.unit;
     else if (namesAmbiguousUnit(pressureHeader)) throw unknownUnitError(pressureHeader, pressureHeader);
+    else if (unknownUnitNamed(pressureHeader) !== null) throw unknownUnitError(pressureHeader, unknownUnitNamed(pressureHeader)!);
     else if (unitIndex < 0) {
       unit = "micron";
       unitAssumed = true;
       unsure = true;
       assumptions.push(`unit taken as microns: the header '${pressureHeader}' names none`);
+      reasons.push({ code: "unit", message: assumptions[assumptions.length - 1] });
     }
   }
 
@@ -225,7 +259,7 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
     }
   }
 
-  assumptions.unshift(...spec.assumptions);
+  const all = spec.assumptions.concat(assumptions);
   return {
     timeIndex,
     dateIndex,
@@ -236,8 +270,9 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
     unit,
     unitAssumed,
     time: spec,
-    assumptions,
+    assumptions: all,
     unsure: unsure || spec.unsure,
+    unsureReasons: [...(spec.unsure ? [{ code: spec.dated ? "date_order" : "time", message: spec.assumptions[spec.assumptions.length - 1] ?? spec.description } as UnsureReason] : []), ...reasons],
   };
 }
 

@@ -89,3 +89,39 @@ export function decideDecimalComma(ev: DecimalEvidence, delimiter: string): bool
   if (delimiter === ",") return false;
   return ev.pointCells === 0;
 }
+
+/** The decimal mark the file's other cells and separators point to, with why (see grouping.ts, rule 4). */
+export interface FileDecimalHint {
+  decimal: "," | ".";
+  why: string;
+}
+
+const EU_DATE = /^\d{1,2}\.\d{1,2}\.\d{2,4}\b/;
+const US_DATE = /^\d{1,2}\/\d{1,2}\/\d{4}\b/;
+const MERIDIEM = /\d\s*[AaPp]\.?[Mm]\.?\s*$/;
+
+/**
+ * Which decimal mark the file leans to, from the sample's evidence, its delimiter and how it writes
+ * dates: proof in any cell first, then the delimiter (a comma delimiter leaves the comma no room as a
+ * decimal mark; semicolons are the delimiter of decimal-comma locales), then day.month.year dates
+ * (decimal comma) or month/day/year with AM/PM (decimal point), then plain point decimals. Null when
+ * nothing leans either way. Common practice, no published source.
+ */
+export function fileDecimalHint(ev: DecimalEvidence, delimiter: string, rows: string[][]): FileDecimalHint | null {
+  if (ev.commaProof > ev.pointProof) return { decimal: ",", why: "other cells of the file write decimals with a comma" };
+  if (ev.pointProof > ev.commaProof) return { decimal: ".", why: "other cells of the file group thousands with a comma" };
+  if (delimiter === ",") return { decimal: ".", why: "the comma separates the columns, so it is not the decimal mark" };
+  let eu = 0;
+  let us = 0;
+  for (const row of rows)
+    for (const cell of row) {
+      const c = cell.trim();
+      if (EU_DATE.test(c)) eu++;
+      else if (US_DATE.test(c) || MERIDIEM.test(c)) us++;
+    }
+  if (delimiter === ";" && us === 0) return { decimal: ",", why: "the columns are separated by semicolons, as decimal-comma exports do" };
+  if (eu > 0 && us === 0) return { decimal: ",", why: "the dates are written day.month.year, as decimal-comma exports do" };
+  if (us > 0 && eu === 0) return { decimal: ".", why: "the dates are written month/day/year or with AM/PM, as decimal-point exports do" };
+  if (ev.pointCells > 0) return { decimal: ".", why: "other cells of the file write decimals with a point" };
+  return null;
+}

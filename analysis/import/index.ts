@@ -11,9 +11,10 @@ import Papa from "papaparse";
 import { LogError } from "../errors";
 import { groupedInteger } from "../format";
 import type { Finding, ImportedLog, ImportOptions, ImportSummary, PressureUnit } from "../types";
+import { UNITS_UNDERSTOOD } from "../units";
 import { chooseColumns } from "./columns";
 import { duplicatesFinding, reorderedFinding } from "./findings";
-import { RowReader, type RowsRead, type RowsResult } from "./rows";
+import { RowReader, type NumberSettings, type RowsRead, type RowsResult } from "./rows";
 import type { TimeSpec } from "./timespec";
 import { sniffLayout } from "./sniff";
 
@@ -30,6 +31,8 @@ const PARSE_CHUNK_CHARS = 1 << 18;
 const MAX_PARSE_CHUNKS = 256;
 /** Fewest usable readings the analysis can work with. */
 export const MIN_READINGS = 5;
+/** Fewest when over-range rows follow the last reading: a gross leak leaves the gauge's range after isolation and two readings. */
+export const MIN_READINGS_LEFT_RANGE = 3;
 /** With no unit named, readings all below this look like Torr or mbar rather than microns. */
 const SMALL_VALUES_LIMIT = 30;
 
@@ -50,6 +53,8 @@ function checkOptions(options: ImportOptions): { maxBytes: number; maxRows: numb
     throw new LogError("invalid_option", `unit '${String(options.unit)}' is not one of ${PRESSURE_UNITS.join(", ")}`);
   if (options.timeUnit !== undefined && options.timeUnit !== "s" && options.timeUnit !== "min")
     throw new LogError("invalid_option", `timeUnit '${String(options.timeUnit)}' must be "s" or "min"`);
+  if (options.decimalMark !== undefined && options.decimalMark !== "point" && options.decimalMark !== "comma")
+    throw new LogError("invalid_option", `decimalMark '${String(options.decimalMark)}' must be "point" or "comma"`);
   for (const key of ["timeColumn", "pressureColumn"] as const) {
     const v = options[key];
     if (v !== undefined && typeof v !== "string" && typeof v !== "number")
@@ -93,15 +98,32 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
     throw new LogError("too_few_readings", `only 0 usable readings: the file has a header (line ${layout.headerLine + 1}) but no data rows; at least ${MIN_READINGS} are needed`, { line: layout.headerLine + 1 });
   const choice = chooseColumns(layout, options);
   const body = layout.headerOffset === 0 ? text : text.slice(layout.headerOffset);
+  // a header quoted cell by cell: try papaparse's fast path, the row reader taking the quotes off and
+  // giving up (for the quote-aware path) at the first row that shows a quote carried something (rows.ts)
+  let fast = body.charCodeAt(0) === 34 && layout.delimiter.length === 1;
   const firstLine = layout.headerLine + 1;
+  const numbers: NumberSettings = {
+    hint: layout.decimalHint,
+    decimalMark: options.decimalMark,
+    // a point may group thousands ("12.500") only where the comma is the decimal mark
+    pointMayGroup: options.decimalMark === "comma" || (options.decimalMark === undefined && layout.decimalHint?.decimal === ","),
+  };
   const readWith = (timeSpec: TimeSpec): RowsResult => {
-    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length);
+    const result = readOnce(timeSpec, fast);
+    if (result !== null) return result;
+    fast = false;
+    return readOnce(timeSpec, false)!;
+  };
+  /** One pass; null when the fast path met a row whose quotes carried something. */
+  const readOnce = (timeSpec: TimeSpec, quotedFast: boolean): RowsResult | null => {
+    const reader = new RowReader(choice, timeSpec, layout.decimalComma, firstLine, layout.header.length, numbers, quotedFast);
     // Rows are read a chunk at a time and dropped after, so the parsed cells die young (cheap
     // to collect) instead of a table of every row being held to the end. At most maxRows + 2
     // rows (header and one over the limit) are read, as with a whole-text parse with `preview`.
     let rowsLeft = maxRows + 2;
     const chunk = (results: Papa.ParseResult<string[]>, parser: Papa.Parser): void => {
       const rows = results.data;
+      if (reader.notPlain) return;
       if (rows.length >= rowsLeft) {
         reader.addRows(rows.length > rowsLeft ? rows.slice(0, rowsLeft) : rows);
         rowsLeft = 0;
@@ -110,6 +132,7 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
       }
       rowsLeft -= rows.length;
       reader.addRows(rows);
+      if (reader.notPlain) parser.abort();
     };
     // papaparse's string streamer honours chunkSize and calls `chunk` synchronously, before
     // parse returns; its typings only list chunked parsing for files, hence the widened type.
@@ -118,20 +141,22 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
       newline: layout.newline,
       header: false,
       skipEmptyLines: false,
+      ...(quotedFast ? { fastMode: true } : {}),
       preview: rowsLeft,
       chunkSize: Math.max(chunkChars, Math.ceil(body.length / MAX_PARSE_CHUNKS)),
       chunk,
     };
     Papa.parse<string[]>(body, config);
-    return reader.finish();
+    return reader.notPlain ? null : reader.finish();
   };
 
   let spec = choice.time;
   let result = readWith(spec);
-  if (spec.alternate && (!result.ok || result.read.footerRows > 0)) {
-    // The day/month order was a guess from the first rows: a later row may prove the other.
+  const strays = (r: RowsResult) => (r.ok ? r.read.footerRows + r.read.badTimeRows : Infinity);
+  if (spec.alternate && strays(result) > 0) {
+    // The day/month order (or clock against stopwatch) was a guess from the first rows: a later row may prove the other.
     const other = readWith(spec.alternate);
-    if (other.ok && (!result.ok || other.read.footerRows < result.read.footerRows)) {
+    if (other.ok && strays(other) < strays(result)) {
       spec = spec.alternate;
       result = other;
     }
@@ -145,7 +170,8 @@ export function importLogStrict(text: string, options: ImportOptions = {}, chunk
     const found = countDataLines(text, layout.headerOffset);
     throw new LogError("too_many_rows", `the file has about ${formatCount(found)} data rows; the limit is ${formatCount(maxRows)}`);
   }
-  if (read.microns.length < MIN_READINGS)
+  const leftRange = read.overRangeRaw.length > 0 && read.rawSeconds.length > 0 && maxOf(read.overRangeRaw) > maxOf(read.rawSeconds);
+  if (read.microns.length < (leftRange ? MIN_READINGS_LEFT_RANGE : MIN_READINGS))
     throw new LogError("too_few_readings", `only ${read.microns.length} usable reading${read.microns.length === 1 ? "" : "s"} (of ${read.rows} rows); at least ${MIN_READINGS} are needed`);
 
   return assemble(read, layout, choice, spec);
@@ -181,6 +207,13 @@ function repeatedStamps(tSeconds: number[]): { duplicates: number; firstDuplicat
   return { duplicates, firstDuplicateAt };
 }
 
+/** The largest value (−Infinity for none), in one loop. */
+function maxOf(values: number[]): number {
+  let max = -Infinity;
+  for (let i = 0; i < values.length; i++) if (values[i] > max) max = values[i];
+  return max;
+}
+
 /** The largest reading, or 0 when none is above zero. */
 function largestAboveZero(microns: number[]): number {
   let max = 0;
@@ -191,7 +224,7 @@ function largestAboveZero(microns: number[]): number {
 function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice: ReturnType<typeof chooseColumns>, spec: typeof choice.time): ImportedLog {
   const assumptions = [...choice.assumptions];
   if (layout.unitsRow) assumptions.unshift(`units read from the row under the column names (line ${layout.headerLine + 1})`);
-  if (spec !== choice.time) assumptions.push(...spec.assumptions.slice(-1));
+  if (spec !== choice.time && spec.assumptions.length > 0) assumptions.push(spec.assumptions[spec.assumptions.length - 1]);
   let unsure = choice.unsure;
   const n = read.microns.length;
   const t0 = read.firstRaw;
@@ -215,9 +248,28 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
   if (duplicates > 0) findings.push(duplicatesFinding(duplicates, n, firstDuplicateAt));
 
   if (choice.unitAssumed) {
-    if (largestAboveZero(microns) < SMALL_VALUES_LIMIT)
-      assumptions.push(`every reading is below ${SMALL_VALUES_LIMIT}: that looks like Torr or mbar rather than microns; set the unit if so`);
+    const largest = largestAboveZero(microns);
+    if (largest < SMALL_VALUES_LIMIT) {
+      const column = layout.header[choice.pressureIndex];
+      throw new LogError(
+        "unknown_unit",
+        `column '${column}' names no unit, and every reading is below ${SMALL_VALUES_LIMIT} (the highest is ${largest}): too small for microns, more like Torr, mbar or kPa; choose the unit (units understood: ${UNITS_UNDERSTOOD.join(", ")})`,
+        { column },
+      );
+    }
   }
+  const unsureReasons = [...choice.unsureReasons];
+  if (spec !== choice.time && spec.unsure) unsureReasons.push({ code: "date_order", message: spec.assumptions[spec.assumptions.length - 1] });
+  const grouping = read.grouping;
+  if (grouping) {
+    assumptions.push(grouping.why);
+    if (grouping.unsure) {
+      unsure = true;
+      unsureReasons.push(grouping.unsure);
+    }
+  }
+  if (read.firstBadTime)
+    assumptions.push(`${read.badTimeRows} row${read.badTimeRows === 1 ? "" : "s"} whose time is not a time skipped (first at line ${read.firstBadTime.line}: '${read.firstBadTime.cell.trim().slice(0, 40)}')`);
   if (read.unitsSeen > 1) assumptions.push("the unit column changes between rows: each reading converted with its own unit");
   if (read.footerRows > 0) assumptions.push(`${read.footerRows} line${read.footerRows === 1 ? "" : "s"} at the end with no time ignored (footer)`);
   if (read.ignoredLines > 0) assumptions.push(`${read.ignoredLines} line${read.ignoredLines === 1 ? "" : "s"} with a single cell or a repeated header ignored (not data)`);
@@ -235,13 +287,16 @@ function assemble(read: RowsRead, layout: ReturnType<typeof sniffLayout>, choice
     unit: read.unit,
     timeFormat: spec.format,
     delimiter: layout.delimiter,
-    decimalComma: layout.decimalComma,
+    decimalComma: grouping ? (grouping.large ? grouping.mark === "." : grouping.mark === ",") : layout.decimalComma,
     headerLine: layout.headerLine,
     columns: header,
     timeColumn: choice.dateIndex >= 0 ? `${header[choice.dateIndex]} + ${header[choice.timeIndex]}` : header[choice.timeIndex],
     pressureColumn: header[choice.pressureIndex],
     temperatureColumn: choice.temperatureIndex >= 0 ? header[choice.temperatureIndex] : null,
     unsure,
+    unsureReasons,
+    thousandsSeparator: grouping?.large ? grouping.mark : null,
+    badTimeRows: read.badTimeRows,
     assumptions,
   };
   return {

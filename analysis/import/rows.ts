@@ -8,13 +8,20 @@ import type { PressureUnit } from "../types";
 import { micronsPerUnit, parsePressureUnit } from "../units";
 import type { ColumnChoice } from "./columns";
 import { gaugeError, unknownUnitError } from "./columns";
+import { AmbiguousCells, readWatched, settleGrouping, type GroupingDecision } from "./grouping";
 import { classifyNonNumber, parseReading } from "./numbers";
+import type { FileDecimalHint } from "./decimal";
 import type { TimeSpec } from "./timespec";
 
 /** A dash cell ("---") is taken as over-range when the nearest reading is at least this high (microns). */
 export const DASH_OVER_RANGE_MICRONS = 5000;
+/** A dash or blank cell is over range only when that reading is also at least this share of the log's highest reading (the gauge's top). */
+const DASH_SHARE_OF_TOP = 0.5;
 /** Rows at the end whose time is not a time are taken as a footer (and ignored) up to this many. */
 const MAX_FOOTER_ROWS = 10;
+/** Rows elsewhere whose time is not a time are skipped, and said, up to this many or this share of the rows; more refuse the log. */
+const MAX_BAD_TIME_ROWS = 10;
+const MAX_BAD_TIME_SHARE = 0.02;
 const HALF_DAY_SECONDS = 43200;
 
 export interface RowsRead {
@@ -35,7 +42,22 @@ export interface RowsRead {
   unitsSeen: number;
   /** Skipped cells marked below the gauge's range ("<20"). */
   underRange: number;
+  /** Rows skipped because their time was not a time (a few garbled rows), and the first such line and cell. */
+  badTimeRows: number;
+  firstBadTime: { line: number; cell: string } | null;
+  /** How an ambiguous "4,150" was settled for the pressure column, or null when no cell was ambiguous. */
+  grouping: GroupingDecision | null;
 }
+
+/** How the pressure column's numbers are to be settled: the file's lean, a forced answer, and whether a point may group thousands. */
+export interface NumberSettings {
+  hint: FileDecimalHint | null;
+  /** From the caller: "point" (a comma groups thousands) or "comma" (a comma is the decimal mark). */
+  decimalMark?: "point" | "comma";
+  pointMayGroup: boolean;
+}
+
+const UNIT_WORDS: Record<PressureUnit, string> = { micron: "microns", mtorr: "mTorr", torr: "Torr", mmhg: "mmHg", pa: "Pa", kpa: "kPa", mbar: "mbar", hpa: "hPa", psia: "psia", inhg: "inHg" };
 
 export type RowsResult = { ok: true; read: RowsRead } | { ok: false; line: number; cell: string };
 
@@ -70,6 +92,9 @@ export class RowReader {
   private badRows = 0;
   private lastGood = -1;
   private underRange = 0;
+  private readonly ambiguous = new AmbiguousCells();
+  /** On the fast path, a row showed that the quotes carry something: read the file again the quote-aware way. */
+  notPlain = false;
 
   constructor(
     private readonly choice: ColumnChoice,
@@ -77,6 +102,13 @@ export class RowReader {
     private readonly decimalComma: boolean,
     private readonly firstLine: number,
     private readonly fieldCount: number,
+    private readonly numbers: NumberSettings = { hint: null, pointMayGroup: false },
+    /**
+     * Cells arrive with their quotes on (papaparse's fast path, a plain split, on a file quoted cell by
+     * cell): take them off, and stop (`notPlain`) at the first row that shows a quote carried something —
+     * a delimiter or line break inside a cell gives a row of another length or a last cell not closed.
+     */
+    private readonly unwrap = false,
   ) {
     this.temperatureC = choice.temperatureIndex >= 0 ? [] : null;
     this.factor = choice.unit ? micronsPerUnit(choice.unit) : NaN;
@@ -90,13 +122,19 @@ export class RowReader {
    */
   addRows(rows: string[][]): void {
     const { timeIndex, dateIndex, pressureIndex, unitIndex, temperatureIndex, temperatureFahrenheit } = this.choice;
-    const { rawSeconds, microns, temperatureC, overRangeRaw, dashRaw, dashBefore, decimalComma, fieldCount, firstLine } = this;
+    const { rawSeconds, microns, temperatureC, overRangeRaw, dashRaw, dashBefore, decimalComma, fieldCount, firstLine, ambiguous } = this;
+    const pointMayGroup = this.numbers.pointMayGroup;
     const parse = this.spec.parse;
     const rollover = this.spec.rollover;
     const base = this.index; // row index (0 = header) of rows[0]
     let k = 0;
+    const unwrap = this.unwrap;
     if (base === 0 && rows.length > 0) {
-      this.header = rows[0];
+      if (unwrap && !plainQuotedRow(rows[0], fieldCount)) {
+        this.notPlain = true;
+        return;
+      }
+      this.header = unwrap ? rows[0].map((c) => unquote(c) ?? "") : rows[0];
       k = 1;
     }
     const header = this.header;
@@ -105,11 +143,15 @@ export class RowReader {
     for (; k < rows.length; k++) {
       const row = rows[k];
       const i = base + k;
+      if (unwrap && !plainQuotedRow(row, fieldCount)) {
+        this.notPlain = true;
+        return;
+      }
       if (row.length === 1 && fieldCount > 1) {
         if (row[0].trim().length > 0) ignoredLines++;
         continue;
       }
-      const timeCell = row[timeIndex];
+      const timeCell = unwrap ? unquote(row[timeIndex]) : row[timeIndex];
       if (timeCell === undefined || (timeCell.length === 0 && (dateIndex < 0 || row[dateIndex] === ""))) {
         // A row with no time at all cannot be placed; count it as read and skipped.
         if (row.join("").trim().length === 0) continue;
@@ -117,10 +159,11 @@ export class RowReader {
         skipped++;
         continue;
       }
-      let t = parse(timeCell, dateIndex >= 0 ? (row[dateIndex] ?? "") : "");
+      const dateCell = dateIndex >= 0 ? (unwrap ? unquote(row[dateIndex]) : row[dateIndex]) ?? "" : "";
+      let t = parse(timeCell, dateCell);
       if (t !== t) {
         const trimmed = timeCell.trim();
-        if (trimmed !== timeCell) t = parse(trimmed, dateIndex >= 0 ? (row[dateIndex] ?? "").trim() : "");
+        if (trimmed !== timeCell) t = parse(trimmed, dateCell.trim());
         if (t !== t) {
           // The header again (logs joined from two exports): not data.
           if (trimmed === (header[timeIndex] ?? "").trim()) {
@@ -148,7 +191,7 @@ export class RowReader {
       count++;
 
       if (unitIndex >= 0) {
-        const unitCell = row[unitIndex] ?? "";
+        const unitCell = (unwrap ? unquote(row[unitIndex]) : row[unitIndex]) ?? "";
         if (unitCell !== lastUnitCell && unitCell.trim().length > 0) {
           const parsed = parsePressureUnit(unitCell);
           if (!parsed) throw lineError(unknownUnitError(header[unitIndex] ?? "unit", unitCell.trim()), firstLine + i);
@@ -161,20 +204,21 @@ export class RowReader {
         }
       }
 
-      const cell = row[pressureIndex];
-      const v = cell === undefined ? NaN : parseReading(cell, decimalComma);
+      const cell = unwrap ? unquote(row[pressureIndex]) : row[pressureIndex];
+      const v = cell === undefined ? NaN : readWatched(cell, ambiguous, pointMayGroup);
       if (v === v && v >= 0 && factor === factor) {
+        if (ambiguous.last) ambiguous.note(microns.length, cell as string);
         rawSeconds.push(t);
         microns.push(v * factor);
         if (temperatureC !== null) {
-          const tc = parseReading(row[temperatureIndex] ?? "", decimalComma);
+          const tc = parseReading((unwrap ? unquote(row[temperatureIndex]) : row[temperatureIndex]) ?? "", decimalComma);
           temperatureC.push(temperatureFahrenheit ? ((tc - 32) * 5) / 9 : tc);
         }
       } else {
         skipped++;
         const kind = cell === undefined ? "blank" : classifyNonNumber(cell);
         if (kind === "over_range") overRangeRaw.push(t);
-        else if (kind === "dashes") { dashRaw.push(t); dashBefore.push(microns.length); }
+        else if (kind === "dashes" || kind === "blank") { dashRaw.push(t); dashBefore.push(microns.length); }
         else if (kind === "under_range") underRange++;
       }
     }
@@ -195,18 +239,26 @@ export class RowReader {
     this.underRange = underRange;
   }
 
-  /** What was read, or the first row whose time is not a time (unless those rows are a footer). */
+  /** What was read, or the first row whose time is not a time (unless those rows are a footer or a few garbled rows). */
   finish(): RowsResult {
     const { microns, overRangeRaw, dashRaw, dashBefore, firstBad, badRows } = this;
+    let footerRows = 0;
+    let badTimeRows = 0;
     if (firstBad >= 0) {
-      const footer = this.lastGood < firstBad && badRows <= MAX_FOOTER_ROWS;
-      if (!footer) return { ok: false, line: this.firstLine + firstBad, cell: this.firstBadCell };
+      if (this.lastGood < firstBad && badRows <= MAX_FOOTER_ROWS) footerRows = badRows;
+      else if (badRows <= Math.max(MAX_BAD_TIME_ROWS, MAX_BAD_TIME_SHARE * this.count)) badTimeRows = badRows;
+      else return { ok: false, line: this.firstLine + firstBad, cell: this.firstBadCell };
     }
+    const grouping = this.settleNumbers();
 
+    // dashes and blanks: over range when the reading before them (the first reading when none is) is near the gauge's top
+    let top = 0;
+    for (let i = 0; i < microns.length; i++) if (microns[i] > top) top = microns[i];
+    const threshold = Math.max(DASH_OVER_RANGE_MICRONS, DASH_SHARE_OF_TOP * top);
     for (let k = 0; k < dashRaw.length; k++) {
       const before = dashBefore[k];
       const near = before > 0 ? microns[before - 1] : microns.length > 0 ? microns[0] : NaN;
-      if (near >= DASH_OVER_RANGE_MICRONS) overRangeRaw.push(dashRaw[k]);
+      if (near >= threshold) overRangeRaw.push(dashRaw[k]);
     }
 
     return {
@@ -220,13 +272,51 @@ export class RowReader {
         rows: this.count,
         skipped: this.skipped,
         ignoredLines: this.ignoredLines,
-        footerRows: firstBad >= 0 ? badRows : 0,
+        footerRows,
         unit: this.firstUnit ?? "micron",
         unitsSeen: this.unitsSeen,
         underRange: this.underRange,
+        badTimeRows,
+        firstBadTime: badTimeRows > 0 ? { line: this.firstLine + firstBad, cell: this.firstBadCell } : null,
+        grouping,
       },
     };
   }
+
+  /** Settle an ambiguous "4,150" for the whole pressure column (grouping.ts), or as the caller said. */
+  private settleNumbers(): GroupingDecision | null {
+    const { ambiguous, numbers } = this;
+    if (ambiguous.index.length === 0) return null;
+    const unitWord = UNIT_WORDS[this.firstUnit ?? "micron"];
+    const forced = numbers.decimalMark;
+    if (forced) {
+      // "point": a comma groups thousands; "comma": a point does
+      const large = (forced === "point") === (ambiguous.mark === ",");
+      const d = settleGrouping(this.microns, ambiguous, null, unitWord, large);
+      return d && { ...d, why: `'${ambiguous.example}' read with ${forced === "point" ? "a decimal point (a comma groups thousands)" : "a decimal comma (a point groups thousands)"}, as asked` };
+    }
+    return settleGrouping(this.microns, ambiguous, numbers.hint, unitWord);
+  }
+}
+
+/**
+ * A row of a quoted-cell file split plainly that a quote-aware parse would give the same: as many cells
+ * as the header, each opening and closing with a quote and holding none (a blank line is fine).
+ */
+function plainQuotedRow(row: string[], fieldCount: number): boolean {
+  if (row.length === 1 && row[0].length === 0) return true;
+  if (row.length !== fieldCount) return false;
+  for (let j = 0; j < row.length; j++) {
+    const c = row[j];
+    const n = c.length;
+    if (n < 2 || c.charCodeAt(0) !== 34 || c.charCodeAt(n - 1) !== 34 || c.indexOf('"', 1) !== n - 1) return false;
+  }
+  return true;
+}
+
+/** A cell without its surrounding quotes ('"4,150"' → "4,150"); undefined stays undefined. */
+function unquote(cell: string | undefined): string | undefined {
+  return cell !== undefined && cell.length >= 2 && cell.charCodeAt(0) === 34 ? cell.slice(1, -1) : cell;
 }
 
 function lineError(e: LogError, line: number): LogError {

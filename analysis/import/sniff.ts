@@ -10,15 +10,18 @@
  */
 import { LogError } from "../errors";
 import { parsePressureUnit } from "../units";
-import { addEvidence, decideDecimalComma, emptyEvidence } from "./decimal";
+import { addEvidence, decideDecimalComma, emptyEvidence, fileDecimalHint, type FileDecimalHint } from "./decimal";
 import { classifyNonNumber } from "./numbers";
 
 /** Lines looked at to find the header (preamble included). */
 const HEADER_SEARCH_LINES = 100;
 /** Data rows after the header used to decide columns, units and time format. */
 export const SAMPLE_ROWS = 50;
-/** Lines after the header looked at, at most, to find SAMPLE_ROWS rows free of gauge markers. */
-export const MAX_SAMPLE_SCAN_LINES = 5000;
+/**
+ * Lines after the header looked at, at most, to find SAMPLE_ROWS rows free of gauge markers and blank
+ * cells: a gauge over range may write markers or nothing for the first hours (7,200 lines at 1 Hz is two).
+ */
+export const MAX_SAMPLE_SCAN_LINES = 20000;
 /** Lines read at a time past the first window when the sample must look further. */
 const SCAN_CHUNK_LINES = 512;
 
@@ -40,6 +43,8 @@ export interface Layout {
   /** 1-based file line of each sample row. */
   sampleLines: number[];
   decimalComma: boolean;
+  /** The decimal mark the file's other cells and separators lean to, for the pressure column's own decision (grouping.ts). */
+  decimalHint: FileDecimalHint | null;
   /** The header row is a row of units under a row of names; `header` holds both ("Pressure (mTorr)"). */
   unitsRow: boolean;
 }
@@ -89,15 +94,26 @@ function isMarkerCell(cell: string): boolean {
   return marker;
 }
 
-/** A data row none of whose cells is a gauge marker. */
+/** A data row none of whose cells is a gauge marker or blank (a gauge over range may write nothing). */
 function isPlainRow(cells: string[]): boolean {
-  for (const c of cells) if (isMarkerCell(c)) return false;
+  for (const c of cells) if (c.length === 0 || isMarkerCell(c) || c.trim().length === 0) return false;
   return true;
 }
 
 /** Split one line on a delimiter, honouring double quotes ("a,b" is one cell; "" is a quote). */
 export function splitLine(line: string, delimiter: string): string[] {
   if (line.indexOf('"') === -1) return line.split(delimiter);
+  // every cell quoted, no quote or delimiter inside one ("00:10"<TAB>"4,150"): split and unwrap
+  const simple = line.split(delimiter);
+  let plainQuoted = true;
+  for (let k = 0; k < simple.length && plainQuoted; k++) {
+    const c = simple[k];
+    if (c.length < 2 || c.charCodeAt(0) !== 34 || c.charCodeAt(c.length - 1) !== 34 || c.indexOf('"', 1) !== c.length - 1) plainQuoted = false;
+  }
+  if (plainQuoted) {
+    for (let k = 0; k < simple.length; k++) simple[k] = simple[k].slice(1, -1);
+    return simple;
+  }
   const cells: string[] = [];
   let cell = "";
   let quoted = false;
@@ -173,11 +189,11 @@ function delimiterScore(lines: string[], delimiter: string): { fields: number; s
   return { fields, score };
 }
 
-/** Decimal comma for the whole file, from every cell of the sample (rule in decimal.ts). */
-function detectDecimalComma(rows: string[][], delimiter: string): boolean {
+/** Decimal comma for the whole file, from every cell of the sample, and where the file leans (rules in decimal.ts). */
+function detectDecimalComma(rows: string[][], delimiter: string): { decimalComma: boolean; decimalHint: FileDecimalHint | null } {
   const evidence = emptyEvidence();
   for (const row of rows) for (const cell of row) addEvidence(evidence, cell);
-  return decideDecimalComma(evidence, delimiter);
+  return { decimalComma: decideDecimalComma(evidence, delimiter), decimalHint: fileDecimalHint(evidence, delimiter, rows) };
 }
 
 /**
@@ -271,6 +287,6 @@ export function sniffLayout(text: string): Layout {
     unitsRow,
     sampleRows,
     sampleLines,
-    decimalComma: detectDecimalComma(sampleRows, delimiter),
+    ...detectDecimalComma(sampleRows, delimiter),
   };
 }

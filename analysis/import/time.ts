@@ -77,6 +77,8 @@ function readClock(maxHours: number): number {
     }
   }
   if (h > maxHours) return NaN;
+  // a clock reads 24:00 only as the end of the day (ISO 8601:2019 §5.3.2); "24:15" is minutes and seconds
+  if (maxHours === 24 && h === 24 && (m !== 0 || s !== 0)) return NaN;
   return h * 3600 + m * 60 + s;
 }
 
@@ -95,10 +97,16 @@ function readMeridiem(secondsOfDay: number): number {
   return isPm ? secondsOfDay + 12 * 3600 : secondsOfDay;
 }
 
-/** Reads an optional zone: Z, UTC, GMT, ±HH, ±HHMM, ±HH:MM → seconds to subtract; NaN if malformed. */
+/** Reads an optional zone: Z, UTC, GMT, ±HH, ±HHMM, ±HH:MM, or UTC/GMT followed by one of those → seconds to subtract; NaN if malformed. */
 function readZone(): number {
   skipSpaces();
   if (pos >= str.length) return 0;
+  const word = str.slice(pos, pos + 3).toUpperCase();
+  if (word === "UTC" || word === "GMT") {
+    pos += 3;
+    skipSpaces();
+    if (pos >= str.length) return 0;
+  }
   const c = str.charCodeAt(pos);
   if (c === 90 || c === 122) {
     pos++;
@@ -122,12 +130,6 @@ function readZone(): number {
       }
     } else return NaN;
     return sign * offset;
-  }
-  const word = str.slice(pos, pos + 3).toUpperCase();
-  if (word === "UTC" || word === "GMT") {
-    pos += 3;
-    const more = readZone();
-    return more;
   }
   return NaN;
 }
@@ -171,8 +173,8 @@ let cachedDaySeconds = NaN;
  * space instead of T). The date's day count is cached by its digits, so a log of one day computes it
  * once. NaN = not this exact form (the general parser then decides).
  */
-function parseIsoFast(s: string): number {
-  let n = s.length;
+function parseIsoFast(s: string, length = s.length): number {
+  let n = length;
   let fraction = 0;
   if (n === 23 || n === 24) {
     // ".sss" milliseconds
@@ -213,6 +215,24 @@ function parseIsoFast(s: string): number {
 }
 
 /**
+ * Fixed-position fast path for "YYYY-MM-DDTHH:MM:SS±HH:MM" and "…±HHMM" (ISO 8601 with an offset from
+ * UTC): the stamp less the offset, seconds since 1970 UTC. NaN = not this exact form.
+ */
+function parseIsoOffsetFast(s: string): number {
+  const n = s.length;
+  const sign = s.charCodeAt(19);
+  if ((n !== 25 && n !== 24) || (sign !== 43 && sign !== 45)) return NaN;
+  if (n === 25 && s.charCodeAt(22) !== 58) return NaN;
+  const m0 = n === 25 ? 23 : 22;
+  const h0 = s.charCodeAt(20) - 48, h1 = s.charCodeAt(21) - 48, i0 = s.charCodeAt(m0) - 48, i1 = s.charCodeAt(m0 + 1) - 48;
+  if (!(h0 >= 0 && h0 <= 9 && h1 >= 0 && h1 <= 9 && i0 >= 0 && i0 <= 5 && i1 >= 0 && i1 <= 9)) return NaN;
+  const base = parseIsoFast(s, 19);
+  if (base !== base) return NaN;
+  const offset = (h0 * 10 + h1) * 3600 + (i0 * 10 + i1) * 60;
+  return sign === 45 ? base + offset : base - offset;
+}
+
+/**
  * Parse a date-and-time stamp: ISO 8601 ("2026-06-14T13:05:00Z", "2026-06-14 13:05:00.5+02:00")
  * or a day-first / month-first form ("14/06/2026 13:05:00", "6/14/2026 1:05:00 PM").
  * Returns seconds since 1970 (UTC when a zone is given, wall time otherwise), or NaN.
@@ -221,6 +241,8 @@ export function parseDateTime(cell: string, order: DateOrder): number {
   if (order === "ymd") {
     const fast = parseIsoFast(cell);
     if (fast === fast) return fast;
+    const zoned = parseIsoOffsetFast(cell);
+    if (zoned === zoned) return zoned;
   }
   str = cell;
   pos = 0;
@@ -270,8 +292,44 @@ export function parseClock(cell: string): number {
   return s === s && atEnd() ? s : NaN;
 }
 
+/**
+ * Fast path for a stopwatch cell of digits only: m+:ss or h+:mm:ss, minutes and seconds two digits each
+ * and under 60 → seconds; NaN for anything else (the general reader below then decides).
+ */
+function colonDurationFast(s: string): number {
+  const n = s.length;
+  if (n < 4 || n > 12) return NaN;
+  const c2 = s.charCodeAt(n - 3);
+  if (c2 !== 58) return NaN;
+  const s0 = s.charCodeAt(n - 2) - 48, s1 = s.charCodeAt(n - 1) - 48;
+  if (!(s0 >= 0 && s0 <= 5 && s1 >= 0 && s1 <= 9)) return NaN;
+  let head = n - 3; // digits before the last colon
+  let minutes = 0;
+  let hours = 0;
+  let hasHours = false;
+  if (head >= 4 && s.charCodeAt(head - 3) === 58) {
+    const m0 = s.charCodeAt(head - 2) - 48, m1 = s.charCodeAt(head - 1) - 48;
+    if (!(m0 >= 0 && m0 <= 5 && m1 >= 0 && m1 <= 9)) return NaN;
+    minutes = m0 * 10 + m1;
+    head -= 3;
+    hasHours = true;
+  }
+  let lead = 0;
+  for (let i = 0; i < head; i++) {
+    const d = s.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return NaN;
+    lead = lead * 10 + d;
+  }
+  if (head === 0) return NaN;
+  if (hasHours) hours = lead;
+  else minutes = lead;
+  return hours * 3600 + minutes * 60 + s0 * 10 + s1;
+}
+
 /** Parse an elapsed duration written with colons: "1:02:03" (h:mm:ss), "65:30" (mm:ss) → seconds. */
 export function parseColonDuration(cell: string): number {
+  const fast = colonDurationFast(cell);
+  if (fast === fast) return fast;
   str = cell;
   pos = 0;
   skipSpaces();

@@ -53,12 +53,28 @@ function parseNamedMonth(cell: string): number {
   return ms === ms ? ms / 1000 : NaN;
 }
 
+/** Share of sample cells that may be strays (a garbled row): 10 %, or half while looking for the cell to blame in an error. */
+let strayShare = 0.1;
+
 function fits(samples: string[], test: (s: string) => boolean): boolean {
   if (samples.length === 0) return false;
   let ok = 0;
   for (const s of samples) if (test(s)) ok++;
-  // Allow one stray cell in a sample (a typo is reported later with its line).
-  return ok >= Math.max(1, samples.length - 1);
+  // Allow a few stray cells in a sample (garbled rows are skipped later, and said, with their line).
+  return ok >= Math.max(1, samples.length - Math.max(1, Math.floor(samples.length * strayShare)));
+}
+
+/**
+ * The form most of the cells are written in, for an error that names the first cell that is not in it:
+ * detectTimeSpec allowing half the cells to be strays. Null when not even half are times.
+ */
+export function detectTimeSpecLoosely(header: string, samples: string[], decimalComma: boolean): TimeSpec | null {
+  strayShare = 0.5;
+  try {
+    return detectTimeSpec(header, samples, decimalComma, undefined);
+  } finally {
+    strayShare = 0.1;
+  }
 }
 
 /** Day/month order of slash- or dot-dates, or null when the cells are not such dates. */
@@ -78,7 +94,19 @@ function orderWords(order: DateOrder): string {
   return order === "ymd" ? "year-month-day" : order === "dmy" ? "day/month/year" : "month/day/year";
 }
 
-function dateTimeSpec(samples: string[], order: DateOrder, unsure: boolean, withAlternate: boolean): TimeSpec {
+/** The same spec read the other day/month way, for a guessed order (the retry when a later row disproves it). */
+function withOtherOrder(spec: TimeSpec, order: DateOrder, other: TimeSpec): TimeSpec {
+  other.assumptions.push(`dates read as ${orderWords(order === "dmy" ? "mdy" : "dmy")}: a later row did not fit ${orderWords(order)}`);
+  spec.alternate = other;
+  return spec;
+}
+
+function dateTimeSpec(samples: string[], order: DateOrder, unsure: boolean): TimeSpec {
+  const spec = dateTimeSpecOnce(samples, order, unsure);
+  return unsure && order !== "ymd" ? withOtherOrder(spec, order, dateTimeSpecOnce(samples, order === "dmy" ? "mdy" : "dmy", false)) : spec;
+}
+
+function dateTimeSpecOnce(samples: string[], order: DateOrder, unsure: boolean): TimeSpec {
   const isIso = order === "ymd" && samples.some((s) => /\d[Tt]\d/.test(s));
   const zoned = samples.length > 0 && samples.every((s) => hasZone(s));
   const assumptions: string[] = [];
@@ -95,11 +123,6 @@ function dateTimeSpec(samples: string[], order: DateOrder, unsure: boolean, with
     unsure,
     description: isIso ? `ISO 8601${zoned ? " with zone" : ""}` : `date and time (${orderWords(order)})`,
   };
-  if (withAlternate && unsure && order !== "ymd") {
-    const other: DateOrder = order === "dmy" ? "mdy" : "dmy";
-    spec.alternate = dateTimeSpec(samples, other, false, false);
-    spec.alternate.assumptions.push(`dates read as ${orderWords(other)}: a later row did not fit ${orderWords(order)}`);
-  }
   return spec;
 }
 
@@ -122,34 +145,17 @@ export function detectTimeSpec(
     const found = dateOrderOf(dateSamples, parseDateOnly);
     if (!found || !fits(samples, (s) => parseClock(s) === parseClock(s))) return null;
     const { order, unsure } = found;
-    let lastDateCell = "";
-    let lastDays = NaN;
-    const assumptions = ["times carry no zone: read as local wall time (only differences are used)"];
-    if (unsure) assumptions.push(`dates read as ${orderWords(order)}: every day in the first rows is 12 or less, so the order is a guess`);
-    return {
-      format: "date_and_time",
-      parse: (timeCell, dateCell) => {
-        if (dateCell !== lastDateCell) {
-          lastDateCell = dateCell;
-          lastDays = parseDateOnly(dateCell, order);
-        }
-        return lastDays * 86400 + parseClock(timeCell);
-      },
-      rollover: false,
-      dated: true,
-      zoned: false,
-      alternate: null,
-      assumptions,
-      unsure,
-      description: `separate date (${orderWords(order)}) and time columns`,
-    };
+    const spec = dateAndTimeSpec(order, unsure);
+    return unsure && order !== "ymd" ? withOtherOrder(spec, order, dateAndTimeSpec(order === "dmy" ? "mdy" : "dmy", false)) : spec;
   }
 
   const headerUnit = timeUnitFromHeader(header);
   if (fits(samples, (s) => parseReading(s, decimalComma) === parseReading(s, decimalComma))) {
-    const first = parseReading(samples[0], decimalComma);
-    // Spreadsheet serial dates (days since 1899-12-30; 36526 = 2000-01-01, 73051 = 2100-01-01) in a date-named column.
-    if (!timeUnitOption && !headerUnit && /date|stamp/i.test(header) && first >= 36526 && first < 73051) {
+    const first = firstNumber(samples, decimalComma);
+    // Spreadsheet serial dates (days since 1899-12-30; 36526 = 2000-01-01, 73051 = 2100-01-01) in a
+    // date-named column, or in any column whose values step by under a hundredth (as seconds, far
+    // faster than any gauge logs).
+    if (!timeUnitOption && !headerUnit && first >= 36526 && first < 73051 && (/date|stamp/i.test(header) || medianStep(samples, decimalComma) < 0.01)) {
       return {
         format: "datetime",
         // Rounded to the millisecond: the stored fraction of a day carries binary noise.
@@ -200,7 +206,7 @@ export function detectTimeSpec(
   }
 
   const found = dateOrderOf(samples, parseDateTime);
-  if (found) return dateTimeSpec(samples, found.order, found.unsure, true);
+  if (found) return dateTimeSpec(samples, found.order, found.unsure);
 
   // Month names ("Jun 14 2026 13:05:00", "14-Jun-2026 1:05 PM"): the engine's date parser, read as UTC wall time.
   if (fits(samples, (s) => /[A-Za-z]{3}/.test(s) && parseNamedMonth(s) === parseNamedMonth(s))) {
@@ -217,32 +223,87 @@ export function detectTimeSpec(
     };
   }
 
-  const elapsedHeader = headerUnit !== null || /elapsed|duration|runtime|run time/i.test(header);
-  if (!elapsedHeader && fits(samples, (s) => parseClock(s) === parseClock(s))) {
+  // A clock, unless the header says elapsed or the first stamp is zero ("00:00", "0:00:00": a stopwatch
+  // from the start of the log, whose minutes may run past 59 and hours past 24).
+  const elapsedHeader = headerUnit !== null || /elapsed|duration|runtime|run time|stopwatch/i.test(header);
+  const duration = fits(samples, (s) => parseColonDuration(s) === parseColonDuration(s)) ? durationSpec(samples) : null;
+  const fromZero = duration !== null && parseColonDuration(samples[0]) === 0 && !/[AaPp][Mm]/.test(samples[0]);
+  if (!elapsedHeader && !fromZero && fits(samples, (s) => parseClock(s) === parseClock(s))) {
     return {
       format: "clock",
       parse: (cell) => parseClock(cell),
       rollover: true,
       dated: false,
       zoned: false,
-      alternate: null,
+      // a later row past 23:59 ("75:30") proves a stopwatch
+      alternate: duration,
       assumptions: [],
       unsure: false,
       description: "clock time (midnight rollover handled)",
     };
   }
-  if (fits(samples, (s) => parseColonDuration(s) === parseColonDuration(s))) {
-    return {
-      format: "elapsed_s",
-      parse: (cell) => parseColonDuration(cell),
-      rollover: false,
-      dated: false,
-      zoned: false,
-      alternate: null,
-      assumptions: [`elapsed time read as ${samples[0].split(":").length === 3 ? "h:mm:ss" : "mm:ss"}`],
-      unsure: false,
-      description: "elapsed h:mm:ss",
-    };
+  return duration;
+}
+
+/** Separate date and time columns, the date read in the given order. */
+function dateAndTimeSpec(order: DateOrder, unsure: boolean): TimeSpec {
+  let lastDateCell = "";
+  let lastDays = NaN;
+  const assumptions = ["times carry no zone: read as local wall time (only differences are used)"];
+  if (unsure) assumptions.push(`dates read as ${orderWords(order)}: every day in the first rows is 12 or less, so the order is a guess`);
+  return {
+    format: "date_and_time",
+    parse: (timeCell, dateCell) => {
+      if (dateCell !== lastDateCell) {
+        lastDateCell = dateCell;
+        lastDays = parseDateOnly(dateCell, order);
+      }
+      return lastDays * 86400 + parseClock(timeCell);
+    },
+    rollover: false,
+    dated: true,
+    zoned: false,
+    alternate: null,
+    assumptions,
+    unsure,
+    description: `separate date (${orderWords(order)}) and time columns`,
+  };
+}
+
+/** Elapsed time written with colons, h:mm:ss or mm:ss, minutes past 59 allowed ("75:30"). */
+function durationSpec(samples: string[]): TimeSpec {
+  const form = samples[0].split(":").length === 3 ? "h:mm:ss" : "mm:ss";
+  return {
+    format: "elapsed_s",
+    parse: (cell) => parseColonDuration(cell),
+    rollover: false,
+    dated: false,
+    zoned: false,
+    alternate: null,
+    assumptions: [`elapsed time read as ${form}`],
+    unsure: false,
+    description: `elapsed ${form}`,
+  };
+}
+
+/** The first sample cell that is a number (a garbled first row does not decide the form). */
+function firstNumber(samples: string[], decimalComma: boolean): number {
+  for (const s of samples) {
+    const v = parseReading(s, decimalComma);
+    if (v === v) return v;
   }
-  return null;
+  return NaN;
+}
+
+/** Median positive step between successive numeric sample cells (Infinity when none). */
+function medianStep(samples: string[], decimalComma: boolean): number {
+  const steps: number[] = [];
+  let prev = NaN;
+  for (const s of samples) {
+    const v = parseReading(s, decimalComma);
+    if (v === v && prev === prev && v > prev) steps.push(v - prev);
+    if (v === v) prev = v;
+  }
+  steps.sort((a, b) => a - b);
+  return steps.length ? steps[steps.length >> 1] : Infinity;
 }

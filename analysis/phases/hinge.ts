@@ -6,10 +6,20 @@
  * candidate O(1), so the search is linear in the window length.
  */
 
-/** 3-point running median of microns[from..to] (inclusive), edges copied. */
-function median3(values: ArrayLike<number>, from: number, to: number): Float64Array {
+/**
+ * Scratch arrays reused from call to call (grown when a window is longer): a multi-day log's flat floor
+ * can put a quarter of a million readings in the window, and six fresh arrays that size per call are
+ * garbage the collector must then chase. Single-threaded, so module state is safe.
+ */
+let scratch = new Float64Array(0);
+function scratchFor(n: number): Float64Array {
+  if (scratch.length < 6 * (n + 1)) scratch = new Float64Array(Math.max(6 * (n + 1), 2 * scratch.length));
+  return scratch;
+}
+
+/** 3-point running median of microns[from..to] (inclusive), edges copied, into `out`. */
+function median3(values: ArrayLike<number>, from: number, to: number, out: Float64Array): Float64Array {
   const n = to - from + 1;
-  const out = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const j = from + i;
     if (i === 0 || i === n - 1) out[i] = values[j];
@@ -39,15 +49,20 @@ export function hingeSplit(
 ): number {
   const n = to - from + 1;
   if (n < 5) return fallback;
+  const buffer = scratchFor(n);
+  const part = (k: number) => buffer.subarray(k * (n + 1), (k + 1) * (n + 1));
   // a 3-point median guards against spikes on dense logs; on sparse ones it would erase the corner
-  const y = n >= 15 ? median3(microns, from, to) : Float64Array.from({ length: n }, (_, i) => microns[from + i]);
+  const y = part(5);
+  if (n >= 15) median3(microns, from, to, y);
+  else for (let i = 0; i < n; i++) y[i] = microns[from + i];
   const t0 = t[from];
-  // prefix sums of 1, x, y, x², xy, y²
-  const sx = new Float64Array(n + 1);
-  const sy = new Float64Array(n + 1);
-  const sxx = new Float64Array(n + 1);
-  const sxy = new Float64Array(n + 1);
-  const syy = new Float64Array(n + 1);
+  // prefix sums of 1, x, y, x², xy, y² (index 0 is the empty sum)
+  const sx = part(0);
+  const sy = part(1);
+  const sxx = part(2);
+  const sxy = part(3);
+  const syy = part(4);
+  sx[0] = sy[0] = sxx[0] = sxy[0] = syy[0] = 0;
   for (let i = 0; i < n; i++) {
     const x = t[from + i] - t0;
     sx[i + 1] = sx[i] + x;
@@ -93,4 +108,41 @@ export function hingeSplit(
     }
   }
   return best;
+}
+
+/** Windows longer than this many readings are searched coarse to fine (a multi-day log's flat floor). */
+export const HINGE_FULL_READINGS = 20000;
+
+/**
+ * hingeSplit for any window length in time linear in HINGE_FULL_READINGS rather than the window: a
+ * window longer than that is first searched on every k-th reading (k = ⌈length / HINGE_FULL_READINGS⌉),
+ * then again on every reading within HINGE_FULL_READINGS / 2 of that split, the split searched within
+ * 2k readings of it. The two lines are then fitted to the readings near the corner only, which is where
+ * they matter. Same result as hingeSplit on windows up to HINGE_FULL_READINGS.
+ */
+export function hingeSplitBounded(
+  t: ArrayLike<number>,
+  microns: ArrayLike<number>,
+  from: number,
+  to: number,
+  fallback: number,
+  splitFrom = from,
+  splitTo = to,
+): number {
+  const n = to - from + 1;
+  if (n <= HINGE_FULL_READINGS) return hingeSplit(t, microns, from, to, fallback, splitFrom, splitTo);
+  const k = Math.ceil(n / HINGE_FULL_READINGS);
+  const m = Math.floor((n - 1) / k) + 1;
+  const tc = new Float64Array(m);
+  const pc = new Float64Array(m);
+  for (let j = 0; j < m; j++) {
+    tc[j] = t[from + j * k];
+    pc[j] = microns[from + j * k];
+  }
+  const toCoarse = (i: number) => Math.min(m - 1, Math.max(0, Math.round((i - from) / k)));
+  const coarse = from + k * hingeSplit(tc, pc, 0, m - 1, toCoarse(fallback), toCoarse(splitFrom), toCoarse(splitTo));
+  const half = HINGE_FULL_READINGS >> 1;
+  const lo = Math.max(from, coarse - half);
+  const hi = Math.min(to, coarse + half);
+  return hingeSplit(t, microns, lo, hi, coarse, Math.max(splitFrom, coarse - 2 * k, lo), Math.min(splitTo, coarse + 2 * k, hi));
 }

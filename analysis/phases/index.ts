@@ -9,8 +9,9 @@
  * the end of the log. A log with no fall before its first rise starts in the hold.
  */
 import type { Hold, Phases } from "../types";
-import { hingeSplit } from "./hinge";
-import { binReadings, medianIntervalSeconds, relativeNoise, zigzag, type Bins } from "./smooth";
+import { findBreak, joinSpikeSplits, lastIndexAtOrBefore } from "./breaks";
+import { hingeSplitBounded } from "./hinge";
+import { binReadings, medianIntervalSeconds, relativeNoise, removeShortExcursions, resolutionMicrons, zigzag, type Bins } from "./smooth";
 
 export { medianIntervalSeconds, relativeNoise } from "./smooth";
 
@@ -41,23 +42,15 @@ export interface PhaseAnalysis {
   pulldownRange: { startIndex: number; endIndex: number } | null;
 }
 
-/** A jump this large (microns, in one step) far beyond the hold's own trend is the vacuum being broken. */
-const BREAK_JUMP_MICRONS = 2000;
-
-/** A hold cut short by a new pull-down must last this long to count (shorter rises are hops). */
+/**
+ * A hold cut short by a new pull-down counts when it lasted this long, or at least SHORT_REPULL_SECONDS
+ * with a rise of SHORT_REPULL_RISE_MICRONS or more: a technician who sees a brisk rise may open to the
+ * pump again within two minutes, while oil hopping in the coil moves the reading tens of microns for
+ * under a minute or so (common practice, no published source).
+ */
 const MIN_REPULL_HOLD_SECONDS = 180;
-
-function lastIndexAtOrBefore(t: ArrayLike<number>, seconds: number): number {
-  let lo = 0;
-  let hi = t.length - 1;
-  if (t[0] > seconds) return -1;
-  while (lo < hi) {
-    const mid = (lo + hi + 1) >> 1;
-    if (t[mid] <= seconds) lo = mid;
-    else hi = mid - 1;
-  }
-  return lo;
-}
+const SHORT_REPULL_SECONDS = 90;
+const SHORT_REPULL_RISE_MICRONS = 100;
 
 function firstIndexAtOrAfter(t: ArrayLike<number>, seconds: number): number {
   const i = lastIndexAtOrBefore(t, seconds);
@@ -83,7 +76,7 @@ function argmaxMedian3(p: ArrayLike<number>, from: number, to: number): number {
 }
 
 /** Place the isolation near trough bin `b` with a change-point fit on the raw readings. */
-function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBin: number, endBin: number, threshold: number, endIndex: number, noiseLog: number): number {
+function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBin: number, endBin: number, threshold: number, endIndex: number, noiseLog: number, stepMicrons: number): number {
   const y = bins.logMicrons;
   const yb = y[b];
   let peak = yb;
@@ -113,37 +106,56 @@ function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBi
   const sample = Math.max((t[to] - t[from]) / Math.max(to - from, 1), 1e-9);
   const reach = Math.max(2, Math.ceil(90 / sample));
   const lo = Math.max(from, bins.start[first] - reach);
-  const hi = Math.min(to, bins.start[last + 1] - 1 + reach);
-  return hingeSplit(t, p, from, to, trough, lo, hi);
+  // on the right, over the whole floor (bins within half the threshold of the trough, before the rise):
+  // a long flat floor may hold the corner beyond the bins that tie with the trough
+  // (on a coarse gauge the floor flickers between two steps: a step and a half above it is still floor)
+  const flicker = stepMicrons >= COARSE_STEP_MICRONS ? Math.log10((10 ** yb + 1.5 * stepMicrons) / 10 ** yb) : 0;
+  let floor = last;
+  while (floor + 1 < Math.min(endBin, r) && y[floor + 1] <= yb + Math.max(threshold / 2, flicker)) floor++;
+  const hi = Math.min(to, bins.start[Math.max(last, floor) + 1] - 1 + reach);
+  const split = hingeSplitBounded(t, p, from, to, trough, lo, hi);
+  return stepMicrons >= COARSE_STEP_MICRONS ? endOfFloor(p, split, endIndex) : split;
 }
 
-/** Where in [start, end] the vacuum is broken: over-range markers or a jump far above the trend. */
-function findBreak(t: number[], p: number[], start: number, end: number, overRange: number[]): { endIndex: number; breakAt: number } | null {
-  // over-range markers after isolation
-  let ota: number | null = null;
-  for (const s of overRange) {
-    if (s > t[start]) {
-      ota = s;
-      break;
-    }
+/** A display step this coarse (microns) hides the corner in a run of equal readings. */
+const COARSE_STEP_MICRONS = 5;
+/** Readings above the floor in a row that end it (one alone is a flicker between two steps). */
+const FLOOR_END_READINGS = 3;
+
+/**
+ * On a coarse gauge the pull-down's last step and the start of the rise read the same, so the two-line
+ * fit puts the corner at the start of that run of equal readings; the pump was valved off at its end,
+ * where the readings leave the floor for good (FLOOR_END_READINGS in a row above it). The floor is the
+ * reading at the split. Common practice, no published source.
+ */
+function endOfFloor(p: number[], split: number, endIndex: number): number {
+  const floor = p[split];
+  let last = split;
+  let above = 0;
+  for (let i = split + 1; i <= endIndex; i++) {
+    if (p[i] <= floor) {
+      last = i;
+      above = 0;
+    } else if (++above >= FLOOR_END_READINGS) break;
   }
-  let cut: { endIndex: number; breakAt: number } | null = null;
-  if (ota !== null) {
-    const nextAfterEnd = end + 1 < t.length ? t[end + 1] : Infinity;
-    if (ota < nextAfterEnd) cut = { endIndex: Math.max(lastIndexAtOrBefore(t, ota - 1e-9), start), breakAt: ota };
-  }
-  const scanEnd = cut ? cut.endIndex : end;
-  for (let i = start + 3; i <= scanEnd; i++) {
-    const step = p[i] - p[i - 1];
-    if (step < BREAK_JUMP_MICRONS) continue;
-    const trend = Math.max((p[i - 1] - p[start]) / Math.max(t[i - 1] - t[start], 1e-9), 0);
-    const expected = trend * (t[i] - t[i - 1]);
-    // a spike comes straight back down; a break stays up (or the gauge leaves its range)
-    let stays = i < scanEnd;
-    for (let j = i + 1; j <= Math.min(i + 3, scanEnd); j++) if (p[j] < 0.5 * p[i]) stays = false;
-    if (step > 5 * expected + BREAK_JUMP_MICRONS && stays) return { endIndex: i - 1, breakAt: t[i] };
-  }
-  return cut;
+  return last;
+}
+
+interface Candidate {
+  start: number;
+  end: number;
+  endedBy: Hold["endedBy"];
+  breakAt: number | null;
+  leftRangeAt: number | null;
+  seen: boolean;
+}
+
+/** A hold from `start` to `end` (indices), cut where the vacuum was broken or the gauge left its range. */
+function candidateOf(t: number[], p: number[], start: number, end: number, endedBy: Hold["endedBy"], seen: boolean, overRange: number[], top: number): Candidate {
+  const cut = findBreak(t, p, start, end, overRange, top);
+  return cut
+    ? { start, end: cut.endIndex, endedBy: "break", breakAt: cut.breakAt, leftRangeAt: cut.leftRangeAt, seen }
+    : { start, end, endedBy, breakAt: null, leftRangeAt: null, seen };
 }
 
 export function findPhases(t: number[], p: number[], overRangeSeconds: number[], options: PhaseOptions): PhaseAnalysis {
@@ -152,15 +164,14 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
   const noiseFraction = relativeNoise(p);
   const empty: PhaseAnalysis = { phases: { pulldown: null, holds: [], primary: null, breakAtSeconds: null }, ranges: [], noiseFraction, sampleSeconds, pulldownRange: null };
   if (n < 3) return empty;
-  const overRange = [...overRangeSeconds].sort((a, b) => a - b);
+  const overRange = overRangeSeconds.slice().sort((a, b) => a - b);
   const minHoldSeconds = Math.max(60, 2 * sampleSeconds);
+  // the gauge's top, as far as the log shows it: its highest reading
+  let top = 0;
+  for (let i = 0; i < n; i++) if (p[i] > top) top = p[i];
 
-  const candidates: { start: number; end: number; endedBy: Hold["endedBy"]; breakAt: number | null; seen: boolean }[] = [];
-  const push = (start: number, end: number, endedBy: Hold["endedBy"], seen: boolean) => {
-    const cut = findBreak(t, p, start, end, overRange);
-    if (cut) candidates.push({ start, end: cut.endIndex, endedBy: "break", breakAt: cut.breakAt, seen });
-    else candidates.push({ start, end, endedBy, breakAt: null, seen });
-  };
+  let candidates: Candidate[] = [];
+  const push = (start: number, end: number, endedBy: Hold["endedBy"], seen: boolean) => candidates.push(candidateOf(t, p, start, end, endedBy, seen, overRange, top));
 
   if (options.holdWindow) {
     const s = firstIndexAtOrAfter(t, options.holdWindow.startSeconds);
@@ -170,7 +181,10 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
     const bins = binReadings(t, p);
     const sigmaLog = noiseFraction / Math.LN10;
     const threshold = Math.max(Math.log10(1.15), 4 * sigmaLog);
-    const pivots = zigzag(bins.logMicrons, threshold);
+    removeShortExcursions(bins.logMicrons, threshold);
+    // a coarse gauge flickers between two steps: a turn must move more than two and a half of them
+    const step = resolutionMicrons(p);
+    const pivots = zigzag(bins.logMicrons, threshold, step >= 5 ? 2.5 * step : 0);
     let prevPeakBin = 0;
     let sawFall = false;
     for (let k = 0; k < pivots.length; k++) {
@@ -193,7 +207,7 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
       let start = 0;
       let seen = false;
       if (fallBefore) {
-        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog);
+        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog, step);
         seen = start > 0;
       }
       if (end <= start) end = Math.min(start + 1, n - 1);
@@ -201,18 +215,21 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
     }
   }
 
+  // a spike that split a hold in two (a short fall, then back to the level before) is joined up again
+  if (!options.holdWindow) {
+    candidates = joinSpikeSplits(candidates, p, 10 ** Math.max(Math.log10(1.15), 4 * (noiseFraction / Math.LN10)));
+  }
   // keep real holds; overrides move the isolation of the hold that contains it
   // a re-pull after a real hold comes minutes later; shorter rises inside a pull-down are hops
-  let holdsIdx = candidates.filter(
-    (c) => t[c.end] - t[c.start] >= (c.endedBy === "pulldown" ? Math.max(minHoldSeconds, MIN_REPULL_HOLD_SECONDS) : minHoldSeconds) && c.end - c.start >= 2,
-  );
+  // a hold that climbs out of the gauge's range counts with three readings, however short (a gross leak)
+  const long = (c: Candidate) => t[c.end] - t[c.start] >= (c.endedBy === "pulldown" ? Math.max(minHoldSeconds, MIN_REPULL_HOLD_SECONDS) : minHoldSeconds);
+  const briskRepull = (c: Candidate) => c.endedBy === "pulldown" && t[c.end] - t[c.start] >= Math.max(minHoldSeconds, SHORT_REPULL_SECONDS) && p[c.end] - p[c.start] >= SHORT_REPULL_RISE_MICRONS;
+  let holdsIdx = candidates.filter((c) => c.end - c.start >= 2 && (c.leftRangeAt !== null || long(c) || briskRepull(c)));
   if (options.isolationAtSeconds !== undefined && !options.holdWindow) {
     const s = firstIndexAtOrAfter(t, options.isolationAtSeconds);
-    const host = candidates.find((c) => c.end >= s && (c.start <= s || true)) ?? null;
+    const host = candidates.find((c) => c.end >= s) ?? null;
     const end = host && host.end > s ? host.end : n - 1;
-    holdsIdx = [];
-    const cut = findBreak(t, p, s, end, overRange);
-    holdsIdx.push(cut ? { start: s, end: cut.endIndex, endedBy: "break", breakAt: cut.breakAt, seen: true } : { start: s, end, endedBy: host && host.end > s ? host.endedBy : "end_of_log", breakAt: null, seen: true });
+    holdsIdx = [candidateOf(t, p, s, end, host && host.end > s ? host.endedBy : "end_of_log", true, overRange, top)];
   }
 
   const holds: Hold[] = holdsIdx.map((c) => {
@@ -222,8 +239,10 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
       endSeconds: t[c.end],
       startMicrons: p[c.start],
       endMicrons: p[c.end],
-      complete: c.endedBy !== "end_of_log" || duration >= options.holdSeconds,
+      // an abandoned hold (the pump opened again before the hold time) is not complete; a break ends the test
+      complete: c.endedBy === "break" || duration >= options.holdSeconds,
       endedBy: c.endedBy,
+      leftRangeAtSeconds: c.leftRangeAt,
       fit: null,
     };
   });

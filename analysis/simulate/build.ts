@@ -5,8 +5,9 @@
 import type { Verdict } from "../types";
 import { DEFAULT_PROFILE, MIN_HOLD_READINGS } from "../profile";
 import { holdMicrons, makePulldownCurve, type PulldownCurve } from "./curve";
-import type { SimulatedHoldTruth, SimulatedLog, SimulationParams, SimulationTruth } from "./params";
+import type { HoldSpec, SimulatedHoldTruth, SimulatedLog, SimulationParams, SimulationTruth } from "./params";
 import { makeRng } from "./prng";
+import { applyFieldArtifacts } from "./artifacts";
 import { renderLog, type RenderRow } from "./render";
 
 interface Segment {
@@ -26,7 +27,8 @@ function displayRound(microns: number): number {
 
 /**
  * Verdict the analysis should reach for a hold with these true numbers under the default profile.
- * Too few readings → inconclusive; shorter than the profile's hold and not yet over the limit →
+ * Out of the gauge's range within the hold time (with three readings) → a gross leak. Too few
+ * readings → inconclusive; shorter than the profile's hold and not yet over the limit →
  * inconclusive; otherwise a climb at or above the leak threshold is a leak, a level-off above the
  * limit is moisture, both is leak_and_moisture.
  */
@@ -36,8 +38,13 @@ export function truthVerdict(v: {
   leakMicronsPerMinute: number;
   plateauMicrons: number | null;
   maxMicrons: number;
+  /** Seconds after isolation at which the reading left the gauge's range, or null. */
+  leftRangeSeconds?: number | null;
 }): Verdict {
   const p = DEFAULT_PROFILE;
+  // climbing out of the gauge's range within the hold time is a gross leak, on three readings already
+  const outOfRange = v.leftRangeSeconds != null && v.leftRangeSeconds <= p.holdMinutes * 60 && v.holdReadings >= 3;
+  if (outOfRange) return v.plateauMicrons !== null && v.plateauMicrons > p.limitMicrons ? "leak_and_moisture" : "leak";
   if (v.holdReadings < MIN_HOLD_READINGS) return "inconclusive";
   if (v.holdSeconds < p.holdMinutes * 60 && v.maxMicrons <= p.limitMicrons) return "inconclusive";
   const leak = v.leakMicronsPerMinute >= p.leakRateMicronsPerMinute;
@@ -112,6 +119,16 @@ export function simulateFromParams(params: SimulationParams, scenario: string | 
 
   applySensorFaults(rows, params, segments, rng);
 
+  // field artifacts on the readings (their own generator); a long over-range start moves every time by `sh`
+  const lastHoldSeg = segments.filter((s) => s.kind === "hold").at(-1)!;
+  let sh = 0;
+  let written = rows;
+  if (params.artifacts && params.artifacts.length > 0) {
+    const applied = applyFieldArtifacts(rows, params.artifacts, { startSeconds: Math.max(lastHoldSeg.startSeconds, 0), endSeconds: lastHoldSeg.endSeconds }, params.seed, params.sampleSeconds, params.gaugeMaxMicrons);
+    written = applied.rows;
+    sh = applied.shiftSeconds;
+  }
+
   // truth of every hold and of the primary (the last complete one; complete = ran its planned time)
   const holds: SimulatedHoldTruth[] = [];
   segments.forEach((s, i) => {
@@ -119,8 +136,8 @@ export function simulateFromParams(params: SimulationParams, scenario: string | 
     const next = segments[i + 1];
     const inRangeEnd = lastInRangeBefore(rows, s.startSeconds, s.endSeconds);
     holds.push({
-      isolationAtSeconds: s.startSeconds < 0 || params.attempts[s.attempt].pulldown === null ? null : s.startSeconds,
-      endSeconds: inRangeEnd,
+      isolationAtSeconds: s.startSeconds < 0 || params.attempts[s.attempt].pulldown === null ? null : s.startSeconds + sh,
+      endSeconds: inRangeEnd + sh,
       endedBy: next ? (next.kind === "break" ? "break" : "pulldown") : inRangeEnd < s.endSeconds - params.sampleSeconds * 1.5 ? "break" : "end_of_log",
     });
   });
@@ -129,7 +146,7 @@ export function simulateFromParams(params: SimulationParams, scenario: string | 
   const last = params.attempts[lastAttempt];
   const holdSeg = segments.filter((s) => s.kind === "hold")[lastAttempt];
   const isolationMicrons = holdSeg.isolationMicrons!;
-  const holdStart = Math.max(holdSeg.startSeconds, 0);
+  const holdStart = Math.max(holdSeg.startSeconds, 0) + sh;
   const holdSeconds = holds[primary].endSeconds - holdStart;
   const plateauMicrons = last.hold.plateauRiseMicrons > 0 ? isolationMicrons + last.hold.plateauRiseMicrons : null;
   // the analysis counts the lowest reading before the rise as the hold's first
@@ -143,6 +160,7 @@ export function simulateFromParams(params: SimulationParams, scenario: string | 
       leakMicronsPerMinute: last.hold.leakMicronsPerMinute,
       plateauMicrons,
       maxMicrons: holdMax.get(lastAttempt) ?? isolationMicrons,
+      leftRangeSeconds: leftRangeAfter(last.hold, isolationMicrons, params.gaugeMaxMicrons),
     }),
     isolationAtSeconds: holds[primary].isolationAtSeconds,
     isolationMicrons,
@@ -157,9 +175,16 @@ export function simulateFromParams(params: SimulationParams, scenario: string | 
     sampleSeconds: params.sampleSeconds,
     layout: params.layout,
     unit: params.unit,
+    artifacts: params.artifacts ?? [],
   };
-  const text = renderLog(rows, { layout: params.layout, unit: params.unit, startIso: params.startIso });
-  return { text, truth, tSeconds: rows.map((r) => r.tSeconds), microns: rows.map((r) => r.microns) };
+  const text = renderLog(written, { layout: params.layout, unit: params.unit, startIso: params.startIso });
+  return { text, truth, tSeconds: written.map((r) => r.tSeconds), microns: written.map((r) => r.microns) };
+}
+
+/** Seconds after isolation at which the noise-free hold passes the gauge's top, or null within the hold. */
+function leftRangeAfter(hold: HoldSpec, isolationMicrons: number, gaugeMaxMicrons: number): number | null {
+  for (let s = 0; s <= hold.holdSeconds; s += 1) if (holdMicrons(hold, isolationMicrons, s) > gaugeMaxMicrons) return s;
+  return null;
 }
 
 function lastInRangeBefore(rows: RenderRow[], fromSeconds: number, toSeconds: number): number {

@@ -1,6 +1,7 @@
 /** The detailed description of one simulated log, and the truth it carries. */
 import type { PressureUnit, Verdict } from "../types";
 import type { HoldSpec, PulldownSpec } from "./curve";
+import type { FieldArtifact } from "./artifacts";
 import type { Layout } from "./render";
 
 export type { HoldSpec, PulldownSpec } from "./curve";
@@ -44,6 +45,8 @@ export interface SimulationParams {
   unit: PressureUnit;
   ambientC: number;
   startIso: string;
+  /** What field logs carry on top (artifacts.ts); none when absent. */
+  artifacts?: FieldArtifact[];
 }
 
 export interface SimulatedHoldTruth {
@@ -75,6 +78,8 @@ export interface SimulationTruth {
   sampleSeconds: number;
   layout: Layout;
   unit: PressureUnit;
+  /** The field artifacts the log carries (empty for a clean log). */
+  artifacts: FieldArtifact[];
 }
 
 export interface SimulatedLog {

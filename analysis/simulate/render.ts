@@ -4,8 +4,14 @@
  */
 import { micronsTo } from "../units";
 import type { PressureUnit } from "../types";
+import { FIELD_LAYOUTS, renderFieldLines, type FieldLayout } from "./render-field";
 
-export type Layout =
+export { FIELD_LAYOUTS, FIELD_LAYOUT_UNITS, type FieldLayout } from "./render-field";
+
+export type Layout = BaseLayout | FieldLayout;
+
+/** The first layouts, drawn by the named scenarios (the field layouts are drawn only when asked). */
+export type BaseLayout =
   | "iso"
   | "datetime"
   | "clock_preamble"
@@ -15,7 +21,7 @@ export type Layout =
   | "tab"
   | "extra_columns";
 
-export const LAYOUTS: readonly Layout[] = [
+export const LAYOUTS: readonly BaseLayout[] = [
   "iso",
   "datetime",
   "clock_preamble",
@@ -98,7 +104,8 @@ export function renderLog(rows: RenderRow[], spec: RenderSpec): string {
   };
   const cell = (r: RenderRow, comma = false): string =>
     r.microns === null ? marker(r.marker, comma) : formatReading(r.microns, spec.unit, comma);
-  switch (spec.layout) {
+  if ((FIELD_LAYOUTS as readonly string[]).includes(spec.layout)) return renderFieldLines(rows, spec.layout as FieldLayout, spec).join("\n") + "\n";
+  switch (spec.layout as BaseLayout) {
     case "iso":
       lines.push(`timestamp,pressure (${label})`);
       for (const r of rows) lines.push(`${isoAt(startMs, r.tSeconds)},${cell(r)}`);
@@ -138,5 +145,5 @@ export function renderLog(rows: RenderRow[], spec: RenderSpec): string {
 
 /** Layouts whose time column has whole-second resolution (stamps or elapsed seconds). */
 export function layoutTimeStepSeconds(layout: Layout): number {
-  return layout === "elapsed_min" ? 0.006 : 1;
+  return layout === "elapsed_min" ? 0.006 : layout === "typed_minutes" ? 60 : 1;
 }

@@ -6,7 +6,8 @@ import type { PressureUnit } from "../types";
 import { holdMicrons, makePulldownCurve, type HoldSpec, type PulldownSpec } from "./curve";
 import type { AttemptSpec, SimulationParams } from "./params";
 import { makeRng, type Rng } from "./prng";
-import { LAYOUTS, UNITS, type Layout } from "./render";
+import type { FieldArtifact } from "./artifacts";
+import { FIELD_LAYOUT_UNITS, LAYOUTS, UNITS, type Layout } from "./render";
 
 export const SCENARIOS = [
   "tight_dry",
@@ -23,7 +24,16 @@ export const SCENARIOS = [
   "sparse",
   "multi_attempt",
 ] as const;
-export type Scenario = (typeof SCENARIOS)[number];
+export type BaseScenario = (typeof SCENARIOS)[number];
+
+/**
+ * Scenarios of field logs, drawn only when asked (the named ones above keep their seeds' logs):
+ * readings typed by hand once a minute from the start of the hold, and a gross leak that climbs out of
+ * the gauge's range within a minute or two of isolation, leaving three or a few readings in range.
+ */
+export const FIELD_SCENARIOS = ["typed_minutes", "gross_out_of_range"] as const;
+export type FieldScenario = (typeof FIELD_SCENARIOS)[number];
+export type Scenario = BaseScenario | FieldScenario;
 
 export interface ScenarioOptions {
   scenario: Scenario;
@@ -39,6 +49,8 @@ export interface ScenarioOptions {
   breakAtEnd?: boolean;
   /** Length of the (last) hold in minutes. */
   holdMinutes?: number;
+  /** What field logs carry on top (artifacts.ts). */
+  artifacts?: FieldArtifact[];
 }
 
 interface Drawn {
@@ -152,6 +164,20 @@ function draw(o: ScenarioOptions, rng: Rng): Drawn {
       const d = normal(rng.chance(0.5) ? tightHold(rng, iso, rng.uniform(15, 30)) : leakHold(rng, rng.uniform(15, 30), 40, 200), ["sparse_readings"]);
       return { ...d, sampleSeconds: rng.uniform(150, 300), startInHoldAllowed: false };
     }
+    case "typed_minutes": {
+      // one reading a minute, typed from the gauge from the moment of isolation: 11–20 readings
+      const kind = rng.int(0, 2);
+      const typedMinutes = o.holdMinutes ?? rng.int(10, 19);
+      const hold = kind === 0 ? tightHold(rng, iso, typedMinutes) : kind === 1 ? leakHold(rng, typedMinutes, 30, 400) : moistureHold(rng, iso, Math.max(typedMinutes, 12));
+      return { attempts: [{ pulldown: null, hold, isolationMicrons: iso }], findings: kind === 1 ? ["leak"] : kind === 2 ? ["moisture"] : [], sampleSeconds: 60, startInHoldAllowed: true };
+    }
+    case "gross_out_of_range": {
+      // an open valve: out of the gauge's range within one to three minutes of isolation
+      const d = normal(leakHold(rng, 10, 8000, 30000), ["gross_leak", "leak"]);
+      const h = d.attempts[0].hold;
+      h.holdSeconds = ((25000 - iso) / h.leakMicronsPerMinute) * 60 + rng.uniform(60, 240);
+      return { ...d, sampleSeconds: rng.uniform(5, 20), startInHoldAllowed: false };
+    }
     case "multi_attempt": {
       // each re-pull starts where the last hold ended and isolates at a drawn pressure
       const firstSpec = pulldownTo(rng, basePulldown(rng), iso);
@@ -181,26 +207,31 @@ function draw(o: ScenarioOptions, rng: Rng): Drawn {
 export function scenarioParams(o: ScenarioOptions): { params: SimulationParams; findings: string[] } {
   const rng = makeRng(o.seed);
   const d = draw(o, rng);
-  const startInHold = (o.startInHold ?? false) && d.startInHoldAllowed;
+  const typed = o.scenario === "typed_minutes";
+  const startInHold = typed || ((o.startInHold ?? false) && d.startInHoldAllowed);
   if (startInHold) d.attempts[0] = { ...d.attempts[0], pulldown: null };
   const markers = [">25000", "OR", "---"];
   const params: SimulationParams = {
     seed: o.seed,
     attempts: d.attempts,
     breakSeconds: o.breakAtEnd && o.scenario !== "gross_leak" ? rng.uniform(60, 240) : undefined,
-    startOffsetSeconds: startInHold ? rng.uniform(0, 20) : undefined,
-    sampleSeconds: o.sampleSeconds ?? d.sampleSeconds ?? rng.logUniform(1, 60),
-    jitterFraction: rng.uniform(0, 0.2),
+    startOffsetSeconds: typed ? 0 : startInHold ? rng.uniform(0, 20) : undefined,
+    sampleSeconds: typed ? 60 : (o.sampleSeconds ?? d.sampleSeconds ?? rng.logUniform(1, 60)),
+    jitterFraction: typed ? (rng.next(), 0) : rng.uniform(0, 0.2),
     noiseFraction: o.noiseFraction ?? rng.uniform(0.005, 0.03),
     spikeRate: rng.chance(0.5) ? rng.uniform(0, 0.003) : 0,
     gaugeMaxMicrons: 25000,
     overRangeMarker: rng.pick(markers),
     sensorFault: d.sensorFault,
-    layout: o.layout ?? rng.pick(LAYOUTS),
+    layout: typed ? (rng.next(), o.layout ?? "typed_minutes") : (o.layout ?? rng.pick(LAYOUTS)),
     unit: o.unit ?? rng.pick(UNITS),
+    // (a field layout writes the units its exports use; see below)
     ambientC: rng.uniform(8, 32),
     startIso: new Date(Date.UTC(2026, 5, 14, 8 + rng.int(0, 8), rng.int(0, 59), 0)).toISOString(),
+    artifacts: o.artifacts,
   };
+  const fieldUnits = (FIELD_LAYOUT_UNITS as Record<string, readonly PressureUnit[]>)[params.layout];
+  if (fieldUnits && (o.unit === undefined || !fieldUnits.includes(o.unit))) params.unit = fieldUnits[Math.floor(makeRng(o.seed + 7).next() * fieldUnits.length)];
   // a long, fast-sampled log would be huge: keep the row count reasonable
   const total = d.attempts.reduce((s, a) => s + (a.pulldown?.durationSeconds ?? 0) + a.hold.holdSeconds, 0);
   if (total / params.sampleSeconds > 20000) params.sampleSeconds = total / 20000;

@@ -142,6 +142,7 @@ function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number |
         ctx.restore();
       };
       band(model.pulldown, colors.pulldown, "Pull-down");
+      for (const other of model.otherHolds) band(other.range, colors.pulldown, other.earlier ? "Earlier hold" : "Later hold");
       band(model.hold, colors.hold, "Hold");
     },
     afterDatasetsDraw(chart) {

@@ -17,6 +17,8 @@ export interface CurveModel {
   band: { low: XY[]; high: XY[]; mid: XY[] };
   pulldown: [number, number] | null;
   hold: [number, number] | null;
+  /** Other holds of the log (a re-pull: abandoned before the judged one, or too short after it), minutes. */
+  otherHolds: { range: [number, number]; earlier: boolean }[];
   /** Minutes from the first data row, or null when the log has no isolation (it starts in the hold). */
   isolationMinutes: number | null;
   limitMicrons: number;
@@ -108,10 +110,21 @@ export function buildCurve(analysis: AnalysisResult, series: { t: number[]; p: n
     }
   }
   const pd = analysis.phases?.pulldown ?? null;
-  const all = [...measured, ...fitted, ...band.high, ...band.low];
   const lastT = series.t.length ? series.t[series.t.length - 1] / 60 : 1;
-  const xMax = Math.max(lastT, ...band.high.map((b) => b.x), 0.5);
-  const ys = all.map((v) => v.y);
+  // loops, not Math.min(...points): a long log's points would all go onto the call stack
+  let xMax = Math.max(lastT, 0.5);
+  for (const b of band.high) if (b.x > xMax) xMax = b.x;
+  let yLow = Infinity;
+  let yHigh = -Infinity;
+  for (const list of [measured, fitted, band.high, band.low])
+    for (const v of list) {
+      if (v.y < yLow) yLow = v.y;
+      if (v.y > yHigh) yHigh = v.y;
+    }
+  const holds = analysis.phases?.holds ?? analysis.holds ?? [];
+  const otherHolds = holds
+    .filter((h) => h !== hold)
+    .map((h) => ({ range: [h.isolatedAtSeconds / 60, h.endSeconds / 60] as [number, number], earlier: !hold || h.endSeconds <= hold.isolatedAtSeconds }));
   const limit = analysis.profile.limitMicrons;
   const target = analysis.profile.targetMicrons;
   return {
@@ -120,12 +133,13 @@ export function buildCurve(analysis: AnalysisResult, series: { t: number[]; p: n
     band,
     pulldown: pd ? [pd.startSeconds / 60, pd.endSeconds / 60] : null,
     hold: hold ? [hold.isolatedAtSeconds / 60, hold.endSeconds / 60] : null,
+    otherHolds,
     isolationMinutes: analysis.isolationAt != null ? analysis.isolationAt / 60 : null,
     limitMicrons: limit,
     targetMicrons: target,
     xMaxMinutes: xMax,
-    yMinMicrons: Math.max(FLOOR_MICRONS, Math.min(target, ...ys) * 0.7),
-    yMaxMicrons: Math.max(limit, ...ys) * 1.4,
+    yMinMicrons: Math.max(FLOOR_MICRONS, Math.min(target, yLow) * 0.7),
+    yMaxMicrons: Math.max(limit, yHigh) * 1.4,
   };
 }
 
@@ -152,6 +166,8 @@ export function curveSummary(analysis: AnalysisResult, series: { t: number[]; p:
   const said = storyOf(analysis).holdSentence;
   if (said) parts.push(`During the hold: ${said.charAt(0).toLowerCase()}${said.slice(1)}`);
   if (hold?.fit) parts.push(`Best-fitting shape: ${shapeWords(hold.fit.chosen)}.`);
+  const others = (analysis.phases?.holds ?? analysis.holds ?? []).length - (hold ? 1 : 0);
+  if (others > 0) parts.push(`${others === 1 ? "One other hold" : `${others} other holds`} (a re-pull) shown lighter; the verdict is on the hold above.`);
   parts.push(`Limit ${microns(analysis.profile.limitMicrons)} microns.`);
   if (analysis.forecast)
     parts.push(`Forecast at ${durationWords(analysis.forecast.atHoldSeconds)} of hold: ${microns(analysis.forecast.predictedMicrons)} microns (between ${microns(analysis.forecast.lowMicrons)} and ${microns(analysis.forecast.highMicrons)}).`);

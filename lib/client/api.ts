@@ -3,7 +3,7 @@
  * retries that reuse the same Idempotency-Key, so a retry on a weak signal never creates a
  * second test. Uploads go through XMLHttpRequest for progress.
  */
-import type { AnalysisResult, PressureUnit, Verdict } from "@/analysis/types";
+import type { AnalysisResult, PressureUnit, UnsureReason, Verdict } from "@/analysis/types";
 import type { TestListItem as ServerTestListItem } from "@/lib/tests/dto";
 
 export type TestStatus = "submitted" | "waiting_review" | "signed_off" | "sent_back";
@@ -78,6 +78,8 @@ export interface ImportPreview {
     unit: PressureUnit | null;
     timeFormat: string | null;
     unsure: boolean;
+    /** Each guess behind `unsure` by topic (older servers send none); decimal_mark carries the two readings to choose from. */
+    unsureReasons?: UnsureReason[];
     assumptions: string[];
   };
 }
@@ -87,6 +89,7 @@ export interface ReanalyseBody {
   holdWindow?: { startSeconds: number; endSeconds: number };
   unit?: PressureUnit;
   timeUnit?: "s" | "min";
+  decimalMark?: "point" | "comma";
   profileId?: string;
   reason?: string;
 }

@@ -52,7 +52,8 @@ export function assertTextLog(bytes: Uint8Array, contentType: string, filename: 
   if (REFUSED_EXTENSIONS.test(filename) && !TEXT_EXTENSIONS.test(filename))
     throw new AppError("unsupported_file", `${filename} is not a text log. ${hint}`, { filename });
   const head = bytes.subarray(0, 8192);
-  const magic = String.fromCharCode(...head.subarray(0, 5));
+  let magic = "";
+  for (let i = 0; i < Math.min(5, head.length); i++) magic += String.fromCharCode(head[i]);
   if (magic.startsWith("%PDF") || magic.startsWith("PK\x03\x04") || magic.startsWith("\x89PNG") || magic.startsWith("GIF8") || (head[0] === 0xff && head[1] === 0xd8))
     throw new AppError("unsupported_file", `${filename} is a document or an image, not a text log. ${hint}`, { filename });
   let control = 0;

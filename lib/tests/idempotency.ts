@@ -15,15 +15,13 @@
 import { createHash } from "node:crypto";
 import { AppError } from "@/lib/errors";
 
-/** JSON with object keys sorted and undefined left out, so equal meanings give equal text. */
+/** JSON with object keys sorted and undefined left out, so equal meanings give equal text (JSON.stringify walks it, not our own recursion). */
 export function canonicalJson(value: unknown): string {
-  if (value === undefined) return "null";
-  if (value === null || typeof value !== "object") return JSON.stringify(value);
-  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(",")}]`;
-  const entries = Object.entries(value as Record<string, unknown>)
-    .filter(([, v]) => v !== undefined)
-    .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-  return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(",")}}`;
+  const sorted = (_key: string, v: unknown) =>
+    v && typeof v === "object" && !Array.isArray(v)
+      ? Object.fromEntries(Object.entries(v as Record<string, unknown>).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)))
+      : v;
+  return JSON.stringify(value, sorted) ?? "null";
 }
 
 /** The SHA-256 (hex) of a request's route and meaning. */

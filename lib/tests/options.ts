@@ -22,12 +22,13 @@ export function volumeOf(m: { lineSetFeet?: number; liquidOd?: string; suctionOd
 }
 
 /** Only the importer fields that were given (the engine's schema is strict). */
-export function importOptionsOf(m: Partial<Pick<ImportOptions, "timeColumn" | "pressureColumn" | "unit" | "timeUnit">>): ImportOptions | undefined {
+export function importOptionsOf(m: Partial<Pick<ImportOptions, "timeColumn" | "pressureColumn" | "unit" | "timeUnit" | "decimalMark">>): ImportOptions | undefined {
   const out: ImportOptions = {};
   if (m.timeColumn !== undefined) out.timeColumn = m.timeColumn;
   if (m.pressureColumn !== undefined) out.pressureColumn = m.pressureColumn;
   if (m.unit !== undefined) out.unit = m.unit;
   if (m.timeUnit !== undefined) out.timeUnit = m.timeUnit;
+  if (m.decimalMark !== undefined) out.decimalMark = m.decimalMark;
   return Object.keys(out).length ? out : undefined;
 }
 

@@ -1,7 +1,7 @@
 /** The import preview: what the importer read from the first lines, without saving anything. */
 import Papa from "papaparse";
 import { LogError } from "@/analysis/errors";
-import type { ImportOptions } from "@/analysis/types";
+import type { ImportOptions, UnsureReason } from "@/analysis/types";
 import { AppError } from "@/lib/errors";
 import { readLogForPreview } from "./engine";
 
@@ -18,6 +18,8 @@ export interface ImportPreview {
     delimiter: string;
     headerLine: number;
     unsure: boolean;
+    /** Each guess behind `unsure` by topic; a decimal_mark one carries the two readings to choose from. */
+    unsureReasons: UnsureReason[];
     assumptions: string[];
   };
 }
@@ -43,6 +45,7 @@ export function previewLog(text: string, options: ImportOptions): ImportPreview 
         delimiter: s.delimiter,
         headerLine: s.headerLine,
         unsure: s.unsure,
+        unsureReasons: s.unsureReasons ?? [],
         assumptions: s.assumptions,
       },
     };

@@ -38,6 +38,8 @@ export const importOverridesSchema = z.object({
   pressureColumn: columnChoice,
   unit: z.preprocess((v) => (v === "" ? undefined : v), z.enum(PRESSURE_UNITS).optional()),
   timeUnit: z.preprocess((v) => (v === "" ? undefined : v), z.enum(["s", "min"]).optional()),
+  /** The technician's answer when "4,150" could be 4,150 or 4.15: "point" (a comma groups thousands) or "comma" (a decimal comma). */
+  decimalMark: z.preprocess((v) => (v === "" ? undefined : v), z.enum(["point", "comma"]).optional()),
 });
 
 /** Everything about a test besides its readings (same fields in multipart and JSON). */
@@ -128,6 +130,7 @@ export const reanalysisSchema = z
       .optional(),
     unit: z.enum(PRESSURE_UNITS).optional(),
     timeUnit: z.enum(["s", "min"]).optional(),
+    decimalMark: z.enum(["point", "comma"]).optional(),
     timeColumn: z.union([z.string().min(1).max(200), z.number().int().nonnegative()]).optional(),
     pressureColumn: z.union([z.string().min(1).max(200), z.number().int().nonnegative()]).optional(),
     profileId: z.string().uuid("not a valid id").optional(),

@@ -12,12 +12,18 @@ const FLOAT4_MAX = 3.4028234663852886e38;
 /** No gauge log spans more than this: readings over 30 years apart mean a wrong time column or unit. */
 const LONGEST_LOG_SECONDS = 30 * 365.25 * 86_400;
 
-function firstOutOfRange(value: unknown, path: string, depth = 0): { path: string; value: number } | null {
-  if (typeof value === "number") return Number.isFinite(value) && Math.abs(value) <= FLOAT4_MAX ? null : { path, value };
-  if (!value || typeof value !== "object" || depth > 12) return null;
-  for (const [k, v] of Object.entries(value)) {
-    const hit = firstOutOfRange(v, path ? `${path}.${k}` : k, depth + 1);
-    if (hit) return hit;
+/** The first number in `value` (at most 12 levels deep) that is not finite or overflows a float4, with its path. */
+function firstOutOfRange(value: unknown, path: string): { path: string; value: number } | null {
+  const stack: { value: unknown; path: string; depth: number }[] = [{ value, path, depth: 0 }];
+  while (stack.length > 0) {
+    const at = stack.pop()!;
+    if (typeof at.value === "number") {
+      if (!(Number.isFinite(at.value) && Math.abs(at.value) <= FLOAT4_MAX)) return { path: at.path, value: at.value };
+      continue;
+    }
+    if (!at.value || typeof at.value !== "object" || at.depth > 12) continue;
+    const children = Object.entries(at.value).map(([k, v]) => ({ value: v, path: at.path ? `${at.path}.${k}` : k, depth: at.depth + 1 }));
+    for (let i = children.length - 1; i >= 0; i--) stack.push(children[i]);
   }
   return null;
 }

@@ -46,18 +46,26 @@ const DELETE_AGAIN_AFTER_SECONDS = [2, 5, 10, 20, 40, 80];
  * nothing, then writes the object when it wakes. After the first delete that succeeds, one more
  * 30 s later catches a write the store was still holding. Timers never keep a process alive.
  */
-export function deleteAgainLater(key: string, what: string, attempt = 0, confirmed = false): void {
-  const seconds = confirmed ? 30 : DELETE_AGAIN_AFTER_SECONDS[attempt];
-  if (seconds === undefined) {
-    log.error(`${what} may be left in storage after a failed upload`, { objectKey: key });
-    return;
-  }
-  setTimeout(() => {
-    deleteObject(key).then(
-      () => (confirmed ? undefined : deleteAgainLater(key, what, 0, true)),
-      () => (confirmed ? undefined : deleteAgainLater(key, what, attempt + 1)),
+export function deleteAgainLater(key: string, what: string): void {
+  void deleteUntilGone(key, what);
+}
+
+/** The loop behind deleteAgainLater: waits, deletes, and once a delete succeeded, deletes once more 30 s later. */
+async function deleteUntilGone(key: string, what: string): Promise<void> {
+  const pause = (seconds: number) => new Promise<void>((resolve) => setTimeout(resolve, seconds * 1000).unref());
+  for (const seconds of DELETE_AGAIN_AFTER_SECONDS) {
+    await pause(seconds);
+    const deleted = await deleteObject(key).then(
+      () => true,
+      () => false,
     );
-  }, seconds * 1000).unref();
+    if (deleted) {
+      await pause(30);
+      await deleteObject(key).catch(() => undefined);
+      return;
+    }
+  }
+  log.error(`${what} may be left in storage after a failed upload`, { objectKey: key });
 }
 
 function assertStillWanted(signal: AbortSignal | undefined): void {

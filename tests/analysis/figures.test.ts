@@ -49,7 +49,8 @@ describe("hold figures", () => {
           if (m) expect(m[1]).toBe(fmt(f.highestMicrons.value));
         }
         if (f.holdSeconds.value >= r.profile.holdMinutes * 60) {
-          expect(f.atHoldTime!.highestMicrons.value).toBe(f.highestMicrons.value);
+          // measured at the hold time: never above the highest of the whole hold, which the limit rule judges
+          expect(f.atHoldTime!.highestMicrons.value).toBeLessThanOrEqual(f.highestMicrons.value);
           expect(f.atHoldTime!.readingMicrons.atSeconds! - f.startMicrons.atSeconds!).toBeLessThanOrEqual(r.profile.holdMinutes * 60);
           expect(r.forecast).toBeNull();
         } else expect(f.atHoldTime).toBeNull();

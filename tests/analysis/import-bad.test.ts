@@ -85,15 +85,28 @@ describe("bad-input corpus (fixtures/bad): each file gives its own LogError code
     expect(errorOf(() => importLog("a,b\n1,2", { maxRows: -1 })).code).toBe("invalid_option");
   });
 
-  it("a time that is not a time in a later row fails with its line, even after 50 good rows", () => {
+  it("times that are not times in many later rows fail with the first one's line, even after 50 good rows", () => {
     const rows = ["timestamp,microns"];
     for (let i = 0; i < 200; i++) rows.push(`2026-06-14T13:${String(Math.floor(i / 60)).padStart(2, "0")}:${String(i % 60).padStart(2, "0")}Z,${500 + i}`);
-    rows[150] = "2026-06-14T13:0x:00Z,640";
+    for (let i = 150; i < 162; i++) rows[i] = `2026-06-14T13:0x:${i - 140}Z,640`;
     rows.push("2026-06-14T14:00:00Z,700");
     const e = errorOf(() => importLog(rows.join("\n")));
     expect(e.code).toBe("bad_time");
     expect(e.line).toBe(151);
-    expect(e.message).toMatch(/^line 151: time '2026-06-14T13:0x:00Z'/);
+    expect(e.message).toMatch(/^line 151: time '2026-06-14T13:0x:10Z'/);
+  });
+
+  it("a few garbled times in an elapsed_s column are skipped and said, not a refused log (common practice, no published source)", () => {
+    const rows = ["elapsed_s,microns"];
+    for (let i = 0; i < 300; i++) rows.push(`${i * 10},${500 + i}`);
+    rows[3] = "##,502"; // among the first rows the format is judged from
+    rows[120] = "abc,619";
+    rows[121] = "1O2O,620";
+    const log = importLog(rows.join("\n"));
+    expect(log.summary.timeFormat).toBe("elapsed_s");
+    expect(log.microns).toHaveLength(297);
+    expect(log.summary.badTimeRows).toBe(3);
+    expect(log.summary.assumptions.join(" ")).toMatch(/3 rows whose time is not a time skipped \(first at line 4: '##'\)/);
   });
 });
 

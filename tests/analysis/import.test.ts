@@ -131,10 +131,15 @@ describe("hand-made layouts (fixtures/layouts; expected values written with the 
     expect(log.summary.assumptions.join(" ")).toMatch(/microns/);
   });
 
-  it("no unit and every value below 30: flagged as probably Torr or mbar, still unsure", () => {
-    const log = importLog(layout("small-values-no-unit.csv"));
-    expect(log.summary.unsure).toBe(true);
-    expect(log.summary.assumptions.join(" ")).toMatch(/Torr or mbar/);
+  it("no unit and every value below 30: not taken as microns, an unknown_unit error that lists the units read (common practice, no published source)", () => {
+    let error: unknown = null;
+    try {
+      importLog(layout("small-values-no-unit.csv"));
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toMatchObject({ code: "unknown_unit", column: "reading" });
+    expect(String((error as Error).message)).toMatch(/names no unit.*too small for microns.*Torr, mbar.*units understood: microns \(µmHg\), mTorr, Torr/);
   });
 
   it("explicit overrides win: time column by name, pressure column by index, unit, time unit", () => {

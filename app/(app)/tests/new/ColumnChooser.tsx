@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { PressureUnit } from "@/analysis/types";
+import type { PressureUnit, UnsureReason } from "@/analysis/types";
 import { toMicrons } from "@/analysis/units";
 import { Alert, Button, Select } from "@/components/ui";
 import type { ImportPreview } from "@/lib/client/api";
@@ -11,6 +11,8 @@ export interface ColumnChoice {
   pressureColumn: string;
   unit: PressureUnit;
   timeUnit?: "s" | "min";
+  /** The technician's answer when a reading such as "4,150" could be 4,150 or 4.15. */
+  decimalMark?: "point" | "comma";
 }
 
 export const UNIT_LABELS: Record<PressureUnit, string> = {
@@ -54,6 +56,8 @@ export function ColumnChooser({ preview, filename, busy, onConfirm, onCancel }: 
   const [pressureColumn, setPressure] = useState(d.pressureColumn ?? preview.columns[1] ?? "");
   const [unit, setUnit] = useState<PressureUnit>(d.unit ?? "micron");
   const [timeUnit, setTimeUnit] = useState<"" | "s" | "min">("");
+  const decimal = d.unsureReasons?.find((r) => r.code === "decimal_mark" && r.choices && r.choices.length === 2) ?? null;
+  const [decimalMark, setDecimalMark] = useState<"" | "point" | "comma">("");
   const sample = firstNumber(preview, pressureColumn);
   const rows = preview.rows.slice(0, 6);
 
@@ -97,6 +101,7 @@ export function ColumnChooser({ preview, filename, busy, onConfirm, onCancel }: 
           </tbody>
         </table>
       </div>
+      {decimal && <DecimalQuestion reason={decimal} value={decimalMark} onChange={setDecimalMark} />}
       <div className="grid gap-4 sm:grid-cols-2">
         <Select label="Time column" value={timeColumn} onChange={(e) => setTime(e.target.value)}>
           {preview.columns.map((c) => <option key={c} value={c}>{c}</option>)}
@@ -119,7 +124,12 @@ export function ColumnChooser({ preview, filename, busy, onConfirm, onCancel }: 
         </Select>
       </div>
       <div className="flex flex-col gap-3 sm:flex-row">
-        <Button size="lg" busy={busy} onClick={() => onConfirm({ timeColumn, pressureColumn, unit, timeUnit: timeUnit || undefined })}>
+        <Button
+          size="lg"
+          busy={busy}
+          disabled={decimal !== null && decimalMark === ""}
+          onClick={() => onConfirm({ timeColumn, pressureColumn, unit, timeUnit: timeUnit || undefined, decimalMark: decimalMark || undefined })}
+        >
           Analyse with these columns
         </Button>
         <Button size="lg" variant="quiet" onClick={onCancel} disabled={busy}>
@@ -128,4 +138,38 @@ export function ColumnChooser({ preview, filename, busy, onConfirm, onCancel }: 
       </div>
     </section>
   );
+}
+
+/**
+ * "4,150": 4,150 microns or 4.15? The two readings differ 1,000-fold and one of them can pass a wet or
+ * leaking system, so nothing is analysed until the technician picks one, with both written out in full.
+ */
+function DecimalQuestion({ reason, value, onChange }: { reason: UnsureReason; value: "" | "point" | "comma"; onChange: (v: "point" | "comma") => void }) {
+  const choices = reason.choices ?? [];
+  return (
+    <fieldset className="space-y-3 rounded-card border-2 border-flare-500 p-4" data-testid="decimal-question">
+      <legend className="px-1 text-title">How is &lsquo;{choices[0]?.cell}&rsquo; written?</legend>
+      <p className="text-body text-fg-soft">
+        The two readings differ a thousandfold, and the file does not tell which it is. Check one reading against the gauge&rsquo;s display.
+      </p>
+      <div className="grid gap-2 sm:grid-cols-2">
+        {choices.map((c) => (
+          <label key={c.decimalMark} className={`flex min-h-tap cursor-pointer items-center gap-3 rounded-lg border px-3 py-2 ${value === c.decimalMark ? "border-tide-600 bg-surface-sunken" : "border-surface-line"}`}>
+            <input type="radio" name="decimalMark" value={c.decimalMark} checked={value === c.decimalMark} onChange={() => onChange(c.decimalMark)} />
+            <span>
+              <span className="block text-title tabular-nums">{c.reads}</span>
+              <span className="text-caption text-fg-soft">{markWords(c.cell, c.decimalMark)}</span>
+            </span>
+          </label>
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
+/** What a choice means for the mark in the cell: "4,150" with "point" is a comma grouping thousands. */
+function markWords(cell: string, decimalMark: "point" | "comma"): string {
+  const comma = cell.includes(",");
+  if (comma) return decimalMark === "point" ? "the comma groups thousands" : "the comma is the decimal mark";
+  return decimalMark === "comma" ? "the point groups thousands" : "the point is the decimal mark";
 }

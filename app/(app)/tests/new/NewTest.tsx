@@ -109,6 +109,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
           form.set("pressureColumn", a.choice.pressureColumn);
           form.set("unit", a.choice.unit);
           if (a.choice.timeUnit) form.set("timeUnit", a.choice.timeUnit);
+          if (a.choice.decimalMark) form.set("decimalMark", a.choice.decimalMark);
         }
         appendContext(form, context);
         created = await uploadTest(form, {

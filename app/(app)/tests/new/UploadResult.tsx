@@ -1,13 +1,14 @@
 "use client";
 
-import { useEffect, useRef } from "react";
+import { useEffect, useRef, useState } from "react";
+import type { AnalysisResult, UnsureReason } from "@/analysis/types";
 import { useQuery } from "@tanstack/react-query";
 import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
 import { VerdictBanner } from "@/components/verdict/VerdictBanner";
 import { SafetyNote } from "@/components/verdict/SafetyNote";
 import { verdictText } from "@/components/verdict/words";
 import { Alert, Button, LinkButton } from "@/components/ui";
-import { getTest, type CreatedTest } from "@/lib/client/api";
+import { getTest, newIdempotencyKey, reanalyse, type CreatedTest } from "@/lib/client/api";
 
 /** An apprentice's practice test: saved; the verdict shows after their own call. */
 function PracticeSaved({ title, callUrl, onAnother }: { title: string; callUrl: string; onAnother: () => void }) {
@@ -36,7 +37,10 @@ export function UploadResult({ created, onAnother }: { created: CreatedTest; onA
 function VerdictResult({ created, onAnother }: { created: Extract<CreatedTest, { analysis: object }>; onAnother: () => void }) {
   const ref = useRef<HTMLDivElement | null>(null);
   const id = created.test.id;
-  const detail = useQuery({ queryKey: ["test", id], queryFn: ({ signal }) => getTest(id, signal) });
+  const [analysis, setAnalysis] = useState<AnalysisResult>(created.analysis);
+  // the whole file left the thousands separator or decimal mark open (the preview's first rows had decided it)
+  const decimalDoubt = analysis.import.unsureReasons?.find((r) => r.code === "decimal_mark" && r.choices?.length === 2) ?? null;
+  const detail = useQuery({ queryKey: ["test", id, analysis.import.decimalComma], queryFn: ({ signal }) => getTest(id, signal) });
 
   useEffect(() => {
     ref.current?.scrollIntoView({ block: "start" });
@@ -48,7 +52,8 @@ function VerdictResult({ created, onAnother }: { created: Extract<CreatedTest, {
         <span className="sr-only">Analysed. Verdict: {verdictText(created.analysis.verdict).headline}. </span>
         Saved as <span className="font-semibold text-fg">{created.test.title}</span>
       </p>
-      <VerdictBanner analysis={created.analysis} />
+      {decimalDoubt && <DecimalDoubt testId={id} reason={decimalDoubt} onRead={setAnalysis} />}
+      <VerdictBanner analysis={analysis} />
       {detail.data ? (
         <LazyDecayChart analysis={detail.data.analysis} series={detail.data.series} />
       ) : detail.isError ? (
@@ -66,5 +71,37 @@ function VerdictResult({ created, onAnother }: { created: Extract<CreatedTest, {
         <Button variant="secondary" size="lg" block onClick={onAnother}>Start another test</Button>
       </div>
     </div>
+  );
+}
+
+/**
+ * The whole file left "4,150" open (4,150 or 4.15). The verdict below reads the larger value, which
+ * cannot pass a wet or leaking system; the technician checks the gauge and, if it showed the smaller,
+ * has the test analysed again that way (a new analysis version; the file is never changed).
+ */
+function DecimalDoubt({ testId, reason, onRead }: { testId: string; reason: UnsureReason; onRead: (a: AnalysisResult) => void }) {
+  const [state, setState] = useState<"ask" | "busy" | "failed">("ask");
+  const other = reason.choices![1];
+  return (
+    <Alert tone="warning" title="Check how the readings are written">
+      <p data-testid="decimal-doubt">{reason.message}</p>
+      <div className="mt-2 flex flex-col gap-2 sm:flex-row">
+        <Button
+          busy={state === "busy"}
+          onClick={async () => {
+            setState("busy");
+            try {
+              const r = await reanalyse(testId, { decimalMark: other.decimalMark, reason: `'${other.cell}' read as ${other.reads}, as the gauge showed` }, newIdempotencyKey());
+              onRead(r.analysis);
+            } catch {
+              setState("failed");
+            }
+          }}
+        >
+          The gauge showed {other.reads}: read it that way
+        </Button>
+      </div>
+      {state === "failed" && <p className="mt-1">That did not go through; open the test page and try again.</p>}
+    </Alert>
   );
 }
