@@ -75,14 +75,14 @@ export function figuresOf(r: AnalysisResult): HoldFigures | null {
   return r.figures !== undefined ? r.figures : legacyFigures(r);
 }
 
-function numbersOf(f: HoldFigures, profileHoldSeconds: number): StoryNumber[] {
+function numbersOf(f: HoldFigures): StoryNumber[] {
   const µ = (x: number) => `${fmt(x)} µ`;
   const out: StoryNumber[] = [
     { key: "start", label: "Hold start", value: µ(f.startMicrons.value), raw: f.startMicrons.value, definition: f.startMicrons.definition },
     { key: "last", label: "Last reading", value: µ(f.lastMicrons.value), raw: f.lastMicrons.value, definition: f.lastMicrons.definition },
     {
       key: "highest",
-      label: f.holdSeconds.value > profileHoldSeconds ? `Highest, first ${min1(profileHoldSeconds)}` : "Highest",
+      label: "Highest",
       value: µ(f.highestMicrons.value),
       raw: f.highestMicrons.value,
       definition: f.highestMicrons.definition,
@@ -153,7 +153,7 @@ export function storyOf(r: AnalysisResult): Story {
     outcome: outcomeOf(r.verdict, r.meetsProfile),
     profile: { met: r.meetsProfile, name: r.profile.name, sentence: profileSentence(r), failed },
     confidence,
-    numbers: f ? numbersOf(f, r.profile.holdMinutes * 60) : [],
+    numbers: f ? numbersOf(f) : [],
     forecast: forecastOf(r, f),
     holdSentence: f
       ? `From ${fmt(f.startMicrons.value)} to a last reading of ${fmt(f.lastMicrons.value)} microns in ${min1(f.holdSeconds.value)}; highest ${fmt(f.highestMicrons.value)} microns${f.highestMicrons.raw && fmt(f.highestMicrons.raw.value) !== fmt(f.highestMicrons.value) ? ` (single highest reading ${fmt(f.highestMicrons.raw.value)})` : ""}.`
