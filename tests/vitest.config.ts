@@ -10,6 +10,7 @@ export default defineConfig({
     testTimeout: 120_000,
     hookTimeout: 60_000,
     pool: "forks",
+    setupFiles: ["tests/setup-jobs.ts"],
     // The engine's worker threads run lib/tests/engine-worker.ts through tsx (no Next.js bundle here).
     env: { ENGINE_WORKER_ENTRY: "source" },
   },

@@ -1,0 +1,55 @@
+/**
+ * How busy this process is serving uploads right now, so background work that can wait (mail,
+ * sweeps, bulk re-analysis) gives way to a technician waiting for a verdict.
+ *
+ * This is not state the servers share: the work itself stays in the queue in PostgreSQL, and an
+ * idle server or `npm run worker` takes it meanwhile. Only how long this process holds off before
+ * doing a job it already fetched is decided here: until no upload has been in progress for
+ * QUIET_MS, and never longer than the caller's limit, so under steady load the work still goes.
+ * Kept on globalThis: Next.js bundles instrumentation (where the jobs run) apart from the routes
+ * (where uploads run), and both must see the same count.
+ */
+/** No upload in progress for this long counts as quiet. */
+const QUIET_MS = 150;
+
+interface Load {
+  uploadsInProgress: number;
+  lastUploadEndedAt: number;
+  quietMs: number;
+}
+
+const g = globalThis as unknown as { rlLocalLoad?: Load };
+const load: Load = (g.rlLocalLoad ??= { uploadsInProgress: 0, lastUploadEndedAt: 0, quietMs: QUIET_MS });
+
+/** Mark an upload in progress; call the returned function once it has answered. */
+export function uploadInProgress(): () => void {
+  load.uploadsInProgress++;
+  let done = false;
+  return () => {
+    if (done) return;
+    done = true;
+    load.uploadsInProgress--;
+    load.lastUploadEndedAt = Date.now();
+  };
+}
+
+function quiet(): boolean {
+  return load.uploadsInProgress === 0 && Date.now() - load.lastUploadEndedAt >= load.quietMs;
+}
+
+/**
+ * Resolves once this process is quiet, or after `maxWaitMs`, or as soon as `stopping()` says so.
+ * Returns how long it waited, in ms.
+ */
+export async function waitForQuiet(maxWaitMs: number, stopping: () => boolean = () => false): Promise<number> {
+  const start = Date.now();
+  while (!quiet() && !stopping() && Date.now() - start < maxWaitMs) {
+    await new Promise((r) => setTimeout(r, 25));
+  }
+  return Date.now() - start;
+}
+
+/** Test seam: another quiet period (null restores the default). */
+export function setQuietMsForTests(ms: number | null): void {
+  load.quietMs = ms ?? QUIET_MS;
+}

@@ -1,0 +1,137 @@
+/**
+ * The job runner: one started pg-boss instance per process that polls our queues, keeps the cron
+ * schedules and does pg-boss's maintenance (putting back jobs whose server died, archiving).
+ *
+ * It runs inside `next start` (instrumentation.ts, unless JOBS_IN_APP=off) and as `npm run worker`
+ * (scripts/worker.ts); any number of them may run over one database: pg-boss hands each job to
+ * one of them (SELECT … FOR UPDATE SKIP LOCKED), and a cron schedule fires once a minute across
+ * all of them, not once per process.
+ *
+ * Stopping (SIGTERM, SIGINT): no new jobs are fetched, jobs in flight get `timeoutMs` to finish,
+ * and whatever is still running then is failed back to the queue for another try (pg-boss's
+ * graceful stop). A job waiting for a quiet moment gives up its wait at once.
+ */
+import PgBoss from "pg-boss";
+import { log } from "@/lib/log";
+import { bossOptions, ensureJobStore } from "./boss";
+import { waitForQuiet } from "./local-load";
+import type { QueueName } from "./queues";
+
+/** How often pg-boss's maintenance looks for jobs left active by a dead server (one runner does it per interval). */
+export const MAINTENANCE_SECONDS = 10;
+/** The longest background work that can wait holds off while this process serves uploads. */
+const MAX_QUIET_WAIT_MS = 10_000;
+let maxQuietWaitMs = MAX_QUIET_WAIT_MS;
+
+/** Test seam: a shorter longest wait for a quiet moment (null restores the default). */
+export function setMaxQuietWaitMsForTests(ms: number | null): void {
+  maxQuietWaitMs = ms ?? MAX_QUIET_WAIT_MS;
+}
+
+export type RunnerRole = "app" | "worker" | "test";
+
+export interface JobContext {
+  role: RunnerRole;
+  /** True once the runner is stopping: long work should stop at a safe point and throw. */
+  stopping: () => boolean;
+}
+
+export interface WorkerSpec<T extends object = object> {
+  queue: QueueName;
+  /** Jobs fetched at once per loop, and loops per process (default 1 and 1). */
+  batchSize?: number;
+  loops?: number;
+  pollingIntervalSeconds?: number;
+  /** Background work that waits for a quiet moment in a process serving uploads. */
+  canWait?: boolean;
+  run: (job: PgBoss.JobWithMetadata<T>, ctx: JobContext) => Promise<unknown>;
+}
+
+export interface ScheduleSpec {
+  queue: QueueName;
+  cron: string;
+}
+
+export interface JobRunner {
+  role: RunnerRole;
+  boss: PgBoss;
+  stop: (opts?: { timeoutMs?: number }) => Promise<void>;
+}
+
+const g = globalThis as unknown as { rlJobRunner?: Promise<JobRunner> };
+
+/** Errors from polling (say, while the database is down) are logged once per 10 s per message. */
+function quietErrorLog(): (err: unknown) => void {
+  const last = new Map<string, number>();
+  return (err) => {
+    const message = err instanceof Error ? err.message : String((err as { message?: unknown })?.message ?? err);
+    const now = Date.now();
+    if ((last.get(message) ?? 0) > now - 10_000) return;
+    last.set(message, now);
+    log.warn("job queue error (retrying)", { error: message.slice(0, 300) });
+  };
+}
+
+async function register<T extends object>(boss: PgBoss, spec: WorkerSpec<T>, ctx: JobContext): Promise<void> {
+  const options = { batchSize: spec.batchSize ?? 1, pollingIntervalSeconds: spec.pollingIntervalSeconds ?? 1, includeMetadata: true as const };
+  const handler = async (jobs: PgBoss.JobWithMetadata<T>[]) => {
+    if (spec.canWait && ctx.role !== "worker") await waitForQuiet(maxQuietWaitMs, ctx.stopping);
+    const failed: { id: string; error: string }[] = [];
+    for (const job of jobs) {
+      if (ctx.stopping()) {
+        failed.push({ id: job.id, error: "the runner was stopping before this job started" });
+        continue;
+      }
+      try {
+        await spec.run(job, ctx);
+      } catch (err) {
+        log.warn("job failed; pg-boss retries it", { queue: spec.queue, jobId: job.id, retryCount: job.retryCount, error: String(err).slice(0, 300) });
+        failed.push({ id: job.id, error: String(err).slice(0, 500) });
+      }
+    }
+    // The rest are completed by pg-boss when this returns; the failed ones go back for a retry.
+    for (const f of failed) await boss.fail(spec.queue, f.id, { message: f.error });
+  };
+  for (let i = 0; i < (spec.loops ?? 1); i++) await boss.work<T>(spec.queue, options, handler);
+}
+
+/**
+ * Start this process's runner with the given workers and schedules (once per process; a second
+ * call returns the first runner). `test` starts no schedules: tests run sweeps themselves.
+ */
+export function startJobRunner(role: RunnerRole, workers: WorkerSpec[], schedules: ScheduleSpec[]): Promise<JobRunner> {
+  g.rlJobRunner ??= (async () => {
+    await ensureJobStore();
+    let stopping = false;
+    const boss = new PgBoss({
+      ...bossOptions(),
+      supervise: true,
+      schedule: role !== "test",
+      migrate: false,
+      maintenanceIntervalSeconds: MAINTENANCE_SECONDS,
+    });
+    boss.on("error", quietErrorLog());
+    await boss.start();
+    const ctx: JobContext = { role, stopping: () => stopping };
+    for (const w of workers) await register(boss, w, ctx);
+    if (role !== "test") for (const s of schedules) await boss.schedule(s.queue, s.cron, {}, { tz: "UTC" });
+    log.info("job runner started", { role, queues: workers.map((w) => w.queue) });
+    const stop = async (opts: { timeoutMs?: number } = {}) => {
+      if (stopping) return;
+      stopping = true;
+      await boss.stop({ graceful: true, wait: true, close: false, timeout: opts.timeoutMs ?? 20_000 });
+      g.rlJobRunner = undefined;
+      log.info("job runner stopped", { role });
+    };
+    return { role, boss, stop };
+  })().catch((err) => {
+    g.rlJobRunner = undefined;
+    throw err;
+  });
+  return g.rlJobRunner;
+}
+
+/** The runner of this process, if one was started. */
+export function currentJobRunner(): Promise<JobRunner> | undefined {
+  return g.rlJobRunner;
+}
