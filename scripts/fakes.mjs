@@ -38,6 +38,7 @@ const smtp = new SMTPServer({
           id,
           receivedAt: new Date().toISOString(),
           sessionId: session.id, // the SMTP connection it came over
+          messageId: mail.messageId ?? "", // the same on every try of one outbox row
           from: mail.from?.text ?? "",
           to: session.envelope.rcptTo.map((r) => r.address),
           subject: mail.subject ?? "",

@@ -1,4 +1,4 @@
-import { and, desc, eq, gte, lt, lte, or, sql } from "drizzle-orm";
+import { and, desc, eq, gte, inArray, lt, lte, or, sql } from "drizzle-orm";
 import { getTableConfig } from "drizzle-orm/pg-core";
 import type { Db } from "@/db/client";
 import { analyses, findings, idempotencyKeys, mailOutbox, sites, systems, testEvents, uploads, user, vacuumTests, jobs } from "@/db/schema";
@@ -211,4 +211,14 @@ export async function updateIdempotencyKeyAnalysis(db: Db, params: { organizatio
     .update(idempotencyKeys)
     .set({ analysisId: params.analysisId })
     .where(and(eq(idempotencyKeys.organizationId, params.organizationId), eq(idempotencyKeys.key, params.key)));
+}
+
+/** Of these storage keys of one organization, the ones a committed upload row references. */
+export async function listReferencedObjectKeysByOrganization(db: Db, params: { organizationId: string; keys: string[] }): Promise<Set<string>> {
+  if (!params.keys.length) return new Set();
+  const rows = await db
+    .select({ key: uploads.objectKey })
+    .from(uploads)
+    .where(and(eq(uploads.organizationId, params.organizationId), inArray(uploads.objectKey, params.keys)));
+  return new Set(rows.map((r) => r.key));
 }

@@ -5,3 +5,4 @@ export * from "./review";
 export * from "./rigs";
 export * from "./pressure";
 export * from "./casebook";
+export * from "./tasks";

@@ -8,7 +8,7 @@
  *  - The transaction failing → the stored object is deleted again, 503.
  *  - In the transaction: the new upload row, analysis version n + 1 made current (earlier versions
  *    stay in the history), sent_back → waiting_review, the audit event "retest_uploaded" and the
- *    leads' e-mail in the outbox; the e-mail is delivered after commit.
+ *    leads' e-mail in the outbox with its delivery job.
  *  - An Idempotency-Key already used for this re-test answers with the same analysis; two identical
  *    concurrent requests race on the idempotency_keys primary key, the loser rolls back and
  *    deletes its object.
@@ -26,7 +26,7 @@ import type { TestStatus } from "@/db/schema";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { retestUploadedMail } from "@/lib/notify/messages";
-import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import { queueMail } from "@/lib/notify/outbox";
 import { can } from "@/lib/permissions";
 import { rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "@/lib/tests/engine-pool";
@@ -159,7 +159,5 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
       throw new AppError("conflict", "The same re-test is being saved by another request; try again.");
     },
   );
-  // After commit: the leads' e-mail; a failure stays in the outbox for resend and never undoes the re-test.
-  await deliverMailSoon(db, outcome.mailIds);
   return outcome;
 }

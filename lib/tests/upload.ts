@@ -13,7 +13,8 @@
  *    and a failed upload leaves none behind. It needs records.manage (403 before anything runs).
  */
 import { entersReviewOnUpload, reviewRowsOfNewTest } from "@/lib/review/auto";
-import { deliverWhenQuiet, uploadInProgress } from "@/lib/notify/when-quiet";
+import { uploadInProgress } from "@/lib/jobs/local-load";
+import { enqueueMailDelivery } from "@/lib/notify/outbox";
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
@@ -211,7 +212,7 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   const sha256 = sha256Hex(input.bytes);
   const object = { key: objectKey, bytes: input.bytes, contentType: input.contentType, sha256 };
 
-  const { outcome, mailIds } = await storeThenCommit<{ outcome: UploadOutcome; mailIds: string[] }>(
+  return storeThenCommit<UploadOutcome>(
     db,
     object,
     "raw log",
@@ -232,20 +233,18 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
       const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
         throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
       });
+      // The leads' e-mail is delivered by a job that commits with the test (it never holds up the verdict).
+      await enqueueMailDelivery(tx, { organizationId: org, ids: rows.mails.map((m) => m.id) });
       if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
-      const mailIds = rows.mails.map((m) => m.id);
-      return { outcome: { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) }, mailIds };
+      return { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) };
     },
     async () => {
       // Lost the race for the key: answer with the winner's test.
       const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
-      if (seen) return { outcome: replayOf(seen), mailIds: [] };
+      if (seen) return replayOf(seen);
       throw new AppError("conflict", "The same upload is being saved by another request; try again.");
     },
   );
-  // The leads' e-mail goes after commit, at the next quiet moment: it never holds up a verdict.
-  deliverWhenQuiet(db, mailIds);
-  return outcome;
 }
 
 interface NewTestArgs {

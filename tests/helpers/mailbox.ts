@@ -9,6 +9,8 @@ export interface CaughtMail extends CaughtMessage {
   attachments: { filename?: string; contentType: string; size: number }[];
   /** The catcher's id of the SMTP connection the message came over. */
   sessionId: string;
+  /** The message's Message-ID header (one outbox row keeps the same one on every try). */
+  messageId: string;
 }
 
 export function readMailbox(): CaughtMail[] {
