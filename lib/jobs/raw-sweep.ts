@@ -20,11 +20,11 @@ export interface SweepReport {
   deleted: string[];
 }
 
-/** Delete every raw file older than `safeAgeSeconds` that nothing references. */
-export async function sweepOrphanRawFiles(db: Database, params: { safeAgeSeconds: number; now?: Date }): Promise<SweepReport> {
+/** Delete every raw file older than `safeAgeSeconds` that nothing references (under `prefix`, default every organization's). */
+export async function sweepOrphanRawFiles(db: Database, params: { safeAgeSeconds: number; now?: Date; prefix?: string }): Promise<SweepReport> {
   const cutoff = (params.now ?? new Date()).getTime() - params.safeAgeSeconds * 1000;
   const report: SweepReport = { examined: 0, deleted: [] };
-  for await (const page of listStoredObjects("orgs/")) {
+  for await (const page of listStoredObjects(params.prefix ?? "orgs/")) {
     const byOrganization = new Map<string, string[]>();
     for (const o of page) {
       const org = KEY_PATTERN.exec(o.key)?.[1];

@@ -37,7 +37,7 @@ export interface JobContext {
 }
 
 export interface WorkerSpec<T extends object = object> {
-  queue: QueueName;
+  queue: QueueName | (string & {});
   /** Jobs fetched at once per loop, and loops per process (default 1 and 1). */
   batchSize?: number;
   loops?: number;
@@ -48,7 +48,7 @@ export interface WorkerSpec<T extends object = object> {
 }
 
 export interface ScheduleSpec {
-  queue: QueueName;
+  queue: QueueName | (string & {});
   cron: string;
 }
 
