@@ -8,6 +8,7 @@ import { markDeadLettered, runMailJob } from "@/lib/notify/delivery";
 import type { MailJobData } from "@/lib/notify/outbox";
 import { sweepOverdueMail } from "@/lib/notify/sweep";
 import { sweepAllShopsIntoReview } from "@/lib/review/sweep";
+import { mailRigReminders } from "@/lib/rigs/reminder-mail";
 import { QUEUES } from "./queues";
 import { sweepOrphanRawFiles } from "./raw-sweep";
 import { startJobRunner, type JobRunner, type RunnerRole, type ScheduleSpec, type WorkerSpec } from "./runner";
@@ -23,6 +24,7 @@ export function workerSpecs(): WorkerSpec[] {
     worker<MailJobData>({ queue: QUEUES.mailDeadLetter.name, pollingIntervalSeconds: 5, run: (job) => markDeadLettered(db(), job) }),
     worker({ queue: QUEUES.mailSweep.name, pollingIntervalSeconds: 5, canWait: true, run: () => sweepOverdueMail(db()) }),
     worker({ queue: QUEUES.reviewSweep.name, pollingIntervalSeconds: 5, canWait: true, run: () => sweepAllShopsIntoReview(db()) }),
+    worker({ queue: QUEUES.rigReminders.name, pollingIntervalSeconds: 5, canWait: true, run: () => mailRigReminders(db()) }),
     worker({ queue: QUEUES.rawSweep.name, pollingIntervalSeconds: 5, canWait: true, run: () => sweepOrphanRawFiles(db(), { safeAgeSeconds: env().RAW_SWEEP_SAFE_AGE_SECONDS }) }),
   ];
 }
@@ -32,6 +34,7 @@ export function scheduleSpecs(): ScheduleSpec[] {
     { queue: QUEUES.mailSweep.name, cron: "* * * * *" },
     { queue: QUEUES.reviewSweep.name, cron: "* * * * *" },
     { queue: QUEUES.rawSweep.name, cron: "*/10 * * * *" },
+    { queue: QUEUES.rigReminders.name, cron: env().RIG_REMINDER_CRON },
   ];
 }
 
