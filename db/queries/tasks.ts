@@ -80,7 +80,7 @@ export async function finishTaskById(
       state: failed ? "failed" : "done",
       stage: failed ? "failed" : "done",
       ...(params.testId !== undefined ? { testId: params.testId } : {}),
-      ...(failed ? { error: params.error, errorDetails: params.errorDetails ?? null } : {}),
+      ...(failed ? { error: params.error, errorDetails: params.errorDetails ?? null } : { done: sql`greatest(${backgroundTasks.done}, ${backgroundTasks.total})` }),
       // The stored file is a test's now (or was deleted): the sweeper need not keep it for the task.
       objectKey: null,
       updatedAt: new Date(),

@@ -222,3 +222,32 @@ export async function listReferencedObjectKeysByOrganization(db: Db, params: { o
     .where(and(eq(uploads.organizationId, params.organizationId), inArray(uploads.objectKey, params.keys)));
   return new Set(rows.map((r) => r.key));
 }
+
+/** The rule of a profile re-check: non-practice tests whose current analysis used a profile of one of these names. */
+const currentProfileIs = (organizationId: string, profileNames: string[]) =>
+  and(
+    eq(vacuumTests.organizationId, organizationId),
+    eq(vacuumTests.isPractice, false),
+    inArray(sql<string>`${analyses.options}->'profile'->>'name'`, profileNames),
+  );
+
+export async function countTestsByCurrentProfileName(db: Db, params: { organizationId: string; profileNames: string[] }): Promise<number> {
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(vacuumTests)
+    .innerJoin(analyses, and(eq(analyses.id, vacuumTests.currentAnalysisId), eq(analyses.organizationId, vacuumTests.organizationId)))
+    .where(currentProfileIs(params.organizationId, params.profileNames));
+  return row?.n ?? 0;
+}
+
+/** The next tests of a profile re-check after `afterId`, in id order (a chunked job carries on from its cursor). */
+export async function listTestIdsByCurrentProfileName(db: Db, params: { organizationId: string; profileNames: string[]; afterId: string | null; limit: number }) {
+  const rows = await db
+    .select({ id: vacuumTests.id })
+    .from(vacuumTests)
+    .innerJoin(analyses, and(eq(analyses.id, vacuumTests.currentAnalysisId), eq(analyses.organizationId, vacuumTests.organizationId)))
+    .where(and(currentProfileIs(params.organizationId, params.profileNames), params.afterId ? sql`${vacuumTests.id} > ${params.afterId}` : undefined))
+    .orderBy(vacuumTests.id)
+    .limit(params.limit);
+  return rows.map((r) => r.id);
+}

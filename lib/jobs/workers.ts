@@ -9,6 +9,8 @@ import type { MailJobData } from "@/lib/notify/outbox";
 import { sweepOverdueMail } from "@/lib/notify/sweep";
 import { sweepAllShopsIntoReview } from "@/lib/review/sweep";
 import { mailRigReminders } from "@/lib/rigs/reminder-mail";
+import { runBulkReanalysisJob, type BulkJobData } from "@/lib/tests/bulk-reanalysis";
+import { runLogAnalysisJob, type LogJobData } from "@/lib/tests/queued-upload";
 import { QUEUES } from "./queues";
 import { sweepOrphanRawFiles } from "./raw-sweep";
 import { startJobRunner, type JobRunner, type RunnerRole, type ScheduleSpec, type WorkerSpec } from "./runner";
@@ -21,6 +23,9 @@ export function workerSpecs(): WorkerSpec[] {
     // Two loops of up to ten jobs a second each: a burst of uploads' review e-mail goes out in
     // batches, after the verdicts (canWait), over the shared SMTP connections.
     worker<MailJobData>({ queue: QUEUES.mail.name, batchSize: 10, loops: 2, canWait: true, run: (job) => runMailJob(db(), job.data) }),
+    // A technician waits for this one: no holding off, half a second between polls.
+    worker<LogJobData>({ queue: QUEUES.logAnalysis.name, pollingIntervalSeconds: 0.5, run: (job) => runLogAnalysisJob(db(), job.data) }),
+    worker<BulkJobData>({ queue: QUEUES.bulkReanalysis.name, canWait: true, run: (job, ctx) => runBulkReanalysisJob(db(), job.data, ctx) }),
     worker<MailJobData>({ queue: QUEUES.mailDeadLetter.name, pollingIntervalSeconds: 5, run: (job) => markDeadLettered(db(), job) }),
     worker({ queue: QUEUES.mailSweep.name, pollingIntervalSeconds: 5, canWait: true, run: () => sweepOverdueMail(db()) }),
     worker({ queue: QUEUES.reviewSweep.name, pollingIntervalSeconds: 5, canWait: true, run: () => sweepAllShopsIntoReview(db()) }),

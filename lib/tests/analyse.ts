@@ -3,7 +3,8 @@
  * test's earlier options plus the caller's overrides, store version n + 1 and point the test at it.
  */
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
-import type { Database } from "@/db/client";
+import type { Database, Tx } from "@/db/client";
+import type { EngineRun } from "./engine";
 import { getAnalysisById, getNextAnalysisVersionByTest, insertAnalysis } from "@/db/queries/analyses";
 import { getUploadByTest, lockTestById, updateTestCurrentAnalysis } from "@/db/queries/tests";
 import type { Viewer } from "@/db/queries/visibility";
@@ -46,29 +47,39 @@ export async function reanalyseTest(
     holdWindow: input.holdWindow ?? base.holdWindow,
   });
 
+  const run = await analyseOffThread(await readStoredLogText(upload.objectKey), options); // LogError → 422 naming the option
+  return db.transaction((tx) => saveNewAnalysis(tx, { organizationId: org, testId, options, run, reason: input.reason ?? null, createdById: viewer.userId }));
+}
+
+/** The stored raw log's text; storage away → 503 and nothing changes. */
+export async function readStoredLogText(objectKey: string): Promise<string> {
   let bytes: Uint8Array;
   try {
-    bytes = await getObjectBytes(upload.objectKey);
+    bytes = await getObjectBytes(objectKey);
   } catch (err) {
-    log.error("raw log not readable", { objectKey: upload.objectKey, err: String(err) });
+    log.error("raw log not readable", { objectKey, err: String(err) });
     throw new AppError("storage_unavailable", "File storage is not answering; the analysis was not changed. Please try again.");
   }
-  const run = await analyseOffThread(decodeLogText(bytes), options); // LogError → 422 naming the option
+  return decodeLogText(bytes);
+}
 
-  return db.transaction(async (tx) => {
-    if (!(await lockTestById(tx, { organizationId: org, testId }))) throw new AppError("not_found", "No such test.");
-    const version = await getNextAnalysisVersionByTest(tx, { organizationId: org, testId });
-    const saved = await insertAnalysis(tx, {
-      organizationId: org,
-      testId,
-      version,
-      options,
-      result: run.result,
-      series: run.series,
-      reason: input.reason ?? null,
-      createdById: viewer.userId,
-    });
-    await updateTestCurrentAnalysis(tx, { organizationId: org, testId, analysisId: saved.id, verdict: run.result.verdict });
-    return { analysis: run.result, version, analysisId: saved.id };
+/** Inside a transaction: store a run as the test's next analysis version and make it current. */
+export async function saveNewAnalysis(
+  tx: Tx,
+  p: { organizationId: string; testId: string; options: AnalyzeOptions; run: EngineRun; reason: string | null; createdById: string },
+): Promise<{ analysis: AnalysisResult; version: number; analysisId: string }> {
+  if (!(await lockTestById(tx, { organizationId: p.organizationId, testId: p.testId }))) throw new AppError("not_found", "No such test.");
+  const version = await getNextAnalysisVersionByTest(tx, { organizationId: p.organizationId, testId: p.testId });
+  const saved = await insertAnalysis(tx, {
+    organizationId: p.organizationId,
+    testId: p.testId,
+    version,
+    options: p.options,
+    result: p.run.result,
+    series: p.run.series,
+    reason: p.reason,
+    createdById: p.createdById,
   });
+  await updateTestCurrentAnalysis(tx, { organizationId: p.organizationId, testId: p.testId, analysisId: saved.id, verdict: p.run.result.verdict });
+  return { analysis: p.run.result, version, analysisId: saved.id };
 }

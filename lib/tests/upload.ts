@@ -11,6 +11,9 @@
  *    loser rolls back, deletes its object and returns the winner's test.
  *  - newJob creates the visit inside that same transaction, so a retry never makes a second job
  *    and a failed upload leaves none behind. It needs records.manage (403 before anything runs).
+ *  - A log larger than ANALYSIS_JOB_MIN_KB is stored and handed to a queued job instead
+ *    (./queued-upload.ts): the answer is the task to follow, and the job commits the test with
+ *    commitNewTest below, exactly as a small upload does.
  */
 import { entersReviewOnUpload, reviewRowsOfNewTest } from "@/lib/review/auto";
 import { uploadInProgress } from "@/lib/jobs/local-load";
@@ -27,8 +30,13 @@ import { rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "./engine-pool";
 import { sha256Hex } from "./files";
 import { KeyTaken, storeThenCommit } from "./stored-commit";
+import { getTaskByIdempotencyKey } from "@/db/queries/tasks";
+import { queueLogAnalysis, queuedReplayOf } from "./queued-upload";
 import { compactOptions, importOptionsOf, resolveProfile, volumeOf } from "./options";
 import type { TestMetadata } from "./schemas";
+import type { EngineRun } from "./engine";
+import type { TaskRow } from "@/db/queries/tasks";
+import { env } from "@/lib/env";
 
 export interface Uploader {
   organizationId: string;
@@ -59,6 +67,20 @@ export interface UploadOutcome {
   result?: AnalysisResult;
   /** The new test with its names, as written (absent when a name was not read here). */
   row?: TestDetailRow;
+  /** A large log: the queued task that will analyse it and make the test (`testId` is the id it will have). */
+  task?: TaskRow;
+}
+
+/** A raw log as stored, with what the upload said about it (all a test needs besides the analysis). */
+export interface StoredLog {
+  metadata: TestMetadata;
+  source: "file" | "typed";
+  filename: string;
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  objectKey: string;
+  idempotencyKey?: string;
 }
 
 type FaultHook = (tx: Tx, ctx: { testId: string; objectKey: string }) => Promise<void>;
@@ -201,9 +223,12 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   if (input.idempotencyKey) {
     const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey });
     if (seen) return replayOf(seen);
+    const queued = await getTaskByIdempotencyKey(db, { organizationId: org, key: input.idempotencyKey });
+    if (queued) return queuedReplayOf(queued);
   }
   assertMayCreateJob(who, input.metadata);
   const options = await uploadOptionsOf(db, org, input);
+  if (input.text.length > env().ANALYSIS_JOB_MIN_KB * 1024) return queueLogAnalysis(db, who, input, options);
   const run = await analyseOffThread(input.text, options); // LogError → 422 before anything is stored
 
   const testId = randomUUID();
@@ -212,32 +237,15 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   const sha256 = sha256Hex(input.bytes);
   const object = { key: objectKey, bytes: input.bytes, contentType: input.contentType, sha256 };
 
+  const log: StoredLog = {
+    metadata: input.metadata, source: input.source, filename: input.filename, contentType: input.contentType,
+    sizeBytes: input.bytes.byteLength, sha256, objectKey, idempotencyKey: input.idempotencyKey,
+  };
   return storeThenCommit<UploadOutcome>(
     db,
     object,
     "raw log",
-    async (tx) => {
-      const testedAt = testedAtOf(input.metadata, run.startedAt);
-      const { siteId, systemId, jobId, names } = await checkRecords(tx, who, input.metadata, testedAt);
-      // Not a pass, misses the profile or help asked: the test is inserted straight into the
-      // lead's queue, and its audit event and the leads' e-mail are queued in the same commit.
-      const title = titleOf(input.metadata, input.filename, input.source);
-      const known = {
-        verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
-        title, technicianName: who.name, siteName: names.siteName,
-      };
-      const review = entersReviewOnUpload(known)
-        ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known })
-        : null;
-      const rows = newTestRows({ who, input, testId, analysisId, objectKey, sha256, siteId, systemId, jobId, title, options, result: run.result, series: run.series, testedAt, review });
-      const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
-        throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
-      });
-      // The leads' e-mail is delivered by a job that commits with the test (it never holds up the verdict).
-      await enqueueMailDelivery(tx, { organizationId: org, ids: rows.mails.map((m) => m.id) });
-      if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
-      return { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) };
-    },
+    (tx) => commitNewTest(tx, who, log, { testId, analysisId, options, run }),
     async () => {
       // Lost the race for the key: answer with the winner's test.
       const seen = await getIdempotencyKeyByKey(db, { organizationId: org, key: input.idempotencyKey! });
@@ -247,13 +255,44 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   );
 }
 
+/**
+ * Inside the caller's transaction: the new test of an analysed, stored log with everything that
+ * goes with it (records, review rule, audit event, the leads' e-mail and its delivery job, the
+ * Idempotency-Key). A key already taken throws KeyTaken.
+ */
+export async function commitNewTest(
+  tx: Tx,
+  who: Uploader,
+  log: StoredLog,
+  a: { testId: string; analysisId: string; options: AnalyzeOptions; run: EngineRun },
+): Promise<UploadOutcome> {
+  const org = who.organizationId;
+  const { testId, run } = a;
+  const testedAt = testedAtOf(log.metadata, run.startedAt);
+  const { siteId, systemId, jobId, names } = await checkRecords(tx, who, log.metadata, testedAt);
+  // Not a pass, misses the profile or help asked: the test is inserted straight into the
+  // lead's queue, and its audit event and the leads' e-mail are queued in the same commit.
+  const title = titleOf(log.metadata, log.filename, log.source);
+  const known = {
+    verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: log.metadata.isPractice,
+    title, technicianName: who.name, siteName: names.siteName,
+  };
+  const review = entersReviewOnUpload(known) ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known }) : null;
+  const rows = newTestRows({ who, log, testId, analysisId: a.analysisId, siteId, systemId, jobId, title, options: a.options, result: run.result, series: run.series, testedAt, review });
+  const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
+    throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
+  });
+  // The leads' e-mail is delivered by a job that commits with the test (it never holds up the verdict).
+  await enqueueMailDelivery(tx, { organizationId: org, ids: rows.mails.map((m) => m.id) });
+  if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey: log.objectKey });
+  return { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) };
+}
+
 interface NewTestArgs {
   who: Uploader;
-  input: UploadInput;
+  log: StoredLog;
   testId: string;
   analysisId: string;
-  objectKey: string;
-  sha256: string;
   siteId: string | null;
   systemId: string | null;
   jobId: string | null;
@@ -268,7 +307,7 @@ interface NewTestArgs {
 
 /** Every row of a new test, for insertNewTestTogether. */
 function newTestRows(a: NewTestArgs): NewTestRows {
-  const m = a.input.metadata;
+  const m = a.log.metadata;
   const org = a.who.organizationId;
   const analysis = analysisRowsOf({
     id: a.analysisId, organizationId: org, testId: a.testId, version: 1, options: a.options, result: a.result, series: a.series, createdById: a.who.userId,
@@ -282,7 +321,7 @@ function newTestRows(a: NewTestArgs): NewTestRows {
       siteId: a.siteId,
       systemId: a.systemId,
       title: a.title,
-      source: a.input.source,
+      source: a.log.source,
       refrigerant: m.refrigerant ?? null,
       lineSetFeet: m.lineSetFeet ?? null,
       liquidOd: m.liquidOd ?? null,
@@ -300,16 +339,16 @@ function newTestRows(a: NewTestArgs): NewTestRows {
     upload: {
       organizationId: org,
       testId: a.testId,
-      objectKey: a.objectKey,
-      sha256: a.sha256,
-      sizeBytes: a.input.bytes.byteLength,
-      filename: a.input.filename,
-      contentType: a.input.contentType || "text/csv",
+      objectKey: a.log.objectKey,
+      sha256: a.log.sha256,
+      sizeBytes: a.log.sizeBytes,
+      filename: a.log.filename,
+      contentType: a.log.contentType || "text/csv",
     },
     analysis: analysis.analysis,
     findings: analysis.findings,
     events: a.review ? [a.review.event] : [],
     mails: a.review?.mails ?? [],
-    idempotencyKey: a.input.idempotencyKey ? { organizationId: org, key: a.input.idempotencyKey, userId: a.who.userId, testId: a.testId } : null,
+    idempotencyKey: a.log.idempotencyKey ? { organizationId: org, key: a.log.idempotencyKey, userId: a.who.userId, testId: a.testId } : null,
   };
 }

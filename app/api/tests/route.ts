@@ -4,18 +4,22 @@ import { listTests, loadTestSummary } from "@/lib/tests/read";
 import { readUploadRequest } from "@/lib/tests/request";
 import { idempotencyKeySchema, listTestsQuerySchema, parseInput } from "@/lib/tests/schemas";
 import { createTestFromUpload } from "@/lib/tests/upload";
+import { taskDto } from "@/lib/jobs/tasks";
 
 export const dynamic = "force-dynamic";
 
 /**
  * POST /api/tests — upload a gauge log (multipart `file` + metadata) or typed readings (JSON).
  * 201 { test, analysis } for a new test; 200 with the first test for a retried Idempotency-Key.
+ * A large log (over ANALYSIS_JOB_MIN_KB) is queued: 202 { task } to follow at /api/tasks/:id
+ * (a retry of it answers 202 with the same task, or 200 with the test once it is made).
  */
 export const POST = route({ permission: "tests.upload" }, async ({ req, actor }) => {
   const rawKey = req.headers.get("idempotency-key");
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const input = await readUploadRequest(req);
   const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey });
+  if (outcome.task && !(outcome.task.state === "done" && outcome.task.testId)) return Response.json({ task: taskDto(outcome.task) }, { status: 202 });
   const { test, analysis } = await loadTestSummary(db(), actor, outcome.testId, outcome);
   return Response.json({ test, analysis }, { status: outcome.created ? 201 : 200 });
 });
