@@ -17,6 +17,8 @@ export function db(): Database {
     // uploads finds them open instead of starting new PostgreSQL backends; they never keep a
     // script's process alive (allowExitOnIdle).
     globalForDb.rlPool = new Pool({ connectionString: env().DATABASE_URL, max: 10, idleTimeoutMillis: 5 * 60_000, allowExitOnIdle: true });
+    // An idle connection lost with the server (a restart, an outage) must not end the process: the pool makes a new one.
+    globalForDb.rlPool.on("error", () => undefined);
     globalForDb.rlDb = drizzle(globalForDb.rlPool, { schema });
   }
   return globalForDb.rlDb;

@@ -3,6 +3,7 @@
 #   scripts/services.sh start demo|test|dev|bench     scripts/services.sh stop demo|test|dev|bench
 #   scripts/services.sh env demo|test|dev|bench       (prints the connection settings)
 #   scripts/services.sh reset PROFILE                 (stops it and deletes its data)
+#   scripts/services.sh pg-stop|pg-start PROFILE      (PostgreSQL alone, for fault tests: an outage, then back)
 # PostgreSQL comes from Debian's package; s3rver and the SMTP catcher run in scripts/fakes.mjs.
 #
 # RISELINE_PORT_OFFSET (default 0, a multiple of 1000) moves every port of every profile, so two
@@ -126,6 +127,8 @@ MAILBOX_DIR=$ROOT/mail
 ENV
     ;;
   pgdata) echo "$PGDATA" ;;
+  pg-stop) if pg_running; then as_pg "$PGBIN/pg_ctl" -D "$PGDATA" -m immediate -w stop >/dev/null; fi ;;
+  pg-start) start_pg ;;
   reset) stop_fakes; stop_pg; rm -rf "$PG_HOME" "$ROOT" ;;
   *) echo "unknown action $action" >&2; exit 2 ;;
 esac

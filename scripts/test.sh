@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # `npm test`: the whole suite on its own services (separate database, bucket, ports, data dirs):
 # type-check, lint, unit and integration tests (vitest), then the browser journeys against a
-# production build. Stops everything it started; exits non-zero on any failure.
+# production build, then two production servers over one database with faults (tests/cluster).
+# Stops everything it started; exits non-zero on any failure.
 set -uo pipefail
 cd "$(dirname "$0")/.."
 . scripts/lib.sh
@@ -55,6 +56,12 @@ if ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1; then
   if wait_for_url "http://127.0.0.1:$PORT/api/health" 90; then
     step "Browser journeys (Chromium)" ./node_modules/.bin/vitest run --config tests/journeys/vitest.config.ts \
       --reporter=default --reporter=json --outputFile.json="$ROOT/journeys.json"
+    # The journeys' server stops first: the two servers of the next step start their own (ports
+    # $PORT+1 and +2) and run the background jobs between them alone.
+    stop_group "$ROOT/run/next.pid"
+    step "Two servers, one database: a server killed, the mail server and the database down" \
+      ./node_modules/.bin/vitest run --config tests/cluster/vitest.config.ts \
+      --reporter=default --reporter=json --outputFile.json="$ROOT/cluster.json"
   else
     echo "The app did not start; last lines of $ROOT/next.log:"; tail -30 "$ROOT/next.log"
     failed+=("Start the app")
@@ -64,7 +71,7 @@ else
   failed+=("Production build")
 fi
 
-node scripts/test-summary.mjs "$ROOT/unit.json" "$ROOT/journeys.json"
+node scripts/test-summary.mjs "$ROOT/unit.json" "$ROOT/journeys.json" "$ROOT/cluster.json"
 if [ ${#failed[@]} -gt 0 ]; then
   printf 'Failed steps: %s\n' "${failed[*]}"
   exit 1

@@ -6,7 +6,7 @@ export default defineConfig({
   root: path.resolve(import.meta.dirname, ".."),
   test: {
     include: ["tests/**/*.test.ts", "analysis/**/*.test.ts"],
-    exclude: ["tests/journeys/**", "node_modules/**"],
+    exclude: ["tests/journeys/**", "tests/cluster/**", "node_modules/**"],
     testTimeout: 120_000,
     hookTimeout: 60_000,
     pool: "forks",
