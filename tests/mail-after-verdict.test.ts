@@ -35,7 +35,7 @@ describe("review e-mail after an upload waits for the verdicts (our rule, lib/jo
     setMaxQuietWaitMsForTests(60_000);
     const busy = uploadInProgress(); // another technician's upload still running
     const id = await uploadLeak("Quiet-moment check, busy");
-    await sleep(2500); // the job was fetched (polling every second) and is holding off
+    await sleep(2500); // the job waits in the queue: a server serving uploads does not fetch it
     const queued = await statusOf(id);
     expect(queued.length).toBeGreaterThan(0); // committed with the test…
     expect(new Set(queued)).toEqual(new Set(["pending"])); // …and not sent yet

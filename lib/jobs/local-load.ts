@@ -3,9 +3,9 @@
  * sweeps, bulk re-analysis) gives way to a technician waiting for a verdict.
  *
  * This is not state the servers share: the work itself stays in the queue in PostgreSQL, and an
- * idle server or `npm run worker` takes it meanwhile. Only how long this process holds off before
- * doing a job it already fetched is decided here: until no upload has been in progress for
- * QUIET_MS, and never longer than the caller's limit, so under steady load the work still goes.
+ * idle server or `npm run worker` takes it meanwhile. Only whether this process fetches such work
+ * now is decided from it (lib/jobs/runner.ts): once no upload has been in progress for QUIET_MS,
+ * or when it has held off for the longest wait, so under steady load the work still goes.
  * Kept on globalThis: Next.js bundles instrumentation (where the jobs run) apart from the routes
  * (where uploads run), and both must see the same count.
  */
@@ -33,20 +33,9 @@ export function uploadInProgress(): () => void {
   };
 }
 
-function quiet(): boolean {
+/** No upload in progress here, and none for a moment. */
+export function isQuiet(): boolean {
   return load.uploadsInProgress === 0 && Date.now() - load.lastUploadEndedAt >= load.quietMs;
-}
-
-/**
- * Resolves once this process is quiet, or after `maxWaitMs`, or as soon as `stopping()` says so.
- * Returns how long it waited, in ms.
- */
-export async function waitForQuiet(maxWaitMs: number, stopping: () => boolean = () => false): Promise<number> {
-  const start = Date.now();
-  while (!quiet() && !stopping() && Date.now() - start < maxWaitMs) {
-    await new Promise((r) => setTimeout(r, 25));
-  }
-  return Date.now() - start;
 }
 
 /** Test seam: another quiet period (null restores the default). */

@@ -1,6 +1,7 @@
 /**
- * The job runner: one started pg-boss instance per process that polls our queues, keeps the cron
- * schedules and does pg-boss's maintenance (putting back jobs whose server died, archiving).
+ * The job runner: one started pg-boss instance per process that keeps the cron schedules and does
+ * pg-boss's maintenance (putting back jobs whose server died, archiving), and a fetch loop per
+ * queue (./fetch-loop.ts) that runs the jobs.
  *
  * It runs inside `next start` (instrumentation.ts, unless JOBS_IN_APP=off) and as `npm run worker`
  * (scripts/worker.ts); any number of them may run over one database: pg-boss hands each job to
@@ -8,19 +9,22 @@
  * all of them, not once per process.
  *
  * Stopping (SIGTERM, SIGINT): no new jobs are fetched, jobs in flight get `timeoutMs` to finish,
- * and whatever is still running then is failed back to the queue for another try (pg-boss's
- * graceful stop). A job waiting for a quiet moment gives up its wait at once.
+ * and whatever is still running then is failed back to the queue for another try.
  */
 import PgBoss from "pg-boss";
 import { log } from "@/lib/log";
 import { bossOptions, ensureJobStore } from "./boss";
-import { waitForQuiet } from "./local-load";
+import { startFetchLoop } from "./fetch-loop";
+import { isQuiet } from "./local-load";
 import type { QueueName } from "./queues";
 
 /** How often pg-boss's maintenance looks for jobs left active by a dead server (one runner does it per interval). */
 export const MAINTENANCE_SECONDS = 10;
-/** The longest background work that can wait holds off while this process serves uploads. */
-const MAX_QUIET_WAIT_MS = 10_000;
+/**
+ * The longest background work that can wait holds off while this process serves uploads (then it
+ * goes anyway, so mail still flows under steady load; an idle server or a worker takes it sooner).
+ */
+const MAX_QUIET_WAIT_MS = 30_000;
 let maxQuietWaitMs = MAX_QUIET_WAIT_MS;
 
 /** Test seam: a shorter longest wait for a quiet moment (null restores the default). */
@@ -72,29 +76,6 @@ function quietErrorLog(): (err: unknown) => void {
   };
 }
 
-async function register<T extends object>(boss: PgBoss, spec: WorkerSpec<T>, ctx: JobContext): Promise<void> {
-  const options = { batchSize: spec.batchSize ?? 1, pollingIntervalSeconds: spec.pollingIntervalSeconds ?? 1, includeMetadata: true as const };
-  const handler = async (jobs: PgBoss.JobWithMetadata<T>[]) => {
-    if (spec.canWait && ctx.role !== "worker") await waitForQuiet(maxQuietWaitMs, ctx.stopping);
-    const failed: { id: string; error: string }[] = [];
-    for (const job of jobs) {
-      if (ctx.stopping()) {
-        failed.push({ id: job.id, error: "the runner was stopping before this job started" });
-        continue;
-      }
-      try {
-        await spec.run(job, ctx);
-      } catch (err) {
-        log.warn("job failed; pg-boss retries it", { queue: spec.queue, jobId: job.id, retryCount: job.retryCount, error: String(err).slice(0, 300) });
-        failed.push({ id: job.id, error: String(err).slice(0, 500) });
-      }
-    }
-    // The rest are completed by pg-boss when this returns; the failed ones go back for a retry.
-    for (const f of failed) await boss.fail(spec.queue, f.id, { message: f.error });
-  };
-  for (let i = 0; i < (spec.loops ?? 1); i++) await boss.work<T>(spec.queue, options, handler);
-}
-
 /**
  * Start this process's runner with the given workers and schedules (once per process; a second
  * call returns the first runner). `test` starts no schedules: tests run sweeps themselves.
@@ -113,13 +94,19 @@ export function startJobRunner(role: RunnerRole, workers: WorkerSpec[], schedule
     boss.on("error", quietErrorLog());
     await boss.start();
     const ctx: JobContext = { role, stopping: () => stopping };
-    for (const w of workers) await register(boss, w, ctx);
+    const loops = workers.flatMap((w) => Array.from({ length: w.loops ?? 1 }, () => startFetchLoop(boss, w, ctx, mayFetchFor(w, role))));
     if (role !== "test") for (const s of schedules) await boss.schedule(s.queue, s.cron, {}, { tz: "UTC" });
     log.info("job runner started", { role, queues: workers.map((w) => w.queue) });
     const stop = async (opts: { timeoutMs?: number } = {}) => {
       if (stopping) return;
       stopping = true;
-      await boss.stop({ graceful: true, wait: true, close: false, timeout: opts.timeoutMs ?? 20_000 });
+      // Jobs in flight get the time limit to finish; whatever still runs then goes back to the queue.
+      const limit = new Promise((r) => setTimeout(r, opts.timeoutMs ?? 20_000));
+      await Promise.race([Promise.all(loops.map((l) => l.done)), limit]);
+      for (const l of loops) {
+        for (const [id, queue] of l.inFlight) await boss.fail(queue, id, { message: "the server stopped while this job ran" }).catch(() => undefined);
+      }
+      await boss.stop({ graceful: false, wait: true, close: false });
       g.rlJobRunner = undefined;
       log.info("job runner stopped", { role });
     };
@@ -129,6 +116,22 @@ export function startJobRunner(role: RunnerRole, workers: WorkerSpec[], schedule
     throw err;
   });
   return g.rlJobRunner;
+}
+
+/** For work that can wait in a process serving uploads: fetch only when quiet, or once the longest wait has passed. */
+function mayFetchFor(spec: WorkerSpec, role: RunnerRole): () => boolean {
+  if (!spec.canWait || role === "worker") return () => true;
+  let busySince: number | null = null;
+  return () => {
+    if (isQuiet()) {
+      busySince = null;
+      return true;
+    }
+    busySince ??= Date.now();
+    if (Date.now() - busySince < maxQuietWaitMs) return false;
+    busySince = null; // one fetch, then hold off again
+    return true;
+  };
 }
 
 /** The runner of this process, if one was started. */
