@@ -40,7 +40,7 @@ type Phase =
   | { kind: "choose"; file: File; preview: ImportPreview }
   | { kind: "sending"; file?: File; progress: number | null }
   | { kind: "error"; error: unknown; file?: File; retry: () => void }
-  | { kind: "queued"; task: TaskProgress; file: File; retry: () => void }
+  | { kind: "queued"; task: TaskProgress; file?: File; name: string; retry: () => void }
   | { kind: "done"; created: CreatedTest };
 
 /** What is being sent; a retry sends the same thing with the same key. */
@@ -103,7 +103,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
     setPhase({ kind: "sending", file, progress: a.source === "file" ? 0 : null });
     try {
       if (isOffline()) throw new ApiError(0, "offline", "You are offline.");
-      let created: CreatedTest;
+      let answer: UploadAnswer;
       if (a.source === "file") {
         const form = new FormData();
         form.set("file", a.file, a.file.name);
@@ -114,20 +114,19 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
           if (a.choice.timeUnit) form.set("timeUnit", a.choice.timeUnit);
         }
         appendContext(form, context);
-        const answer = (await uploadTest(form, {
+        answer = (await uploadTest(form, {
           idempotencyKey: a.key,
           onProgress: (f) => setPhase((p) => (p.kind === "sending" ? { ...p, progress: f } : p)),
         })) as UploadAnswer;
-        if (isQueued(answer)) {
-          // A large log: a job analyses it; AnalysisWait follows it and calls finish().
-          setPhase({ kind: "queued", task: answer.task, file: a.file, retry: () => void send(a) });
-          return;
-        }
-        created = answer;
       } else {
-        created = await createTestFromReadings({ readings: a.readings, timeMode: a.mode, ...contextFields(context) }, a.key);
+        answer = (await createTestFromReadings({ readings: a.readings, timeMode: a.mode, ...contextFields(context) }, a.key)) as UploadAnswer;
       }
-      finish(created);
+      if (isQueued(answer)) {
+        // A large log: a job analyses it; AnalysisWait follows it and calls finish().
+        setPhase({ kind: "queued", task: answer.task, file, name: file?.name ?? "The readings", retry: () => void send(a) });
+        return;
+      }
+      finish(answer);
     } catch (error) {
       setPhase({ kind: "error", error, file, retry: () => void send(a) });
     }
@@ -233,7 +232,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
         {phase.kind === "queued" && (
           <AnalysisWait
             task={phase.task}
-            filename={phase.file.name}
+            filename={phase.name}
             onDone={finish}
             onError={(error) => setPhase({ kind: "error", error, file: phase.file, retry: phase.retry })}
           />
