@@ -4,7 +4,7 @@
 import S3rver from "s3rver";
 import { SMTPServer } from "smtp-server";
 import { simpleParser } from "mailparser";
-import { mkdirSync, writeFileSync } from "node:fs";
+import { mkdirSync, renameSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { randomUUID } from "node:crypto";
 
@@ -46,7 +46,9 @@ const smtp = new SMTPServer({
           html: typeof mail.html === "string" ? mail.html : "",
           attachments: (mail.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, size: a.size })),
         };
-        writeFileSync(join(mailDir, `${id}.json`), JSON.stringify(record, null, 2));
+        // Written aside and renamed: a reader never sees half a message.
+        writeFileSync(join(mailDir, `${id}.json.part`), JSON.stringify(record, null, 2));
+        renameSync(join(mailDir, `${id}.json.part`), join(mailDir, `${id}.json`));
         callback();
       })
       .catch((err) => callback(err));
