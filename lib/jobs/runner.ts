@@ -62,7 +62,7 @@ export interface JobRunner {
   stop: (opts?: { timeoutMs?: number }) => Promise<void>;
 }
 
-const g = globalThis as unknown as { rlJobRunner?: Promise<JobRunner> };
+const g = globalThis as unknown as { rlJobRunner?: Promise<JobRunner>; rlJobRunnerUp?: boolean };
 
 /** Errors from polling (say, while the database is down) are logged once per 10 s per message. */
 function quietErrorLog(): (err: unknown) => void {
@@ -97,6 +97,7 @@ export function startJobRunner(role: RunnerRole, workers: WorkerSpec[], schedule
     const loops = workers.flatMap((w) => Array.from({ length: w.loops ?? 1 }, () => startFetchLoop(boss, w, ctx, mayFetchFor(w, role))));
     if (role !== "test") for (const s of schedules) await boss.schedule(s.queue, s.cron, {}, { tz: "UTC" });
     log.info("job runner started", { role, queues: workers.map((w) => w.queue) });
+    g.rlJobRunnerUp = true;
     const stop = async (opts: { timeoutMs?: number } = {}) => {
       if (stopping) return;
       stopping = true;
@@ -108,6 +109,7 @@ export function startJobRunner(role: RunnerRole, workers: WorkerSpec[], schedule
       }
       await boss.stop({ graceful: false, wait: true, close: false });
       g.rlJobRunner = undefined;
+      g.rlJobRunnerUp = false;
       log.info("job runner stopped", { role });
     };
     return { role, boss, stop };
@@ -134,7 +136,7 @@ function mayFetchFor(spec: WorkerSpec, role: RunnerRole): () => boolean {
   };
 }
 
-/** The runner of this process, if one was started. */
-export function currentJobRunner(): Promise<JobRunner> | undefined {
-  return g.rlJobRunner;
+/** Whether this process runs the background jobs now (for /api/health). */
+export function jobRunnerState(): "running" | "starting" | "not started" {
+  return g.rlJobRunnerUp ? "running" : g.rlJobRunner ? "starting" : "not started";
 }

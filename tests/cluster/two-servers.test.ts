@@ -42,6 +42,8 @@ beforeAll(async () => {
   await ensureJobStore();
   await catcher.up();
   [a, b] = await Promise.all([startServer("A", urlA, serverEnv()), startServer("B", urlB, serverEnv())]);
+  // Each server runs the jobs itself (no worker in this test).
+  for (const s of [a, b]) await expect.poll(async () => (await request(s, "/api/health", {})).json.jobs, { timeout: 30_000 }).toBe("running");
 }, 120_000);
 
 afterAll(async () => {
