@@ -25,10 +25,6 @@ export interface TaskProgress {
 /** POST /api/tests answers a new test, or (a large log) the task that will make it. */
 export type UploadAnswer = CreatedTest | { task: TaskProgress };
 
-export function isQueued(a: UploadAnswer): a is { task: TaskProgress } {
-  return "task" in a && !("test" in a);
-}
-
 export const taskKeys = { one: (id: string) => ["task", id] as const };
 
 export function getTask(id: string, signal?: AbortSignal): Promise<{ task: TaskProgress }> {

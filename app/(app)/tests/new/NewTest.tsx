@@ -21,7 +21,7 @@ import { DropZone, MAX_UPLOAD_BYTES } from "./DropZone";
 import { NewVisit } from "./NewVisit";
 import { adviseOnError } from "./errors";
 import type { TimeMode } from "./readings";
-import { isQueued, type TaskProgress, type UploadAnswer } from "@/lib/client/tasks";
+import type { TaskProgress, UploadAnswer } from "@/lib/client/tasks";
 
 // Loaded when needed, to keep this page's first load small for a weak signal.
 const Loading = () => (
@@ -121,7 +121,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
       } else {
         answer = (await createTestFromReadings({ readings: a.readings, timeMode: a.mode, ...contextFields(context) }, a.key)) as UploadAnswer;
       }
-      if (isQueued(answer)) {
+      if ("task" in answer) {
         // A large log: a job analyses it; AnalysisWait follows it and calls finish().
         setPhase({ kind: "queued", task: answer.task, file, name: file?.name ?? "The readings", retry: () => void send(a) });
         return;
