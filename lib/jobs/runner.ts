@@ -102,8 +102,10 @@ export function startJobRunner(role: RunnerRole, workers: WorkerSpec[], schedule
       if (stopping) return;
       stopping = true;
       // Jobs in flight get the time limit to finish; whatever still runs then goes back to the queue.
-      const limit = new Promise((r) => setTimeout(r, opts.timeoutMs ?? 20_000));
+      let timer: NodeJS.Timeout | undefined;
+      const limit = new Promise((r) => (timer = setTimeout(r, opts.timeoutMs ?? 20_000)));
       await Promise.race([Promise.all(loops.map((l) => l.done)), limit]);
+      clearTimeout(timer);
       for (const l of loops) {
         for (const [id, queue] of l.inFlight) await boss.fail(queue, id, { message: "the server stopped while this job ran" }).catch(() => undefined);
       }
