@@ -53,6 +53,16 @@ const schema = z.object({
   SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
   /** "bundled": the worker entry Next.js built; "source": lib/tests/engine-worker.ts through tsx (vitest, scripts). */
   ENGINE_WORKER_ENTRY: z.enum(["bundled", "source"]).default("bundled"),
+  /** PostgreSQL schema of the job queue (pg-boss creates and migrates it itself; lib/jobs/boss.ts). */
+  JOBS_SCHEMA: z.string().regex(/^[a-z_][a-z0-9_]{0,49}$/, "a lower-case PostgreSQL name").default("pgboss"),
+  /** "on": `next start` also runs the background jobs (lib/jobs/runner.ts); "off" where `npm run worker` runs them instead. */
+  JOBS_IN_APP: z.enum(["on", "off"]).default("on"),
+  /** A raw file no committed test references is deleted once it is this old (the sweeper, lib/jobs/raw-sweep.ts). */
+  RAW_SWEEP_SAFE_AGE_SECONDS: z.coerce.number().int().min(1).default(1800),
+  /** Logs larger than this (kB) are analysed as a queued job the page follows; smaller ones answer with the verdict at once. */
+  ANALYSIS_JOB_MIN_KB: z.coerce.number().int().min(1).default(1024),
+  /** When the rig upkeep reminders go out (cron, UTC). */
+  RIG_REMINDER_CRON: z.string().default("0 12 * * *"),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -7,6 +7,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** Set by the outbox so every try of one message carries the same Message-ID. */
+  messageId?: string;
 }
 
 /**

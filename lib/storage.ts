@@ -8,7 +8,7 @@
  * is really an HTML page is downloaded, never rendered (OWASP ASVS 4.0.3 V12.5.2, V14.4.1).
  */
 import {
-  S3Client, PutObjectCommand, GetObjectCommand, DeleteObjectCommand, HeadBucketCommand,
+  S3Client, PutObjectCommand, GetObjectCommand, DeleteObjectCommand, HeadBucketCommand, ListObjectsV2Command,
 } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "@/lib/env";
@@ -124,6 +124,16 @@ export async function presignedGetUrl(key: string, filename: string, seconds = 3
     }),
     { expiresIn: seconds },
   );
+}
+
+/** Every stored object under a prefix with its last-modified time, a page (up to 1,000) at a time. */
+export async function* listStoredObjects(prefix: string): AsyncGenerator<{ key: string; lastModified: Date }[]> {
+  let token: string | undefined;
+  do {
+    const out = await client().send(new ListObjectsV2Command({ Bucket: env().S3_BUCKET, Prefix: prefix, ContinuationToken: token }));
+    yield (out.Contents ?? []).filter((c) => c.Key && c.LastModified).map((c) => ({ key: c.Key!, lastModified: c.LastModified! }));
+    token = out.IsTruncated ? out.NextContinuationToken : undefined;
+  } while (token);
 }
 
 /** Whether the bucket answers within `timeoutMs` (health checks must answer fast). */

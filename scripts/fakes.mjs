@@ -4,7 +4,7 @@
 import S3rver from "s3rver";
 import { SMTPServer } from "smtp-server";
 import { simpleParser } from "mailparser";
-import { mkdirSync, writeFileSync } from "node:fs";
+import { mkdirSync, renameSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { randomUUID } from "node:crypto";
 
@@ -38,6 +38,7 @@ const smtp = new SMTPServer({
           id,
           receivedAt: new Date().toISOString(),
           sessionId: session.id, // the SMTP connection it came over
+          messageId: mail.messageId ?? "", // the same on every try of one outbox row
           from: mail.from?.text ?? "",
           to: session.envelope.rcptTo.map((r) => r.address),
           subject: mail.subject ?? "",
@@ -45,7 +46,9 @@ const smtp = new SMTPServer({
           html: typeof mail.html === "string" ? mail.html : "",
           attachments: (mail.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, size: a.size })),
         };
-        writeFileSync(join(mailDir, `${id}.json`), JSON.stringify(record, null, 2));
+        // Written aside and renamed: a reader never sees half a message.
+        writeFileSync(join(mailDir, `${id}.json.part`), JSON.stringify(record, null, 2));
+        renameSync(join(mailDir, `${id}.json.part`), join(mailDir, `${id}.json`));
         callback();
       })
       .catch((err) => callback(err));

@@ -98,7 +98,8 @@ stop_pg() {
 start_fakes() {
   mkdir -p "$ROOT/run"
   if [ -f "$ROOT/run/fakes.pid" ] && kill -0 "$(cat "$ROOT/run/fakes.pid")" 2>/dev/null; then return; fi
-  setsid node scripts/fakes.mjs --s3-dir "$ROOT/s3" --s3-port "$S3_PORT" --bucket "$BUCKET" \
+  # s3rver pages a long listing with a DES continuation token: DES is in OpenSSL 3's legacy provider.
+  setsid node --openssl-legacy-provider scripts/fakes.mjs --s3-dir "$ROOT/s3" --s3-port "$S3_PORT" --bucket "$BUCKET" \
     --smtp-port "$SMTP_PORT" --mail-dir "$ROOT/mail" >"$ROOT/fakes.log" 2>&1 &
   echo $! >"$ROOT/run/fakes.pid"
   for _ in $(seq 1 40); do grep -q "smtp catcher" "$ROOT/fakes.log" 2>/dev/null && return; sleep 0.25; done
@@ -131,7 +132,7 @@ MAILBOX_DIR=$ROOT/mail
 ENV
     ;;
   pgdata) echo "$PGDATA" ;;
-  pg-stop) stop_pg ;;
+  pg-stop) if pg_running; then as_pg "$PGBIN/pg_ctl" -D "$PGDATA" -m immediate -w stop >/dev/null; fi ;;
   pg-start) start_pg ;;
   fakes-stop) stop_fakes ;;
   fakes-start) start_fakes ;;

@@ -1,9 +1,9 @@
 #!/usr/bin/env bash
 # `npm test`: the whole suite on its own services (separate database, bucket, ports, data dirs):
 # type-check, lint, unit and integration tests (vitest), then the browser journeys against a
-# production build, the fault tests (scripts/faults.sh: parts stopped, frozen and killed) and a
-# check that no secret reached any log of the run. Stops everything it started; exits non-zero on
-# any failure.
+# production build, the fault tests (scripts/faults.sh: parts stopped, frozen and killed), two
+# production servers over one database with faults (tests/cluster) and a check that no secret
+# reached any log of the run. Stops everything it started; exits non-zero on any failure.
 set -uo pipefail
 cd "$(dirname "$0")/.."
 . scripts/lib.sh
@@ -66,6 +66,12 @@ if ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1; then
       --reporter=default --reporter=json --outputFile.json="$ROOT/journeys.json"
     step "Fault tests (S3 stopped and frozen, PostgreSQL stopped, the server killed)" bash scripts/faults.sh \
       --reporter=default --reporter=json --outputFile.json="$PWD/$ROOT/faults.json"
+    # The journeys' server stops first: the two servers of the next step start their own (ports
+    # $PORT+1 and +2) and run the background jobs between them alone.
+    stop_group "$ROOT/run/next.pid"
+    step "Two servers, one database: a server killed, the mail server and the database down" \
+      ./node_modules/.bin/vitest run --config tests/cluster/vitest.config.ts \
+      --reporter=default --reporter=json --outputFile.json="$ROOT/cluster.json"
   else
     echo "The app did not start; last lines of $ROOT/next.log:"; tail -30 "$ROOT/next.log"
     failed+=("Start the app")
@@ -79,7 +85,7 @@ stop_group "$ROOT/run/next.pid" # its log is complete once it has stopped
 step "No secret in any log of this run" env LOG_SECRETS_FILES="$ROOT/next.log,$ROOT/unit.log,$ROOT/journeys.log" \
   ./node_modules/.bin/vitest run --config tests/secrets/vitest.config.ts
 
-node scripts/test-summary.mjs "$ROOT/unit.json" "$ROOT/journeys.json" "$ROOT/faults.json"
+node scripts/test-summary.mjs "$ROOT/unit.json" "$ROOT/journeys.json" "$ROOT/faults.json" "$ROOT/cluster.json"
 if [ ${#failed[@]} -gt 0 ]; then
   printf 'Failed steps: %s\n' "${failed[*]}"
   exit 1

@@ -10,11 +10,13 @@ import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
 import { db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import { crewForFile, jsonInit } from "./helpers/crew";
+import { jobRunnerForFile } from "./helpers/jobs";
 import { waitForMail } from "./helpers/mailbox";
 import { appRequest, routeParams, type TestMember } from "./helpers/members";
 import { seedTest } from "./helpers/seed-test";
 
 const crew = crewForFile();
+jobRunnerForFile();
 
 async function comment(id: string, as: TestMember, body: string, atSeconds: number | null = null) {
   const res = await commentPost(appRequest(`/api/tests/${id}/comments`, jsonInit(as, { body, atSeconds })), routeParams({ id }));

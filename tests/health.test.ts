@@ -7,7 +7,7 @@ describe("health and migrations", () => {
   it("reports the database and the bucket as reachable", async () => {
     const res = await GET(new Request("http://127.0.0.1/api/health"));
     expect(res.status).toBe(200);
-    expect(await res.json()).toEqual({ ok: true, database: "ok", bucket: "ok", engine: "not started" });
+    expect(await res.json()).toEqual({ ok: true, database: "ok", bucket: "ok", engine: "not started", jobs: "not started" });
   });
 
   it("has every table the migrations create", async () => {

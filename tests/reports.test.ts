@@ -7,6 +7,7 @@ import { POST as emailPost } from "@/app/api/tests/[id]/email-report/route";
 import { GET as eventsGet } from "@/app/api/tests/[id]/events/route";
 import { buildReportModel } from "@/lib/reports/model";
 import { logAxisOf, renderReportPdf } from "@/lib/reports/pdf";
+import { jobRunnerForFile } from "./helpers/jobs";
 import { appRequest, createCrew, createShop, routeParams, type TestMember } from "./helpers/members";
 import { waitForMail } from "./helpers/mailbox";
 import { seedTest, seededSeries } from "./helpers/seed-test";
@@ -14,6 +15,7 @@ import type { Role } from "@/lib/permissions";
 
 let crew: Record<Role, TestMember>;
 let leakId: string;
+jobRunnerForFile();
 beforeAll(async () => {
   crew = await createCrew();
   const org = crew.owner.organizationId;

@@ -15,6 +15,7 @@ import { GET as detailGet } from "@/app/api/tests/[id]/route";
 import { db } from "@/db/client";
 import { setRetestFaultForTests } from "@/lib/review/retest";
 import { crewForFile, jsonInit } from "./helpers/crew";
+import { jobRunnerForFile } from "./helpers/jobs";
 import { waitForMail } from "./helpers/mailbox";
 import { addMember, appRequest, createShop, routeParams, type TestMember } from "./helpers/members";
 import { POST as uploadPost } from "@/app/api/tests/route";
@@ -24,6 +25,7 @@ import { seedTest } from "./helpers/seed-test";
 const PASS = "sample-1-iso-microns.csv"; // a pass per fixtures/samples/EXPECTED.md
 const BAD_TIME = readFileSync(path.resolve(import.meta.dirname, "../fixtures/bad/bad-time.csv"), "utf8");
 const crew = crewForFile();
+jobRunnerForFile();
 
 afterEach(() => setRetestFaultForTests(null));
 

@@ -10,6 +10,9 @@ import { checkTransition, TRANSITIONS } from "@/lib/review/state";
 import { TEST_STATUSES } from "@/db/schema";
 import { appRequest, createShop, routeParams, type TestMember } from "./helpers/members";
 import { jsonInit, crewForFile } from "./helpers/crew";
+import { jobRunnerForFile } from "./helpers/jobs";
+import { sendJob } from "@/lib/jobs/boss";
+import { QUEUES } from "@/lib/jobs/queues";
 import { firstAppLink, waitForMail } from "./helpers/mailbox";
 import { seedTest } from "./helpers/seed-test";
 import { sampleText, uploadRequest } from "./helpers/uploads";
@@ -19,6 +22,7 @@ const post = (id: string, as: TestMember, body: unknown) =>
   reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(as, body)), routeParams({ id }));
 
 const crew = crewForFile();
+jobRunnerForFile();
 
 describe("review state machine (product rule, lib/review/state.ts)", () => {
   it("allows exactly the documented transitions and names the status in every refusal (product rule)", () => {
@@ -153,10 +157,17 @@ describe("automatic routing into the lead's queue (product rule)", () => {
     expect(out.reasons).toEqual(["the technician asked for help"]);
   });
 
-  it("the queue sweeps new failing tests in, oldest first, with a sparkline; technicians get 403 (permission matrix)", async () => {
+  it("the review sweep job moves new failing tests in (reading the queue writes nothing), oldest first, with a sparkline; technicians get 403 (permission matrix)", async () => {
     const shop = await createShop();
     const older = await seedTest(shop, { verdict: "moisture", testedAt: new Date(Date.now() - 3600_000) });
     const newer = await seedTest(shop, { verdict: "leak" });
+    // Stored without the upload's rule (as a script would): a read of the queue leaves them submitted.
+    expect((await (await queueGet(appRequest("/api/review", { as: shop }))).json()).items).toEqual([]);
+    const statusOf = async (id: string) => (await db().select({ s: vacuumTests.status }).from(vacuumTests).where(eq(vacuumTests.id, id)))[0].s;
+    expect(await statusOf(older)).toBe("submitted");
+    // The scheduled sweep (every minute in the app) as one job through the queue.
+    await sendJob(db(), QUEUES.reviewSweep.name, {});
+    await expect.poll(() => statusOf(newer), { timeout: 15_000 }).toBe("waiting_review");
     const res = await queueGet(appRequest("/api/review", { as: shop }));
     expect(res.status).toBe(200);
     const { items } = await res.json();

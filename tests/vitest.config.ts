@@ -6,10 +6,11 @@ export default defineConfig({
   root: path.resolve(import.meta.dirname, ".."),
   test: {
     include: ["tests/**/*.test.ts", "analysis/**/*.test.ts"],
-    exclude: ["tests/journeys/**", "tests/faults/**", "tests/secrets/**", "node_modules/**"],
+    exclude: ["tests/journeys/**", "tests/faults/**", "tests/secrets/**", "tests/cluster/**", "node_modules/**"],
     testTimeout: 120_000,
     hookTimeout: 60_000,
     pool: "forks",
+    setupFiles: ["tests/setup-jobs.ts"],
     // The engine's worker threads run lib/tests/engine-worker.ts through tsx (no Next.js bundle here).
     env: { ENGINE_WORKER_ENTRY: "source" },
   },

@@ -21,18 +21,32 @@ export async function insertOutboxMail(db: Db, params: { mails: NewOutboxMail[] 
   return rows.map((r) => r.id);
 }
 
-/** Ids of unsent rows still under the attempt limit, oldest first (scoped when an organization is given). */
-export async function listUnsentOutboxMailIds(
-  db: Db,
-  params: { ids?: string[]; organizationId?: string; maxAttempts: number; limit: number },
-): Promise<string[]> {
-  const conds = [inArray(mailOutbox.status, ["pending", "failed"]), lt(mailOutbox.attempts, params.maxAttempts)];
-  if (params.ids) {
-    if (!params.ids.length) return [];
-    conds.push(inArray(mailOutbox.id, params.ids));
-  }
-  if (params.organizationId) conds.push(eq(mailOutbox.organizationId, params.organizationId));
-  const rows = await db.select({ id: mailOutbox.id }).from(mailOutbox).where(and(...conds)).orderBy(asc(mailOutbox.createdAt)).limit(params.limit);
+/**
+ * Organizations with unsent rows whose next try is overdue by `before` (a system sweep's first
+ * step; each organization's rows are then read by listOverdueOutboxMailIds).
+ */
+export async function listOrganizationsWithOverdueMail(db: Db, params: { before: Date }): Promise<string[]> {
+  const rows = await db
+    .selectDistinct({ organizationId: mailOutbox.organizationId })
+    .from(mailOutbox)
+    .where(and(inArray(mailOutbox.status, ["pending", "failed"]), lt(sql`coalesce(${mailOutbox.nextAttemptAt}, ${mailOutbox.createdAt})`, params.before)));
+  return rows.map((r) => r.organizationId);
+}
+
+/** The organization's unsent rows whose next try was due before `before`, oldest first. */
+export async function listOverdueOutboxMailIds(db: Db, params: { organizationId: string; before: Date; limit: number }): Promise<string[]> {
+  const rows = await db
+    .select({ id: mailOutbox.id })
+    .from(mailOutbox)
+    .where(
+      and(
+        eq(mailOutbox.organizationId, params.organizationId),
+        inArray(mailOutbox.status, ["pending", "failed"]),
+        lt(sql`coalesce(${mailOutbox.nextAttemptAt}, ${mailOutbox.createdAt})`, params.before),
+      ),
+    )
+    .orderBy(asc(mailOutbox.createdAt))
+    .limit(params.limit);
   return rows.map((r) => r.id);
 }
 
@@ -40,12 +54,12 @@ export async function listUnsentOutboxMailIds(
  * Lock one unsent row for a delivery attempt (inside a transaction) and count the attempt.
  * SKIP LOCKED: a row another worker is sending is left alone, so it is never sent twice at once.
  */
-export async function claimOutboxMailById(db: Db, params: { id: string }): Promise<OutboxRow | null> {
+export async function claimOutboxMailById(db: Db, params: { organizationId: string; id: string }): Promise<OutboxRow | null> {
   // One statement: lock the row if it is unsent and not being sent by another worker, count the attempt.
   const locked = db
     .select({ id: mailOutbox.id })
     .from(mailOutbox)
-    .where(and(eq(mailOutbox.id, params.id), inArray(mailOutbox.status, ["pending", "failed"])))
+    .where(and(eq(mailOutbox.organizationId, params.organizationId), eq(mailOutbox.id, params.id), inArray(mailOutbox.status, ["pending", "failed"])))
     .for("update", { skipLocked: true });
   const [claimed] = await db
     .update(mailOutbox)
@@ -56,11 +70,40 @@ export async function claimOutboxMailById(db: Db, params: { id: string }): Promi
 }
 
 export async function markOutboxMailSent(db: Db, params: { id: string }) {
-  await db.update(mailOutbox).set({ status: "sent", sentAt: new Date(), lastError: null }).where(eq(mailOutbox.id, params.id));
+  await db.update(mailOutbox).set({ status: "sent", sentAt: new Date(), lastError: null, nextAttemptAt: null }).where(eq(mailOutbox.id, params.id));
 }
 
-export async function markOutboxMailFailed(db: Db, params: { id: string; error: string }) {
-  await db.update(mailOutbox).set({ status: "failed", lastError: params.error.slice(0, 500) }).where(eq(mailOutbox.id, params.id));
+/** A failed try: the error, and when the next one is due. */
+export async function markOutboxMailFailed(db: Db, params: { id: string; error: string; nextAttemptAt: Date }) {
+  await db
+    .update(mailOutbox)
+    .set({ status: "failed", lastError: params.error.slice(0, 500), nextAttemptAt: params.nextAttemptAt })
+    .where(eq(mailOutbox.id, params.id));
+}
+
+/** No more automatic tries (the dead-letter state); a person may still send it again. */
+export async function markOutboxMailDead(db: Db, params: { organizationId: string; ids: string[]; error: string }) {
+  if (!params.ids.length) return;
+  await db
+    .update(mailOutbox)
+    .set({ status: "dead", lastError: params.error.slice(0, 500), nextAttemptAt: null })
+    .where(and(eq(mailOutbox.organizationId, params.organizationId), inArray(mailOutbox.id, params.ids), inArray(mailOutbox.status, ["pending", "failed"])));
+}
+
+/**
+ * A person's "send again": the organization's unsent rows (one, or all of them) become pending
+ * with a fresh day of automatic tries. Returns the ids, for the delivery job queued in the same transaction.
+ */
+export async function requeueUnsentOutboxMail(db: Db, params: { organizationId: string; id?: string; limit: number }): Promise<string[]> {
+  const conds = [eq(mailOutbox.organizationId, params.organizationId), inArray(mailOutbox.status, ["pending", "failed", "dead"])];
+  if (params.id) conds.push(eq(mailOutbox.id, params.id));
+  const picked = db.select({ id: mailOutbox.id }).from(mailOutbox).where(and(...conds)).orderBy(asc(mailOutbox.createdAt)).limit(params.limit);
+  const rows = await db
+    .update(mailOutbox)
+    .set({ status: "pending", nextAttemptAt: new Date(), retryUntil: sql`now() + interval '24 hours'` })
+    .where(inArray(mailOutbox.id, picked))
+    .returning({ id: mailOutbox.id });
+  return rows.map((r) => r.id);
 }
 
 /** The organization's outbox, newest first, without bodies. */
@@ -77,6 +120,7 @@ export async function listOutboxMailByOrganization(db: Db, params: { organizatio
       status: mailOutbox.status,
       attempts: mailOutbox.attempts,
       lastError: mailOutbox.lastError,
+      nextAttemptAt: mailOutbox.nextAttemptAt,
       createdAt: mailOutbox.createdAt,
       sentAt: mailOutbox.sentAt,
     })
@@ -93,14 +137,4 @@ export async function getOutboxMailById(db: Db, params: { organizationId: string
     .where(and(eq(mailOutbox.organizationId, params.organizationId), eq(mailOutbox.id, params.id)))
     .limit(1);
   return row ?? null;
-}
-
-/** Whether the organization has this unsent message. */
-export async function hasUnsentOutboxMailById(db: Db, params: { organizationId: string; id: string }): Promise<boolean> {
-  const rows = await db
-    .select({ id: mailOutbox.id })
-    .from(mailOutbox)
-    .where(and(eq(mailOutbox.organizationId, params.organizationId), eq(mailOutbox.id, params.id), inArray(mailOutbox.status, ["pending", "failed"])))
-    .limit(1);
-  return rows.length === 1;
 }

@@ -161,13 +161,25 @@ export async function listReviewQueueByOrganization(db: Db, params: { viewer: Vi
  * Submitted, non-practice tests of the organization whose current analysis is not a pass,
  * misses the profile, or whose technician asked for help: they belong in the review queue.
  */
+/** The rule of the review queue: a submitted, non-practice test that is not a pass, misses its profile or asks for help. */
+const dueForReview = () => [
+  eq(vacuumTests.status, "submitted"),
+  eq(vacuumTests.isPractice, false),
+  sql`(${vacuumTests.helpRequested} or ${analyses.verdict} <> 'pass' or coalesce((${analyses.result}->>'meetsProfile')::boolean, false) = false)`,
+];
+
+/** Organizations with tests due for review (the review sweep's first step; a system job across shops). */
+export async function listOrganizationsWithTestsDueForReview(db: Db): Promise<string[]> {
+  const rows = await db
+    .selectDistinct({ organizationId: vacuumTests.organizationId })
+    .from(vacuumTests)
+    .innerJoin(analyses, and(eq(analyses.id, vacuumTests.currentAnalysisId), eq(analyses.organizationId, vacuumTests.organizationId)))
+    .where(and(...dueForReview()));
+  return rows.map((r) => r.organizationId);
+}
+
 export async function listTestsDueForReviewByOrganization(db: Db, params: { organizationId: string; testId?: string; limit: number }) {
-  const conds = [
-    eq(vacuumTests.organizationId, params.organizationId),
-    eq(vacuumTests.status, "submitted"),
-    eq(vacuumTests.isPractice, false),
-    sql`(${vacuumTests.helpRequested} or ${analyses.verdict} <> 'pass' or coalesce((${analyses.result}->>'meetsProfile')::boolean, false) = false)`,
-  ];
+  const conds = [eq(vacuumTests.organizationId, params.organizationId), ...dueForReview()];
   if (params.testId) conds.push(eq(vacuumTests.id, params.testId));
   return db
     .select({

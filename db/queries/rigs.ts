@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { member, rigEvents, rigItems, rigs, testRigs, user, vacuumTests } from "@/db/schema";
+import { member, rigEvents, rigItems, rigReminderNotices, rigs, testRigs, user, vacuumTests } from "@/db/schema";
 import { canManageAllRigs, canManageOwnRigs } from "@/lib/rigs/access";
 import { visibleTestsWhere, type Viewer } from "./visibility";
 
@@ -182,4 +182,43 @@ export async function getRigByTest(db: Db, params: { viewer: Viewer; testId: str
 export async function isTestVisible(db: Db, params: { viewer: Viewer; testId: string }) {
   const [row] = await db.select({ id: vacuumTests.id }).from(vacuumTests).where(and(eq(vacuumTests.id, params.testId), visibleTestsWhere(params.viewer))).limit(1);
   return Boolean(row);
+}
+
+/** Organizations that keep rigs with items (the reminder job's first step; a system job across shops). */
+export async function listOrganizationsWithRigItems(db: Db): Promise<string[]> {
+  const rows = await db.selectDistinct({ organizationId: rigItems.organizationId }).from(rigItems);
+  return rows.map((r) => r.organizationId);
+}
+
+/** Every rig of an organization with its keeper's e-mail (the reminder job reads them all). */
+export async function listRigsWithKeeperByOrganization(db: Db, params: { organizationId: string }) {
+  return db
+    .select({ id: rigs.id, name: rigs.name, keeperId: rigs.keeperId, keeperEmail: user.email })
+    .from(rigs)
+    .leftJoin(member, and(eq(member.userId, rigs.keeperId), eq(member.organizationId, rigs.organizationId)))
+    .leftJoin(user, eq(user.id, member.userId))
+    .where(eq(rigs.organizationId, params.organizationId))
+    .orderBy(asc(rigs.name));
+}
+
+/** The reminders already e-mailed for a rig, as "itemId code". */
+export async function listRigReminderNoticesByRig(db: Db, params: { organizationId: string; rigId: string }): Promise<Set<string>> {
+  const rows = await db
+    .select({ itemId: rigReminderNotices.itemId, code: rigReminderNotices.code })
+    .from(rigReminderNotices)
+    .where(and(eq(rigReminderNotices.organizationId, params.organizationId), eq(rigReminderNotices.rigId, params.rigId)));
+  return new Set(rows.map((r) => `${r.itemId} ${r.code}`));
+}
+
+/** Record reminders just e-mailed and forget those that no longer stand (so they mail again if they return). */
+export async function updateRigReminderNoticesByRig(
+  db: Db,
+  params: { organizationId: string; rigId: string; added: { itemId: string; code: string }[]; cleared: { itemId: string; code: string }[] },
+): Promise<void> {
+  if (params.added.length)
+    await db.insert(rigReminderNotices).values(params.added.map((a) => ({ organizationId: params.organizationId, rigId: params.rigId, ...a }))).onConflictDoNothing();
+  for (const c of params.cleared)
+    await db
+      .delete(rigReminderNotices)
+      .where(and(eq(rigReminderNotices.organizationId, params.organizationId), eq(rigReminderNotices.itemId, c.itemId), eq(rigReminderNotices.code, c.code)));
 }

@@ -1,4 +1,4 @@
-import { and, desc, eq, gte, lt, lte, or, sql } from "drizzle-orm";
+import { and, desc, eq, gte, inArray, lt, lte, or, sql } from "drizzle-orm";
 import { getTableConfig } from "drizzle-orm/pg-core";
 import type { Db } from "@/db/client";
 import { analyses, findings, idempotencyKeys, mailOutbox, sites, systems, testEvents, uploads, user, vacuumTests, jobs } from "@/db/schema";
@@ -222,4 +222,43 @@ export async function updateTestCustomerNoteById(db: Db, params: { organizationI
     .where(and(eq(vacuumTests.organizationId, params.organizationId), eq(vacuumTests.id, params.testId)))
     .returning({ id: vacuumTests.id });
   return rows.length === 1;
+}
+
+/** Of these storage keys of one organization, the ones a committed upload row references. */
+export async function listReferencedObjectKeysByOrganization(db: Db, params: { organizationId: string; keys: string[] }): Promise<Set<string>> {
+  if (!params.keys.length) return new Set();
+  const rows = await db
+    .select({ key: uploads.objectKey })
+    .from(uploads)
+    .where(and(eq(uploads.organizationId, params.organizationId), inArray(uploads.objectKey, params.keys)));
+  return new Set(rows.map((r) => r.key));
+}
+
+/** The rule of a profile re-check: non-practice tests whose current analysis used a profile of one of these names. */
+const currentProfileIs = (organizationId: string, profileNames: string[]) =>
+  and(
+    eq(vacuumTests.organizationId, organizationId),
+    eq(vacuumTests.isPractice, false),
+    inArray(sql<string>`${analyses.options}->'profile'->>'name'`, profileNames),
+  );
+
+export async function countTestsByCurrentProfileName(db: Db, params: { organizationId: string; profileNames: string[] }): Promise<number> {
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(vacuumTests)
+    .innerJoin(analyses, and(eq(analyses.id, vacuumTests.currentAnalysisId), eq(analyses.organizationId, vacuumTests.organizationId)))
+    .where(currentProfileIs(params.organizationId, params.profileNames));
+  return row?.n ?? 0;
+}
+
+/** The next tests of a profile re-check after `afterId`, in id order (a chunked job carries on from its cursor). */
+export async function listTestIdsByCurrentProfileName(db: Db, params: { organizationId: string; profileNames: string[]; afterId: string | null; limit: number }) {
+  const rows = await db
+    .select({ id: vacuumTests.id })
+    .from(vacuumTests)
+    .innerJoin(analyses, and(eq(analyses.id, vacuumTests.currentAnalysisId), eq(analyses.organizationId, vacuumTests.organizationId)))
+    .where(and(currentProfileIs(params.organizationId, params.profileNames), params.afterId ? sql`${vacuumTests.id} > ${params.afterId}` : undefined))
+    .orderBy(vacuumTests.id)
+    .limit(params.limit);
+  return rows.map((r) => r.id);
 }

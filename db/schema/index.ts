@@ -7,3 +7,4 @@ export * from "./pressure";
 export * from "./casebook";
 export * from "./settings";
 export * from "./security";
+export * from "./tasks";

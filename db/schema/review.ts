@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { pgTable, text, timestamp, uuid, real, integer, index, uniqueIndex } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
 import { TEST_STATUSES, vacuumTests } from "./tests";
@@ -52,7 +53,8 @@ export const testComments = pgTable(
   (t) => [index("test_comments_test_idx").on(t.organizationId, t.testId, t.createdAt)],
 );
 
-export const MAIL_STATUSES = ["pending", "sent", "failed"] as const;
+/** "dead": Riseline stopped trying (the address was refused, or a day of tries went by); a person may send it again. */
+export const MAIL_STATUSES = ["pending", "sent", "failed", "dead"] as const;
 export type MailStatus = (typeof MAIL_STATUSES)[number];
 
 /** Outgoing e-mail, written in the same transaction as the change it announces; sent after commit. */
@@ -71,6 +73,10 @@ export const mailOutbox = pgTable(
     status: text("status", { enum: MAIL_STATUSES }).default("pending").notNull(),
     attempts: integer("attempts").default(0).notNull(),
     lastError: text("last_error"),
+    /** When the delivery job tries again after a failure (null: not waiting for a retry). */
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }),
+    /** Automatic tries stop after this (a day after it was queued, or after a person sent it again). */
+    retryUntil: timestamp("retry_until", { withTimezone: true }).default(sql`now() + interval '24 hours'`).notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
     sentAt: timestamp("sent_at", { withTimezone: true }),
   },

@@ -88,3 +88,19 @@ export const testRigs = pgTable(
   },
   (t) => [primaryKey({ columns: [t.testId] }), index("test_rigs_rig_idx").on(t.rigId)],
 );
+
+/**
+ * Rig reminders already e-mailed: one row per item and reminder while the reminder stands, so the
+ * daily job mails a reminder once when it comes up, and again only if it clears and comes back.
+ */
+export const rigReminderNotices = pgTable(
+  "rig_reminder_notices",
+  {
+    organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
+    rigId: uuid("rig_id").notNull().references(() => rigs.id, { onDelete: "cascade" }),
+    itemId: uuid("item_id").notNull().references(() => rigItems.id, { onDelete: "cascade" }),
+    code: text("code").notNull(),
+    notifiedAt: timestamp("notified_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.itemId, t.code] }), index("rig_reminder_notices_rig_idx").on(t.organizationId, t.rigId)],
+);

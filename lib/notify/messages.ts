@@ -110,3 +110,13 @@ export function reportMail(
     ],
   });
 }
+
+/** To a rig's keeper (or the leads when nobody keeps it): upkeep reminders that just came up. */
+export function rigRemindersMail(to: string, rig: { id: string; name: string }, reminders: { title: string; message: string }[]): OutgoingMail {
+  return composeMail({
+    to,
+    subject: reminders.length === 1 ? `Rig upkeep: ${reminders[0].title}` : `Rig upkeep: ${reminders.length} reminders for ${rig.name}`,
+    paragraphs: [`Upkeep for the rig "${rig.name}":`, ...reminders.map((r) => `${r.title}. ${r.message}`), "Log the work on the rig's page when it is done."],
+    link: { label: "Open the rig", url: new URL(`/tools/rigs/${rig.id}`, env().BETTER_AUTH_URL).toString() },
+  });
+}

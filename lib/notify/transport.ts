@@ -5,7 +5,7 @@
 import type { Attachment } from "nodemailer/lib/mailer";
 import { sendMail, type OutgoingMail } from "@/lib/mail";
 
-export type MailWithAttachments = OutgoingMail & { attachments?: Pick<Attachment, "filename" | "content" | "contentType">[] };
+export type MailWithAttachments = OutgoingMail & { messageId?: string; attachments?: Pick<Attachment, "filename" | "content" | "contentType">[] };
 export type MailSender = (mail: MailWithAttachments) => Promise<void>;
 
 const g = globalThis as unknown as { rlMailSender?: MailSender | null };

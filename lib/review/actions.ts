@@ -1,7 +1,7 @@
 /**
  * Review actions on one test: check visibility and role, lock the test, check the transition,
- * change the status, write the audit event and queue the e-mails, all in one transaction; then
- * deliver the e-mails. An illegal transition is a 409 with the state machine's words.
+ * change the status, write the audit event and queue the e-mails with their delivery job, all in
+ * one transaction. An illegal transition is a 409 with the state machine's words.
  */
 import type { Database, Tx } from "@/db/client";
 import {
@@ -13,7 +13,7 @@ import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
 import { requireVisibleTest } from "@/lib/tests/read";
 import { reviewRequestedMail, sentBackMail, signedOffMail, type TestSummary } from "@/lib/notify/messages";
-import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import { queueMail } from "@/lib/notify/outbox";
 import type { OutgoingMail } from "@/lib/mail";
 import { ACTION_PERMISSION, NOTE_REQUIRED, checkTransition, type ReviewAction } from "./state";
 
@@ -77,6 +77,5 @@ export async function applyReviewAction(
     const mailIds = await queueMail(tx, mails.map((m) => ({ ...m, organizationId: actor.organizationId, testId })));
     return { testId, fromStatus: locked.status, status: check.to, helpRequested, eventId: event.id, mailIds };
   });
-  await deliverMailSoon(db, outcome.mailIds);
   return outcome;
 }

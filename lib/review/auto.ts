@@ -12,7 +12,7 @@ import {
   getUserEmailById, insertTestEvent, listReviewerEmailsByOrganization, listTestsDueForReviewByOrganization, updateTestStatusById, type NewTestEvent,
 } from "@/db/queries/review";
 import { reviewRequestedMail } from "@/lib/notify/messages";
-import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import { queueMail } from "@/lib/notify/outbox";
 import { verdictLabel } from "@/lib/reports/words";
 
 export interface RoutedTest {
@@ -106,17 +106,16 @@ async function namesForMail(tx: Db, organizationId: string, actorId: string | nu
 
 /**
  * Call after a new test (and its first analysis) is committed: applies the rule in its own
- * transaction and sends the leads' e-mail. Safe to call twice. Never throws for mail trouble.
+ * transaction, with the leads' e-mail and its delivery job. Safe to call twice.
  */
 export async function routeNewTestToReview(db: Database, params: { organizationId: string; testId: string; actorId: string | null }): Promise<RoutedTest> {
-  const out = await db.transaction((tx) => queueNewTestForReview(tx, params));
-  await deliverMailSoon(db, out.mailIds);
-  return out;
+  return db.transaction((tx) => queueNewTestForReview(tx, params));
 }
 
 /**
- * The same rule over every submitted test of an organization that should be in the queue
- * (the review queue runs it when it loads, so a test stored by any path is never missed).
+ * The same rule over every submitted test of an organization that should be in the queue. The
+ * review sweep job runs it every minute (lib/review/sweep.ts), so a test stored by any path is
+ * never missed.
  */
 export async function sweepNewTestsIntoReview(db: Database, params: { organizationId: string; limit?: number }): Promise<number> {
   const due = await listTestsDueForReviewByOrganization(db, { organizationId: params.organizationId, limit: params.limit ?? 50 });

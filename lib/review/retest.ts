@@ -8,7 +8,7 @@
  *  - The transaction failing → the stored object is deleted again, 503.
  *  - In the transaction: the new upload row, analysis version n + 1 made current (earlier versions
  *    stay in the history), sent_back → waiting_review, the audit event "retest_uploaded" and the
- *    leads' e-mail in the outbox; the e-mail is delivered after commit.
+ *    leads' e-mail in the outbox with its delivery job.
  *  - An Idempotency-Key the same person already used for this same re-test answers with the same
  *    analysis; used for a different request it is a 422 (lib/tests/idempotency.ts); two identical
  *    concurrent requests race on the idempotency_keys primary key, the loser rolls back and
@@ -27,7 +27,7 @@ import type { TestStatus } from "@/db/schema";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { retestUploadedMail } from "@/lib/notify/messages";
-import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import { queueMail } from "@/lib/notify/outbox";
 import { can } from "@/lib/permissions";
 import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "@/lib/tests/engine-pool";
@@ -167,7 +167,5 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
     },
     input.signal,
   );
-  // After commit: the leads' e-mail; a failure stays in the outbox for resend and never undoes the re-test.
-  await deliverMailSoon(db, outcome.mailIds);
   return outcome;
 }

@@ -5,7 +5,8 @@
  * second one), and the key with other overrides is a 422 (lib/tests/idempotency.ts).
  */
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
-import type { Database } from "@/db/client";
+import type { Database, Tx } from "@/db/client";
+import type { EngineRun } from "./engine";
 import { getAnalysisById, getNextAnalysisVersionByTest, insertAnalysis } from "@/db/queries/analyses";
 import { getIdempotencyKeyByKey, getUploadByTest, insertIdempotencyKey, lockTestById, updateTestCurrentAnalysis } from "@/db/queries/tests";
 import type { Viewer } from "@/db/queries/visibility";
@@ -75,34 +76,15 @@ export async function reanalyseTest(
     holdWindow: input.holdWindow ?? base.holdWindow,
   });
 
-  let bytes: Uint8Array;
-  try {
-    bytes = await getObjectBytes(upload.objectKey);
-  } catch (err) {
-    log.error("raw log not readable", { objectKey: upload.objectKey, err: describeError(err) });
-    throw new AppError("storage_unavailable", "File storage is not answering; the analysis was not changed. Please try again.");
-  }
-  const run = await analyseOffThread(decodeLogText(bytes), options); // LogError → 422 naming the option
+  const run = await analyseOffThread(await readStoredLogText(upload.objectKey), options); // LogError → 422 naming the option
 
   const analysisId = randomUUID();
   const saving = db.transaction(async (tx) => {
-    if (!(await lockTestById(tx, { organizationId: org, testId }))) throw new AppError("not_found", "No such test.");
-    const version = await getNextAnalysisVersionByTest(tx, { organizationId: org, testId });
-    const saved = await insertAnalysis(tx, {
-      id: analysisId,
-      organizationId: org,
-      testId,
-      version,
-      options,
-      result: run.result,
-      series: run.series,
-      reason: input.reason ?? null,
-      createdById: viewer.userId,
+    const saved = await saveNewAnalysis(tx, { id: analysisId, organizationId: org, testId, options, run, reason: input.reason ?? null, createdById: viewer.userId }, async () => {
+      // A concurrent twin with the same key waits on this row, then finds it taken and rolls back.
+      if (idempotencyKey && !(await insertIdempotencyKey(tx, { ...keyOf, testId, analysisId, requestFingerprint: fingerprint }))) throw new KeyTaken();
     });
-    // A concurrent twin with the same key waits on this row, then finds it taken and rolls back.
-    if (idempotencyKey && !(await insertIdempotencyKey(tx, { ...keyOf, testId, analysisId, requestFingerprint: fingerprint }))) throw new KeyTaken();
-    await updateTestCurrentAnalysis(tx, { organizationId: org, testId, analysisId: saved.id, verdict: run.result.verdict });
-    return { analysis: run.result, version, analysisId: saved.id, created: true };
+    return { ...saved, created: true };
   });
   return saving.catch(async (err: unknown) => {
     if (!(err instanceof KeyTaken)) throw err;
@@ -110,4 +92,44 @@ export async function reanalyseTest(
     if (!spent) throw new AppError("conflict", "The same re-analysis is being saved by another request; try again.");
     return replay(db, org, testId, spent, fingerprint);
   });
+}
+
+/** The stored raw log's text; storage away → 503 and nothing changes. */
+export async function readStoredLogText(objectKey: string): Promise<string> {
+  let bytes: Uint8Array;
+  try {
+    bytes = await getObjectBytes(objectKey);
+  } catch (err) {
+    log.error("raw log not readable", { objectKey, err: describeError(err) });
+    throw new AppError("storage_unavailable", "File storage is not answering; the analysis was not changed. Please try again.");
+  }
+  return decodeLogText(bytes);
+}
+
+/**
+ * Inside a transaction: store a run as the test's next analysis version and make it current.
+ * `beforeCurrent` runs after the version is written and before the test points at it (the
+ * re-analysis spends its Idempotency-Key there).
+ */
+export async function saveNewAnalysis(
+  tx: Tx,
+  p: { id?: string; organizationId: string; testId: string; options: AnalyzeOptions; run: EngineRun; reason: string | null; createdById: string },
+  beforeCurrent?: () => Promise<void>,
+): Promise<{ analysis: AnalysisResult; version: number; analysisId: string }> {
+  if (!(await lockTestById(tx, { organizationId: p.organizationId, testId: p.testId }))) throw new AppError("not_found", "No such test.");
+  const version = await getNextAnalysisVersionByTest(tx, { organizationId: p.organizationId, testId: p.testId });
+  const saved = await insertAnalysis(tx, {
+    ...(p.id ? { id: p.id } : {}),
+    organizationId: p.organizationId,
+    testId: p.testId,
+    version,
+    options: p.options,
+    result: p.run.result,
+    series: p.run.series,
+    reason: p.reason,
+    createdById: p.createdById,
+  });
+  await beforeCurrent?.();
+  await updateTestCurrentAnalysis(tx, { organizationId: p.organizationId, testId: p.testId, analysisId: saved.id, verdict: p.run.result.verdict });
+  return { analysis: p.run.result, version, analysisId: saved.id };
 }

@@ -15,6 +15,10 @@
  *  - A worker that dies or overruns ENGINE_TIMEOUT_MS fails only its own log with a clear error
  *    and is replaced; the others carry on. If workers keep failing without finishing a single
  *    log (a broken deployment), the pool gives up and analyses inline rather than fail uploads.
+ *  - Background work (a queued large log, a bulk re-analysis) always goes to a worker, never the
+ *    request thread, and waits behind the logs of requests in progress.
+ *  - One pool per process, kept on globalThis: Next.js bundles the routes and the job runner
+ *    (instrumentation) apart, and both use it.
  */
 import { availableParallelism } from "node:os";
 import path from "node:path";
@@ -29,6 +33,7 @@ import type { EngineReady, EngineReply, EngineRequest } from "./engine-worker";
 
 interface Job {
   request: EngineRequest;
+  background: boolean;
   resolve: (run: EngineRun) => void;
   reject: (err: unknown) => void;
 }
@@ -41,12 +46,16 @@ interface Slot {
   timer: NodeJS.Timeout | null;
 }
 
-let slots: Slot[] | null = null;
-const waiting: Job[] = [];
-let nextId = 1;
-/** Worker failures since a worker last finished a log; at MAX_FAILURES_IN_A_ROW the pool goes inline. */
-let failuresInARow = 0;
-let inlineOnly = false;
+interface PoolState {
+  slots: Slot[] | null;
+  waiting: Job[];
+  nextId: number;
+  /** Worker failures since a worker last finished a log; at MAX_FAILURES_IN_A_ROW the pool goes inline. */
+  failuresInARow: number;
+  inlineOnly: boolean;
+}
+const g = globalThis as unknown as { rlEnginePool?: PoolState };
+const state: PoolState = (g.rlEnginePool ??= { slots: null, waiting: [], nextId: 1, failuresInARow: 0, inlineOnly: false });
 const MAX_FAILURES_IN_A_ROW = 5;
 
 let spawnOverride: (() => Worker) | null = null;
@@ -103,7 +112,7 @@ function retire(worker: Worker): Promise<unknown> {
 function settle(slot: Slot, reply: EngineReply): void {
   const job = slot.job;
   if (!job || job.request.id !== reply.id) return;
-  failuresInARow = 0;
+  state.failuresInARow = 0;
   finish(slot);
   if (reply.ok) job.resolve(reply.run);
   else if (reply.logError) {
@@ -129,20 +138,20 @@ function replace(slot: Slot, why: string): void {
   const neverLoaded = !slot.ready && why !== "timed out";
   retire(slot.worker);
   log.error("engine worker replaced", { why });
-  if (++failuresInARow >= MAX_FAILURES_IN_A_ROW && !inlineOnly) {
-    inlineOnly = true;
+  if (++state.failuresInARow >= MAX_FAILURES_IN_A_ROW && !state.inlineOnly) {
+    state.inlineOnly = true;
     log.error("engine workers keep failing; analysing on the request thread from now on", { why });
   }
   if (job && neverLoaded) runInline(job.request.text, job.request.options).then(job.resolve, job.reject);
   else if (job) job.reject(new AppError("analysis_unavailable"));
-  if (inlineOnly) {
+  if (state.inlineOnly) {
     drainInline();
     return;
   }
   try {
     attach(slot, spawnWorker());
   } catch (err) {
-    inlineOnly = true;
+    state.inlineOnly = true;
     log.error("engine worker cannot be replaced; analysing on the request thread", { err: String(err) });
     drainInline();
     return;
@@ -168,24 +177,24 @@ function attach(slot: Slot, worker: Worker): void {
 
 /** The pool, started on first use; null when workers cannot be started here (then: inline). */
 function pool(): Slot[] | null {
-  if (slots) return slots;
+  if (state.slots) return state.slots;
   try {
-    slots = Array.from({ length: engineWorkerCount() }, () => {
+    state.slots = Array.from({ length: engineWorkerCount() }, () => {
       const slot: Slot = { worker: null as unknown as Worker, ready: false, job: null, timer: null };
       attach(slot, spawnWorker());
       return slot;
     });
   } catch (err) {
-    inlineOnly = true;
+    state.inlineOnly = true;
     log.error("engine workers cannot start here; analysing on the request thread", { err: String(err) });
     return null;
   }
-  return slots;
+  return state.slots;
 }
 
 /** After the pool gave up: every waiting log is analysed on this thread. */
 function drainInline(): void {
-  for (const job of waiting.splice(0)) runInline(job.request.text, job.request.options).then(job.resolve, job.reject);
+  for (const job of state.waiting.splice(0)) runInline(job.request.text, job.request.options).then(job.resolve, job.reject);
 }
 
 function runInline(text: string, options: AnalyzeOptions): Promise<EngineRun> {
@@ -193,10 +202,10 @@ function runInline(text: string, options: AnalyzeOptions): Promise<EngineRun> {
 }
 
 function pump(): void {
-  if (!slots) return;
-  for (const slot of slots) {
-    if (slot.job || waiting.length === 0) continue;
-    const job = waiting.shift()!;
+  if (!state.slots) return;
+  for (const slot of state.slots) {
+    if (slot.job || state.waiting.length === 0) continue;
+    const job = state.waiting.shift()!;
     slot.job = job;
     slot.worker.ref(); // keep the process alive only while a log is being analysed
     slot.timer = setTimeout(() => replace(slot, "timed out"), timeoutOverrideMs ?? env().ENGINE_TIMEOUT_MS);
@@ -210,29 +219,36 @@ function pump(): void {
  * "inline" when the pool is off (ENGINE_WORKERS=0) or gave up.
  */
 export function engineMode(): "workers" | "starting" | "not started" | "inline" {
-  if (inlineOnly || engineWorkerCount() === 0) return "inline";
-  if (!slots) return "not started";
-  return slots.some((s) => s.ready) ? "workers" : "starting";
+  if (state.inlineOnly || engineWorkerCount() === 0) return "inline";
+  if (!state.slots) return "not started";
+  return state.slots.some((s) => s.ready) ? "workers" : "starting";
 }
 
 /**
  * Analyse a log's text on the pool (inline when it is small, or when ENGINE_WORKERS=0). Same
  * contract as runAnalysis: resolves with the run, rejects with LogError for an unreadable log.
+ * `background`: a job's analysis, which goes to a worker whatever its size and waits behind the
+ * logs of requests (inline only when there are no workers at all).
  */
-export function analyseOffThread(text: string, options: AnalyzeOptions): Promise<EngineRun> {
-  if (inlineOnly || engineWorkerCount() === 0 || smallEnoughForInline(text)) return runInline(text, options);
+export function analyseOffThread(text: string, options: AnalyzeOptions, opts: { background?: boolean } = {}): Promise<EngineRun> {
+  const background = opts.background ?? false;
+  if (state.inlineOnly || engineWorkerCount() === 0 || (!background && smallEnoughForInline(text))) return runInline(text, options);
   if (!pool()) return runInline(text, options);
   return new Promise<EngineRun>((resolve, reject) => {
-    waiting.push({ request: { id: nextId++, text, options }, resolve, reject });
+    const job: Job = { request: { id: state.nextId++, text, options }, background, resolve, reject };
+    // A request's log goes ahead of every background one still waiting.
+    const firstBackground = background ? -1 : state.waiting.findIndex((j) => j.background);
+    if (firstBackground < 0) state.waiting.push(job);
+    else state.waiting.splice(firstBackground, 0, job);
     pump();
   });
 }
 
 /** Stop every worker (tests and shutdown). The next analysis starts a fresh pool. */
 export async function closeEnginePool(): Promise<void> {
-  const all = slots ?? [];
-  slots = null;
-  failuresInARow = 0;
-  inlineOnly = false;
+  const all = state.slots ?? [];
+  state.slots = null;
+  state.failuresInARow = 0;
+  state.inlineOnly = false;
   await Promise.all(all.map((s) => retire(s.worker)));
 }

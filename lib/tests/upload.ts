@@ -7,17 +7,21 @@
  *  - Storage failing → 503, no rows written.
  *  - The transaction failing → the stored object is deleted again (compensation), 503.
  *  - An Idempotency-Key the same person already used for the same request returns the first
- *    test; used for a different request (another file or fields) it is a 422 and nothing is saved
- *    (lib/tests/idempotency.ts). Two identical concurrent requests race on the idempotency_keys
- *    primary key inside the transaction, the loser rolls back, deletes its object and returns the
- *    winner's test.
+ *    test (or the queued task); used for a different request (another file or fields) it is a 422
+ *    and nothing is saved (lib/tests/idempotency.ts). Two identical concurrent requests race on the
+ *    idempotency_keys primary key inside the transaction, the loser rolls back, deletes its object
+ *    and returns the winner's test.
  *  - newSiteName, newSystemName and newJob create records (a site, a system, a visit) inside that
  *    same transaction, so a retry never makes a second one and a failed upload leaves none behind.
  *    They need records.manage, like POST /api/sites (403 naming the field before anything runs).
  *  - The request's signal aborting (the client gone) before the commit leaves nothing behind.
+ *  - A log larger than ANALYSIS_JOB_MIN_KB is stored and handed to a queued job instead
+ *    (./queued-upload.ts): the answer is the task to follow, and the job commits the test with
+ *    commitNewTest below, exactly as a small upload does.
  */
 import { entersReviewOnUpload, reviewRowsOfNewTest } from "@/lib/review/auto";
-import { deliverWhenQuiet, uploadInProgress } from "@/lib/notify/when-quiet";
+import { uploadInProgress } from "@/lib/jobs/local-load";
+import { enqueueMailDelivery } from "@/lib/notify/outbox";
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
@@ -32,8 +36,13 @@ import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
 import { analyseOffThread } from "./engine-pool";
 import { sha256Hex } from "./files";
 import { KeyTaken, storeThenCommit } from "./stored-commit";
+import { getTaskByIdempotencyKey } from "@/db/queries/tasks";
+import { queueLogAnalysis, queuedReplayOf } from "./queued-upload";
 import { compactOptions, importOptionsOf, resolveProfile, volumeOf } from "./options";
 import type { TestMetadata } from "./schemas";
+import type { EngineRun } from "./engine";
+import type { TaskRow } from "@/db/queries/tasks";
+import { env } from "@/lib/env";
 
 export interface Uploader {
   organizationId: string;
@@ -68,6 +77,22 @@ export interface UploadOutcome {
   result?: AnalysisResult;
   /** The new test with its names, as written (absent when a name was not read here). */
   row?: TestDetailRow;
+  /** A large log: the queued task that will analyse it and make the test (`testId` is the id it will have). */
+  task?: TaskRow;
+}
+
+/** A raw log as stored, with what the upload said about it (all a test needs besides the analysis). */
+export interface StoredLog {
+  metadata: TestMetadata;
+  source: "file" | "typed";
+  filename: string;
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  objectKey: string;
+  idempotencyKey?: string;
+  /** The request's fingerprint, stored with its Idempotency-Key. */
+  fingerprint?: string;
 }
 
 type FaultHook = (tx: Tx, ctx: { testId: string; objectKey: string }) => Promise<void>;
@@ -233,9 +258,12 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   if (input.idempotencyKey) {
     const seen = await getIdempotencyKeyByKey(db, keyOf);
     if (seen) return replayOf(seen, fingerprint);
+    const queued = await getTaskByIdempotencyKey(db, keyOf);
+    if (queued) return queuedReplayOf(queued, fingerprint);
   }
   assertMayCreateRecords(who, input.metadata);
   const options = await uploadOptionsOf(db, org, input);
+  if (input.text.length > env().ANALYSIS_JOB_MIN_KB * 1024) return queueLogAnalysis(db, who, input, options, { sha256, fingerprint });
   const run = await analyseOffThread(input.text, options); // LogError → 422 before anything is stored
   assertStorableRun(run); // numbers no column can hold → 422, not a failed insert
 
@@ -244,53 +272,63 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   const objectKey = rawLogKey(org, testId, input.filename);
   const object = { key: objectKey, bytes: input.bytes, filename: input.filename, sha256 };
 
-  const { outcome, mailIds } = await storeThenCommit<{ outcome: UploadOutcome; mailIds: string[] }>(
+  const log: StoredLog = {
+    metadata: input.metadata, source: input.source, filename: input.filename, contentType: input.contentType,
+    sizeBytes: input.bytes.byteLength, sha256, objectKey, idempotencyKey: input.idempotencyKey, fingerprint,
+  };
+  return storeThenCommit<UploadOutcome>(
     db,
     object,
     "raw log",
-    async (tx) => {
-      const testedAt = testedAtOf(input.metadata, run.startedAt);
-      const { siteId, systemId, jobId, names } = await checkRecords(tx, who, input.metadata, testedAt);
-      // Not a pass, misses the profile or help asked: the test is inserted straight into the
-      // lead's queue, and its audit event and the leads' e-mail are queued in the same commit.
-      const title = titleOf(input.metadata, input.filename, input.source);
-      const known = {
-        verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: input.metadata.isPractice,
-        title, technicianName: who.name, siteName: names.siteName,
-      };
-      const review = entersReviewOnUpload(known)
-        ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known })
-        : null;
-      const rows = newTestRows({ who, input, testId, analysisId, objectKey, sha256, fingerprint, siteId, systemId, jobId, title, options, result: run.result, series: run.series, testedAt, review });
-      const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
-        throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
-      });
-      if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey });
-      const mailIds = rows.mails.map((m) => m.id);
-      return { outcome: { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) }, mailIds };
-    },
+    (tx) => commitNewTest(tx, who, log, { testId, analysisId, options, run }),
     async () => {
       // Lost the race for the key: answer with the winner's test.
       const seen = await getIdempotencyKeyByKey(db, keyOf);
-      if (seen) return { outcome: replayOf(seen, fingerprint), mailIds: [] };
+      if (seen) return replayOf(seen, fingerprint);
       throw new AppError("conflict", "The same upload is being saved by another request; try again.");
     },
     input.signal,
   );
-  // The leads' e-mail goes after commit, at the next quiet moment: it never holds up a verdict.
-  deliverWhenQuiet(db, mailIds);
-  return outcome;
+}
+
+/**
+ * Inside the caller's transaction: the new test of an analysed, stored log with everything that
+ * goes with it (records, review rule, audit event, the leads' e-mail and its delivery job, the
+ * Idempotency-Key). A key already taken throws KeyTaken.
+ */
+export async function commitNewTest(
+  tx: Tx,
+  who: Uploader,
+  log: StoredLog,
+  a: { testId: string; analysisId: string; options: AnalyzeOptions; run: EngineRun },
+): Promise<UploadOutcome> {
+  const org = who.organizationId;
+  const { testId, run } = a;
+  const testedAt = testedAtOf(log.metadata, run.startedAt);
+  const { siteId, systemId, jobId, names } = await checkRecords(tx, who, log.metadata, testedAt);
+  // Not a pass, misses the profile or help asked: the test is inserted straight into the
+  // lead's queue, and its audit event and the leads' e-mail are queued in the same commit.
+  const title = titleOf(log.metadata, log.filename, log.source);
+  const known = {
+    verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: log.metadata.isPractice,
+    title, technicianName: who.name, siteName: names.siteName,
+  };
+  const review = entersReviewOnUpload(known) ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known }) : null;
+  const rows = newTestRows({ who, log, testId, analysisId: a.analysisId, siteId, systemId, jobId, title, options: a.options, result: run.result, series: run.series, testedAt, review });
+  const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
+    throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
+  });
+  // The leads' e-mail is delivered by a job that commits with the test (it never holds up the verdict).
+  await enqueueMailDelivery(tx, { organizationId: org, ids: rows.mails.map((m) => m.id) });
+  if (faultBeforeCommit) await faultBeforeCommit(tx, { testId, objectKey: log.objectKey });
+  return { testId, created: true, result: run.result, row: answerRowOf(inserted, who, names) };
 }
 
 interface NewTestArgs {
   who: Uploader;
-  input: UploadInput;
+  log: StoredLog;
   testId: string;
   analysisId: string;
-  objectKey: string;
-  sha256: string;
-  /** The request's fingerprint, stored with its Idempotency-Key. */
-  fingerprint: string;
   siteId: string | null;
   systemId: string | null;
   jobId: string | null;
@@ -305,7 +343,7 @@ interface NewTestArgs {
 
 /** Every row of a new test, for insertNewTestTogether. */
 function newTestRows(a: NewTestArgs): NewTestRows {
-  const m = a.input.metadata;
+  const m = a.log.metadata;
   const org = a.who.organizationId;
   const analysis = analysisRowsOf({
     id: a.analysisId, organizationId: org, testId: a.testId, version: 1, options: a.options, result: a.result, series: a.series, createdById: a.who.userId,
@@ -319,7 +357,7 @@ function newTestRows(a: NewTestArgs): NewTestRows {
       siteId: a.siteId,
       systemId: a.systemId,
       title: a.title,
-      source: a.input.source,
+      source: a.log.source,
       refrigerant: m.refrigerant ?? null,
       lineSetFeet: m.lineSetFeet ?? null,
       liquidOd: m.liquidOd ?? null,
@@ -338,18 +376,18 @@ function newTestRows(a: NewTestArgs): NewTestRows {
     upload: {
       organizationId: org,
       testId: a.testId,
-      objectKey: a.objectKey,
-      sha256: a.sha256,
-      sizeBytes: a.input.bytes.byteLength,
-      filename: a.input.filename,
+      objectKey: a.log.objectKey,
+      sha256: a.log.sha256,
+      sizeBytes: a.log.sizeBytes,
+      filename: a.log.filename,
       contentType: RAW_LOG_CONTENT_TYPE, // stored and served as this, whatever the browser claimed
     },
     analysis: analysis.analysis,
     findings: analysis.findings,
     events: a.review ? [a.review.event] : [],
     mails: a.review?.mails ?? [],
-    idempotencyKey: a.input.idempotencyKey
-      ? { organizationId: org, key: a.input.idempotencyKey, userId: a.who.userId, testId: a.testId, requestFingerprint: a.fingerprint }
+    idempotencyKey: a.log.idempotencyKey
+      ? { organizationId: org, key: a.log.idempotencyKey, userId: a.who.userId, testId: a.testId, requestFingerprint: a.log.fingerprint ?? null }
       : null,
   };
 }

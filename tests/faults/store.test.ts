@@ -2,7 +2,7 @@
  * The S3 store stopped, then frozen (SIGSTOP: connections are accepted and nothing answers).
  * Every upload answers 503 within seconds instead of hanging; health says which part is down; an
  * upload abandoned by its timeout is never committed when the store wakes, and what the store
- * writes late is deleted again; once the store is back, uploads work. The SMTP catcher runs in the
+ * writes late is deleted again (by queued jobs, which this file's own runner takes); once the store is back, uploads work. The SMTP catcher runs in the
  * same process, so a frozen store is a frozen mail server too: mail waits in the outbox.
  * OWASP ASVS 4.0.3 V11.1.7 and V1.14 (resilience: calls to other services have timeouts).
  */
@@ -13,12 +13,15 @@ import { POST as emailReport } from "@/app/api/tests/[id]/email-report/route";
 import { POST as testsPost } from "@/app/api/tests/route";
 import { env } from "@/lib/env";
 import { closeMail } from "@/lib/mail";
+import { jobRunnerForFile } from "../helpers/jobs";
 import { appRequest, createShop, routeParams, type TestMember } from "../helpers/members";
 import { countRows, sampleText, uploadRequest } from "../helpers/uploads";
 import { consistencyOf, fakes, timed, until } from "./parts";
 
 const SAMPLE = "sample-1-iso-microns.csv";
 let owner: TestMember;
+// The deletes of what the frozen store writes late are jobs (lib/jobs/raw-delete.ts): this file runs them.
+jobRunnerForFile();
 
 beforeAll(async () => {
   owner = await createShop("Store Fault Refrigeration");

@@ -9,6 +9,8 @@ export interface CaughtMail extends CaughtMessage {
   attachments: { filename?: string; contentType: string; size: number }[];
   /** The catcher's id of the SMTP connection the message came over. */
   sessionId: string;
+  /** The message's Message-ID header (one outbox row keeps the same one on every try). */
+  messageId: string;
 }
 
 export function readMailbox(): CaughtMail[] {
@@ -17,7 +19,13 @@ export function readMailbox(): CaughtMail[] {
   return readdirSync(dir)
     .filter((f) => f.endsWith(".json"))
     .sort()
-    .map((f) => JSON.parse(readFileSync(join(dir, f), "utf8")) as CaughtMail);
+    .flatMap((f) => {
+      try {
+        return [JSON.parse(readFileSync(join(dir, f), "utf8")) as CaughtMail];
+      } catch {
+        return []; // written by a catcher of an older version while we read: seen on the next poll
+      }
+    });
 }
 
 /** Waits until a message to `to` (optionally matching the subject) arrives; returns the newest. */

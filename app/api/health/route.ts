@@ -3,6 +3,8 @@ import { db } from "@/db/client";
 import { publicRoute } from "@/lib/api/handler";
 import { bucketReachable } from "@/lib/storage";
 import { engineMode } from "@/lib/tests/engine-pool";
+import { jobRunnerState } from "@/lib/jobs/runner";
+import { env } from "@/lib/env";
 
 export const dynamic = "force-dynamic";
 
@@ -22,12 +24,22 @@ async function databaseReachable(): Promise<boolean> {
   }
 }
 
-/** GET /api/health — both stores (they decide `ok`; 503 when either is down), and where the analysis engine runs. */
+/**
+ * GET /api/health — both stores (they decide `ok`), where the analysis engine runs, and whether this
+ * server runs the background jobs ("running", "starting", "not started", or "worker" when
+ * JOBS_IN_APP=off leaves them to `npm run worker`).
+ */
 export const GET = publicRoute({}, async () => {
   const [database, bucket] = await Promise.all([databaseReachable(), bucketReachable(CHECK_TIMEOUT_MS)]);
   const ok = database && bucket;
   return Response.json(
-    { ok, database: database ? "ok" : "unreachable", bucket: bucket ? "ok" : "unreachable", engine: engineMode() },
+    {
+      ok,
+      database: database ? "ok" : "unreachable",
+      bucket: bucket ? "ok" : "unreachable",
+      engine: engineMode(),
+      jobs: env().JOBS_IN_APP === "off" ? "worker" : jobRunnerState(),
+    },
     { status: ok ? 200 : 503 },
   );
 });

@@ -1,13 +1,11 @@
 import { db } from "@/db/client";
 import { listReviewQueueByOrganization } from "@/db/queries/review";
 import { route } from "@/lib/api/handler";
-import { sweepNewTestsIntoReview } from "@/lib/review/auto";
 import { reviewQueueQuerySchema } from "@/lib/review/schemas";
 import { sparklineOf } from "@/lib/review/sparkline";
 
-/** The lead's queue: tests waiting for review, the longest waiting first. */
+/** The lead's queue: tests waiting for review, the longest waiting first. A read only: the review sweep job moves tests in. */
 export const GET = route({ permission: "tests.review", query: reviewQueueQuerySchema }, async ({ actor, query }) => {
-  await sweepNewTestsIntoReview(db(), { organizationId: actor.organizationId });
   const rows = await listReviewQueueByOrganization(db(), {
     viewer: { organizationId: actor.organizationId, userId: actor.userId, role: actor.role },
     filters: { technicianId: query.technicianId, verdict: query.verdict, helpOnly: query.help === "1" },

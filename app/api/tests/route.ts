@@ -4,6 +4,7 @@ import { listTests, loadTestSummary } from "@/lib/tests/read";
 import { readUploadRequest } from "@/lib/tests/request";
 import { idempotencyKeySchema, listTestsQuerySchema, parseInput } from "@/lib/tests/schemas";
 import { createTestFromUpload } from "@/lib/tests/upload";
+import { taskDto } from "@/lib/jobs/tasks";
 
 export const dynamic = "force-dynamic";
 
@@ -13,12 +14,15 @@ export const dynamic = "force-dynamic";
  * (the same person, the same request; a different request with the key is a 422).
  * An apprentice's practice test is saved and answered 201 with `analysis: null` and
  * `practiceCallUrl`: the verdict shows once they have made their call there.
+ * A large log (over ANALYSIS_JOB_MIN_KB) is queued: 202 { task } to follow at /api/tasks/:id
+ * (a retry of it answers 202 with the same task, or 200 with the test once it is made).
  */
 export const POST = route({ permission: "tests.upload", accepts: ["json", "multipart"] }, async ({ req, actor }) => {
   const rawKey = req.headers.get("idempotency-key");
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const input = await readUploadRequest(req);
   const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey, signal: req.signal });
+  if (outcome.task && !(outcome.task.state === "done" && outcome.task.testId)) return Response.json({ task: taskDto(outcome.task) }, { status: 202 });
   const summary = await loadTestSummary(db(), actor, outcome.testId, outcome);
   return Response.json(summary, { status: outcome.created ? 201 : 200 });
 });

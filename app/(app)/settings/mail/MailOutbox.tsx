@@ -14,12 +14,12 @@ function when(iso: string | null): string {
 }
 
 function reportWords(r: ResendReport): string {
-  if (!r.sent.length && !r.failed.length) return "Nothing was waiting to be sent.";
-  const parts = [];
-  if (r.sent.length) parts.push(`${r.sent.length} sent`);
-  if (r.failed.length) parts.push(`${r.failed.length} still not sent`);
-  return `${parts.join(", ")}.`;
+  if (!r.queued.length) return "Nothing was waiting to be sent.";
+  return `${r.queued.length} message${r.queued.length === 1 ? "" : "s"} queued to send now; this list follows them.`;
 }
+
+/** While anything is still to go, the list refreshes itself. */
+const REFRESH_MS = 3000;
 
 function MailRow({ m, onResend, busy }: { m: OutboxItem; onResend: (id: string) => void; busy: boolean }) {
   const error = m.status === "sent" ? null : mailErrorInWords(m.lastError);
@@ -39,6 +39,12 @@ function MailRow({ m, onResend, busy }: { m: OutboxItem; onResend: (id: string) 
           <>
             <dt className="text-fg-soft">Sent</dt>
             <dd>{when(m.sentAt)}</dd>
+          </>
+        )}
+        {m.status === "failed" && m.nextAttemptAt && (
+          <>
+            <dt className="text-fg-soft">Next try</dt>
+            <dd data-testid="mail-next-try">{when(m.nextAttemptAt)}, by itself</dd>
           </>
         )}
         {error && (
@@ -70,7 +76,11 @@ function MailRow({ m, onResend, busy }: { m: OutboxItem; onResend: (id: string) 
 export function MailOutbox() {
   const qc = useQueryClient();
   const [status, setStatus] = useState<MailStatus | "">("");
-  const q = useQuery({ queryKey: outboxKeys.list(status), queryFn: ({ signal }) => listOutbox(status, signal) });
+  const q = useQuery({
+    queryKey: outboxKeys.list(status),
+    queryFn: ({ signal }) => listOutbox(status, signal),
+    refetchInterval: (query) => (query.state.data?.mail.some((m) => m.status === "pending" || m.status === "failed") ? REFRESH_MS : false),
+  });
   const resend = useMutation({
     mutationFn: (id?: string) => resendOutbox(id),
     onSettled: () => void qc.invalidateQueries({ queryKey: outboxKeys.all }),
@@ -91,7 +101,7 @@ export function MailOutbox() {
           Send all unsent
         </Button>
       </div>
-      {resend.isSuccess && <Alert tone={resend.data.failed.length ? "warning" : "success"}>{reportWords(resend.data)}</Alert>}
+      {resend.isSuccess && <Alert tone="success">{reportWords(resend.data)}</Alert>}
       {resend.isError && <Alert tone="error">{(resend.error as Error).message}</Alert>}
       {q.isPending ? (
         <div className="flex items-center gap-3 py-8 text-fg-soft" role="status">

@@ -10,13 +10,15 @@ export interface OutboxItem {
   status: MailStatus;
   attempts: number;
   lastError: string | null;
+  /** When Riseline tries again by itself (failed rows). */
+  nextAttemptAt: string | null;
   createdAt: string;
   sentAt: string | null;
 }
 
+/** What "send again" queued; the rows then go out through the delivery job. */
 export interface ResendReport {
-  sent: string[];
-  failed: { id: string; error: string }[];
+  queued: string[];
 }
 
 export const outboxKeys = {

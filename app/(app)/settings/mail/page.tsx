@@ -11,7 +11,7 @@ export default async function MailPage() {
       <div>
         <h1 className="text-headline">Outgoing mail</h1>
         <p className="text-body text-fg-soft">
-          Every e-mail Riseline sends for the shop: review requests, sign-offs, comments and reports. A change never waits for its mail; a message that did not go stays here to send again.
+          Every e-mail Riseline sends for the shop: review requests, sign-offs, comments and reports. A change never waits for its mail. A message that did not go is tried again by itself (every half minute at most while the mail server is away, for a day); one Riseline gave up on can be sent again here.
         </p>
       </div>
       <MailOutbox />

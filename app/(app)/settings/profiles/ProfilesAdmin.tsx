@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Alert, Badge, Button, Card, Input, Spinner } from "@/components/ui";
 import { apiFetch } from "@/lib/client/api";
+import { ProfileRecheck } from "./ProfileRecheck";
 
 interface Profile {
   id: string | null;
@@ -46,9 +47,18 @@ export function ProfilesAdmin() {
   const qc = useQueryClient();
   const q = useQuery({ queryKey: ["settings-profiles"], queryFn: ({ signal }) => apiFetch<{ items: Profile[] }>("/api/settings/profiles", {}, { signal }) });
   const [editing, setEditing] = useState<string | null>(null);
+  /** A profile's name before this page renamed it, so its re-check still finds the tests judged by the old name. */
+  const [renamedFrom, setRenamedFrom] = useState<Record<string, string>>({});
   const refresh = () => void qc.invalidateQueries({ queryKey: ["settings-profiles"] });
   const create = useMutation({ mutationFn: (d: Draft) => apiFetch("/api/settings/profiles", { method: "POST", body: toBody(d) }), onSuccess: refresh });
-  const update = useMutation({ mutationFn: ({ id, d }: { id: string; d: Draft }) => apiFetch(`/api/settings/profiles/${id}`, { method: "PUT", body: toBody(d) }), onSuccess: () => { setEditing(null); refresh(); } });
+  const update = useMutation({
+    mutationFn: ({ id, d }: { id: string; d: Draft; before: string }) => apiFetch(`/api/settings/profiles/${id}`, { method: "PUT", body: toBody(d) }),
+    onSuccess: (_r, { id, d, before }) => {
+      if (d.name !== before) setRenamedFrom((m) => ({ ...m, [id]: m[id] ?? before }));
+      setEditing(null);
+      refresh();
+    },
+  });
   const makeDefault = useMutation({ mutationFn: (id: string) => apiFetch(`/api/settings/profiles/${id}/default`, { method: "POST" }), onSuccess: refresh });
   const remove = useMutation({ mutationFn: (id: string) => apiFetch(`/api/settings/profiles/${id}`, { method: "DELETE" }), onSuccess: refresh });
 
@@ -61,7 +71,7 @@ export function ProfilesAdmin() {
           <li key={p.id ?? "built-in"}>
             <Card title={p.name} headingLevel={3} actions={p.isDefault ? <Badge tone="brand">Default</Badge> : undefined}>
               {editing === p.id && p.id ? (
-                <ProfileForm initial={toDraft(p)} submitLabel="Save" busy={update.isPending} error={update.error as Error | null} onSubmit={(d) => update.mutate({ id: p.id!, d })} onCancel={() => setEditing(null)} />
+                <ProfileForm initial={toDraft(p)} submitLabel="Save" busy={update.isPending} error={update.error as Error | null} onSubmit={(d) => update.mutate({ id: p.id!, d, before: p.name })} onCancel={() => setEditing(null)} />
               ) : (
                 <>
                   <p className="text-body">
@@ -73,6 +83,9 @@ export function ProfilesAdmin() {
                       {!p.isDefault && <Button variant="quiet" onClick={() => makeDefault.mutate(p.id!)} busy={makeDefault.isPending && makeDefault.variables === p.id}>Make default</Button>}
                       {!p.isDefault && <Button variant="quiet" onClick={() => remove.mutate(p.id!)} busy={remove.isPending && remove.variables === p.id}>Delete</Button>}
                     </div>
+                  ) : null}
+                  {p.id ? (
+                    <ProfileRecheck profileId={p.id} previousName={renamedFrom[p.id]} />
                   ) : (
                     <p className="mt-2 text-caption text-fg-soft">Built in (common practice, no published source). Add a profile below to set your own.</p>
                   )}

@@ -21,6 +21,7 @@ import { DropZone, MAX_UPLOAD_BYTES } from "./DropZone";
 import { NewVisit } from "./NewVisit";
 import { adviseOnError } from "./errors";
 import type { TimeMode } from "./readings";
+import type { TaskProgress, UploadAnswer } from "@/lib/client/tasks";
 
 // Loaded when needed, to keep this page's first load small for a weak signal.
 const Loading = () => (
@@ -31,6 +32,7 @@ const Loading = () => (
 const ColumnChooser = dynamic(() => import("./ColumnChooser").then((m) => m.ColumnChooser), { loading: Loading });
 const TypedReadings = dynamic(() => import("./TypedReadings").then((m) => m.TypedReadings), { loading: Loading });
 const UploadResult = dynamic(() => import("./UploadResult").then((m) => m.UploadResult), { loading: Loading });
+const AnalysisWait = dynamic(() => import("./AnalysisWait").then((m) => m.AnalysisWait), { loading: Loading });
 
 type Phase =
   | { kind: "pick" }
@@ -38,6 +40,7 @@ type Phase =
   | { kind: "choose"; file: File; preview: ImportPreview }
   | { kind: "sending"; file?: File; progress: number | null }
   | { kind: "error"; error: unknown; file?: File; retry: () => void }
+  | { kind: "queued"; task: TaskProgress; file?: File; name: string; retry: () => void }
   | { kind: "done"; created: CreatedTest };
 
 /** What is being sent; a retry sends the same thing with the same key. */
@@ -100,7 +103,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
     setPhase({ kind: "sending", file, progress: a.source === "file" ? 0 : null });
     try {
       if (isOffline()) throw new ApiError(0, "offline", "You are offline.");
-      let created: CreatedTest;
+      let answer: UploadAnswer;
       if (a.source === "file") {
         const form = new FormData();
         form.set("file", a.file, a.file.name);
@@ -112,25 +115,34 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
           if (a.choice.decimalMark) form.set("decimalMark", a.choice.decimalMark);
         }
         appendContext(form, context);
-        created = await uploadTest(form, {
+        answer = (await uploadTest(form, {
           idempotencyKey: a.key,
           onProgress: (f) => setPhase((p) => (p.kind === "sending" ? { ...p, progress: f } : p)),
-        });
+        })) as UploadAnswer;
       } else {
-        created = await createTestFromReadings({ readings: a.readings, timeMode: a.mode, ...contextFields(context) }, a.key);
+        answer = (await createTestFromReadings({ readings: a.readings, timeMode: a.mode, ...contextFields(context) }, a.key)) as UploadAnswer;
       }
-      queryClient.invalidateQueries({ queryKey: ["tests"] });
-      if (context.newJob && created.test.job) {
-        // The visit now exists: the next test of this visit joins it instead of making another.
-        const jobId = created.test.job.id;
-        setContext((c) => ({ ...c, newJob: false, newJobReason: "", jobId }));
-        queryClient.invalidateQueries({ queryKey: ["jobs"] });
+      if ("task" in answer) {
+        // A large log: a job analyses it; AnalysisWait follows it and calls finish().
+        setPhase({ kind: "queued", task: answer.task, file, name: file?.name ?? "The readings", retry: () => void send(a) });
+        return;
       }
-      setPhase({ kind: "done", created });
+      finish(answer);
     } catch (error) {
       setPhase({ kind: "error", error, file, retry: () => void send(a) });
     }
   };
+
+  function finish(created: CreatedTest) {
+    queryClient.invalidateQueries({ queryKey: ["tests"] });
+    if (context.newJob && created.test.job) {
+      // The visit now exists: the next test of this visit joins it instead of making another.
+      const jobId = created.test.job.id;
+      setContext((c) => ({ ...c, newJob: false, newJobReason: "", jobId }));
+      queryClient.invalidateQueries({ queryKey: ["jobs"] });
+    }
+    setPhase({ kind: "done", created });
+  }
 
   async function onFile(file: File) {
     if (file.size > MAX_UPLOAD_BYTES) {
@@ -168,7 +180,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
     setPhase({ kind: "pick" });
   }
 
-  const busy = phase.kind === "checking" || phase.kind === "sending";
+  const busy = phase.kind === "checking" || phase.kind === "sending" || phase.kind === "queued";
 
   if (phase.kind === "done") return <UploadResult created={phase.created} onAnother={reset} />;
 
@@ -217,6 +229,14 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
         )}
         {tab === "typed" && (
           <TypedReadings busy={busy} onSubmit={(readings, mode) => send({ source: "typed", readings, mode, key: newIdempotencyKey() })} />
+        )}
+        {phase.kind === "queued" && (
+          <AnalysisWait
+            task={phase.task}
+            filename={phase.name}
+            onDone={finish}
+            onError={(error) => setPhase({ kind: "error", error, file: phase.file, retry: phase.retry })}
+          />
         )}
         {(phase.kind === "checking" || (phase.kind === "sending" && tab === "file")) && (
           <Progress label={phase.kind === "checking" ? `Checking ${phase.file.name}…` : `Sending ${phase.file?.name ?? "readings"}…`} fraction={phase.kind === "sending" ? phase.progress : null} />

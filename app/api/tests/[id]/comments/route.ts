@@ -5,7 +5,6 @@ import { route, uuidParam } from "@/lib/api/handler";
 import { requireVisibleTest } from "@/lib/tests/read";
 import { commentSchema } from "@/lib/review/schemas";
 import { queueCommentMail } from "@/lib/review/comment-mail";
-import { deliverMailSoon } from "@/lib/notify/outbox";
 
 export const GET = route({ permission: "tests.comment", params: uuidParam }, async ({ actor, params }) => {
   await requireVisibleTest(db(), actor, params.id);
@@ -15,11 +14,11 @@ export const GET = route({ permission: "tests.comment", params: uuidParam }, asy
 
 /**
  * A comment, optionally at a time on the curve; recorded in the audit trail too, and e-mailed
- * (technician ⇄ leads, lib/review/comment-mail.ts) through the outbox after commit.
+ * (technician ⇄ leads, lib/review/comment-mail.ts) through the outbox (its delivery job commits with the comment).
  */
 export const POST = route({ permission: "tests.comment", params: uuidParam, body: commentSchema }, async ({ actor, params, body }) => {
   const detail = await requireVisibleTest(db(), actor, params.id);
-  const { comment, mailIds } = await db().transaction(async (tx) => {
+  const { comment } = await db().transaction(async (tx) => {
     const c = await insertTestComment(tx, {
       organizationId: actor.organizationId, testId: params.id, authorId: actor.userId, body: body.body, atSeconds: body.atSeconds ?? null,
     });
@@ -27,7 +26,6 @@ export const POST = route({ permission: "tests.comment", params: uuidParam, body
     await insertTestEvent(tx, { organizationId: actor.organizationId, testId: params.id, actorId: actor.userId, kind: "commented", note: `${body.body.slice(0, 200)}${at}` });
     return { comment: c, mailIds: await queueCommentMail(tx, actor, { detail, body: body.body, atSeconds: c.atSeconds }) };
   });
-  await deliverMailSoon(db(), mailIds);
   return Response.json(
     { comment: { id: comment.id, body: comment.body, atSeconds: comment.atSeconds, createdAt: comment.createdAt.toISOString(), authorId: actor.userId, authorName: actor.name } },
     { status: 201 },

@@ -3,7 +3,7 @@ import { insertTestEvent } from "@/db/queries/review";
 import { route, uuidParam } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { reportMail } from "@/lib/notify/messages";
-import { deliverMailSoon, queueMail } from "@/lib/notify/outbox";
+import { queueMail } from "@/lib/notify/outbox";
 import { buildReportModel } from "@/lib/reports/model";
 import { requireVisibleTest } from "@/lib/tests/read";
 import { emailReportSchema } from "@/lib/review/schemas";
@@ -26,6 +26,5 @@ export const POST = route({ permission: "reports.share", params: uuidParam, body
     await insertTestEvent(tx, { organizationId: actor.organizationId, testId: params.id, actorId: actor.userId, kind: "report_emailed", note: `To ${body.to}.` });
     return queued;
   });
-  await deliverMailSoon(db(), ids);
   return Response.json({ outboxId: ids[0] }, { status: 202 });
 });
