@@ -56,7 +56,7 @@ describe("field exports on the upload screen (common practice, no published sour
     expect(await analyse.isDisabled()).toBe(true);
     await question.getByLabel(/1,200 microns/).check({ force: true });
     await analyse.click();
-    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Moisture likely");
+    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Levels off: moisture likely");
     expect(await page.getByTestId("decimal-doubt").count()).toBe(0);
     expect(errors).toEqual([]);
     await context.close();
@@ -66,7 +66,7 @@ describe("field exports on the upload screen (common practice, no published sour
     const { context, page, errors } = await phonePage();
     await page.goto("/tests/new");
     await page.getByLabel("Gauge log file (CSV)").setInputFiles(SAMPLE_7);
-    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Moisture likely");
+    await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Levels off: moisture likely");
     expect(await page.getByTestId("decimal-question").count()).toBe(0);
     expect(errors).toEqual([]);
     await context.close();

@@ -28,6 +28,8 @@ const L = {
   profileDefault: () => import("@/app/api/settings/profiles/[id]/default/route"),
   shopSettings: () => import("@/app/api/settings/shop/route"),
   plannerHistory: () => import("@/app/api/planner/history/route"),
+  profileReanalysis: () => import("@/app/api/settings/profiles/[id]/reanalysis/route"),
+  task: () => import("@/app/api/tasks/[id]/route"),
 };
 
 const profile = { name: "Matrix profile", targetMicrons: 500, holdMinutes: 10, limitMicrons: 1000, leakRateMicronsPerMinute: 20 };
@@ -192,6 +194,19 @@ export const RECORD_PROBES: Probe[] = [
     route: "POST /api/settings/profiles/:id/default",
     call: (as, w) => hit(L.profileDefault, "POST", "/x", as, { params: { id: w.profileId } }),
     expect: rule("profiles.manage"),
+    outsider: 404,
+  },
+  {
+    route: "POST /api/settings/profiles/:id/reanalysis",
+    call: (as, w) => hit(L.profileReanalysis, "POST", "/x", as, { body: {}, params: { id: w.profileId } }),
+    expect: rule("profiles.manage"),
+    outsider: 404,
+  },
+  {
+    // The technician's own task; those who read every test see it too.
+    route: "GET /api/tasks/:id",
+    call: (as, w) => hit(L.task, "GET", "/x", as, { params: { id: w.taskId } }),
+    expect: rule("member", { visible: techTestReaders }),
     outsider: 404,
   },
 ];

@@ -6,6 +6,7 @@
 import { randomUUID } from "node:crypto";
 import { db } from "@/db/client";
 import { createTestShare } from "@/db/queries/visibility";
+import { insertTask } from "@/db/queries/tasks";
 import { ROLES, type Role } from "@/lib/permissions";
 import { appRequest, createCrew, createShop, routeParams, uniqueEmail, type TestMember } from "../helpers/members";
 import { sampleText, uploadRequest } from "../helpers/uploads";
@@ -57,6 +58,8 @@ export interface World {
   rigItemId: string;
   pressureTestId: string;
   profileId: string;
+  /** A finished log task the technician started. */
+  taskId: string;
   shareLinkId: string;
   /** Strings of this shop that must never appear in the outsider's answers. */
   secrets: string[];
@@ -127,11 +130,15 @@ export async function buildWorld(): Promise<World> {
     201,
   );
   const link = await json<{ id: string }>(await hit(L.shareLinks, "POST", "/x", owner, { body: {}, params: { id: techTestId } }), 201);
+  const task = await insertTask(db(), {
+    id: randomUUID(), organizationId: owner.organizationId, requestedById: technician.userId, kind: "log_analysis",
+    state: "done", stage: "done", done: 1, input: {}, testId: techTestId,
+  });
 
   return {
     crew, outsider, customerId: customer.customer.id, customerEmail, siteId: site.site.id, siteName, systemId: system.system.id, jobId: job.job.id,
     techTestId, practiceTestId, calledTestId, callId: called.call.id, collectionId: cid, entryId: eid, pinId: pin.pin.id,
-    rigId: rig.rig.id, rigItemId: item.item.id, pressureTestId: pressure.test.id, profileId: profile.profile.id, shareLinkId: link.id,
+    rigId: rig.rig.id, rigItemId: item.item.id, pressureTestId: pressure.test.id, profileId: profile.profile.id, shareLinkId: link.id, taskId: task.id,
     secrets: [owner.organizationId, techTestId, practiceTestId, customerEmail, siteName, site.site.id, system.system.id],
   };
 }
