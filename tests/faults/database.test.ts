@@ -1,13 +1,15 @@
 /**
  * PostgreSQL stopped — while the pool holds idle connections, and in the middle of an upload's
  * transaction. Every answer is a 503 within a few seconds (health, the session lookup, uploads,
- * sign-in), never a 500 or an uncaught exception; no session token reaches the log; nothing
+ * sign-in, pages), never a 500 or an uncaught exception; no session token reaches the log; nothing
  * half-written remains; once PostgreSQL is back the same pool answers again.
  * OWASP ASVS 4.0.3 V7.1.1/V7.1.2 (no session tokens or credentials in logs), V11.1.7 (resilience).
  */
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "drizzle-orm";
+import { NextRequest } from "next/server";
+import { proxy } from "@/proxy";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { GET as health } from "@/app/api/health/route";
 import { GET as testsGet, POST as testsPost } from "@/app/api/tests/route";
@@ -80,6 +82,14 @@ describe("PostgreSQL stopped", () => {
     expect(signIn.value?.status).toBe(503);
     expect(signIn.ms).toBeLessThan(8000);
 
+    // A page (through the proxy that runs before every request): a 503 that says why, not a 500.
+    const page = await timed(() => proxy(new NextRequest("http://127.0.0.1/tests", { headers: { cookie: owner.cookie } })));
+    expect(page.value?.status).toBe(503);
+    expect(page.value!.headers.get("retry-after")).toBe("30");
+    expect(page.value!.headers.get("content-security-policy")).toContain("nonce-");
+    expect(await page.value!.text()).toContain("Nothing you saved is lost");
+    expect(page.ms).toBeLessThan(6000);
+
     expect(stderrText).not.toContain(sessionToken());
     expect(stderrText).not.toContain(PASSWORD);
     expect(uncaught).toEqual([]);
@@ -90,6 +100,8 @@ describe("PostgreSQL stopped", () => {
     expect((await testsGet(appRequest("/api/tests", { as: owner }))).status).toBe(200);
     expect((await upload()).status).toBe(201);
     expect((await health(new Request("http://127.0.0.1/api/health"))).status).toBe(200);
+    const page = await proxy(new NextRequest("http://127.0.0.1/tests", { headers: { cookie: owner.cookie } }));
+    expect(page.status).toBe(200); // passed on to the page
   });
 });
 

@@ -1,5 +1,4 @@
-import { sql } from "drizzle-orm";
-import { db } from "@/db/client";
+import { CHECK_TIMEOUT_MS, databaseReachable } from "@/lib/health/database";
 import { publicRoute } from "@/lib/api/handler";
 import { bucketReachable } from "@/lib/storage";
 import { engineMode } from "@/lib/tests/engine-pool";
@@ -7,22 +6,6 @@ import { jobRunnerState } from "@/lib/jobs/runner";
 import { env } from "@/lib/env";
 
 export const dynamic = "force-dynamic";
-
-/** Health answers within about two seconds whatever the stores do (a frozen one never answers). */
-const CHECK_TIMEOUT_MS = 2000;
-
-async function databaseReachable(): Promise<boolean> {
-  let timer: NodeJS.Timeout | undefined;
-  try {
-    const timeout = new Promise<never>((_, reject) => (timer = setTimeout(() => reject(new Error("timeout")), CHECK_TIMEOUT_MS)));
-    await Promise.race([db().execute(sql`select 1`), timeout]);
-    return true;
-  } catch {
-    return false;
-  } finally {
-    clearTimeout(timer);
-  }
-}
 
 /**
  * GET /api/health — both stores (they decide `ok`), where the analysis engine runs, and whether this
