@@ -3,7 +3,7 @@
 #   scripts/services.sh start demo|test|dev|bench|faults     scripts/services.sh stop PROFILE
 #   scripts/services.sh env PROFILE                   (prints the connection settings)
 #   scripts/services.sh reset PROFILE                 (stops it and deletes its data)
-#   scripts/services.sh pg-stop|pg-start|fakes-stop|fakes-start|fakes-pid PROFILE
+#   scripts/services.sh pg-stop|pg-start|pg-pids|fakes-stop|fakes-start|fakes-pid PROFILE
 #                                                     (one part at a time, for the fault tests)
 # PostgreSQL comes from Debian's package; s3rver and the SMTP catcher run in scripts/fakes.mjs.
 #
@@ -132,6 +132,8 @@ MAILBOX_DIR=$ROOT/mail
 ENV
     ;;
   pgdata) echo "$PGDATA" ;;
+  # The postmaster and its backends (for the fault tests' SIGSTOP/SIGCONT: a frozen database).
+  pg-pids) if pg_running; then pm=$(head -1 "$PGDATA/postmaster.pid"); echo "$pm" $(pgrep -P "$pm"); fi ;;
   pg-stop) if pg_running; then as_pg "$PGBIN/pg_ctl" -D "$PGDATA" -m immediate -w stop >/dev/null; fi ;;
   pg-start) start_pg ;;
   fakes-stop) stop_fakes ;;

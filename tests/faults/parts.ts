@@ -18,7 +18,20 @@ function services(action: string): string {
 export const postgres = {
   stop: () => services("pg-stop"),
   start: () => services("pg-start"),
+  /** SIGSTOP to the postmaster and every backend: connections are accepted and nothing answers. */
+  freeze: () => signalAll(services("pg-pids"), "SIGSTOP"),
+  thaw: () => signalAll(services("pg-pids"), "SIGCONT"),
 };
+
+function signalAll(pids: string, signal: NodeJS.Signals) {
+  for (const pid of pids.split(/\s+/).filter(Boolean)) {
+    try {
+      process.kill(Number(pid), signal);
+    } catch {
+      /* a backend that has just ended */
+    }
+  }
+}
 
 /** The S3 fake and the SMTP catcher (one process, scripts/fakes.mjs). */
 export const fakes = {
