@@ -12,6 +12,7 @@ import { invitationLink } from "@/lib/invitation-key";
 import { clearFailures, countFailure, lockedMessage, normalisedEmail, secondsLocked } from "@/lib/lockout";
 import { describeError, log } from "@/lib/log";
 import { composeMail, sendMail } from "@/lib/mail";
+import { queueMail } from "@/lib/notify/outbox";
 import { CLIENT_IP_HEADER } from "@/lib/security/client-ip";
 import { ROLE_LABELS, isRole } from "@/lib/permissions";
 
@@ -129,8 +130,12 @@ function buildAuth() {
         requireEmailVerificationOnInvitation: true,
         sendInvitationEmail: async ({ id, email, role, organization: org, inviter }) => {
           const label = isRole(role) ? ROLE_LABELS[role] : role;
-          await sendMail(
-            composeMail({
+          // Through the outbox: the mail waits in PostgreSQL and retries if the mail server is away.
+          // (The link is not a credential: it opens only for the invited, verified address.)
+          await db().transaction((tx) => queueMail(tx, [
+            {
+              organizationId: org.id,
+              ...composeMail({
               to: email,
               subject: `${inviter.user.name} invited you to ${org.name} on Riseline`,
               paragraphs: [
@@ -138,8 +143,9 @@ function buildAuth() {
                 "Riseline keeps the record of every evacuation and decay test your crew runs. Open the link to accept; it works for seven days.",
               ],
               link: { label: "Accept the invitation", url: invitationLink(id, email) },
-            }),
-          );
+              }),
+            },
+          ]));
         },
       }),
     ],

@@ -13,6 +13,10 @@ import { db } from "@/db/client";
 import { user } from "@/db/schema";
 import { appRequest, createShop, routeParams, uniqueEmail, PASSWORD, type TestMember } from "./helpers/members";
 import { firstAppLink, waitForMail } from "./helpers/mailbox";
+import { jobRunnerForFile } from "./helpers/jobs";
+
+// Invitations go through the mail outbox: its delivery jobs run in this file.
+jobRunnerForFile();
 
 const json = (body: unknown) => ({ method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
 const cookieOf = (res: Response) => res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");

@@ -7,6 +7,10 @@ import { DELETE as cancelInvite } from "@/app/api/members/invitations/[id]/route
 import { PATCH as changeRole, DELETE as removeMember } from "@/app/api/members/[userId]/route";
 import { addMember, appRequest, createCrew, createShop, routeParams, uniqueEmail, PASSWORD, type TestMember } from "./helpers/members";
 import { firstAppLink, waitForMail } from "./helpers/mailbox";
+import { jobRunnerForFile } from "./helpers/jobs";
+
+// Invitations go through the mail outbox: its delivery jobs run in this file.
+jobRunnerForFile();
 
 const json = (body: unknown, method = "POST") => ({ method, body: JSON.stringify(body), headers: { "content-type": "application/json" } });
 const cookieOf = (res: Response) => res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
