@@ -8,11 +8,11 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { LogError } from "@/analysis/errors";
 import { AppError } from "@/lib/errors";
-import { runAnalysis } from "@/lib/tests/engine";
+import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { Worker } from "node:worker_threads";
 import {
   analyseOffThread, closeEnginePool, engineMode, setEngineTimeoutForTests, setInlineMaxKbForTests, setWorkerSpawnForTests,
-} from "@/lib/tests/engine-pool";
+} from "@/lib/vacuum-tests/engine-pool";
 
 const golden = (name: string) => readFileSync(`fixtures/golden/${name}`, "utf8");
 
@@ -122,7 +122,7 @@ describe("engine worker pool", () => {
     let spawned = 0;
     setWorkerSpawnForTests(() => {
       spawned++;
-      return new Worker(`require("tsx/cjs"); require(${JSON.stringify(`${process.cwd()}/lib/tests/engine-worker.ts`)});`, { eval: true });
+      return new Worker(`require("tsx/cjs"); require(${JSON.stringify(`${process.cwd()}/lib/vacuum-tests/engine-worker.ts`)});`, { eval: true });
     });
     const small = golden("layout-iso-pa.csv");
     const large = golden("layout-datetime-mbar.csv"); // 15 kB against a 6 kB inline size

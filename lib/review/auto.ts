@@ -5,7 +5,7 @@
  * leads. Practice tests never enter the queue. Idempotent: a test already moved is left alone.
  */
 import type { Database, Db } from "@/db/client";
-import { getTestById } from "@/db/queries/tests";
+import { getTestById } from "@/db/queries/vacuum-tests";
 import { randomUUID } from "node:crypto";
 import { getSiteById } from "@/db/queries/records";
 import {

@@ -1,8 +1,8 @@
 import { route } from "@/lib/api/handler";
-import { previewLog } from "@/lib/tests/preview";
-import { readPreviewFile } from "@/lib/tests/request";
-import { importOverridesSchema, parseInput } from "@/lib/tests/schemas";
-import { importOptionsOf } from "@/lib/tests/options";
+import { previewLog } from "@/lib/vacuum-tests/preview";
+import { readPreviewFile } from "@/lib/vacuum-tests/request";
+import { importOverridesSchema, parseInput } from "@/lib/vacuum-tests/schemas";
+import { importOptionsOf } from "@/lib/vacuum-tests/options";
 
 export const dynamic = "force-dynamic";
 
