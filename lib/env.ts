@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { DATABASE_SETTINGS } from "@/db/settings";
 
 /**
  * The only reader of process.env. Every key is documented in .env.example.
@@ -6,7 +7,7 @@ import { z } from "zod";
  */
 const schema = z.object({
   RISELINE_MODE: z.enum(["development", "demo", "test", "production"]).default("development"),
-  DATABASE_URL: z.string().url(),
+  ...DATABASE_SETTINGS.shape,
   BETTER_AUTH_SECRET: z.string().min(32, "BETTER_AUTH_SECRET must be at least 32 characters"),
   BETTER_AUTH_URL: z.string().url().default("http://127.0.0.1:3000"),
   /** Comma-separated extra origins trusted for auth POSTs (e.g. http://localhost:3000). */
@@ -42,9 +43,6 @@ const schema = z.object({
    * TCP peer, so a client cannot pick its own rate-limit bucket.
    */
   TRUSTED_PROXIES: z.string().default(""),
-  /** PostgreSQL: longest wait for a pooled connection, and longest one statement may run (ms). */
-  PG_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(3000),
-  PG_STATEMENT_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
   /** S3: longest wait to connect, and longest silence on an open request (ms). */
   S3_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(3000),
   S3_REQUEST_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
