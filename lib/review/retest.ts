@@ -30,7 +30,7 @@ import { retestUploadedMail } from "@/lib/notify/messages";
 import { queueMail } from "@/lib/notify/outbox";
 import { can } from "@/lib/permissions";
 import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
-import { analyseOffThread } from "@/lib/vacuum-tests/engine-pool";
+import { analyseLog } from "@/lib/engine/door";
 import { sha256Hex } from "@/lib/vacuum-tests/files";
 import { assertSameRequest, requestFingerprint, type SpentKey } from "@/lib/vacuum-tests/idempotency";
 import { KeyTaken, storeThenCommit } from "@/lib/vacuum-tests/stored-commit";
@@ -114,7 +114,7 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
   if (!early.ok) throw new AppError("conflict", `${early.message} A re-test log goes onto a test that was sent back.`, { status: detail.test.status });
 
   const options = await optionsForRetest(db, org, detail.test.currentAnalysisId);
-  const run = await analyseOffThread(input.file.text, options); // LogError → 422 before anything is stored
+  const run = await analyseLog(input.file.text, options); // LogError → 422 before anything is stored
 
   const analysisId = randomUUID();
   const objectKey = retestLogKey(org, testId, randomUUID(), input.file.filename);

@@ -15,7 +15,7 @@ import { describeError, log } from "@/lib/log";
 import { randomUUID } from "node:crypto";
 import { assertSameRequest, requestFingerprint, type SpentKey } from "./idempotency";
 import { getObjectBytes } from "@/lib/storage";
-import { analyseOffThread } from "./engine-pool";
+import { analyseLog } from "@/lib/engine/door";
 import { decodeLogText } from "./files";
 import { compactOptions, importOptionsOf, resolveProfile } from "./options";
 import { requireRevealedTest } from "./read";
@@ -76,7 +76,7 @@ export async function reanalyseTest(
     holdWindow: input.holdWindow ?? base.holdWindow,
   });
 
-  const run = await analyseOffThread(await readStoredLogText(upload.objectKey), options); // LogError → 422 naming the option
+  const run = await analyseLog(await readStoredLogText(upload.objectKey), options); // LogError → 422 naming the option
 
   const analysisId = randomUUID();
   const saving = db.transaction(async (tx) => {

@@ -28,7 +28,7 @@ import { sendJob } from "@/lib/jobs/boss";
 import { QUEUES } from "@/lib/jobs/queues";
 import type { JobContext } from "@/lib/jobs/runner";
 import { readStoredLogText, saveNewAnalysis } from "./analyse";
-import { analyseOffThread } from "./engine-pool";
+import { analyseLog } from "@/lib/engine/door";
 import { compactOptions, resolveProfile } from "./options";
 
 /** Tests per job. */
@@ -76,7 +76,7 @@ async function recheckOne(db: Database, task: TaskRow, testId: string, profile: 
   const options = compactOptions({ ...current.options, profile });
   let run;
   try {
-    run = await analyseOffThread(await readStoredLogText(upload.objectKey), options, { background: true });
+    run = await analyseLog(await readStoredLogText(upload.objectKey), options, { background: true });
   } catch (err) {
     if (err instanceof LogError) return db.transaction(progress(true));
     throw err; // storage or an engine worker away: the job retries from this test

@@ -5,10 +5,7 @@
 import { createHash } from "node:crypto";
 import { AppError } from "@/lib/errors";
 import { env } from "@/lib/env";
-import { readBodyCapped as readCapped } from "@/lib/api/body";
-
-/** Room for the form fields and multipart framing beside the file itself. */
-export const MULTIPART_SLACK_BYTES = 256 * 1024;
+import { fileTooLarge as tooLarge } from "@/lib/api/body";
 
 const TEXT_TYPES = new Set([
   "",
@@ -27,19 +24,6 @@ const REFUSED_EXTENSIONS = /\.(xlsx|xlsm|xls|ods|numbers|pdf|png|jpe?g|gif|heic|
 
 export function sha256Hex(bytes: Uint8Array): string {
   return createHash("sha256").update(bytes).digest("hex");
-}
-
-function tooLarge(sizeBytes: number): AppError {
-  const limit = env().MAX_UPLOAD_BYTES;
-  return new AppError("file_too_large", `The file is ${(sizeBytes / 1048576).toFixed(1)} MB; the limit is ${(limit / 1048576).toFixed(0)} MB.`, {
-    sizeBytes,
-    limitBytes: limit,
-  });
-}
-
-/** The request body under a hard cap (413 naming the file's size above it). */
-export function readBodyCapped(req: Request, capBytes: number): Promise<Uint8Array<ArrayBuffer>> {
-  return readCapped(req, capBytes, tooLarge);
 }
 
 /** Refuse anything that is not a text log, by its declared type, its name and its bytes. */

@@ -23,7 +23,7 @@ import { sendJob } from "@/lib/jobs/boss";
 import { QUEUES } from "@/lib/jobs/queues";
 import { log } from "@/lib/log";
 import { deleteObject, getObjectBytes, rawLogKey } from "@/lib/storage";
-import { analyseOffThread } from "./engine-pool";
+import { analyseLog } from "@/lib/engine/door";
 import { decodeLogText } from "./files";
 import { assertSameRequest } from "./idempotency";
 import { KeyTaken, storeThenCommit } from "./stored-commit";
@@ -106,7 +106,7 @@ export async function runLogAnalysisJob(db: Database, data: LogJobData): Promise
   await progress("analysing");
   let run;
   try {
-    run = await analyseOffThread(text, input.options, { background: true });
+    run = await analyseLog(text, input.options, { background: true });
   } catch (err) {
     if (err instanceof LogError) return failTask(db, task, err.message, { reason: err.code, line: err.line, column: err.column });
     throw err;

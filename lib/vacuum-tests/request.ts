@@ -2,11 +2,10 @@
  * Turning a POST /api/vacuum-tests (or /api/imports/preview) request into an upload: multipart with a
  * file, or JSON with typed readings written out as an equivalent CSV (stored as the raw file).
  */
-import { mediaTypeOf, readJsonBody } from "@/lib/api/body";
+import { mediaTypeOf } from "@/lib/api/body";
 import { assertStorable } from "@/lib/api/storable";
 import { AppError } from "@/lib/errors";
-import { env } from "@/lib/env";
-import { assertTextLog, decodeLogText, MULTIPART_SLACK_BYTES, readBodyCapped } from "./files";
+import { assertTextLog, decodeLogText } from "./files";
 import { parseInput, testMetadataSchema, typedReadingsSchema } from "./schemas";
 import { typedReadingsToCsv } from "./typed";
 import type { UploadInput } from "./upload";
@@ -18,14 +17,15 @@ export interface ReceivedFile {
   text: string;
 }
 
-/** The multipart form of a request, read under the upload cap. */
-async function readForm(req: Request): Promise<FormData> {
-  const bytes = await readBodyCapped(req, env().MAX_UPLOAD_BYTES + MULTIPART_SLACK_BYTES);
-  try {
-    return await new Response(bytes, { headers: { "content-type": req.headers.get("content-type") ?? "" } }).formData();
-  } catch {
-    throw new AppError("invalid_input", "file: the form could not be read (expected multipart/form-data with a file field).");
-  }
+/** The body route() read under its cap: the multipart form, or (typed readings) the JSON. */
+export interface ReadBody {
+  form?: FormData;
+  json?: unknown;
+}
+
+function formOf(body: ReadBody): FormData {
+  if (!body.form) throw new AppError("invalid_input", "file: the form could not be read (expected multipart/form-data with a file field).");
+  return body.form;
 }
 
 async function fileOf(form: FormData): Promise<ReceivedFile> {
@@ -50,15 +50,15 @@ function isJson(req: Request): boolean {
 }
 
 /** Just the file, for the preview (nothing saved). */
-export async function readPreviewFile(req: Request): Promise<{ file: ReceivedFile; fields: Record<string, string> }> {
-  const form = await readForm(req);
+export async function readPreviewFile(body: ReadBody): Promise<{ file: ReceivedFile; fields: Record<string, string> }> {
+  const form = formOf(body);
   return { file: await fileOf(form), fields: fieldsOf(form) };
 }
 
 /** The upload in a POST /api/vacuum-tests request (without the idempotency key). */
-export async function readUploadRequest(req: Request): Promise<UploadInput> {
+export async function readUploadRequest(req: Request, body: ReadBody): Promise<UploadInput> {
   if (isJson(req)) {
-    const json = await readJsonBody(req); // typed readings: under the JSON cap
+    const json = body.json; // typed readings: read by route() under the JSON cap
     assertStorable(json, "body");
     const obj = (json && typeof json === "object" ? json : {}) as Record<string, unknown>;
     const { readings, timeMode, ...rest } = obj;
@@ -70,7 +70,7 @@ export async function readUploadRequest(req: Request): Promise<UploadInput> {
   }
   if (mediaTypeOf(req.headers) !== "multipart/form-data")
     throw new AppError("unsupported_file", "Send the log as multipart/form-data (field 'file') or typed readings as JSON.");
-  const form = await readForm(req);
+  const form = formOf(body);
   const file = await fileOf(form);
   const metadata = parseInput(testMetadataSchema, fieldsOf(form), "form");
   return { metadata, source: "file", ...file };

@@ -33,7 +33,7 @@ import { analysisRowsOf } from "@/db/queries/analyses";
 import { AppError } from "@/lib/errors";
 import { can, type Role } from "@/lib/permissions";
 import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
-import { analyseOffThread } from "./engine-pool";
+import { analyseLog } from "@/lib/engine/door";
 import { sha256Hex } from "./files";
 import { KeyTaken, storeThenCommit } from "./stored-commit";
 import { getTaskByIdempotencyKey } from "@/db/queries/tasks";
@@ -264,7 +264,7 @@ async function uploadPipeline(db: Database, who: Uploader, input: UploadInput): 
   assertMayCreateRecords(who, input.metadata);
   const options = await uploadOptionsOf(db, org, input);
   if (input.text.length > env().ANALYSIS_JOB_MIN_KB * 1024) return queueLogAnalysis(db, who, input, options, { sha256, fingerprint });
-  const run = await analyseOffThread(input.text, options); // LogError → 422 before anything is stored
+  const run = await analyseLog(input.text, options); // LogError → 422 before anything is stored
   assertStorableRun(run); // numbers no column can hold → 422, not a failed insert
 
   const testId = randomUUID();

@@ -2,7 +2,7 @@ import { sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { publicRoute } from "@/lib/api/handler";
 import { bucketReachable } from "@/lib/storage";
-import { engineMode } from "@/lib/vacuum-tests/engine-pool";
+import { engineMode } from "@/lib/engine/pool";
 import { jobRunnerState } from "@/lib/jobs/runner";
 import { env } from "@/lib/env";
 

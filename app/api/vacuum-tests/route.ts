@@ -17,10 +17,10 @@ export const dynamic = "force-dynamic";
  * A large log (over ANALYSIS_JOB_MIN_KB) is queued: 202 { task } to follow at /api/tasks/:id
  * (a retry of it answers 202 with the same task, or 200 with the test once it is made).
  */
-export const POST = route({ permission: "tests.upload", accepts: ["json", "multipart"] }, async ({ req, actor }) => {
+export const POST = route({ permission: "tests.upload", accepts: ["json", "multipart"] }, async ({ req, actor, form, json }) => {
   const rawKey = req.headers.get("idempotency-key");
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
-  const input = await readUploadRequest(req);
+  const input = await readUploadRequest(req, { form, json });
   const outcome = await createTestFromUpload(db(), actor, { ...input, idempotencyKey, signal: req.signal });
   if (outcome.task && !(outcome.task.state === "done" && outcome.task.testId)) return Response.json({ task: taskDto(outcome.task) }, { status: 202 });
   const summary = await loadTestSummary(db(), actor, outcome.testId, outcome);

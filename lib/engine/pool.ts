@@ -1,7 +1,8 @@
 /**
- * The analysis engine, off the request thread for large logs: a small pool of worker threads, each
- * running runAnalysis (lib/vacuum-tests/engine.ts) one log at a time, so a long log never stalls the main
- * thread while it serves HTTP, the database and storage.
+ * The one door to the engine for every log: runOnEngine takes a task of lib/engine/tasks.ts (a
+ * decay log to analyse, an import preview, a blank-off log, a nitrogen test) and runs it inline
+ * when it is small, else on a small pool of worker threads, each running one task at a time, so a
+ * long log never stalls the main thread while it serves HTTP, the database and storage.
  *
  *  - Size: ENGINE_WORKERS (lib/env.ts); 0 runs the engine inline on the caller's thread.
  *  - Small logs run inline anyway (ENGINE_INLINE_MAX_KB, default 256 kB). On the 2-core machine
@@ -28,13 +29,14 @@ import type { AnalyzeOptions } from "@/analysis/types";
 import { AppError } from "@/lib/errors";
 import { env } from "@/lib/env";
 import { log } from "@/lib/log";
-import { runAnalysis, type EngineRun } from "./engine";
-import type { EngineReady, EngineReply, EngineRequest } from "./engine-worker";
+import type { EngineRun } from "@/lib/vacuum-tests/engine";
+import { runEngineTask, sizeOfTask, type AnswerOf, type EngineTask } from "./tasks";
+import type { EngineReady, EngineReply, EngineRequest } from "./worker";
 
 interface Job {
   request: EngineRequest;
   background: boolean;
-  resolve: (run: EngineRun) => void;
+  resolve: (answer: unknown) => void;
   reject: (err: unknown) => void;
 }
 
@@ -78,8 +80,8 @@ export function setInlineMaxKbForTests(kb: number | null): void {
 }
 
 /** A log small enough that analysing it here costs less than handing it to a worker. */
-function smallEnoughForInline(text: string): boolean {
-  return text.length <= (inlineMaxKbOverride ?? env().ENGINE_INLINE_MAX_KB) * 1024;
+function smallEnoughForInline(task: EngineTask): boolean {
+  return sizeOfTask(task) <= (inlineMaxKbOverride ?? env().ENGINE_INLINE_MAX_KB) * 1024;
 }
 
 /**
@@ -98,8 +100,8 @@ function spawnWorker(): Worker {
   // A built server runs the entry Next.js bundled from the literal URL below. Under vitest or
   // tsx (ENGINE_WORKER_ENTRY=source) the worker registers tsx's loader and requires the source.
   return env().ENGINE_WORKER_ENTRY === "source"
-    ? new Worker(`require("tsx/cjs"); require(${JSON.stringify(path.join(process.cwd(), "lib/vacuum-tests/engine-worker.ts"))});`, { eval: true })
-    : new Worker(new URL("./engine-worker.ts", import.meta.url));
+    ? new Worker(`require("tsx/cjs"); require(${JSON.stringify(path.join(process.cwd(), "lib/engine/worker.ts"))});`, { eval: true })
+    : new Worker(new URL("./worker.ts", import.meta.url));
 }
 
 /** Stop a worker for good; a late error from it (say, while its entry loads) is ignored. */
@@ -114,11 +116,12 @@ function settle(slot: Slot, reply: EngineReply): void {
   if (!job || job.request.id !== reply.id) return;
   state.failuresInARow = 0;
   finish(slot);
-  if (reply.ok) job.resolve(reply.run);
+  if (reply.ok) job.resolve(reply.answer);
   else if (reply.logError) {
     const e = reply.logError;
     job.reject(new LogError(e.code, e.message, { line: e.line ?? undefined, column: e.column ?? undefined }));
-  } else job.reject(new Error(`analysis failed in the engine worker: ${reply.message}`));
+  } else if (reply.errorName === "RangeError") job.reject(new RangeError(reply.message));
+  else job.reject(new Error(`analysis failed in the engine worker: ${reply.message}`));
 }
 
 function finish(slot: Slot): void {
@@ -142,7 +145,7 @@ function replace(slot: Slot, why: string): void {
     state.inlineOnly = true;
     log.error("engine workers keep failing; analysing on the request thread from now on", { why });
   }
-  if (job && neverLoaded) runInline(job.request.text, job.request.options).then(job.resolve, job.reject);
+  if (job && neverLoaded) runInline(job.request.task).then(job.resolve, job.reject);
   else if (job) job.reject(new AppError("analysis_unavailable"));
   if (state.inlineOnly) {
     drainInline();
@@ -194,11 +197,11 @@ function pool(): Slot[] | null {
 
 /** After the pool gave up: every waiting log is analysed on this thread. */
 function drainInline(): void {
-  for (const job of state.waiting.splice(0)) runInline(job.request.text, job.request.options).then(job.resolve, job.reject);
+  for (const job of state.waiting.splice(0)) runInline(job.request.task).then(job.resolve, job.reject);
 }
 
-function runInline(text: string, options: AnalyzeOptions): Promise<EngineRun> {
-  return Promise.resolve().then(() => runAnalysis(text, options));
+function runInline<T extends EngineTask>(task: T): Promise<AnswerOf<T>> {
+  return Promise.resolve().then(() => runEngineTask(task));
 }
 
 function pump(): void {
@@ -225,23 +228,29 @@ export function engineMode(): "workers" | "starting" | "not started" | "inline" 
 }
 
 /**
- * Analyse a log's text on the pool (inline when it is small, or when ENGINE_WORKERS=0). Same
- * contract as runAnalysis: resolves with the run, rejects with LogError for an unreadable log.
- * `background`: a job's analysis, which goes to a worker whatever its size and waits behind the
- * logs of requests (inline only when there are no workers at all).
+ * Run one engine task on the pool: inline when its log is small (or when ENGINE_WORKERS=0), else
+ * on a worker. Resolves with the task's answer; rejects with LogError for an unreadable log,
+ * RangeError for a number the engine cannot use. `background`: a job's task, which goes to a
+ * worker whatever its size and waits behind the tasks of requests (inline only when there are no
+ * workers at all).
  */
-export function analyseOffThread(text: string, options: AnalyzeOptions, opts: { background?: boolean } = {}): Promise<EngineRun> {
+export function runOnEngine<T extends EngineTask>(task: T, opts: { background?: boolean } = {}): Promise<AnswerOf<T>> {
   const background = opts.background ?? false;
-  if (state.inlineOnly || engineWorkerCount() === 0 || (!background && smallEnoughForInline(text))) return runInline(text, options);
-  if (!pool()) return runInline(text, options);
-  return new Promise<EngineRun>((resolve, reject) => {
-    const job: Job = { request: { id: state.nextId++, text, options }, background, resolve, reject };
+  if (state.inlineOnly || engineWorkerCount() === 0 || (!background && smallEnoughForInline(task))) return runInline(task);
+  if (!pool()) return runInline(task);
+  return new Promise<AnswerOf<T>>((resolve, reject) => {
+    const job: Job = { request: { id: state.nextId++, task }, background, resolve: resolve as (answer: unknown) => void, reject };
     // A request's log goes ahead of every background one still waiting.
     const firstBackground = background ? -1 : state.waiting.findIndex((j) => j.background);
     if (firstBackground < 0) state.waiting.push(job);
     else state.waiting.splice(firstBackground, 0, job);
     pump();
   });
+}
+
+/** A decay test's log analysed through runOnEngine (upload, re-test, re-analysis, queued logs). */
+export function analyseOffThread(text: string, options: AnalyzeOptions, opts: { background?: boolean } = {}): Promise<EngineRun> {
+  return runOnEngine({ kind: "analyse", text, options }, opts);
 }
 
 /** Stop every worker (tests and shutdown). The next analysis starts a fresh pool. */
