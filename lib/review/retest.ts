@@ -20,9 +20,9 @@
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
-import { getAnalysisById, getNextAnalysisVersionByTest, insertAnalysis } from "@/db/queries/analyses";
+import { getAnalysisById, saveNewAnalysis } from "@/db/queries/analyses";
 import { insertTestEvent, listReviewerEmailsByOrganization, lockTestReviewStateById, updateTestStatusById } from "@/db/queries/review";
-import { getIdempotencyKeyByKey, insertIdempotencyKey, insertUpload, updateIdempotencyKeyAnalysis, updateTestCurrentAnalysis } from "@/db/queries/vacuum-tests";
+import { getIdempotencyKeyByKey, insertIdempotencyKey, insertUpload, updateIdempotencyKeyAnalysis } from "@/db/queries/vacuum-tests";
 import type { TestStatus } from "@/db/schema";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
@@ -137,13 +137,15 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
       await insertUpload(tx, {
         organizationId: org, testId, objectKey, sha256, sizeBytes: input.file.bytes.byteLength, filename: input.file.filename, contentType: RAW_LOG_CONTENT_TYPE,
       });
-      const version = await getNextAnalysisVersionByTest(tx, { organizationId: org, testId });
-      await insertAnalysis(tx, {
-        id: analysisId, organizationId: org, testId, version, options, result: run.result, series: run.series,
-        reason: `Re-test: ${input.file.filename}`, createdById: actor.userId,
-      });
-      if (input.idempotencyKey) await updateIdempotencyKeyAnalysis(tx, { ...keyOf, analysisId });
-      await updateTestCurrentAnalysis(tx, { organizationId: org, testId, analysisId, verdict: run.result.verdict });
+      const saved = await saveNewAnalysis(
+        tx,
+        { id: analysisId, organizationId: org, testId, options, result: run.result, series: run.series, reason: `Re-test: ${input.file.filename}`, createdById: actor.userId },
+        async () => {
+          if (input.idempotencyKey) await updateIdempotencyKeyAnalysis(tx, { ...keyOf, analysisId });
+        },
+      );
+      if (!saved) throw new AppError("not_found", "No such test.");
+      const { version } = saved;
       const moved = await updateTestStatusById(tx, { organizationId: org, testId, fromStatus: locked.status, toStatus: check.to });
       if (!moved) throw new AppError("conflict");
       await insertTestEvent(tx, {

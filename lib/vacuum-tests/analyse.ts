@@ -7,8 +7,8 @@
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
 import type { EngineRun } from "./engine";
-import { getAnalysisById, getNextAnalysisVersionByTest, insertAnalysis } from "@/db/queries/analyses";
-import { getIdempotencyKeyByKey, getUploadByTest, insertIdempotencyKey, lockTestById, updateTestCurrentAnalysis } from "@/db/queries/vacuum-tests";
+import { getAnalysisById, saveNewAnalysis as writeNewAnalysis } from "@/db/queries/analyses";
+import { getIdempotencyKeyByKey, getUploadByTest, insertIdempotencyKey } from "@/db/queries/vacuum-tests";
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
 import { describeError, log } from "@/lib/log";
@@ -107,29 +107,16 @@ export async function readStoredLogText(objectKey: string): Promise<string> {
 }
 
 /**
- * Inside a transaction: store a run as the test's next analysis version and make it current.
- * `beforeCurrent` runs after the version is written and before the test points at it (the
- * re-analysis spends its Idempotency-Key there).
+ * Inside a transaction: store a run as the test's next analysis version and make it current,
+ * through the one writer (saveNewAnalysis, db/queries/analyses.ts); 404 when the test is gone.
  */
 export async function saveNewAnalysis(
   tx: Tx,
   p: { id?: string; organizationId: string; testId: string; options: AnalyzeOptions; run: EngineRun; reason: string | null; createdById: string },
   beforeCurrent?: () => Promise<void>,
 ): Promise<{ analysis: AnalysisResult; version: number; analysisId: string }> {
-  if (!(await lockTestById(tx, { organizationId: p.organizationId, testId: p.testId }))) throw new AppError("not_found", "No such test.");
-  const version = await getNextAnalysisVersionByTest(tx, { organizationId: p.organizationId, testId: p.testId });
-  const saved = await insertAnalysis(tx, {
-    ...(p.id ? { id: p.id } : {}),
-    organizationId: p.organizationId,
-    testId: p.testId,
-    version,
-    options: p.options,
-    result: p.run.result,
-    series: p.run.series,
-    reason: p.reason,
-    createdById: p.createdById,
-  });
-  await beforeCurrent?.();
-  await updateTestCurrentAnalysis(tx, { organizationId: p.organizationId, testId: p.testId, analysisId: saved.id, verdict: p.run.result.verdict });
-  return { analysis: p.run.result, version, analysisId: saved.id };
+  const { run, ...rest } = p;
+  const saved = await writeNewAnalysis(tx, { ...rest, result: run.result, series: run.series }, beforeCurrent);
+  if (!saved) throw new AppError("not_found", "No such test.");
+  return { analysis: run.result, ...saved };
 }

@@ -313,7 +313,7 @@ export async function commitNewTest(
     verdict: run.result.verdict, meetsProfile: run.result.meetsProfile, helpRequested: false, isPractice: log.metadata.isPractice,
     title, technicianName: who.name, siteName: names.siteName,
   };
-  const review = entersReviewOnUpload(known) ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known }) : null;
+  const review = (await entersReviewOnUpload(tx, known)) ? await reviewRowsOfNewTest(tx, { organizationId: org, testId, technicianId: who.userId, siteId, known }) : null;
   const rows = newTestRows({ who, log, testId, analysisId: a.analysisId, siteId, systemId, jobId, title, options: a.options, result: run.result, series: run.series, testedAt, review });
   const inserted = await insertNewTestTogether(tx, rows).catch((err: unknown) => {
     throw isIdempotencyKeyTaken(err) ? new KeyTaken() : err;
