@@ -1,7 +1,6 @@
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { Pool } from "pg";
-import { env } from "@/lib/env";
-import { describeError, log } from "@/lib/log";
+import { databaseSettings } from "./settings";
 import * as schema from "./schema";
 
 export type Database = NodePgDatabase<typeof schema>;
@@ -22,7 +21,7 @@ const globalForDb = globalThis as unknown as { rlPool?: Pool; rlDb?: Database };
  * finds them open; they never keep a script's process alive (allowExitOnIdle).
  */
 export function poolOptions(connectionString: string) {
-  const e = env();
+  const e = databaseSettings();
   return {
     connectionString,
     max: 10,
@@ -42,16 +41,26 @@ export function poolOptions(connectionString: string) {
  * the next query opens a new one (or fails with 503 while the server is away).
  */
 function watch(pool: Pool): Pool {
-  pool.on("error", (err) => log.warn("database connection lost", { err: describeError(err) }));
+  pool.on("error", (err) => warnLost("database connection lost", err));
   // A checked-out client has no pool listener while a request holds it between statements.
-  pool.on("connect", (client) => client.on("error", (err) => log.warn("database connection lost while in use", { err: describeError(err) })));
+  pool.on("connect", (client) => client.on("error", (err) => warnLost("database connection lost while in use", err)));
   return pool;
+}
+
+/**
+ * One JSON line on stderr in the shape of lib/log.ts, with the error's name, code and message only
+ * (never a query's parameters). Written through console.warn, which the server passes through its
+ * redaction (instrumentation.ts); the data layer does not import lib/.
+ */
+function warnLost(message: string, err: Error & { code?: unknown }): void {
+  const e = { name: err.name, message: err.message, ...(typeof err.code === "string" ? { code: err.code } : {}) };
+  console.warn(JSON.stringify({ level: "warn", time: new Date().toISOString(), message, err: e }));
 }
 
 /** One pool per process (survives hot reload in development). */
 export function db(): Database {
   if (!globalForDb.rlDb) {
-    globalForDb.rlPool = watch(new Pool(poolOptions(env().DATABASE_URL)));
+    globalForDb.rlPool = watch(new Pool(poolOptions(databaseSettings().DATABASE_URL)));
     globalForDb.rlDb = drizzle(globalForDb.rlPool, { schema });
   }
   return globalForDb.rlDb;

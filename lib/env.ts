@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { DATABASE_SETTINGS } from "@/db/settings";
 
 /**
  * The only reader of process.env. Every key is documented in .env.example.
@@ -6,7 +7,7 @@ import { z } from "zod";
  */
 const schema = z.object({
   RISELINE_MODE: z.enum(["development", "demo", "test", "production"]).default("development"),
-  DATABASE_URL: z.string().url(),
+  ...DATABASE_SETTINGS.shape,
   BETTER_AUTH_SECRET: z.string().min(32, "BETTER_AUTH_SECRET must be at least 32 characters"),
   BETTER_AUTH_URL: z.string().url().default("http://127.0.0.1:3000"),
   /** Comma-separated extra origins trusted for auth POSTs (e.g. http://localhost:3000). */
@@ -25,11 +26,11 @@ const schema = z.object({
   MAILBOX_DIR: z.string().optional(),
   /** Upload limit in bytes for a gauge log. */
   MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(32 * 1024 * 1024),
-  /** Engine worker threads (lib/tests/engine-pool.ts); 0 analyses on the request thread; unset = one per core less one (at least 1, at most 4). */
+  /** Engine worker threads (lib/engine/pool.ts); 0 analyses on the request thread; unset = one per core less one (at least 1, at most 4). */
   ENGINE_WORKERS: z.coerce.number().int().min(0).max(16).optional(),
   /**
    * Logs up to this size (kB) are analysed on the request thread, larger ones in a worker: handing
-   * a log to a worker costs more than analysing a small one (lib/tests/engine-pool.ts). 0: always a worker.
+   * a log to a worker costs more than analysing a small one (lib/engine/pool.ts). 0: always a worker.
    */
   ENGINE_INLINE_MAX_KB: z.coerce.number().int().min(0).default(256),
   /** Longest one analysis may run in a worker before that worker is replaced and the upload fails cleanly. */
@@ -42,16 +43,13 @@ const schema = z.object({
    * TCP peer, so a client cannot pick its own rate-limit bucket.
    */
   TRUSTED_PROXIES: z.string().default(""),
-  /** PostgreSQL: longest wait for a pooled connection, and longest one statement may run (ms). */
-  PG_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(3000),
-  PG_STATEMENT_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
   /** S3: longest wait to connect, and longest silence on an open request (ms). */
   S3_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(3000),
   S3_REQUEST_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
   /** SMTP: longest wait to connect and for the greeting, and longest silence on a connection (ms). */
   SMTP_CONNECT_TIMEOUT_MS: z.coerce.number().int().positive().default(5000),
   SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().positive().default(15_000),
-  /** "bundled": the worker entry Next.js built; "source": lib/tests/engine-worker.ts through tsx (vitest, scripts). */
+  /** "bundled": the worker entry Next.js built; "source": lib/engine/worker.ts through tsx (vitest, scripts). */
   ENGINE_WORKER_ENTRY: z.enum(["bundled", "source"]).default("bundled"),
   /** PostgreSQL schema of the job queue (pg-boss creates and migrates it itself; lib/jobs/boss.ts). */
   JOBS_SCHEMA: z.string().regex(/^[a-z_][a-z0-9_]{0,49}$/, "a lower-case PostgreSQL name").default("pgboss"),

@@ -2,11 +2,12 @@
  * Riseline's permission matrix: the one place that says which role may do what.
  * DEVELOPERS.md shows the same table; tests/permissions.test.ts walks every row.
  *
- * Row-level rules (whose tests a technician sees, for instance) live in the data layer
- * (db/queries/visibility.ts), driven by `canReadAllTests` below.
+ * The role list and the row-level rules (whose tests a technician sees, for instance) live in
+ * the data layer (db/roles.ts, db/queries/visibility.ts); "tests.read_all" below is that rule's list.
  */
-export const ROLES = ["owner", "lead", "technician", "trainer", "apprentice"] as const;
-export type Role = (typeof ROLES)[number];
+import { READERS_OF_ALL_TESTS, ROLES, type Role } from "@/db/roles";
+
+export { ROLES, isRole, canReadAllTests, type Role } from "@/db/roles";
 
 export const ROLE_LABELS: Record<Role, string> = {
   owner: "Owner",
@@ -22,7 +23,7 @@ export const PERMISSIONS = {
   /** Upload a gauge log or typed readings. */
   "tests.upload": everyone,
   /** See every test of the organization (others see their own and those shared with them). */
-  "tests.read_all": ["owner", "lead", "trainer"],
+  "tests.read_all": READERS_OF_ALL_TESTS,
   /** Re-run the analysis with overrides (on a test the member can see and uploaded, or any for leads). */
   "tests.reanalyse": everyone,
   /** Move a test through review: sign off or send back with a request. */
@@ -47,16 +48,8 @@ export const PERMISSIONS = {
 
 export type Permission = keyof typeof PERMISSIONS;
 
-export function isRole(value: unknown): value is Role {
-  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
-}
-
 export function can(role: Role, permission: Permission): boolean {
   return (PERMISSIONS[permission] as readonly Role[]).includes(role);
-}
-
-export function canReadAllTests(role: Role): boolean {
-  return can(role, "tests.read_all");
 }
 
 /**

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# `npm run bench:api`: upload-to-verdict latency of POST /api/tests against `next start`.
+# `npm run bench:api`: upload-to-verdict latency of POST /api/vacuum-tests against `next start`.
 # Services: a "bench" profile of its own (PostgreSQL, the S3 fake and the mail catcher on
 # loopback, fresh data each run), so nothing else on the machine shares its database and the CPU
 # each process spends per upload can be read from /proc. Builds first when .next is absent or

@@ -1,7 +1,7 @@
 /**
- * Upload-to-verdict latency of POST /api/tests for a 1-hour, 1 Hz gauge log (3,600 rows, simulated),
+ * Upload-to-verdict latency of POST /api/vacuum-tests for a 1-hour, 1 Hz gauge log (3,600 rows, simulated),
  * at 1 and at 20 concurrent uploads, against a running server (see scripts/bench-api.sh).
- * Prints p50 and p95 in milliseconds, and the first-load JS (gzip) of /tests/new measured in Chromium.
+ * Prints p50 and p95 in milliseconds, and the first-load JS (gzip) of /vacuum-tests/new measured in Chromium.
  * Bounded loops only; loopback only.
  */
 import { execFileSync } from "node:child_process";
@@ -14,7 +14,7 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import { simulateLog } from "@/analysis/simulate";
-import { runAnalysis } from "@/lib/tests/engine";
+import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { twoServerRounds } from "./bench-two-servers";
 
 const base = process.argv[2] ?? "http://127.0.0.1:3300";
@@ -53,9 +53,9 @@ async function encodedUpload(text: string): Promise<{ body: Buffer; contentType:
 /** Keep-alive connections, as a phone's browser keeps them; plain node:http costs the client far less CPU than fetch. */
 const agent = new http.Agent({ keepAlive: true, maxSockets: 64 });
 
-/** One POST /api/tests (to `server`, by default the first); resolves with the status and the (gzip-decoded) JSON body. */
+/** One POST /api/vacuum-tests (to `server`, by default the first); resolves with the status and the (gzip-decoded) JSON body. */
 function post(cookie: string, upload: { body: Buffer; contentType: string }, server = base): Promise<{ status: number; json: unknown }> {
-  const url = new URL("/api/tests", server);
+  const url = new URL("/api/vacuum-tests", server);
   return new Promise((resolve, reject) => {
     const req = http.request(
       url,
@@ -173,7 +173,7 @@ function summary(label: string, ms: number[]) {
 }
 
 /**
- * First-load JS of /tests/new as a phone really loads it: Debian's Chromium opens the page signed
+ * First-load JS of /vacuum-tests/new as a phone really loads it: Debian's Chromium opens the page signed
  * in and sums the encoded (gzip, as served) bodies of every script fetched until the network is
  * idle. Scripts loaded later on demand (the chart, after a verdict) are not counted.
  */
@@ -194,8 +194,8 @@ async function firstLoadJsKb(cookie: string): Promise<number> {
     page.on("requestfinished", (req) => {
       if (req.resourceType() === "script") sizes.push(req.sizes().then((s) => s.responseBodySize));
     });
-    await page.goto("/tests/new", { waitUntil: "networkidle" });
-    if (!page.url().endsWith("/tests/new")) throw new Error(`not signed in: landed on ${page.url()}`);
+    await page.goto("/vacuum-tests/new", { waitUntil: "networkidle" });
+    if (!page.url().endsWith("/vacuum-tests/new")) throw new Error(`not signed in: landed on ${page.url()}`);
     const bytes = (await Promise.all(sizes)).reduce((a, b) => a + b, 0);
     return bytes / 1024;
   } finally {
@@ -285,7 +285,7 @@ const two = await twoServerRounds({
 });
 console.log(`${CONCURRENCY} concurrent on one server → on two servers (${CONCURRENCY / 2} each, one database, one S3 fake): p50 ${b.p50.toFixed(0)} → ${two.p50.toFixed(0)} ms, p95 ${b.p95.toFixed(0)} → ${two.p95.toFixed(0)} ms; their review e-mail all sent ${two.mailMs.toFixed(0)} ms after the last verdict`);
 const kb = await firstLoadJsKb(cookie);
-console.log(`first-load JS of /tests/new (Chromium, gzip as served): ${kb.toFixed(1)} kB (goal ≤ 180 kB)`);
+console.log(`first-load JS of /vacuum-tests/new (Chromium, gzip as served): ${kb.toFixed(1)} kB (goal ≤ 180 kB)`);
 console.log(`goal p95 < 500 ms at ${CONCURRENCY} concurrent: ${b.p95 < 500 ? "met" : "NOT met"} (p50 at 1: ${a.p50.toFixed(0)} ms)`);
 agent.destroy();
 await closeDb();

@@ -28,7 +28,7 @@ const config = [
   {
     // Data-sized arrays never go through the call stack: a million readings spread as arguments overflow it
     // (tests/analysis/stack-safety.test.ts also finds recursion).
-    files: ["analysis/**/*.ts", "app/api/**/*.ts", "lib/tests/**/*.ts"],
+    files: ["analysis/**/*.ts", "app/api/**/*.ts", "lib/vacuum-tests/**/*.ts"],
     rules: {
       "no-restricted-syntax": [
         "error",

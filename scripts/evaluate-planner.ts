@@ -1,13 +1,13 @@
 /**
  * `npm run eval:planner`: the planner against the demo month's recorded pull-downs, with no
- * database. Each demo test's log is analysed by the real engine (lib/tests/engine.ts), then
+ * database. Each demo test's log is analysed by the real engine (lib/vacuum-tests/engine.ts), then
  * planned and compared exactly as the planner page does it for a system's own tests
  * (lib/planner/recorded.ts: the kit from the rig register, the volume from the line set and
  * coils, the condition from the job and the test's own hold). Prints one line per test and the
  * share within a factor of 2 of the likely plan.
  */
 import { durationWords } from "@/analysis/format";
-import { runAnalysis } from "@/lib/tests/engine";
+import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { planRecordedPullDown } from "@/lib/planner/recorded";
 import type { RigItemForPlan } from "@/lib/planner/setup";
 import { planDemoMonth, type DemoTest } from "./seed-month";

@@ -11,8 +11,8 @@
 import type { Database } from "@/db/client";
 import { getCollectionBySeedKey, insertCollection, insertEntry, insertPin } from "@/db/queries/casebook";
 import { simulateLog, type Scenario, type SimulatedLog } from "@/analysis/simulate";
-import { createTestFromUpload } from "@/lib/tests/upload";
-import { testMetadataSchema } from "@/lib/tests/schemas";
+import { createTestFromUpload } from "@/lib/vacuum-tests/upload";
+import { testMetadataSchema } from "@/lib/vacuum-tests/schemas";
 
 export const STARTER_SEED_KEY = "starter-simulated-v1";
 

@@ -11,10 +11,10 @@
 import type { Database } from "@/db/client";
 import { createCustomer, createJob, createSite, createSystem } from "@/db/queries/records";
 import { createRig, createRigEvent, createRigItem, upsertTestRig } from "@/db/queries/rigs";
-import { countTestsByOrganization } from "@/db/queries/tests";
+import { countTestsByOrganization } from "@/db/queries/vacuum-tests";
 import type { Role } from "@/lib/permissions";
-import { createTestFromUpload } from "@/lib/tests/upload";
-import { testMetadataSchema } from "@/lib/tests/schemas";
+import { createTestFromUpload } from "@/lib/vacuum-tests/upload";
+import { testMetadataSchema } from "@/lib/vacuum-tests/schemas";
 import { DEMO_SITES, planDemoMonth } from "./seed-month";
 import { SEED_RIGS } from "./seed-pulldowns";
 

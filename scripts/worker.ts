@@ -5,7 +5,7 @@
 import { closeDb } from "@/db/client";
 import { closeMail } from "@/lib/mail";
 import { log } from "@/lib/log";
-import { closeEnginePool } from "@/lib/tests/engine-pool";
+import { closeEnginePool } from "@/lib/engine/pool";
 import { startJobs } from "@/lib/jobs/workers";
 
 const runner = await startJobs("worker");

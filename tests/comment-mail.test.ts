@@ -5,8 +5,8 @@
  */
 import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { POST as commentPost } from "@/app/api/tests/[id]/comments/route";
-import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
+import { POST as commentPost } from "@/app/api/vacuum-tests/[id]/comments/route";
+import { POST as reviewPost } from "@/app/api/vacuum-tests/[id]/review/route";
 import { db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
 import { crewForFile, jsonInit } from "./helpers/crew";
@@ -19,7 +19,7 @@ const crew = crewForFile();
 jobRunnerForFile();
 
 async function comment(id: string, as: TestMember, body: string, atSeconds: number | null = null) {
-  const res = await commentPost(appRequest(`/api/tests/${id}/comments`, jsonInit(as, { body, atSeconds })), routeParams({ id }));
+  const res = await commentPost(appRequest(`/api/vacuum-tests/${id}/comments`, jsonInit(as, { body, atSeconds })), routeParams({ id }));
   expect(res.status).toBe(201);
 }
 
@@ -39,7 +39,7 @@ describe("comment e-mail", () => {
     const id = await seedTest(crew.technician, { title: "Warehouse rooftop unit" });
     await comment(id, crew.technician, "Gauge was on the suction side only.");
     expect(await outboxTo(id)).toEqual([]);
-    const asked = await reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(crew.technician, { action: "request_review" })), routeParams({ id }));
+    const asked = await reviewPost(appRequest(`/api/vacuum-tests/${id}/review`, jsonInit(crew.technician, { action: "request_review" })), routeParams({ id }));
     expect(asked.status).toBe(200);
     await comment(id, crew.technician, "Ambient was 95 °F.");
     const mail = await waitForMail(crew.lead.email, /Comment on: Warehouse rooftop unit/);

@@ -10,7 +10,7 @@ import { describe, expect, it } from "vitest";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { POST as invitePost } from "@/app/api/members/invitations/route";
 import { POST as sitesPost } from "@/app/api/sites/route";
-import { POST as testsPost } from "@/app/api/tests/route";
+import { POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { env } from "@/lib/env";
 import { crewForFile } from "./helpers/crew";
 import { uniqueEmail, type TestMember } from "./helpers/members";
@@ -67,7 +67,7 @@ describe("the same-origin check on state-changing requests (OWASP CSRF Preventio
   it("refuses a multipart upload posted from another origin (a form on a foreign page)", async () => {
     const form = new FormData();
     form.set("file", new File([sampleText("sample-1-iso-microns.csv")], "log.csv", { type: "text/csv" }));
-    const res = await testsPost(browserRequest("/api/tests", crew.technician, { origin: "https://attacker.example" }, form));
+    const res = await testsPost(browserRequest("/api/vacuum-tests", crew.technician, { origin: "https://attacker.example" }, form));
     expect(res.status).toBe(403);
   });
 

@@ -8,11 +8,12 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { LogError } from "@/analysis/errors";
 import { AppError } from "@/lib/errors";
-import { runAnalysis } from "@/lib/tests/engine";
+import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { Worker } from "node:worker_threads";
+import { runEngineTask } from "@/lib/engine/tasks";
 import {
-  analyseOffThread, closeEnginePool, engineMode, setEngineTimeoutForTests, setInlineMaxKbForTests, setWorkerSpawnForTests,
-} from "@/lib/tests/engine-pool";
+  analyseOffThread, runOnEngine, closeEnginePool, engineMode, setEngineTimeoutForTests, setInlineMaxKbForTests, setWorkerSpawnForTests,
+} from "@/lib/engine/pool";
 
 const golden = (name: string) => readFileSync(`fixtures/golden/${name}`, "utf8");
 
@@ -105,6 +106,34 @@ describe("engine worker pool", () => {
     }
   });
 
+  it("runs every kind of log the server reads through the same door: preview, blank-off and nitrogen logs answer on a worker as inline (our own contract)", async () => {
+    await closeEnginePool();
+    let spawned = 0;
+    setWorkerSpawnForTests(() => {
+      spawned++;
+      return new Worker(`require("tsx/cjs"); require(${JSON.stringify(`${process.cwd()}/lib/engine/worker.ts`)});`, { eval: true });
+    });
+    try {
+      const text = golden("layout-datetime-mbar.csv");
+      const csvText = "time,pressure psia,temp °F\n2026-05-01 08:00:00,314.696,80\n2026-05-01 09:00:00,311.5,75\n2026-05-01 10:00:00,308.865,70\n";
+      const tasks = [
+        { kind: "preview", text, options: {} },
+        { kind: "blank-off", text },
+        { kind: "nitrogen", body: { source: "file", csvText, temperatureUnit: "F", ratedTestPressureGauge: 450 } },
+      ] as const;
+      for (const task of tasks) expect(await runOnEngine(task as never)).toEqual(runEngineTask(task as never));
+      expect(spawned).toBeGreaterThan(0);
+      expect(engineMode()).toBe("workers");
+      const bad = await runOnEngine({ kind: "blank-off", text: readFileSync("fixtures/bad/no-pressure-column.csv", "utf8") }).catch((e: unknown) => e);
+      expect(bad).toBeInstanceOf(LogError);
+      const unusable = await runOnEngine({ kind: "nitrogen", body: { source: "typed", unit: "psig", temperatureUnit: "F", start: { pressureGauge: 300, temperature: 70 }, end: { pressureGauge: 300, temperature: 70 }, durationMinutes: 10, readings: [{ minutes: 20, pressureGauge: 300 }] } as never }).catch((e: unknown) => e);
+      expect(unusable).toBeInstanceOf(RangeError);
+    } finally {
+      setWorkerSpawnForTests(null);
+      await closeEnginePool();
+    }
+  });
+
   it("lets a script exit by itself once its analyses are done: idle workers hold nothing open (our own contract)", () => {
     // The timeout is a hang guard, not a speed target: a pool that kept the process alive would be killed by it.
     const child = spawnSync(process.execPath, ["--import", "tsx", "tests/helpers/pool-exit.ts"], {
@@ -122,7 +151,7 @@ describe("engine worker pool", () => {
     let spawned = 0;
     setWorkerSpawnForTests(() => {
       spawned++;
-      return new Worker(`require("tsx/cjs"); require(${JSON.stringify(`${process.cwd()}/lib/tests/engine-worker.ts`)});`, { eval: true });
+      return new Worker(`require("tsx/cjs"); require(${JSON.stringify(`${process.cwd()}/lib/engine/worker.ts`)});`, { eval: true });
     });
     const small = golden("layout-iso-pa.csv");
     const large = golden("layout-datetime-mbar.csv"); // 15 kB against a 6 kB inline size

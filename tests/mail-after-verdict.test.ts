@@ -8,7 +8,7 @@ import { afterEach, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
-import { POST as uploadPost } from "@/app/api/tests/route";
+import { POST as uploadPost } from "@/app/api/vacuum-tests/route";
 import { uploadInProgress } from "@/lib/jobs/local-load";
 import { setMaxQuietWaitMsForTests } from "@/lib/jobs/runner";
 import { crewForFile } from "./helpers/crew";
@@ -20,7 +20,7 @@ const crew = crewForFile();
 jobRunnerForFile();
 
 async function uploadLeak(title: string): Promise<string> {
-  const res = await uploadPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: sampleText("sample-2-elapsed-mtorr.csv"), name: "sample-2-elapsed-mtorr.csv" }, fields: { title } }));
+  const res = await uploadPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: sampleText("sample-2-elapsed-mtorr.csv"), name: "sample-2-elapsed-mtorr.csv" }, fields: { title } }));
   expect(res.status).toBe(201);
   return (await res.json()).test.id;
 }

@@ -10,11 +10,11 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { analyses, findings, idempotencyKeys, mailOutbox, testEvents, uploads, vacuumTests } from "@/db/schema";
 import { analysisRowsOf } from "@/db/queries/analyses";
-import { insertNewTestTogether, isIdempotencyKeyTaken, type NewTestRows } from "@/db/queries/tests";
+import { insertNewTestTogether, isIdempotencyKeyTaken, type NewVacuumTestRows } from "@/db/queries/vacuum-tests";
 import { createShop, type TestMember } from "./helpers/members";
 import { seededResult, seededSeries } from "./helpers/seed-test";
 
-function rowsFor(who: TestMember, opts: { key?: string; objectKey?: string; findingAnalysisId?: string } = {}): NewTestRows {
+function rowsFor(who: TestMember, opts: { key?: string; objectKey?: string; findingAnalysisId?: string } = {}): NewVacuumTestRows {
   const testId = randomUUID();
   const analysisId = randomUUID();
   const org = who.organizationId;

@@ -10,7 +10,7 @@ import { SMTPServer } from "smtp-server";
 import type { AddressInfo } from "node:net";
 import { db } from "@/db/client";
 import { mailOutbox, vacuumTests } from "@/db/schema";
-import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
+import { POST as reviewPost } from "@/app/api/vacuum-tests/[id]/review/route";
 import { POST as resendPost } from "@/app/api/outbox/resend/route";
 import { GET as outboxGet } from "@/app/api/outbox/route";
 import { setMailSenderForTests, type MailSender } from "@/lib/notify/transport";
@@ -65,9 +65,9 @@ const queueOne = (to: string, subject: string) =>
 describe("e-mail through the outbox and its delivery job (product rule: the change never depends on the mail)", () => {
   it("SMTP down: the sign-off stands, the try is recorded with its next one, and the job tries again by itself until the catcher has it", async () => {
     const id = await seedTest(crew.technician, { title: "Basement furnace coil" });
-    await reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(crew.technician, { action: "request_review" })), routeParams({ id }));
+    await reviewPost(appRequest(`/api/vacuum-tests/${id}/review`, jsonInit(crew.technician, { action: "request_review" })), routeParams({ id }));
     setMailSenderForTests(deadPortSender());
-    const res = await reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(crew.lead, { action: "sign_off" })), routeParams({ id }));
+    const res = await reviewPost(appRequest(`/api/vacuum-tests/${id}/review`, jsonInit(crew.lead, { action: "sign_off" })), routeParams({ id }));
     expect(res.status).toBe(200);
     const [t] = await db().select({ status: vacuumTests.status }).from(vacuumTests).where(eq(vacuumTests.id, id));
     expect(t.status).toBe("signed_off");
@@ -127,11 +127,11 @@ describe("e-mail through the outbox and its delivery job (product rule: the chan
 
   it("mail carries text and HTML, a link into the app, a Message-ID made from its row, and no secrets", async () => {
     const id = await seedTest(crew.technician, { title: "Garage mini-split" });
-    await reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(crew.technician, { action: "ask_help", note: "It will not hold below 900." })), routeParams({ id }));
+    await reviewPost(appRequest(`/api/vacuum-tests/${id}/review`, jsonInit(crew.technician, { action: "ask_help", note: "It will not hold below 900." })), routeParams({ id }));
     const mail = await waitForMail(crew.lead.email, /Help asked: Garage mini-split/);
     expect(mail.text).toContain("It will not hold below 900.");
     expect(mail.html).toContain("<a href=");
-    expect(mail.text).toMatch(/https?:\/\/127\.0\.0\.1:\d+\/tests\//);
+    expect(mail.text).toMatch(/https?:\/\/127\.0\.0\.1:\d+\/vacuum-tests\//);
     expect(mail.text + mail.html).not.toMatch(/password|token|secret/i);
     const row = (await rowsOf(id)).find((r) => r.to === crew.lead.email)!;
     expect(mail.messageId).toBe(messageIdOf(row.id));

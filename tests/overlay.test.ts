@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as overlayGet } from "@/app/api/overlay/route";
 import { db } from "@/db/client";
 import { insertAnalysis } from "@/db/queries/analyses";
-import { insertTest, updateTestCurrentAnalysis } from "@/db/queries/tests";
+import { insertTest, updateTestCurrentAnalysis } from "@/db/queries/vacuum-tests";
 import { alignAtIsolation, micronsAt } from "@/lib/casebook/align";
 import type { Role } from "@/lib/permissions";
 import { appRequest, createCrew, createShop, type TestMember } from "./helpers/members";

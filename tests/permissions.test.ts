@@ -66,8 +66,8 @@ const REAL: Partial<Record<Permission, RealCall[]>> = {
   "records.manage": [{ name: "POST /api/sites {}", call: async (as) => (await handler(() => import("@/app/api/sites/route"), "POST"))(appRequest("/api/sites", { ...post({}), as })) }],
   "reports.share": [
     {
-      name: "GET /api/tests/:missing/share-links",
-      call: async (as) => (await handler(() => import("@/app/api/tests/[id]/share-links/route"), "GET"))(appRequest(`/api/tests/${missingId}/share-links`, { as }), routeParams({ id: missingId })),
+      name: "GET /api/vacuum-tests/:missing/share-links",
+      call: async (as) => (await handler(() => import("@/app/api/vacuum-tests/[id]/share-links/route"), "GET"))(appRequest(`/api/vacuum-tests/${missingId}/share-links`, { as }), routeParams({ id: missingId })),
     },
   ],
 };

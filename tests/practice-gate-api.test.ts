@@ -4,10 +4,10 @@
  * (Making the call before seeing the answer: common practice in training, no published source.)
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { GET as testGet } from "@/app/api/tests/[id]/route";
-import { GET as testList } from "@/app/api/tests/route";
-import { POST as reanalyse } from "@/app/api/tests/[id]/analyses/route";
-import { GET as reportPdf } from "@/app/api/tests/[id]/report/route";
+import { GET as testGet } from "@/app/api/vacuum-tests/[id]/route";
+import { GET as testList } from "@/app/api/vacuum-tests/route";
+import { POST as reanalyse } from "@/app/api/vacuum-tests/[id]/analyses/route";
+import { GET as reportPdf } from "@/app/api/vacuum-tests/[id]/report/route";
 import { POST as callPost } from "@/app/api/practice/tests/[id]/call/route";
 import type { Role } from "@/lib/permissions";
 import { appRequest, createCrew, routeParams, type TestMember } from "./helpers/members";
@@ -30,7 +30,7 @@ afterAll(async () => {
 
 describe("practice tests through the tests API", () => {
   it("before the call: detail answers 403 naming where to call, and the body has no verdict", async () => {
-    const res = await testGet(appRequest(`/api/tests/${practiceId}`, { as: crew.apprentice }), routeParams({ id: practiceId }));
+    const res = await testGet(appRequest(`/api/vacuum-tests/${practiceId}`, { as: crew.apprentice }), routeParams({ id: practiceId }));
     expect(res.status).toBe(403);
     const text = await res.text();
     expect(JSON.parse(text).error.details.practiceCallUrl).toBe(`/practice/${practiceId}`);
@@ -38,7 +38,7 @@ describe("practice tests through the tests API", () => {
   });
 
   it("before the call: the list shows the row without verdict, numbers or finding codes", async () => {
-    const res = await testList(appRequest("/api/tests?isPractice=true", { as: crew.apprentice }));
+    const res = await testList(appRequest("/api/vacuum-tests?isPractice=true", { as: crew.apprentice }));
     expect(res.status).toBe(200);
     const item = (await res.json()).items.find((i: { id: string }) => i.id === practiceId);
     expect(item).toBeTruthy();
@@ -48,19 +48,19 @@ describe("practice tests through the tests API", () => {
   });
 
   it("before the call: re-analysis and the report PDF are refused with 403", async () => {
-    const again = await reanalyse(post(`/api/tests/${practiceId}/analyses`, crew.apprentice, { reason: "peek" }), routeParams({ id: practiceId }));
+    const again = await reanalyse(post(`/api/vacuum-tests/${practiceId}/analyses`, crew.apprentice, { reason: "peek" }), routeParams({ id: practiceId }));
     expect(again.status).toBe(403);
-    const pdf = await reportPdf(appRequest(`/api/tests/${practiceId}/report`, { as: crew.apprentice }), routeParams({ id: practiceId }));
+    const pdf = await reportPdf(appRequest(`/api/vacuum-tests/${practiceId}/report`, { as: crew.apprentice }), routeParams({ id: practiceId }));
     expect(pdf.status).toBe(403);
   });
 
   it("the trainer sees the verdict all along; the apprentice sees it after the call", async () => {
-    const trainer = await testGet(appRequest(`/api/tests/${practiceId}`, { as: crew.trainer }), routeParams({ id: practiceId }));
+    const trainer = await testGet(appRequest(`/api/vacuum-tests/${practiceId}`, { as: crew.trainer }), routeParams({ id: practiceId }));
     expect(trainer.status).toBe(200);
     expect((await trainer.json()).analysis.verdict).toBe("leak");
     const called = await callPost(post(`/api/practice/tests/${practiceId}/call`, crew.apprentice, { call: "leak", reason: "keeps climbing in a straight line" }), routeParams({ id: practiceId }));
     expect(called.status).toBeLessThan(300);
-    const after = await testGet(appRequest(`/api/tests/${practiceId}`, { as: crew.apprentice }), routeParams({ id: practiceId }));
+    const after = await testGet(appRequest(`/api/vacuum-tests/${practiceId}`, { as: crew.apprentice }), routeParams({ id: practiceId }));
     expect(after.status).toBe(200);
     expect((await after.json()).analysis.verdict).toBe("leak");
   });

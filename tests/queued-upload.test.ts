@@ -1,20 +1,20 @@
 /**
- * Large logs and bulk re-analysis as followed background jobs (lib/tests/queued-upload.ts,
- * lib/tests/bulk-reanalysis.ts; our rules). A log over ANALYSIS_JOB_MIN_KB answers 202 with a
+ * Large logs and bulk re-analysis as followed background jobs (lib/vacuum-tests/queued-upload.ts,
+ * lib/vacuum-tests/bulk-reanalysis.ts; our rules). A log over ANALYSIS_JOB_MIN_KB answers 202 with a
  * task; the job analyses it and makes the test, exactly as the engine on the request thread
  * would; an unreadable one ends the task with the importer's words and leaves nothing stored. A
  * profile's re-check gives every test of it a new analysis version. Real PostgreSQL, pg-boss, S3 fake.
  */
 import { randomUUID } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import { POST as uploadPost } from "@/app/api/tests/route";
-import { GET as testGet } from "@/app/api/tests/[id]/route";
+import { POST as uploadPost } from "@/app/api/vacuum-tests/route";
+import { GET as testGet } from "@/app/api/vacuum-tests/[id]/route";
 import { GET as taskGet } from "@/app/api/tasks/[id]/route";
 import { POST as profilePost } from "@/app/api/settings/profiles/route";
 import { PUT as profilePut } from "@/app/api/settings/profiles/[id]/route";
 import { POST as recheckPost } from "@/app/api/settings/profiles/[id]/reanalysis/route";
 import { env } from "@/lib/env";
-import { runAnalysis } from "@/lib/tests/engine";
+import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { crewForFile, jsonInit } from "./helpers/crew";
 import { jobRunnerForFile } from "./helpers/jobs";
 import { appRequest, createShop, routeParams, type TestMember } from "./helpers/members";
@@ -54,7 +54,7 @@ describe("large logs as queued analysis jobs (our rule)", () => {
   it("answers 202 with a task; the job makes the test with the same analysis the engine gives, and a retry finds it", async () => {
     expect(longLog.length).toBeGreaterThan(env().ANALYSIS_JOB_MIN_KB * 1024);
     const key = randomUUID();
-    const send = () => uploadPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: longLog, name: "overnight.csv" }, fields: { title: "Overnight hold" }, headers: { "idempotency-key": key } }));
+    const send = () => uploadPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: longLog, name: "overnight.csv" }, fields: { title: "Overnight hold" }, headers: { "idempotency-key": key } }));
     const res = await send();
     expect(res.status).toBe(202);
     const { task } = await res.json();
@@ -66,7 +66,7 @@ describe("large logs as queued analysis jobs (our rule)", () => {
     const { task: finished } = await followTask(task.id, crew.technician);
     expect(finished.state).toBe("done");
     expect(finished.done).toBe(1);
-    const detail = await (await testGet(appRequest(`/api/tests/${finished.testId}`, { as: crew.technician }), routeParams({ id: finished.testId! }))).json();
+    const detail = await (await testGet(appRequest(`/api/vacuum-tests/${finished.testId}`, { as: crew.technician }), routeParams({ id: finished.testId! }))).json();
     expect(detail.test.title).toBe("Overnight hold");
     expect(detail.analysis).toEqual(runAnalysis(longLog, detail.history[0].options).result);
     expect(await listKeys(`orgs/${crew.owner.organizationId}/tests/${finished.testId}/`)).toHaveLength(1);
@@ -82,7 +82,7 @@ describe("large logs as queued analysis jobs (our rule)", () => {
 
   it("an unreadable large log ends the task failed with the importer's words; its file is deleted and no test is made", async () => {
     const junk = "time,microns\n" + Array.from({ length: 150_000 }, (_, i) => `${i},abc`).join("\n") + "\n";
-    const res = await uploadPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: junk, name: "junk.csv" } }));
+    const res = await uploadPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: junk, name: "junk.csv" } }));
     expect(res.status).toBe(202);
     const { task } = await res.json();
     const { task: finished, stages } = await followTask(task.id, crew.technician);
@@ -105,7 +105,7 @@ describe("re-checking a profile's tests after an edit (our rule)", () => {
     const profileId = (await made.json()).profile.id;
     const ids: string[] = [];
     for (const name of ["sample-1-iso-microns.csv", "sample-2-elapsed-mtorr.csv", "sample-4-minutes-torr.csv"]) {
-      const r = await uploadPost(uploadRequest("/api/tests", { as: shop, file: { body: sampleText(name), name } }));
+      const r = await uploadPost(uploadRequest("/api/vacuum-tests", { as: shop, file: { body: sampleText(name), name } }));
       expect(r.status).toBe(201);
       ids.push((await r.json()).test.id);
     }
@@ -118,7 +118,7 @@ describe("re-checking a profile's tests after an edit (our rule)", () => {
     const { task: finished } = await followTask(task.id, shop);
     expect(finished).toMatchObject({ state: "done", done: 3, failedItems: 0 });
     for (const id of ids) {
-      const detail = await (await testGet(appRequest(`/api/tests/${id}`, { as: shop }), routeParams({ id }))).json();
+      const detail = await (await testGet(appRequest(`/api/vacuum-tests/${id}`, { as: shop }), routeParams({ id }))).json();
       const history = [...detail.history].sort((a: { version: number }, b: { version: number }) => b.version - a.version);
       expect(history.map((h: { version: number }) => h.version)).toEqual([2, 1]);
       expect(history[0].options.profile).toMatchObject({ name: "House rule, strict", limitMicrons: 600 });

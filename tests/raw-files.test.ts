@@ -7,8 +7,8 @@
  */
 import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { GET as rawGet } from "@/app/api/tests/[id]/raw/route";
-import { POST as testsPost } from "@/app/api/tests/route";
+import { GET as rawGet } from "@/app/api/vacuum-tests/[id]/raw/route";
+import { POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { db } from "@/db/client";
 import { uploads } from "@/db/schema";
 import { attachmentDisposition, rfc5987Value, safeFilename } from "@/lib/http/content-disposition";
@@ -29,13 +29,13 @@ function filenameFrom(disposition: string): string | null {
 }
 
 async function upload(name: string, type: string, body = sampleText(SAMPLE)) {
-  const res = await testsPost(uploadRequest("/api/tests", { as: crew.technician, file: { body, name, type } }));
+  const res = await testsPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body, name, type } }));
   expect(res.status, await res.clone().text()).toBe(201);
   return (await res.json()).test.id as string;
 }
 
 async function rawLink(testId: string): Promise<string> {
-  const res = await rawGet(appRequest(`/api/tests/${testId}/raw`, { as: crew.technician }), routeParams({ id: testId }));
+  const res = await rawGet(appRequest(`/api/vacuum-tests/${testId}/raw`, { as: crew.technician }), routeParams({ id: testId }));
   expect(res.status).toBe(200);
   return (await res.json()).url;
 }
@@ -89,7 +89,7 @@ describe("raw logs stored and served as text/csv attachments", () => {
 
   it("serves a log whose text is an HTML page as a text/csv attachment, never as a page", async () => {
     const html = `<html><body><script>fetch("/api/members/invitations",{method:"POST"})</script></body></html>\n${sampleText(SAMPLE)}`;
-    const res = await testsPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: html, name: "evil.html", type: "text/html" } }));
+    const res = await testsPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: html, name: "evil.html", type: "text/html" } }));
     if (res.status !== 201) {
       expect(res.status).toBe(422); // refused as a log is as good: nothing stored
       return;

@@ -7,7 +7,7 @@ import { randomUUID } from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { insertTask } from "@/db/queries/tasks";
-import { POST as uploadPost } from "@/app/api/tests/route";
+import { POST as uploadPost } from "@/app/api/vacuum-tests/route";
 import { sweepOrphanRawFiles } from "@/lib/jobs/raw-sweep";
 import { putRawLog, rawLogKey } from "@/lib/storage";
 import { crewForFile } from "./helpers/crew";
@@ -19,7 +19,7 @@ const HOUR = 3600;
 describe("orphan raw-file sweeper (our rule)", () => {
   it("deletes old unreferenced files only: a committed test's file, a queued analysis' file and a young orphan stay", async () => {
     const org = crew.owner.organizationId;
-    const res = await uploadPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: sampleText("sample-1-iso-microns.csv"), name: "kept.csv" } }));
+    const res = await uploadPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: sampleText("sample-1-iso-microns.csv"), name: "kept.csv" } }));
     expect(res.status).toBe(201);
     const [committed] = await listKeys(`orgs/${org}/tests/${(await res.json()).test.id}/`);
     const orphan = rawLogKey(org, randomUUID(), "orphan.csv");

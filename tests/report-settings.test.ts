@@ -4,8 +4,8 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as shopGet, PUT as shopPut } from "@/app/api/settings/shop/route";
-import { GET as detailGet, PATCH as detailPatch } from "@/app/api/tests/[id]/route";
-import { POST as testsPost } from "@/app/api/tests/route";
+import { GET as detailGet, PATCH as detailPatch } from "@/app/api/vacuum-tests/[id]/route";
+import { POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { appRequest, createCrew, routeParams, type TestMember } from "./helpers/members";
 import { jsonRequest } from "./helpers/uploads";
 import { seedTest } from "./helpers/seed-test";
@@ -39,13 +39,13 @@ describe("the shop's time zone (IANA time zone database names)", () => {
 describe("the note for the customer (kept apart from the internal notes)", () => {
   it("the test's technician and the lead write it; a trainer who can read the test may not; another technician cannot see it (404)", async () => {
     const id = await seedTest(crew.technician, { notes: "Internal only." });
-    const patch = (as: TestMember, customerNote: string) => detailPatch(json("PATCH", { customerNote }, as, `/api/tests/${id}`), routeParams({ id }));
+    const patch = (as: TestMember, customerNote: string) => detailPatch(json("PATCH", { customerNote }, as, `/api/vacuum-tests/${id}`), routeParams({ id }));
     expect((await patch(crew.technician, "  We will come back on Friday.  ")).status).toBe(200);
-    let detail = (await (await detailGet(appRequest(`/api/tests/${id}`, { as: crew.lead }), routeParams({ id }))).json()).test;
+    let detail = (await (await detailGet(appRequest(`/api/vacuum-tests/${id}`, { as: crew.lead }), routeParams({ id }))).json()).test;
     expect(detail.customerNote).toBe("We will come back on Friday.");
     expect(detail.notes).toBe("Internal only.");
     expect((await patch(crew.lead, "")).status).toBe(200);
-    detail = (await (await detailGet(appRequest(`/api/tests/${id}`, { as: crew.lead }), routeParams({ id }))).json()).test;
+    detail = (await (await detailGet(appRequest(`/api/vacuum-tests/${id}`, { as: crew.lead }), routeParams({ id }))).json()).test;
     expect(detail.customerNote).toBeNull();
     expect((await patch(crew.trainer, "x")).status).toBe(403);
     const other = await createCrew();
@@ -59,7 +59,7 @@ describe("the note for the customer (kept apart from the internal notes)", () =>
 describe("typed readings, minutes since isolation (common practice: the count starts when the pump is valved off)", () => {
   it("takes the first typed reading as the isolation and judges a steady 62 microns/min typed leak with calibrated confidence", async () => {
     const readings = Array.from({ length: 16 }, (_, m) => ({ time: m, microns: 350 + 62 * m }));
-    const res = await testsPost(jsonRequest("/api/tests", { timeMode: "minutes", readings, customerNote: "Leak found; repair quoted." }, crew.technician));
+    const res = await testsPost(jsonRequest("/api/vacuum-tests", { timeMode: "minutes", readings, customerNote: "Leak found; repair quoted." }, crew.technician));
     expect(res.status).toBe(201);
     const body = await res.json();
     expect(body.analysis.isolationAt).toBe(0);

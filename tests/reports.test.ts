@@ -2,9 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PDFParse } from "pdf-parse";
 import { db } from "@/db/client";
 import { createCustomer, createSite, createSystem } from "@/db/queries/records";
-import { GET as reportGet } from "@/app/api/tests/[id]/report/route";
-import { POST as emailPost } from "@/app/api/tests/[id]/email-report/route";
-import { GET as eventsGet } from "@/app/api/tests/[id]/events/route";
+import { GET as reportGet } from "@/app/api/vacuum-tests/[id]/report/route";
+import { POST as emailPost } from "@/app/api/vacuum-tests/[id]/email-report/route";
+import { GET as eventsGet } from "@/app/api/vacuum-tests/[id]/events/route";
 import { buildReportModel } from "@/lib/reports/model";
 import { logAxisOf, renderReportPdf } from "@/lib/reports/pdf";
 import { jobRunnerForFile } from "./helpers/jobs";
@@ -40,7 +40,7 @@ async function parsePdf(bytes: Uint8Array) {
 
 describe("the report PDF (pdfkit, read back with pdf-parse)", () => {
   it("answers a PDF whose text has the verdict, the job, the profile result and the cautions (trade primer cautions)", async () => {
-    const res = await reportGet(appRequest(`/api/tests/${leakId}/report`, { as: crew.lead }), routeParams({ id: leakId }));
+    const res = await reportGet(appRequest(`/api/vacuum-tests/${leakId}/report`, { as: crew.lead }), routeParams({ id: leakId }));
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("application/pdf");
     const bytes = new Uint8Array(await res.arrayBuffer());
@@ -78,16 +78,16 @@ describe("the report PDF (pdfkit, read back with pdf-parse)", () => {
   });
 
   it("an apprentice gets 404, another shop 404, nobody signed in 401 (visibility rule, DEVELOPERS.md)", async () => {
-    expect((await reportGet(appRequest(`/api/tests/${leakId}/report`, { as: crew.apprentice }), routeParams({ id: leakId }))).status).toBe(404);
+    expect((await reportGet(appRequest(`/api/vacuum-tests/${leakId}/report`, { as: crew.apprentice }), routeParams({ id: leakId }))).status).toBe(404);
     const stranger = await createShop();
-    expect((await reportGet(appRequest(`/api/tests/${leakId}/report`, { as: stranger }), routeParams({ id: leakId }))).status).toBe(404);
-    expect((await reportGet(appRequest(`/api/tests/${leakId}/report`), routeParams({ id: leakId }))).status).toBe(401);
+    expect((await reportGet(appRequest(`/api/vacuum-tests/${leakId}/report`, { as: stranger }), routeParams({ id: leakId }))).status).toBe(404);
+    expect((await reportGet(appRequest(`/api/vacuum-tests/${leakId}/report`), routeParams({ id: leakId }))).status).toBe(401);
   });
 });
 
 describe("e-mailing the report to a customer (reports.share is owner + lead, DEVELOPERS.md)", () => {
   const send = (as: TestMember, body: unknown) =>
-    emailPost(appRequest(`/api/tests/${leakId}/email-report`, { method: "POST", as, body: JSON.stringify(body), headers: { "content-type": "application/json" } }), routeParams({ id: leakId }));
+    emailPost(appRequest(`/api/vacuum-tests/${leakId}/email-report`, { method: "POST", as, body: JSON.stringify(body), headers: { "content-type": "application/json" } }), routeParams({ id: leakId }));
 
   it("the customer receives text, HTML and the PDF attached; the audit trail records it", async () => {
     const res = await send(crew.lead, { to: "office@harbor-lane.example.test", message: "As discussed on site." });
@@ -102,7 +102,7 @@ describe("e-mailing the report to a customer (reports.share is owner + lead, DEV
     expect(mail.attachments[0]).toMatchObject({ contentType: "application/pdf" });
     expect(mail.attachments[0].filename).toMatch(/\.pdf$/);
     expect(mail.attachments[0].size).toBeGreaterThan(2000);
-    const { events } = await (await eventsGet(appRequest(`/api/tests/${leakId}/events`, { as: crew.lead }), routeParams({ id: leakId }))).json();
+    const { events } = await (await eventsGet(appRequest(`/api/vacuum-tests/${leakId}/events`, { as: crew.lead }), routeParams({ id: leakId }))).json();
     expect(events.at(-1)).toMatchObject({ kind: "report_emailed", note: "To office@harbor-lane.example.test.", actorName: crew.lead.name });
   });
 
@@ -154,7 +154,7 @@ describe("the report as the customer's and the warranty desk's copy", () => {
     await insertTestEvent(db(), { organizationId: org, testId: id, actorId: shop.lead.userId, kind: "sent_back", fromStatus: "waiting_review", toStatus: "sent_back", note: "Pull down again and hold 15 minutes." });
     const model = (await buildReportModel(db(), { organizationId: org, testId: id }))!;
     expect(model.testedAtWords).toBe("January 15, 2026 at 2:05 PM CST"); // 20:05 UTC is 14:05 in Chicago in January (UTC−6)
-    const res = await reportGet(appRequest(`/api/tests/${id}/report`, { as: shop.lead }), routeParams({ id }));
+    const res = await reportGet(appRequest(`/api/vacuum-tests/${id}/report`, { as: shop.lead }), routeParams({ id }));
     const text = (await parsePdf(new Uint8Array(await res.arrayBuffer()))).text.replace(/\s+/g, " ");
     expect(text).toContain("January 15, 2026 at 2:05 PM CST");
     expect(text).toContain("We will return Friday to find the leak.");

@@ -1,5 +1,5 @@
 /**
- * POST /api/tests/:id/retests — the re-test log of a sent-back test, end to end against the real
+ * POST /api/vacuum-tests/:id/retests — the re-test log of a sent-back test, end to end against the real
  * database, the real S3 fake and the real SMTP catcher. Status codes per RFC 9110 (§15.3.2 201,
  * §15.5.4 403, §15.5.5 404, §15.5.10 409, §15.5.21 422, §15.6.4 503); Idempotency-Key as in the
  * IETF httpapi draft "The Idempotency-Key HTTP Header Field". Invented data.
@@ -9,16 +9,16 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
 import { sql } from "drizzle-orm";
-import { POST as retestPost } from "@/app/api/tests/[id]/retests/route";
-import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
-import { GET as detailGet } from "@/app/api/tests/[id]/route";
+import { POST as retestPost } from "@/app/api/vacuum-tests/[id]/retests/route";
+import { POST as reviewPost } from "@/app/api/vacuum-tests/[id]/review/route";
+import { GET as detailGet } from "@/app/api/vacuum-tests/[id]/route";
 import { db } from "@/db/client";
 import { setRetestFaultForTests } from "@/lib/review/retest";
 import { crewForFile, jsonInit } from "./helpers/crew";
 import { jobRunnerForFile } from "./helpers/jobs";
 import { waitForMail } from "./helpers/mailbox";
 import { addMember, appRequest, createShop, routeParams, type TestMember } from "./helpers/members";
-import { POST as uploadPost } from "@/app/api/tests/route";
+import { POST as uploadPost } from "@/app/api/vacuum-tests/route";
 import { listKeys, sampleText, sha256, uploadRequest } from "./helpers/uploads";
 import { seedTest } from "./helpers/seed-test";
 
@@ -31,13 +31,13 @@ afterEach(() => setRetestFaultForTests(null));
 
 async function sentBackTest(tech: TestMember, lead: TestMember, title: string): Promise<string> {
   const id = await seedTest(tech, { verdict: "leak", title });
-  const res = await reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(lead, { action: "send_back", note: "Pull down again and hold 15 minutes." })), routeParams({ id }));
+  const res = await reviewPost(appRequest(`/api/vacuum-tests/${id}/review`, jsonInit(lead, { action: "send_back", note: "Pull down again and hold 15 minutes." })), routeParams({ id }));
   expect(res.status).toBe(200);
   return id;
 }
 
 async function retest(id: string, as: TestMember, file: { body: string; name: string }, opts: { note?: string; key?: string } = {}) {
-  const req = uploadRequest(`/api/tests/${id}/retests`, {
+  const req = uploadRequest(`/api/vacuum-tests/${id}/retests`, {
     as, file, fields: opts.note ? { note: opts.note } : {}, headers: opts.key ? { "idempotency-key": opts.key } : {},
   });
   const res = await retestPost(req, routeParams({ id }));
@@ -58,7 +58,7 @@ async function stateOf(id: string) {
   };
 }
 
-describe("POST /api/tests/:id/retests", () => {
+describe("POST /api/vacuum-tests/:id/retests", () => {
   it("stores the re-test log, makes analysis version 2 current (version 1 kept), resubmits and e-mails the lead (201, RFC 9110 §15.3.2)", async () => {
     const { technician: tech, lead } = crew;
     const id = await sentBackTest(tech, lead, "Dental office rooftop unit");
@@ -80,14 +80,14 @@ describe("POST /api/tests/:id/retests", () => {
     expect(s.uploads[0].object_key.startsWith(`orgs/${tech.organizationId}/tests/${id}/retests/`)).toBe(true);
     expect(await listKeys(`orgs/${tech.organizationId}/tests/${id}/`)).toEqual([s.uploads[0].object_key]);
 
-    const detail = await (await detailGet(appRequest(`/api/tests/${id}`, { as: tech }), routeParams({ id }))).json();
+    const detail = await (await detailGet(appRequest(`/api/vacuum-tests/${id}`, { as: tech }), routeParams({ id }))).json();
     expect(detail.history.map((h: { version: number }) => h.version)).toEqual([1, 2]);
     expect(detail.upload.sha256).toBe(sha256(text));
 
     const mail = await waitForMail(lead.email, /Re-test to review: Dental office rooftop unit/);
     expect(mail.text).toContain(tech.name);
     expect(mail.text).toContain("Replaced the hose gasket.");
-    expect(mail.text).toContain(`/tests/${id}`);
+    expect(mail.text).toContain(`/vacuum-tests/${id}`);
   });
 
   it("answers 422 with the importer's message for an unreadable log and changes nothing (no analysis, no upload, no object)", async () => {
@@ -124,7 +124,7 @@ describe("POST /api/tests/:id/retests", () => {
     const key = randomUUID();
     expect((await retest(id, tech, { body: sampleText(PASS), name: PASS }, { key })).status).toBe(201);
     const before = await db().execute<{ n: number }>(sql`select count(*)::int as n from vacuum_tests where organization_id = ${tech.organizationId}`);
-    const res = await uploadPost(uploadRequest("/api/tests", { as: tech, file: { body: sampleText(PASS), name: PASS }, headers: { "idempotency-key": key } }));
+    const res = await uploadPost(uploadRequest("/api/vacuum-tests", { as: tech, file: { body: sampleText(PASS), name: PASS }, headers: { "idempotency-key": key } }));
     expect(res.status).toBe(422);
     expect((await res.json()).error.message).toMatch(/^Idempotency-Key: .*different request/);
     const after = await db().execute<{ n: number }>(sql`select count(*)::int as n from vacuum_tests where organization_id = ${tech.organizationId}`);

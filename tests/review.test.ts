@@ -2,8 +2,8 @@ import { describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { vacuumTests, testEvents } from "@/db/schema";
-import { GET as reviewGet, POST as reviewPost } from "@/app/api/tests/[id]/review/route";
-import { GET as eventsGet } from "@/app/api/tests/[id]/events/route";
+import { GET as reviewGet, POST as reviewPost } from "@/app/api/vacuum-tests/[id]/review/route";
+import { GET as eventsGet } from "@/app/api/vacuum-tests/[id]/events/route";
 import { GET as queueGet } from "@/app/api/review/route";
 import { routeNewTestToReview } from "@/lib/review/auto";
 import { checkTransition, TRANSITIONS } from "@/lib/review/state";
@@ -16,10 +16,10 @@ import { QUEUES } from "@/lib/jobs/queues";
 import { firstAppLink, waitForMail } from "./helpers/mailbox";
 import { seedTest } from "./helpers/seed-test";
 import { sampleText, uploadRequest } from "./helpers/uploads";
-import { POST as uploadPost } from "@/app/api/tests/route";
+import { POST as uploadPost } from "@/app/api/vacuum-tests/route";
 
 const post = (id: string, as: TestMember, body: unknown) =>
-  reviewPost(appRequest(`/api/tests/${id}/review`, jsonInit(as, body)), routeParams({ id }));
+  reviewPost(appRequest(`/api/vacuum-tests/${id}/review`, jsonInit(as, body)), routeParams({ id }));
 
 const crew = crewForFile();
 jobRunnerForFile();
@@ -50,8 +50,8 @@ describe("review through the API (permission matrix, DEVELOPERS.md)", () => {
     expect((await res.json()).status).toBe("waiting_review");
     const mail = await waitForMail(crew.lead.email, /Review requested: Attic air handler/);
     expect(mail.text).toContain(crew.technician.name);
-    expect(firstAppLink(mail)).toMatch(new RegExp(`/tests/${id}$`));
-    expect(mail.html).toContain(`/tests/${id}`);
+    expect(firstAppLink(mail)).toMatch(new RegExp(`/vacuum-tests/${id}$`));
+    expect(mail.html).toContain(`/vacuum-tests/${id}`);
   });
 
   it("a technician cannot sign off (tests.review is owner + lead) → 403, status unchanged", async () => {
@@ -66,14 +66,14 @@ describe("review through the API (permission matrix, DEVELOPERS.md)", () => {
   it("an apprentice cannot see another technician's test → 404 on review and events (visibility rule, DEVELOPERS.md)", async () => {
     const id = await seedTest(crew.technician);
     expect((await post(id, crew.apprentice, { action: "request_review" })).status).toBe(404);
-    expect((await eventsGet(appRequest(`/api/tests/${id}/events`, { as: crew.apprentice }), routeParams({ id }))).status).toBe(404);
+    expect((await eventsGet(appRequest(`/api/vacuum-tests/${id}/events`, { as: crew.apprentice }), routeParams({ id }))).status).toBe(404);
   });
 
   it("another shop's lead gets 404, never 403 (cross-organization rule, DEVELOPERS.md)", async () => {
     const id = await seedTest(crew.technician);
     const stranger = await createShop();
     expect((await post(id, stranger, { action: "sign_off" })).status).toBe(404);
-    expect((await reviewGet(appRequest(`/api/tests/${id}/review`, { as: stranger }), routeParams({ id }))).status).toBe(404);
+    expect((await reviewGet(appRequest(`/api/vacuum-tests/${id}/review`, { as: stranger }), routeParams({ id }))).status).toBe(404);
   });
 
   it("send back needs a request; sign off of a sent-back test is 409; resubmit then sign off; signed off is final (product rule)", async () => {
@@ -99,7 +99,7 @@ describe("review through the API (permission matrix, DEVELOPERS.md)", () => {
     expect(again.status).toBe(409);
     expect((await again.json()).error.message).toMatch(/final/);
 
-    const ev = await eventsGet(appRequest(`/api/tests/${id}/events`, { as: crew.technician }), routeParams({ id }));
+    const ev = await eventsGet(appRequest(`/api/vacuum-tests/${id}/events`, { as: crew.technician }), routeParams({ id }));
     const { events } = await ev.json();
     expect(events.map((e: { kind: string }) => e.kind)).toEqual(["review_requested", "sent_back", "resubmitted", "signed_off"]);
     expect(events[1]).toMatchObject({ actorName: crew.lead.name, fromStatus: "waiting_review", toStatus: "sent_back", note: "Pull down again and hold 15 minutes." });
@@ -108,9 +108,9 @@ describe("review through the API (permission matrix, DEVELOPERS.md)", () => {
 
   it("GET review lists only the actions the role may take (permission matrix, DEVELOPERS.md)", async () => {
     const id = await seedTest(crew.technician);
-    const asTech = await (await reviewGet(appRequest(`/api/tests/${id}/review`, { as: crew.technician }), routeParams({ id }))).json();
+    const asTech = await (await reviewGet(appRequest(`/api/vacuum-tests/${id}/review`, { as: crew.technician }), routeParams({ id }))).json();
     expect(asTech.actions).toEqual(["request_review", "ask_help"]);
-    const asLead = await (await reviewGet(appRequest(`/api/tests/${id}/review`, { as: crew.lead }), routeParams({ id }))).json();
+    const asLead = await (await reviewGet(appRequest(`/api/vacuum-tests/${id}/review`, { as: crew.lead }), routeParams({ id }))).json();
     expect(asLead.actions).toEqual(["request_review", "ask_help", "sign_off", "send_back"]);
   });
 });
@@ -136,7 +136,7 @@ describe("automatic routing into the lead's queue (product rule)", () => {
   it("an uploaded leak is queued by the upload itself; the leads' mail names the technician and the site (new or existing)", async () => {
     const leakLog = sampleText("sample-2-elapsed-mtorr.csv"); // a leak per fixtures/samples/EXPECTED.md
     const upload = async (fields: Record<string, string>) => {
-      const res = await uploadPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: leakLog, name: "leak.csv" }, fields }));
+      const res = await uploadPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: leakLog, name: "leak.csv" }, fields }));
       expect(res.status).toBe(201);
       return ((await res.json()) as { test: { id: string; status: string; site: { id: string } | null } }).test;
     };

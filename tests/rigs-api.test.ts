@@ -6,7 +6,7 @@ import { POST as addItem } from "@/app/api/rigs/[id]/items/route";
 import { POST as addEvent } from "@/app/api/rigs/[id]/events/route";
 import { GET as rigOfTest, PUT as setRigOfTest } from "@/app/api/rigs/by-test/[testId]/route";
 import { db } from "@/db/client";
-import { insertTest } from "@/db/queries/tests";
+import { insertTest } from "@/db/queries/vacuum-tests";
 import { rigReminders, type ReminderEvent, type ReminderItem } from "@/lib/rigs/reminders";
 import type { Role } from "@/lib/permissions";
 import { addMember, appRequest, createCrew, createShop, routeParams, type TestMember } from "./helpers/members";

@@ -11,7 +11,7 @@ import { GET as customerGet } from "@/app/api/customers/[id]/route";
 import { GET as systemGet } from "@/app/api/systems/[id]/route";
 import { POST as rigsPost } from "@/app/api/rigs/route";
 import { PATCH as rigPatch } from "@/app/api/rigs/[id]/route";
-import { POST as testsPost } from "@/app/api/tests/route";
+import { POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { ROLES, can, canSeeCustomerContact, type Role } from "@/lib/permissions";
 import { canManageAllRigs } from "@/lib/rigs/access";
 import { appRequest, routeParams } from "./helpers/members";
@@ -25,7 +25,7 @@ beforeAll(async () => {
 
 function upload(role: Role, fields: Record<string, string>, key?: string) {
   const as = w.crew[role];
-  return testsPost(uploadRequest("/api/tests", { as, file: { body: sampleText(SAMPLE), name: SAMPLE }, fields, headers: key ? { "idempotency-key": key } : {} }));
+  return testsPost(uploadRequest("/api/vacuum-tests", { as, file: { body: sampleText(SAMPLE), name: SAMPLE }, fields, headers: key ? { "idempotency-key": key } : {} }));
 }
 
 describe("fields of an upload that create records need records.manage, like the records routes", () => {

@@ -11,7 +11,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { ROLES } from "@/lib/permissions";
 import { matches, type Probe } from "./role-matrix/expect";
 import { RECORD_PROBES } from "./role-matrix/probes-records";
-import { TEST_PROBES } from "./role-matrix/probes-tests";
+import { TEST_PROBES } from "./role-matrix/probes-vacuum-tests";
 import { buildWorld, type World } from "./role-matrix/world";
 
 const PROBES: Probe[] = [...TEST_PROBES, ...RECORD_PROBES];

@@ -2,8 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { shareLinks } from "@/db/schema";
-import { GET as linksGet, POST as linksPost } from "@/app/api/tests/[id]/share-links/route";
-import { DELETE as linkDelete } from "@/app/api/tests/[id]/share-links/[linkId]/route";
+import { GET as linksGet, POST as linksPost } from "@/app/api/vacuum-tests/[id]/share-links/route";
+import { DELETE as linkDelete } from "@/app/api/vacuum-tests/[id]/share-links/[linkId]/route";
 import { GET as sharedPdf } from "@/app/share/[token]/pdf/route";
 import { createShareLink, hashShareToken, resolveShareToken } from "@/lib/reports/share";
 import { appRequest, createCrew, createShop, routeParams, type TestMember } from "./helpers/members";
@@ -22,7 +22,7 @@ afterAll(async () => {
 });
 
 const create = (as: TestMember, body: unknown = {}) =>
-  linksPost(appRequest(`/api/tests/${testId}/share-links`, { method: "POST", as, body: JSON.stringify(body), headers: { "content-type": "application/json" } }), routeParams({ id: testId }));
+  linksPost(appRequest(`/api/vacuum-tests/${testId}/share-links`, { method: "POST", as, body: JSON.stringify(body), headers: { "content-type": "application/json" } }), routeParams({ id: testId }));
 const tokenOf = (url: string) => new URL(url).pathname.split("/").pop()!;
 
 describe("share links (reports.share is owner + lead, DEVELOPERS.md)", () => {
@@ -55,11 +55,11 @@ describe("share links (reports.share is owner + lead, DEVELOPERS.md)", () => {
     const { url, id } = await (await create(crew.owner)).json();
     const token = tokenOf(url);
     expect((await resolveShareToken(db(), { token })).status).toBe("ok");
-    const del = await linkDelete(appRequest(`/api/tests/${testId}/share-links/${id}`, { method: "DELETE", as: crew.lead }), routeParams({ id: testId, linkId: id }));
+    const del = await linkDelete(appRequest(`/api/vacuum-tests/${testId}/share-links/${id}`, { method: "DELETE", as: crew.lead }), routeParams({ id: testId, linkId: id }));
     expect(del.status).toBe(200);
     expect((await resolveShareToken(db(), { token })).status).toBe("revoked");
     expect((await sharedPdf(new Request(url + "/pdf"), routeParams({ token }))).status).toBe(404);
-    const list = await (await linksGet(appRequest(`/api/tests/${testId}/share-links`, { as: crew.lead }), routeParams({ id: testId }))).json();
+    const list = await (await linksGet(appRequest(`/api/vacuum-tests/${testId}/share-links`, { as: crew.lead }), routeParams({ id: testId }))).json();
     expect(list.links.find((l: { id: string }) => l.id === id).state).toBe("revoked");
     expect(JSON.stringify(list)).not.toContain(token);
   });
@@ -69,7 +69,7 @@ describe("share links (reports.share is owner + lead, DEVELOPERS.md)", () => {
     const stranger = await createShop();
     expect((await create(stranger)).status).toBe(404);
     const { id } = await (await create(crew.lead)).json();
-    expect((await linkDelete(appRequest(`/api/tests/${testId}/share-links/${id}`, { method: "DELETE", as: stranger }), routeParams({ id: testId, linkId: id }))).status).toBe(404);
+    expect((await linkDelete(appRequest(`/api/vacuum-tests/${testId}/share-links/${id}`, { method: "DELETE", as: stranger }), routeParams({ id: testId, linkId: id }))).status).toBe(404);
     expect((await resolveShareToken(db(), { token: "A".repeat(43) })).status).toBe("unknown");
     expect((await resolveShareToken(db(), { token: "../../etc" })).status).toBe("unknown");
   });

@@ -1,7 +1,7 @@
-/** The typed-readings screen's rules (app/(app)/tests/new/readings.ts): pure, no browser needed. */
+/** The typed-readings screen's rules (app/(app)/vacuum-tests/new/readings.ts): pure, no browser needed. */
 import { describe, expect, it } from "vitest";
-import { checkReadings, suggestNextTime, type ReadingRow } from "@/app/(app)/tests/new/readings";
-import { typedReadingsToCsv } from "@/lib/tests/typed";
+import { checkReadings, suggestNextTime, type ReadingRow } from "@/app/(app)/vacuum-tests/new/readings";
+import { typedReadingsToCsv } from "@/lib/vacuum-tests/typed";
 
 const rows = (pairs: [string, string][]): ReadingRow[] => pairs.map(([time, microns]) => ({ time, microns }));
 

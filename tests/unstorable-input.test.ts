@@ -11,7 +11,7 @@ import { describe, expect, it } from "vitest";
 import { POST as customersPost } from "@/app/api/customers/route";
 import { POST as sitesPost } from "@/app/api/sites/route";
 import { POST as systemsPost } from "@/app/api/systems/route";
-import { GET as testsGet, POST as testsPost } from "@/app/api/tests/route";
+import { GET as testsGet, POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { env } from "@/lib/env";
 import { crewForFile } from "./helpers/crew";
 import { appRequest, routeParams } from "./helpers/members";
@@ -26,7 +26,7 @@ async function errorOf(res: Response) {
 describe("NUL characters (PostgreSQL text and jsonb refuse U+0000)", () => {
   it("in the uploaded file's name: 422 naming the file name, nothing stored", async () => {
     const before = await countRows(crew.owner.organizationId);
-    const res = await testsPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: sampleText("sample-1-iso-microns.csv"), name: "log\u0000.csv" } }));
+    const res = await testsPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: sampleText("sample-1-iso-microns.csv"), name: "log\u0000.csv" } }));
     const e = await errorOf(res);
     expect(e.status).toBe(422);
     expect(e.code).toBe("unstorable_input");
@@ -35,7 +35,7 @@ describe("NUL characters (PostgreSQL text and jsonb refuse U+0000)", () => {
   });
 
   it("in a form field of an upload: 422 naming form.title", async () => {
-    const res = await testsPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: sampleText("sample-1-iso-microns.csv"), name: "a.csv" }, fields: { title: "Roof\u0000top" } }));
+    const res = await testsPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: sampleText("sample-1-iso-microns.csv"), name: "a.csv" }, fields: { title: "Roof\u0000top" } }));
     expect(await errorOf(res)).toMatchObject({ status: 422, message: expect.stringMatching(/^form\.title: contains a NUL/) });
   });
 
@@ -46,12 +46,12 @@ describe("NUL characters (PostgreSQL text and jsonb refuse U+0000)", () => {
 
   it("in typed readings: 422 naming the reading", async () => {
     const readings = Array.from({ length: 6 }, (_, i) => ({ time: i === 3 ? "00:0\u00003" : `00:0${i}`, microns: 400 }));
-    const res = await testsPost(jsonRequest("/api/tests", { timeMode: "clock", readings }, crew.technician));
+    const res = await testsPost(jsonRequest("/api/vacuum-tests", { timeMode: "clock", readings }, crew.technician));
     expect(await errorOf(res)).toMatchObject({ status: 422, message: expect.stringMatching(/^body\.readings\[3\]\.time: contains a NUL/) });
   });
 
   it("in a query parameter: 422 naming it", async () => {
-    const res = await testsGet(appRequest("/api/tests?technicianId=a%00b", { as: crew.owner }));
+    const res = await testsGet(appRequest("/api/vacuum-tests?technicianId=a%00b", { as: crew.owner }));
     expect(await errorOf(res)).toMatchObject({ status: 422, message: expect.stringMatching(/^query\.technicianId: contains a NUL/) });
   });
 });
@@ -66,7 +66,7 @@ describe("numbers no column can hold", () => {
   it("a log whose time column steps by 1e305 s: 422 saying the time column is out of range, nothing stored (not 503)", async () => {
     const rows = ["Time (s),Vacuum (microns)", ...Array.from({ length: 40 }, (_, i) => `${i * 1e305},${i < 10 ? 5000 - i * 450 : 450 + i}`)];
     const before = await countRows(crew.owner.organizationId);
-    const res = await testsPost(uploadRequest("/api/tests", { as: crew.technician, file: { body: rows.join("\n"), name: "huge-steps.csv" } }));
+    const res = await testsPost(uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: rows.join("\n"), name: "huge-steps.csv" } }));
     const e = await errorOf(res);
     expect(e.status).toBe(422);
     expect(e.code).toBe("invalid_file");
@@ -76,7 +76,7 @@ describe("numbers no column can hold", () => {
 
   it("typed readings minutes of 1e305: 422, not 503", async () => {
     const readings = Array.from({ length: 8 }, (_, i) => ({ time: i * 1e305, microns: 400 + i }));
-    const res = await testsPost(jsonRequest("/api/tests", { timeMode: "minutes", readings }, crew.technician));
+    const res = await testsPost(jsonRequest("/api/vacuum-tests", { timeMode: "minutes", readings }, crew.technician));
     expect((await errorOf(res)).status).toBe(422);
   });
 });

@@ -6,8 +6,8 @@
  */
 import { randomUUID } from "node:crypto";
 import { afterEach, describe, expect, it } from "vitest";
-import { POST as testsPost } from "@/app/api/tests/route";
-import { setUploadFaultForTests } from "@/lib/tests/upload";
+import { POST as testsPost } from "@/app/api/vacuum-tests/route";
+import { setUploadFaultForTests } from "@/lib/vacuum-tests/upload";
 import { crewForFile } from "./helpers/crew";
 import { countRows, listKeys, sampleText, uploadRequest } from "./helpers/uploads";
 
@@ -17,7 +17,7 @@ const SAMPLE = "sample-1-iso-microns.csv";
 afterEach(() => setUploadFaultForTests(null));
 
 function request(key: string, signal?: AbortSignal) {
-  const base = uploadRequest("/api/tests", { as: crew.technician, file: { body: sampleText(SAMPLE), name: SAMPLE }, headers: { "idempotency-key": key } });
+  const base = uploadRequest("/api/vacuum-tests", { as: crew.technician, file: { body: sampleText(SAMPLE), name: SAMPLE }, headers: { "idempotency-key": key } });
   return signal ? new Request(base, { signal }) : base;
 }
 

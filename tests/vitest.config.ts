@@ -11,7 +11,7 @@ export default defineConfig({
     hookTimeout: 60_000,
     pool: "forks",
     setupFiles: ["tests/setup-jobs.ts"],
-    // The engine's worker threads run lib/tests/engine-worker.ts through tsx (no Next.js bundle here).
+    // The engine's worker threads run lib/engine/worker.ts through tsx (no Next.js bundle here).
     env: { ENGINE_WORKER_ENTRY: "source" },
   },
 });

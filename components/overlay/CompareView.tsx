@@ -128,7 +128,7 @@ export function CompareView({ ids }: { ids: string[] }) {
               {data.tests.map((t, i) => (
                 <tr key={t.id} className="border-t border-surface-line">
                   <th scope="row" className="px-4 py-2 font-medium">
-                    <Link href={`/tests/${t.id}`} className="underline-offset-2 hover:underline">{i + 1}. {t.title}</Link>
+                    <Link href={`/vacuum-tests/${t.id}`} className="underline-offset-2 hover:underline">{i + 1}. {t.title}</Link>
                     <span className="block text-caption font-normal text-fg-soft">{t.technicianName}</span>
                   </th>
                   <td className="px-2 py-2">{t.analysisHidden ? <span className="text-caption text-fg-soft">Make your call first</span> : <VerdictBadge verdict={t.verdict} meetsProfile={t.meetsProfile} />}</td>

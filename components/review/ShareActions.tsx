@@ -33,8 +33,8 @@ export function ShareActions({ testId, canShare, customerEmail }: ShareActionsPr
     <Card title="Report" data-testid="share-actions">
       <div className="space-y-4">
         <div className="flex flex-wrap gap-2">
-          <LinkButton href={`/tests/${testId}/report`} variant="secondary">Open the report</LinkButton>
-          <LinkButton href={`/api/tests/${testId}/report?download=1`} variant="quiet" prefetch={false}>Download PDF</LinkButton>
+          <LinkButton href={`/vacuum-tests/${testId}/report`} variant="secondary">Open the report</LinkButton>
+          <LinkButton href={`/api/vacuum-tests/${testId}/report?download=1`} variant="quiet" prefetch={false}>Download PDF</LinkButton>
         </div>
         {canShare && (
           <>

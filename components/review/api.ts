@@ -51,23 +51,23 @@ export const reviewKeys = {
   links: (id: string) => ["share-links", id] as const,
 };
 
-export const getReviewState = (id: string, signal?: AbortSignal) => apiFetch<ReviewState>(`/api/tests/${id}/review`, {}, { signal });
+export const getReviewState = (id: string, signal?: AbortSignal) => apiFetch<ReviewState>(`/api/vacuum-tests/${id}/review`, {}, { signal });
 export const postReviewAction = (id: string, action: ReviewAction, note?: string) =>
-  apiFetch<{ status: Status }>(`/api/tests/${id}/review`, { method: "POST", body: JSON.stringify({ action, note: note || null }) });
-/** POST /api/tests/:id/retests: the re-test log (multipart), the same key on every retry. */
+  apiFetch<{ status: Status }>(`/api/vacuum-tests/${id}/review`, { method: "POST", body: JSON.stringify({ action, note: note || null }) });
+/** POST /api/vacuum-tests/:id/retests: the re-test log (multipart), the same key on every retry. */
 export const postRetest = (id: string, file: File, note: string, idempotencyKey: string) => {
   const form = new FormData();
   form.set("file", file, file.name);
   if (note.trim()) form.set("note", note.trim());
-  return apiFetch<RetestResult>(`/api/tests/${id}/retests`, { method: "POST", body: form }, { idempotencyKey });
+  return apiFetch<RetestResult>(`/api/vacuum-tests/${id}/retests`, { method: "POST", body: form }, { idempotencyKey });
 };
-export const getComments = (id: string, signal?: AbortSignal) => apiFetch<{ comments: CommentItem[] }>(`/api/tests/${id}/comments`, {}, { signal });
+export const getComments = (id: string, signal?: AbortSignal) => apiFetch<{ comments: CommentItem[] }>(`/api/vacuum-tests/${id}/comments`, {}, { signal });
 export const postComment = (id: string, body: string, atSeconds: number | null) =>
-  apiFetch<{ comment: CommentItem }>(`/api/tests/${id}/comments`, { method: "POST", body: JSON.stringify({ body, atSeconds }) });
-export const getEvents = (id: string, signal?: AbortSignal) => apiFetch<{ events: EventItem[] }>(`/api/tests/${id}/events`, {}, { signal });
-export const getShareLinks = (id: string, signal?: AbortSignal) => apiFetch<{ links: ShareLinkItem[] }>(`/api/tests/${id}/share-links`, {}, { signal });
+  apiFetch<{ comment: CommentItem }>(`/api/vacuum-tests/${id}/comments`, { method: "POST", body: JSON.stringify({ body, atSeconds }) });
+export const getEvents = (id: string, signal?: AbortSignal) => apiFetch<{ events: EventItem[] }>(`/api/vacuum-tests/${id}/events`, {}, { signal });
+export const getShareLinks = (id: string, signal?: AbortSignal) => apiFetch<{ links: ShareLinkItem[] }>(`/api/vacuum-tests/${id}/share-links`, {}, { signal });
 export const createShareLinkCall = (id: string, expiresInDays: number) =>
-  apiFetch<{ id: string; url: string; expiresAt: string }>(`/api/tests/${id}/share-links`, { method: "POST", body: JSON.stringify({ expiresInDays }) });
-export const revokeShareLinkCall = (id: string, linkId: string) => apiFetch<{ id: string }>(`/api/tests/${id}/share-links/${linkId}`, { method: "DELETE" });
+  apiFetch<{ id: string; url: string; expiresAt: string }>(`/api/vacuum-tests/${id}/share-links`, { method: "POST", body: JSON.stringify({ expiresInDays }) });
+export const revokeShareLinkCall = (id: string, linkId: string) => apiFetch<{ id: string }>(`/api/vacuum-tests/${id}/share-links/${linkId}`, { method: "DELETE" });
 export const emailReportCall = (id: string, to: string, message: string) =>
-  apiFetch<{ outboxId: string }>(`/api/tests/${id}/email-report`, { method: "POST", body: JSON.stringify({ to, message: message || null }) });
+  apiFetch<{ outboxId: string }>(`/api/vacuum-tests/${id}/email-report`, { method: "POST", body: JSON.stringify({ to, message: message || null }) });

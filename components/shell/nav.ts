@@ -13,8 +13,8 @@ export interface NavItem {
 export function navItemsFor(role: Role): NavItem[] {
   const items: NavItem[] = [
     { href: "/home", label: "Home", icon: "home" },
-    { href: "/tests", label: "Tests", icon: "tests" },
-    { href: "/tests/new", label: "New test", icon: "new", prominent: true },
+    { href: "/vacuum-tests", label: "Tests", icon: "tests" },
+    { href: "/vacuum-tests/new", label: "New test", icon: "new", prominent: true },
   ];
   if (can(role, "tests.review")) items.push({ href: "/review", label: "Review", icon: "review" });
   items.push({ href: "/casebook", label: "Casebook", icon: "casebook" });
@@ -27,7 +27,7 @@ export function navItemsFor(role: Role): NavItem[] {
   return items;
 }
 
-/** True when `pathname` is inside `href` ("/tests/123" is in Tests, but "/tests/new" is not). */
+/** True when `pathname` is inside `href` ("/vacuum-tests/123" is in Tests, but "/vacuum-tests/new" is not). */
 export function isCurrent(pathname: string, href: string, all: NavItem[]): boolean {
   if (pathname === href) return true;
   if (!pathname.startsWith(href + "/")) return false;
@@ -37,6 +37,6 @@ export function isCurrent(pathname: string, href: string, all: NavItem[]): boole
 
 /** On a phone the bar holds four places and "More"; the rest live in the sheet. */
 export function splitForPhone(items: NavItem[]): { bar: NavItem[]; sheet: NavItem[] } {
-  const barHrefs = ["/home", "/tests", "/tests/new", items.some((i) => i.href === "/review") ? "/review" : "/casebook"];
+  const barHrefs = ["/home", "/vacuum-tests", "/vacuum-tests/new", items.some((i) => i.href === "/review") ? "/review" : "/casebook"];
   return { bar: barHrefs.map((h) => items.find((i) => i.href === h)!), sheet: items.filter((i) => !barHrefs.includes(i.href)) };
 }

@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { analyses, findings, user } from "@/db/schema";
+import { lockTestById, updateTestCurrentAnalysis } from "./vacuum-tests";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 
 export interface NewAnalysis {
@@ -52,6 +53,26 @@ export async function insertAnalysis(db: Db, params: NewAnalysis) {
   const [row] = await db.insert(analyses).values(rows.analysis).returning({ id: analyses.id, version: analyses.version, createdAt: analyses.createdAt });
   if (rows.findings.length) await db.insert(findings).values(rows.findings);
   return row;
+}
+
+/**
+ * The one writer of a test's next analysis (re-analysis, re-test, bulk re-check; the upload's first
+ * one goes in its single statement with the same analysisRowsOf): inside the caller's transaction,
+ * lock the test, store the run as version n + 1 with its findings, and make it current.
+ * `beforeCurrent` runs after the version is written and before the test points at it (a caller
+ * spends its Idempotency-Key there). Null when the test is not in the organization.
+ */
+export async function saveNewAnalysis(
+  tx: Db,
+  p: { id?: string; organizationId: string; testId: string; options: AnalyzeOptions; result: AnalysisResult; series: NewAnalysis["series"]; reason: string | null; createdById: string },
+  beforeCurrent?: (saved: { analysisId: string; version: number }) => Promise<void>,
+): Promise<{ analysisId: string; version: number } | null> {
+  if (!(await lockTestById(tx, { organizationId: p.organizationId, testId: p.testId }))) return null;
+  const version = await getNextAnalysisVersionByTest(tx, { organizationId: p.organizationId, testId: p.testId });
+  const saved = await insertAnalysis(tx, { ...p, version });
+  await beforeCurrent?.({ analysisId: saved.id, version });
+  await updateTestCurrentAnalysis(tx, { organizationId: p.organizationId, testId: p.testId, analysisId: saved.id, verdict: p.result.verdict });
+  return { analysisId: saved.id, version };
 }
 
 /** The next version number of a test's analyses (call with the test row locked). */

@@ -1,7 +1,7 @@
 import { and, eq, asc } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { member, user, invitation, organization } from "@/db/schema";
-import { isRole, type Role } from "@/lib/permissions";
+import { isRole, type Role } from "@/db/roles";
 
 export interface Membership {
   organizationId: string;

@@ -1,7 +1,7 @@
 import { and, desc, eq, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { jobs, pressureTests, user } from "@/db/schema";
-import { canReadAllTests } from "@/lib/permissions";
+import { canReadAllTests } from "@/db/roles";
 import type { Viewer } from "./visibility";
 
 export type PressureTestRow = typeof pressureTests.$inferSelect;

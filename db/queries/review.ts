@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gte, inArray, lte, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { analyses, member, organization, sites, systems, testEvents, user, vacuumTests, type TestEventKind, type TestStatus } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
@@ -161,12 +161,46 @@ export async function listReviewQueueByOrganization(db: Db, params: { viewer: Vi
  * Submitted, non-practice tests of the organization whose current analysis is not a pass,
  * misses the profile, or whose technician asked for help: they belong in the review queue.
  */
-/** The rule of the review queue: a submitted, non-practice test that is not a pass, misses its profile or asks for help. */
+/** What the review rule reads of a test: columns for the queue, values for a test not yet inserted. */
+interface ReviewRuleInputs {
+  status: SQL;
+  isPractice: SQL;
+  helpRequested: SQL;
+  verdict: SQL;
+  meetsProfile: SQL;
+}
+
+/**
+ * The one rule of the review queue, as one SQL predicate: a submitted, non-practice test that is
+ * not a pass, misses its profile or asks for help. The queue and the sweep apply it to stored rows
+ * (dueForReview); the upload applies it to the test it is about to insert (entersReviewOnUpload).
+ */
+function reviewRule(x: ReviewRuleInputs): SQL {
+  return sql`(${x.status} = 'submitted' and ${x.isPractice} = false and (${x.helpRequested} or ${x.verdict} <> 'pass' or coalesce(${x.meetsProfile}, false) = false))`;
+}
+
 const dueForReview = () => [
-  eq(vacuumTests.status, "submitted"),
-  eq(vacuumTests.isPractice, false),
-  sql`(${vacuumTests.helpRequested} or ${analyses.verdict} <> 'pass' or coalesce((${analyses.result}->>'meetsProfile')::boolean, false) = false)`,
+  reviewRule({
+    status: sql`${vacuumTests.status}`,
+    isPractice: sql`${vacuumTests.isPractice}`,
+    helpRequested: sql`${vacuumTests.helpRequested}`,
+    verdict: sql`${analyses.verdict}`,
+    meetsProfile: sql`(${analyses.result}->>'meetsProfile')::boolean`,
+  }),
 ];
+
+/** The review rule for a new test the upload is about to insert as submitted: true when it goes straight into the queue. */
+export async function entersReviewOnUpload(db: Db, k: { verdict: string; meetsProfile: boolean | null; helpRequested: boolean; isPractice: boolean }): Promise<boolean> {
+  const rule = reviewRule({
+    status: sql`'submitted'`,
+    isPractice: sql`${k.isPractice}::boolean`,
+    helpRequested: sql`${k.helpRequested}::boolean`,
+    verdict: sql`${k.verdict}::text`,
+    meetsProfile: sql`${k.meetsProfile}::boolean`,
+  });
+  const r = await db.execute<{ due: boolean }>(sql`select ${rule} as due`);
+  return r.rows[0]?.due === true;
+}
 
 /** Organizations with tests due for review (the review sweep's first step; a system job across shops). */
 export async function listOrganizationsWithTestsDueForReview(db: Db): Promise<string[]> {

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { member, rigEvents, rigItems, rigReminderNotices, rigs, testRigs, user, vacuumTests } from "@/db/schema";
-import { canManageAllRigs, canManageOwnRigs } from "@/lib/rigs/access";
+import { canManageAllRigs, canManageOwnRigs } from "@/db/roles";
 import { visibleTestsWhere, type Viewer } from "./visibility";
 
 export type RigRow = typeof rigs.$inferSelect;

@@ -1,7 +1,7 @@
 import { and, eq, exists, or, sql, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { testShares, vacuumTests } from "@/db/schema";
-import { canReadAllTests, type Role } from "@/lib/permissions";
+import { canReadAllTests, type Role } from "@/db/roles";
 
 /** Who is looking: the member and their role in the organization. */
 export interface Viewer {

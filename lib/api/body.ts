@@ -70,6 +70,28 @@ function jsonTooLarge(limit: number) {
     new AppError("body_too_large", `The request body is ${Math.ceil(sizeBytes / 1024)} kB; this request takes at most ${Math.floor(limit / 1024)} kB of JSON.`, { sizeBytes, limitBytes: limit });
 }
 
+/** Room for the form fields and multipart framing beside an uploaded file itself. */
+export const MULTIPART_SLACK_BYTES = 256 * 1024;
+
+/** 413 for an upload over MAX_UPLOAD_BYTES, naming the file's size and the limit. */
+export function fileTooLarge(sizeBytes: number): AppError {
+  const limit = env().MAX_UPLOAD_BYTES;
+  return new AppError("file_too_large", `The file is ${(sizeBytes / 1048576).toFixed(1)} MB; the limit is ${(limit / 1048576).toFixed(0)} MB.`, {
+    sizeBytes,
+    limitBytes: limit,
+  });
+}
+
+/** A multipart form under the upload cap (MAX_UPLOAD_BYTES and room for the fields): 413 above it, 400 when it is not a form. */
+export async function readMultipartBody(req: Request): Promise<FormData> {
+  const bytes = await readBodyCapped(req, env().MAX_UPLOAD_BYTES + MULTIPART_SLACK_BYTES, fileTooLarge);
+  try {
+    return await new Response(bytes, { headers: { "content-type": req.headers.get("content-type") ?? "" } }).formData();
+  } catch {
+    throw new AppError("invalid_input", "file: the form could not be read (expected multipart/form-data with a file field).");
+  }
+}
+
 /** A JSON body under `capBytes` (MAX_JSON_BYTES unless a route that carries a log says more): 413 above it, 400 when it is not JSON. */
 export async function readJsonBody(req: Request, capBytes = env().MAX_JSON_BYTES): Promise<unknown> {
   const bytes = await readBodyCapped(req, capBytes, jsonTooLarge(capBytes));

@@ -5,7 +5,7 @@ import { getAuth } from "@/lib/auth";
 import { AppError } from "@/lib/errors";
 import { describeError, log } from "@/lib/log";
 import { can, type Permission, type Role } from "@/lib/permissions";
-import { assertAcceptedBody, readJsonBody, type BodyKind } from "./body";
+import { assertAcceptedBody, mediaTypeOf, readJsonBody, readMultipartBody, type BodyKind } from "./body";
 import { assertSameOrigin } from "./csrf";
 import { isDatabaseUnreachable } from "./failures";
 import { toErrorResponse, zodDetails } from "./respond";
@@ -33,7 +33,8 @@ interface Spec<B, Q, P> {
   params?: ZodType<P>;
   /**
    * What a state-changing request may carry: JSON by default. A route that takes files says
-   * "multipart" (and reads its own body, with its own cap and checks).
+   * "multipart": the wrapper reads the form under the upload cap and hands it over as `form`; a
+   * route that takes both gets a JSON body without a schema as `json` (under the JSON cap).
    */
   accepts?: readonly BodyKind[];
   /** Largest JSON body, bytes, for a route whose JSON carries a whole log; MAX_JSON_BYTES otherwise. */
@@ -46,6 +47,10 @@ interface Call<B, Q, P> {
   body: B;
   query: Q;
   params: P;
+  /** The multipart form, read under the upload cap (routes that accept "multipart"). */
+  form?: FormData;
+  /** A JSON body read under the JSON cap, for a route that accepts both kinds and parses it itself. */
+  json?: unknown;
 }
 
 /** The signed-in user, or 401; a database that does not answer is a 503, never a 500. */
@@ -105,11 +110,15 @@ function guardRequest(req: Request, accepts: readonly BodyKind[] = ["json"]): vo
   assertAcceptedBody(req, accepts);
 }
 
-async function partsOf<B, Q, P>(spec: Omit<Spec<B, Q, P>, "permission" | "accepts">, req: Request, ctx?: RouteContext) {
+async function partsOf<B, Q, P>(spec: Omit<Spec<B, Q, P>, "permission">, req: Request, ctx?: RouteContext) {
   const params = await parsePart(spec.params, ctx ? await ctx.params : {}, "path");
   const query = await parsePart(spec.query, Object.fromEntries(new URL(req.url).searchParams), "query");
+  const type = mediaTypeOf(req.headers);
+  const takesFiles = spec.accepts?.includes("multipart") ?? false;
+  const form = takesFiles && type === "multipart/form-data" ? await readMultipartBody(req) : undefined;
+  const json = takesFiles && !spec.body && type === "application/json" ? await readJsonBody(req, spec.maxJsonBytes) : undefined;
   const body = spec.body ? await parsePart(spec.body, await readJsonBody(req, spec.maxJsonBytes), "body") : (undefined as B);
-  return { params, query, body };
+  return { params, query, body, form, json };
 }
 
 function answer(out: unknown): Response {
@@ -130,8 +139,8 @@ export function route<B = undefined, Q = undefined, P = undefined>(
       guardRequest(req, spec.accepts);
       const actor = await requireActor(req.headers);
       requirePermission(actor, spec.permission);
-      const { params, query, body } = await partsOf(spec, req, ctx);
-      return answer(await fn({ req, actor, body, query, params }));
+      const { params, query, body, form, json } = await partsOf(spec, req, ctx);
+      return answer(await fn({ req, actor, body, query, params, form, json }));
     } catch (err) {
       return toErrorResponse(err, req);
     }

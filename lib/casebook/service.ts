@@ -8,7 +8,7 @@ import {
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
 import { hiddenPracticeTestIds } from "@/lib/practice/gate";
-import { requireVisibleTest } from "@/lib/tests/read";
+import { requireVisibleTest } from "@/lib/vacuum-tests/read";
 import { toEntryDto, type CasebookEntryDto, type CasebookPinDto } from "./dto";
 
 export interface CollectionSummary {

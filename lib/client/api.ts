@@ -4,7 +4,7 @@
  * second test. Uploads go through XMLHttpRequest for progress.
  */
 import type { AnalysisResult, PressureUnit, UnsureReason, Verdict } from "@/analysis/types";
-import type { TestListItem as ServerTestListItem } from "@/lib/tests/dto";
+import type { VacuumTestListItem as ServerTestListItem } from "@/lib/vacuum-tests/dto";
 
 export type TestStatus = "submitted" | "waiting_review" | "signed_off" | "sent_back";
 
@@ -41,10 +41,10 @@ export interface TestRecord {
 export type CreatedTest = { test: TestRecord; analysis: AnalysisResult; practiceCallUrl?: undefined } | { test: TestRecord; analysis: null; practiceCallUrl: string };
 
 /** A row of the tests list: the server's shape, with the verdict typed as the analysis' Verdict. */
-export type TestListItem = Omit<ServerTestListItem, "verdict"> & { verdict: Verdict | null };
+export type VacuumTestListItem = Omit<ServerTestListItem, "verdict"> & { verdict: Verdict | null };
 
 export interface TestPage {
-  items: TestListItem[];
+  items: VacuumTestListItem[];
   nextCursor: string | null;
 }
 
@@ -254,14 +254,14 @@ async function withRetries<T>(run: () => Promise<T>, retries: number): Promise<T
   }
 }
 
-/** POST /api/tests with a gauge file; the key is sent on every retry. */
+/** POST /api/vacuum-tests with a gauge file; the key is sent on every retry. */
 export function uploadTest(form: FormData, opts: UploadOptions): Promise<CreatedTest> {
-  return withRetries(() => xhrPost<CreatedTest>("/api/tests", form, opts), opts.retries ?? 2);
+  return withRetries(() => xhrPost<CreatedTest>("/api/vacuum-tests", form, opts), opts.retries ?? 2);
 }
 
-/** POST /api/tests with typed readings (JSON body). */
+/** POST /api/vacuum-tests with typed readings (JSON body). */
 export function createTestFromReadings(body: TypedReadingsBody, idempotencyKey: string): Promise<CreatedTest> {
-  return apiFetch<CreatedTest>("/api/tests", { method: "POST", body: JSON.stringify(body) }, { idempotencyKey });
+  return apiFetch<CreatedTest>("/api/vacuum-tests", { method: "POST", body: JSON.stringify(body) }, { idempotencyKey });
 }
 
 /** POST /api/imports/preview: the columns and what the importer would assume. */
@@ -285,19 +285,19 @@ export interface TestFilters {
 export function listTests(filters: TestFilters, signal?: AbortSignal): Promise<TestPage> {
   const q = new URLSearchParams();
   for (const [k, v] of Object.entries(filters)) if (v !== undefined && v !== "") q.set(k, String(v));
-  return apiFetch<TestPage>(`/api/tests?${q}`, {}, { signal });
+  return apiFetch<TestPage>(`/api/vacuum-tests?${q}`, {}, { signal });
 }
 
 export function getTest(id: string, signal?: AbortSignal): Promise<TestDetail> {
-  return apiFetch<TestDetail>(`/api/tests/${encodeURIComponent(id)}`, {}, { signal });
+  return apiFetch<TestDetail>(`/api/vacuum-tests/${encodeURIComponent(id)}`, {}, { signal });
 }
 
 export function getRawLink(id: string): Promise<{ url: string; expiresInSeconds: number }> {
-  return apiFetch(`/api/tests/${encodeURIComponent(id)}/raw`);
+  return apiFetch(`/api/vacuum-tests/${encodeURIComponent(id)}/raw`);
 }
 
 export function reanalyse(id: string, body: ReanalyseBody, idempotencyKey: string): Promise<{ analysis: AnalysisResult; version: number; analysisId: string }> {
-  return apiFetch(`/api/tests/${encodeURIComponent(id)}/analyses`, { method: "POST", body: JSON.stringify(body) }, { idempotencyKey });
+  return apiFetch(`/api/vacuum-tests/${encodeURIComponent(id)}/analyses`, { method: "POST", body: JSON.stringify(body) }, { idempotencyKey });
 }
 
 /** The first array in a list response ({ items } or { sites } …), so small shape changes do not break pickers. */

@@ -22,7 +22,7 @@ export interface TaskProgress {
   finishedAt: string | null;
 }
 
-/** POST /api/tests answers a new test, or (a large log) the task that will make it. */
+/** POST /api/vacuum-tests answers a new test, or (a large log) the task that will make it. */
 export type UploadAnswer = CreatedTest | { task: TaskProgress };
 
 export const taskKeys = { one: (id: string) => ["task", id] as const };

@@ -30,9 +30,9 @@ export const QUEUES = {
   reviewSweep: { name: "review-sweep", options: { retryLimit: 1, retryDelay: 30, expireInSeconds: 300 } },
   /** Rig upkeep reminders by e-mail (lib/rigs/reminder-mail.ts): one at a time, as two runs at once could both mail a new reminder. */
   rigReminders: { name: "rig-reminders", options: { policy: "singleton", retryLimit: 3, retryDelay: 300, expireInSeconds: 600 } },
-  /** A large log stored by the upload, analysed and saved as a test (lib/tests/log-job.ts). */
+  /** A large log stored by the upload, analysed and saved as a test (lib/vacuum-tests/log-job.ts). */
   logAnalysis: { name: "log-analysis", options: { retryLimit: 3, retryDelay: 10, retryBackoff: true, expireInSeconds: 300 } },
-  /** Re-analysis of many tests, a chunk per job (lib/tests/bulk-reanalysis.ts). */
+  /** Re-analysis of many tests, a chunk per job (lib/vacuum-tests/bulk-reanalysis.ts). */
   bulkReanalysis: { name: "bulk-reanalysis", options: { retryLimit: 5, retryDelay: 10, retryBackoff: true, expireInSeconds: 300 } },
 } as const satisfies Record<string, QueueSpec>;
 

@@ -8,7 +8,7 @@
  * whatever these miss, the database being away as well, say.
  */
 import type { Database } from "@/db/client";
-import { listReferencedObjectKeysByOrganization } from "@/db/queries/tests";
+import { listReferencedObjectKeysByOrganization } from "@/db/queries/vacuum-tests";
 import { log } from "@/lib/log";
 import { deleteObject } from "@/lib/storage";
 import { db as defaultDb } from "@/db/client";

@@ -1,14 +1,14 @@
 /**
  * The orphan raw-file sweeper, a scheduled job (every 10 minutes). An upload stores the raw log
  * first and then commits the test; if the transaction fails the file is deleted at once
- * (lib/tests/stored-commit.ts), but a server that dies between the two leaves a file no test
+ * (lib/vacuum-tests/stored-commit.ts), but a server that dies between the two leaves a file no test
  * references. This finds such files under `orgs/<organization>/` once they are older than the
  * safe age (RAW_SWEEP_SAFE_AGE_SECONDS, default 30 minutes: far longer than any upload takes to
  * commit, so a file whose test is still being written is never touched) and deletes them.
  * A file stays while a committed upload row, or a queued large-log analysis, names it.
  */
 import type { Database } from "@/db/client";
-import { listReferencedObjectKeysByOrganization } from "@/db/queries/tests";
+import { listReferencedObjectKeysByOrganization } from "@/db/queries/vacuum-tests";
 import { listObjectKeysOfOpenTasksByOrganization } from "@/db/queries/tasks";
 import { log } from "@/lib/log";
 import { deleteObject, listStoredObjects } from "@/lib/storage";

@@ -6,7 +6,7 @@ import { composeMail, type OutgoingMail } from "@/lib/mail";
 import { env } from "@/lib/env";
 import { storyLine } from "@/lib/reports/words";
 
-export interface TestSummary {
+export interface VacuumTestSummary {
   id: string;
   title: string;
   verdict: string | null;
@@ -17,15 +17,15 @@ export interface TestSummary {
 }
 
 export function testUrl(testId: string): string {
-  return new URL(`/tests/${testId}`, env().BETTER_AUTH_URL).toString();
+  return new URL(`/vacuum-tests/${testId}`, env().BETTER_AUTH_URL).toString();
 }
 
 /** The two statements (curve, profile) and the site, in the words of every screen. */
-function verdictLine(t: TestSummary): string {
+function verdictLine(t: VacuumTestSummary): string {
   return `${storyLine(t.verdict, t.meetsProfile)}${t.siteName ? ` Site: ${t.siteName}.` : ""}`;
 }
 
-export function reviewRequestedMail(to: string, t: TestSummary, opts: { by: string | null; help: boolean; note?: string | null; automatic?: string }): OutgoingMail {
+export function reviewRequestedMail(to: string, t: VacuumTestSummary, opts: { by: string | null; help: boolean; note?: string | null; automatic?: string }): OutgoingMail {
   const who = opts.by ?? "Riseline";
   const headline = opts.help
     ? `${who} asks for help with "${t.title}".`
@@ -41,7 +41,7 @@ export function reviewRequestedMail(to: string, t: TestSummary, opts: { by: stri
 }
 
 /** To the leads: the technician put a re-test log on a sent-back test; it waits for review again. */
-export function retestUploadedMail(to: string, t: TestSummary, opts: { by: string; version: number; note?: string | null }): OutgoingMail {
+export function retestUploadedMail(to: string, t: VacuumTestSummary, opts: { by: string; version: number; note?: string | null }): OutgoingMail {
   return composeMail({
     to,
     subject: `Re-test to review: ${t.title}`,
@@ -55,7 +55,7 @@ export function retestUploadedMail(to: string, t: TestSummary, opts: { by: strin
 }
 
 /** A comment on a test, to whoever should answer it (the technician, or the leads). */
-export function commentMail(to: string, t: TestSummary, opts: { by: string; body: string; atSeconds: number | null }): OutgoingMail {
+export function commentMail(to: string, t: VacuumTestSummary, opts: { by: string; body: string; atSeconds: number | null }): OutgoingMail {
   const at = opts.atSeconds != null ? ` at ${(opts.atSeconds / 60).toFixed(1)} min on the curve` : "";
   return composeMail({
     to,
@@ -65,7 +65,7 @@ export function commentMail(to: string, t: TestSummary, opts: { by: string; body
   });
 }
 
-export function signedOffMail(to: string, t: TestSummary, opts: { by: string; note?: string | null }): OutgoingMail {
+export function signedOffMail(to: string, t: VacuumTestSummary, opts: { by: string; note?: string | null }): OutgoingMail {
   return composeMail({
     to,
     subject: `Signed off: ${t.title}`,
@@ -74,7 +74,7 @@ export function signedOffMail(to: string, t: TestSummary, opts: { by: string; no
   });
 }
 
-export function sentBackMail(to: string, t: TestSummary, opts: { by: string; request: string }): OutgoingMail {
+export function sentBackMail(to: string, t: VacuumTestSummary, opts: { by: string; request: string }): OutgoingMail {
   return composeMail({
     to,
     subject: `Sent back: ${t.title}`,
@@ -94,7 +94,7 @@ export function sentBackMail(to: string, t: TestSummary, opts: { by: string; req
  */
 export function reportMail(
   to: string,
-  t: TestSummary & { organizationName: string; testedOn: string },
+  t: VacuumTestSummary & { organizationName: string; testedOn: string },
   opts: { message?: string | null; hold?: string | null; customerNote?: string | null },
 ): OutgoingMail {
   return composeMail({

@@ -12,7 +12,7 @@ import {
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
 import { canReadAllTests } from "@/lib/permissions";
-import { requireVisibleTest } from "@/lib/tests/read";
+import { requireVisibleTest } from "@/lib/vacuum-tests/read";
 import { practiceGate, practisesCalls } from "./gate";
 import type { PracticeCallInput } from "./schemas";
 

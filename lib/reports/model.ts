@@ -11,7 +11,7 @@ import { getSiteById, getSystemById } from "@/db/queries/records";
 import { getOrganizationNameById, listReviewEventsByTest } from "@/db/queries/review";
 import { getRigByTest, listRigEventsByRig, listRigItemsByRig } from "@/db/queries/rigs";
 import { getOrganizationTimeZoneById } from "@/db/queries/settings";
-import { getTestById, getUploadByTest } from "@/db/queries/tests";
+import { getTestById, getUploadByTest } from "@/db/queries/vacuum-tests";
 import type { AcceptanceProfile, AnalysisResult, Finding } from "@/analysis/types";
 import type { TestStatus } from "@/db/schema";
 import { storyOf, type Story } from "@/lib/verdict/story";

@@ -11,8 +11,8 @@ import type { TestStatus } from "@/db/schema";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
-import { requireVisibleTest } from "@/lib/tests/read";
-import { reviewRequestedMail, sentBackMail, signedOffMail, type TestSummary } from "@/lib/notify/messages";
+import { requireVisibleTest } from "@/lib/vacuum-tests/read";
+import { reviewRequestedMail, sentBackMail, signedOffMail, type VacuumTestSummary } from "@/lib/notify/messages";
 import { queueMail } from "@/lib/notify/outbox";
 import type { OutgoingMail } from "@/lib/mail";
 import { ACTION_PERMISSION, NOTE_REQUIRED, checkTransition, type ReviewAction } from "./state";
@@ -34,7 +34,7 @@ const EVENT_KIND = {
   resubmit: "resubmitted",
 } as const;
 
-async function mailsFor(tx: Tx, actor: Actor, action: ReviewAction, summary: TestSummary, createdById: string, note: string | null): Promise<OutgoingMail[]> {
+async function mailsFor(tx: Tx, actor: Actor, action: ReviewAction, summary: VacuumTestSummary, createdById: string, note: string | null): Promise<OutgoingMail[]> {
   const org = actor.organizationId;
   if (action === "sign_off" || action === "send_back") {
     if (createdById === actor.userId) return [];
@@ -72,7 +72,7 @@ export async function applyReviewAction(
     const event = await insertTestEvent(tx, {
       organizationId: actor.organizationId, testId, actorId: actor.userId, kind: EVENT_KIND[action], fromStatus: locked.status, toStatus: check.to, note,
     });
-    const summary: TestSummary = { id: testId, title: locked.title, verdict: locked.verdict, technicianName: detail.createdByName, siteName: detail.siteName };
+    const summary: VacuumTestSummary = { id: testId, title: locked.title, verdict: locked.verdict, technicianName: detail.createdByName, siteName: detail.siteName };
     const mails = await mailsFor(tx, actor, action, summary, locked.createdById, note);
     const mailIds = await queueMail(tx, mails.map((m) => ({ ...m, organizationId: actor.organizationId, testId })));
     return { testId, fromStatus: locked.status, status: check.to, helpRequested, eventId: event.id, mailIds };

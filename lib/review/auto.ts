@@ -5,7 +5,7 @@
  * leads. Practice tests never enter the queue. Idempotent: a test already moved is left alone.
  */
 import type { Database, Db } from "@/db/client";
-import { getTestById } from "@/db/queries/tests";
+import { getTestById } from "@/db/queries/vacuum-tests";
 import { randomUUID } from "node:crypto";
 import { getSiteById } from "@/db/queries/records";
 import {
@@ -45,10 +45,8 @@ export interface KnownNewTest {
   siteName?: string | null;
 }
 
-/** The rule of listTestsDueForReviewByOrganization, for a test about to be inserted or just inserted. */
-export function entersReviewOnUpload(k: KnownNewTest): boolean {
-  return !k.isPractice && (k.helpRequested || k.verdict !== "pass" || k.meetsProfile !== true);
-}
+/** The rule of listTestsDueForReviewByOrganization, for a test about to be inserted: the same SQL predicate (db/queries/review.ts). */
+export { entersReviewOnUpload } from "@/db/queries/review";
 
 /**
  * The rows the rule adds to a new test that the upload inserts straight into review: Riseline's

@@ -6,7 +6,7 @@
  */
 import type { Tx } from "@/db/client";
 import { getUserEmailById, listReviewerEmailsByOrganization } from "@/db/queries/review";
-import type { TestDetailRow } from "@/db/queries/tests";
+import type { VacuumTestDetailRow } from "@/db/queries/vacuum-tests";
 import type { Actor } from "@/lib/api/handler";
 import { commentMail } from "@/lib/notify/messages";
 import { queueMail } from "@/lib/notify/outbox";
@@ -15,7 +15,7 @@ import { can } from "@/lib/permissions";
 export async function queueCommentMail(
   tx: Tx,
   actor: Actor,
-  params: { detail: TestDetailRow; body: string; atSeconds: number | null },
+  params: { detail: VacuumTestDetailRow; body: string; atSeconds: number | null },
 ): Promise<string[]> {
   const t = params.detail.test;
   const org = actor.organizationId;

@@ -1,7 +1,7 @@
 /**
  * A re-test on a sent-back test: the technician uploads the new gauge log onto the same test.
- * Same pipeline as the first upload (lib/tests/upload.ts): analyse in memory → store the raw
- * file → one transaction, with the same compensation (storeThenCommit, lib/tests/stored-commit.ts):
+ * Same pipeline as the first upload (lib/vacuum-tests/upload.ts): analyse in memory → store the raw
+ * file → one transaction, with the same compensation (storeThenCommit, lib/vacuum-tests/stored-commit.ts):
  *
  *  - An unreadable log throws LogError before anything is stored (422; the test stays sent back).
  *  - Storage failing → 503, no rows written.
@@ -10,7 +10,7 @@
  *    stay in the history), sent_back → waiting_review, the audit event "retest_uploaded" and the
  *    leads' e-mail in the outbox with its delivery job.
  *  - An Idempotency-Key the same person already used for this same re-test answers with the same
- *    analysis; used for a different request it is a 422 (lib/tests/idempotency.ts); two identical
+ *    analysis; used for a different request it is a 422 (lib/vacuum-tests/idempotency.ts); two identical
  *    concurrent requests race on the idempotency_keys primary key, the loser rolls back and
  *    deletes its object.
  *
@@ -20,9 +20,9 @@
 import { randomUUID } from "node:crypto";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import type { Database, Tx } from "@/db/client";
-import { getAnalysisById, getNextAnalysisVersionByTest, insertAnalysis } from "@/db/queries/analyses";
+import { getAnalysisById, saveNewAnalysis } from "@/db/queries/analyses";
 import { insertTestEvent, listReviewerEmailsByOrganization, lockTestReviewStateById, updateTestStatusById } from "@/db/queries/review";
-import { getIdempotencyKeyByKey, insertIdempotencyKey, insertUpload, updateIdempotencyKeyAnalysis, updateTestCurrentAnalysis } from "@/db/queries/tests";
+import { getIdempotencyKeyByKey, insertIdempotencyKey, insertUpload, updateIdempotencyKeyAnalysis } from "@/db/queries/vacuum-tests";
 import type { TestStatus } from "@/db/schema";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
@@ -30,13 +30,13 @@ import { retestUploadedMail } from "@/lib/notify/messages";
 import { queueMail } from "@/lib/notify/outbox";
 import { can } from "@/lib/permissions";
 import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
-import { analyseOffThread } from "@/lib/tests/engine-pool";
-import { sha256Hex } from "@/lib/tests/files";
-import { assertSameRequest, requestFingerprint, type SpentKey } from "@/lib/tests/idempotency";
-import { KeyTaken, storeThenCommit } from "@/lib/tests/stored-commit";
-import { compactOptions, resolveProfile } from "@/lib/tests/options";
-import { requireVisibleTest } from "@/lib/tests/read";
-import type { ReceivedFile } from "@/lib/tests/request";
+import { analyseLog } from "@/lib/engine/door";
+import { sha256Hex } from "@/lib/vacuum-tests/files";
+import { assertSameRequest, requestFingerprint, type SpentKey } from "@/lib/vacuum-tests/idempotency";
+import { KeyTaken, storeThenCommit } from "@/lib/vacuum-tests/stored-commit";
+import { compactOptions, resolveProfile } from "@/lib/vacuum-tests/options";
+import { requireVisibleTest } from "@/lib/vacuum-tests/read";
+import type { ReceivedFile } from "@/lib/vacuum-tests/request";
 import { checkTransition } from "./state";
 
 export interface RetestInput {
@@ -114,7 +114,7 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
   if (!early.ok) throw new AppError("conflict", `${early.message} A re-test log goes onto a test that was sent back.`, { status: detail.test.status });
 
   const options = await optionsForRetest(db, org, detail.test.currentAnalysisId);
-  const run = await analyseOffThread(input.file.text, options); // LogError → 422 before anything is stored
+  const run = await analyseLog(input.file.text, options); // LogError → 422 before anything is stored
 
   const analysisId = randomUUID();
   const objectKey = retestLogKey(org, testId, randomUUID(), input.file.filename);
@@ -137,13 +137,15 @@ export async function uploadRetest(db: Database, actor: Actor, testId: string, i
       await insertUpload(tx, {
         organizationId: org, testId, objectKey, sha256, sizeBytes: input.file.bytes.byteLength, filename: input.file.filename, contentType: RAW_LOG_CONTENT_TYPE,
       });
-      const version = await getNextAnalysisVersionByTest(tx, { organizationId: org, testId });
-      await insertAnalysis(tx, {
-        id: analysisId, organizationId: org, testId, version, options, result: run.result, series: run.series,
-        reason: `Re-test: ${input.file.filename}`, createdById: actor.userId,
-      });
-      if (input.idempotencyKey) await updateIdempotencyKeyAnalysis(tx, { ...keyOf, analysisId });
-      await updateTestCurrentAnalysis(tx, { organizationId: org, testId, analysisId, verdict: run.result.verdict });
+      const saved = await saveNewAnalysis(
+        tx,
+        { id: analysisId, organizationId: org, testId, options, result: run.result, series: run.series, reason: `Re-test: ${input.file.filename}`, createdById: actor.userId },
+        async () => {
+          if (input.idempotencyKey) await updateIdempotencyKeyAnalysis(tx, { ...keyOf, analysisId });
+        },
+      );
+      if (!saved) throw new AppError("not_found", "No such test.");
+      const { version } = saved;
       const moved = await updateTestStatusById(tx, { organizationId: org, testId, fromStatus: locked.status, toStatus: check.to });
       if (!moved) throw new AppError("conflict");
       await insertTestEvent(tx, {

@@ -34,7 +34,7 @@ export const emailReportSchema = z.object({
   message: z.string().trim().max(2000).optional().nullable(),
 });
 
-/** The form fields beside the file of POST /api/tests/:id/retests. */
+/** The form fields beside the file of POST /api/vacuum-tests/:id/retests. */
 export const retestFieldsSchema = z.object({
   /** What the technician did before the re-test ("replaced the hose gasket"). */
   note: z.preprocess((v) => (v === "" ? undefined : v), z.string().trim().max(2000).optional()),

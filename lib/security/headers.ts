@@ -66,7 +66,7 @@ export function pagePolicy(nonce: string, mode: HeaderMode): string {
  * needs to show it inline.
  */
 export function nonPagePolicy(path: string): string {
-  const pdf = /^\/api\/tests\/[^/]+\/report$|^\/share\/[^/]+\/pdf$/.test(path);
+  const pdf = /^\/api\/(?:vacuum-)?tests\/[^/]+\/report$|^\/share\/[^/]+\/pdf$/.test(path);
   return pdf ? "default-src 'none'; object-src 'self'; style-src 'unsafe-inline'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'" : "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 }
 

@@ -14,7 +14,7 @@
  */
 import type { AnalyzeOptions, Verdict } from "../../analysis/types";
 import { DEFAULT_PROFILE } from "../../analysis/profile";
-import { typedReadingsToCsv } from "../../lib/tests/typed";
+import { typedReadingsToCsv } from "../../lib/vacuum-tests/typed";
 
 export interface IndependentLog {
   id: string;

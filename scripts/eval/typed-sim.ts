@@ -1,11 +1,11 @@
 /**
  * Hand-typed logs made from the project's simulator: the simulated hold read off once a minute from
- * the isolation, whole microns, written as the typed-readings screen writes them (lib/tests/typed.ts)
+ * the isolation, whole microns, written as the typed-readings screen writes them (lib/vacuum-tests/typed.ts)
  * and analysed with the same options. For calibrating and evaluating typed logs as the product reads them.
  */
 import { simulateLog, type Scenario } from "../../analysis/simulate";
 import type { AnalyzeOptions, Verdict } from "../../analysis/types";
-import { typedReadingsToCsv } from "../../lib/tests/typed";
+import { typedReadingsToCsv } from "../../lib/vacuum-tests/typed";
 
 export const TYPED_SCENARIOS: Scenario[] = ["tight_dry", "moisture", "leak", "leak_and_moisture", "short_hold", "target_not_reached"];
 

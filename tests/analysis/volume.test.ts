@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { ACR_TUBE, leakRateFromRise, systemVolumeLitres, temperOf, tubeInsideDiameterIn, tubeLitresPerFoot } from "@/analysis/volume";
-import { TUBE_ODS } from "@/lib/tests/schemas";
+import { TUBE_ODS } from "@/lib/vacuum-tests/schemas";
 import { LogError } from "@/analysis/errors";
 
 describe("tubeLitresPerFoot — ACR copper tube", () => {

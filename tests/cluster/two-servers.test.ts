@@ -76,7 +76,7 @@ async function burst(n: number, prefix: string, live: () => Server[], perServer 
       const servers = live();
       const s = servers[(i + attempt) % servers.length];
       try {
-        const res = await request(s, "/api/tests", { method: "POST", body, headers: { cookie: crew.technician.cookie, "content-type": contentType, "idempotency-key": key } });
+        const res = await request(s, "/api/vacuum-tests", { method: "POST", body, headers: { cookie: crew.technician.cookie, "content-type": contentType, "idempotency-key": key } });
         if (res.status === 201 || res.status === 200) {
           out.testIds.set(key, (res.json.test as { id: string }).id);
           out.latencies.push(res.ms);

@@ -12,9 +12,9 @@ import { NextRequest } from "next/server";
 import { proxy } from "@/proxy";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { GET as health } from "@/app/api/health/route";
-import { GET as testsGet, POST as testsPost } from "@/app/api/tests/route";
+import { GET as testsGet, POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { db } from "@/db/client";
-import { setUploadFaultForTests } from "@/lib/tests/upload";
+import { setUploadFaultForTests } from "@/lib/vacuum-tests/upload";
 import { appRequest, createShop, PASSWORD, type TestMember } from "../helpers/members";
 import { countRows, listKeys, sampleText, uploadRequest } from "../helpers/uploads";
 import { consistencyOf, postgres, timed } from "./parts";
@@ -45,7 +45,7 @@ afterAll(async () => {
 });
 
 const upload = (key = randomUUID()) =>
-  testsPost(uploadRequest("/api/tests", { as: owner, file: { body: sampleText(SAMPLE), name: SAMPLE }, headers: { "idempotency-key": key } }));
+  testsPost(uploadRequest("/api/vacuum-tests", { as: owner, file: { body: sampleText(SAMPLE), name: SAMPLE }, headers: { "idempotency-key": key } }));
 /** The session token in the member's cookie (before its signature). */
 const sessionToken = () => decodeURIComponent(/better-auth\.session_token=([^;]+)/.exec(owner.cookie)![1]).split(".")[0];
 
@@ -65,7 +65,7 @@ describe("PostgreSQL stopped", () => {
     expect(await h.value!.json()).toMatchObject({ database: "unreachable", bucket: "ok" });
     expect(h.ms).toBeLessThan(5000); // its own checks stop at 2 s; the rest is a busy machine
 
-    const list = await timed(() => testsGet(appRequest("/api/tests", { as: owner })));
+    const list = await timed(() => testsGet(appRequest("/api/vacuum-tests", { as: owner })));
     expect(list.value?.status).toBe(503);
     expect((await list.value!.json()).error.code).toBe("database_unavailable");
     expect(list.value!.headers.get("retry-after")).toBeTruthy();
@@ -97,7 +97,7 @@ describe("PostgreSQL stopped", () => {
 
   it("answers again once PostgreSQL is back, through the same pool", async () => {
     postgres.start();
-    expect((await testsGet(appRequest("/api/tests", { as: owner }))).status).toBe(200);
+    expect((await testsGet(appRequest("/api/vacuum-tests", { as: owner }))).status).toBe(200);
     expect((await upload()).status).toBe(201);
     expect((await health(new Request("http://127.0.0.1/api/health"))).status).toBe(200);
     const page = await proxy(new NextRequest("http://127.0.0.1/tests", { headers: { cookie: owner.cookie } }));

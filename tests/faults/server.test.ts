@@ -65,7 +65,7 @@ async function upload(base: string, key: string): Promise<Outcome> {
   const form = new FormData();
   form.set("file", new File([LOG], "three-hours.csv", { type: "text/csv" }));
   try {
-    const res = await fetch(`${base}/api/tests`, { method: "POST", body: form, headers: { cookie: tech.cookie, origin: BASE, "idempotency-key": key } });
+    const res = await fetch(`${base}/api/vacuum-tests`, { method: "POST", body: form, headers: { cookie: tech.cookie, origin: BASE, "idempotency-key": key } });
     const body = await res.json().catch(() => ({}));
     return { key, status: res.status, testId: body?.test?.id };
   } catch {

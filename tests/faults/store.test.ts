@@ -9,8 +9,8 @@
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as health } from "@/app/api/health/route";
-import { POST as emailReport } from "@/app/api/tests/[id]/email-report/route";
-import { POST as testsPost } from "@/app/api/tests/route";
+import { POST as emailReport } from "@/app/api/vacuum-tests/[id]/email-report/route";
+import { POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { env } from "@/lib/env";
 import { closeMail } from "@/lib/mail";
 import { jobRunnerForFile } from "../helpers/jobs";
@@ -33,7 +33,7 @@ afterAll(async () => {
 });
 
 const upload = (key = randomUUID()) =>
-  testsPost(uploadRequest("/api/tests", { as: owner, file: { body: sampleText(SAMPLE), name: SAMPLE }, headers: { "idempotency-key": key } }));
+  testsPost(uploadRequest("/api/vacuum-tests", { as: owner, file: { body: sampleText(SAMPLE), name: SAMPLE }, headers: { "idempotency-key": key } }));
 
 /** The longest an upload may take against a dead store: connect or request timeout, two attempts, and slack. */
 const deadline = () => 2 * (env().S3_CONNECT_TIMEOUT_MS + env().S3_REQUEST_TIMEOUT_MS) + 3000;
@@ -98,7 +98,7 @@ describe("the S3 store frozen (SIGSTOP)", () => {
     let r: Awaited<ReturnType<typeof timed<Response>>>;
     try {
       r = await timed(() =>
-        emailReport(appRequest(`/api/tests/${testId}/email-report`, { method: "POST", as: owner, body: JSON.stringify({ to: "office@example.test" }), headers: { "content-type": "application/json" } }), routeParams({ id: testId })),
+        emailReport(appRequest(`/api/vacuum-tests/${testId}/email-report`, { method: "POST", as: owner, body: JSON.stringify({ to: "office@example.test" }), headers: { "content-type": "application/json" } }), routeParams({ id: testId })),
       );
     } finally {
       fakes.thaw();

@@ -6,8 +6,8 @@
 import { db } from "@/db/client";
 import { createCustomer, createSite, createSystem } from "@/db/queries/records";
 import { createRig, createRigEvent, createRigItem, upsertTestRig } from "@/db/queries/rigs";
-import { createTestFromUpload } from "@/lib/tests/upload";
-import { testMetadataSchema } from "@/lib/tests/schemas";
+import { createTestFromUpload } from "@/lib/vacuum-tests/upload";
+import { testMetadataSchema } from "@/lib/vacuum-tests/schemas";
 import { planDemoMonth } from "@/scripts/seed-month";
 import type { TestMember } from "./members";
 

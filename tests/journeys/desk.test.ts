@@ -15,7 +15,7 @@ import { waitForMail } from "@/tests/helpers/mailbox";
 import { seededResult, seededSeries, seedTest } from "@/tests/helpers/seed-test";
 import { verdictLabel } from "@/lib/reports/words";
 import { insertAnalysis } from "@/db/queries/analyses";
-import { updateTestCurrentAnalysis } from "@/db/queries/tests";
+import { updateTestCurrentAnalysis } from "@/db/queries/vacuum-tests";
 import { db } from "@/db/client";
 import { claimOutboxMailById, insertOutboxMail, markOutboxMailDead, markOutboxMailFailed } from "@/db/queries/outbox";
 
@@ -97,7 +97,7 @@ describe("outgoing mail journey (phone)", () => {
     await shown(waiting.getByText("Not sent yet", { exact: true }));
     expect(await waiting.getByTestId("mail-error").textContent()).toBe("The mail server refused the connection (it may be down).");
     expect(await waiting.getByTestId("mail-next-try").textContent()).toMatch(/, by itself$/);
-    expect(await row.getByRole("link", { name: "Open the test" }).getAttribute("href")).toBe(`/tests/${testId}`);
+    expect(await row.getByRole("link", { name: "Open the test" }).getAttribute("href")).toBe(`/vacuum-tests/${testId}`);
     // Phone targets: the action is at least 48 px tall.
     const sendAgain = row.getByRole("button", { name: "Send again" });
     expect((await sendAgain.boundingBox())!.height).toBeGreaterThanOrEqual(48);
@@ -123,7 +123,7 @@ describe("outgoing mail journey (phone)", () => {
     const ctx = await session.newContext(PHONE);
     const page = await ctx.newPage();
     await signInThroughPage(page, lead.email, lead.password);
-    await page.goto(`/tests/${versionedId}`);
+    await page.goto(`/vacuum-tests/${versionedId}`);
     const headline = page.getByTestId("verdict-headline");
     await shown(headline);
     expect(await headline.textContent()).toBe(verdictLabel("pass"));
@@ -138,7 +138,7 @@ describe("outgoing mail journey (phone)", () => {
     expect(await page.getByRole("button", { name: /Analyse again/ }).count()).toBe(0);
 
     await banner.getByRole("link", { name: "Back to current" }).click();
-    await page.waitForURL(new RegExp(`/tests/${versionedId}$`));
+    await page.waitForURL(new RegExp(`/vacuum-tests/${versionedId}$`));
     await expect.poll(() => headline.textContent(), { timeout: 30_000 }).toBe(verdictLabel("pass"));
     expect(await page.getByTestId("version-banner").count()).toBe(0);
     expect(await page.getByRole("button", { name: "Analyse again" }).count()).toBe(1);

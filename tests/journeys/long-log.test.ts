@@ -34,7 +34,7 @@ describe("a long log on a phone (our rule: over 1 MB it is a queued job)", () =>
     const errors: string[] = [];
     page.on("pageerror", (e) => errors.push(e.message));
     await signInThroughPage(page, tech.email, tech.password);
-    await page.goto("/tests/new");
+    await page.goto("/vacuum-tests/new");
     const polled: string[] = [];
     page.on("request", (r) => {
       if (/\/api\/tasks\//.test(r.url())) polled.push(r.url());
@@ -47,7 +47,7 @@ describe("a long log on a phone (our rule: over 1 MB it is a queued job)", () =>
     expect((await page.getByTestId("verdict-headline").textContent())?.length).toBeGreaterThan(3);
     await page.getByTestId("decay-chart").locator("canvas").waitFor({ state: "visible", timeout: 30_000 });
     expect(polled.length).toBeGreaterThan(0);
-    const list = await page.request.get(`/api/tests?technicianId=${tech.userId}&limit=5`);
+    const list = await page.request.get(`/api/vacuum-tests?technicianId=${tech.userId}&limit=5`);
     expect(((await list.json()) as { items: unknown[] }).items).toHaveLength(1);
     expect(errors).toEqual([]);
     await context.close();

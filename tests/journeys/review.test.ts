@@ -57,7 +57,7 @@ describe("review journey (phone)", () => {
     // Technician asks for review.
     // The lead's desk lives on the test page; the report page shows the report only.
     const t = await as(tech);
-    await t.page.goto(`/tests/${testId}`);
+    await t.page.goto(`/vacuum-tests/${testId}`);
     const techPanel = t.page.getByTestId("review-panel");
     await techPanel.getByRole("button", { name: "Ask for review" }).click();
     await shown(techPanel.getByText("Waiting for review"));
@@ -68,7 +68,7 @@ describe("review journey (phone)", () => {
     await l.page.goto("/review");
     const item = l.page.getByTestId("queue-item").filter({ hasText: "Bakery walk-in after coil swap" });
     await shown(item);
-    await l.page.goto(`/tests/${testId}`);
+    await l.page.goto(`/vacuum-tests/${testId}`);
     const thread = l.page.getByTestId("comment-thread");
     await thread.getByLabel("Comment").fill("The rise at 25 min looks like the hose gasket.");
     await thread.getByLabel(/At minute on the curve/).fill("25");
@@ -101,12 +101,12 @@ describe("review journey (phone)", () => {
     await leadPanel.getByRole("button", { name: "Sign off" }).click();
     await shown(leadPanel.getByText("Signed off", { exact: true }));
     await waitForMail(tech.email, /Signed off: Bakery walk-in/);
-    await l.page.goto(`/tests/${testId}/report`);
+    await l.page.goto(`/vacuum-tests/${testId}/report`);
     await shown(l.page.getByTestId("report-signoff").getByText("Signed off by Lena Lead"));
     expect(await l.page.getByTestId("review-panel").count()).toBe(0);
     // The report shows the re-test's analysis (the seeded first analysis was a leak).
     expect(await l.page.getByTestId("report-curve-headline").textContent()).toBe(verdictLabel("pass"));
-    await l.page.goto(`/tests/${testId}`);
+    await l.page.goto(`/vacuum-tests/${testId}`);
     const share = l.page.getByTestId("share-actions");
     await share.getByLabel("E-mail the report to").fill(customer);
     await share.getByRole("button", { name: "Send the report" }).click();

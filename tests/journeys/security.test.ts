@@ -34,7 +34,7 @@ describe("security headers (OWASP ASVS 4.0.3 V14.4)", () => {
     });
     await signInThroughPage(page, owner.email, PASSWORD);
     const testId = await seedTest(owner, { verdict: "leak", title: "Header check" });
-    await page.goto(`/tests/${testId}`);
+    await page.goto(`/vacuum-tests/${testId}`);
     await page.locator("canvas").first().waitFor({ timeout: 60_000 }); // chart.js drew under the CSP
     await page.goto("/records");
     await page.goto("/no-such-page");

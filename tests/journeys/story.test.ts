@@ -53,11 +53,11 @@ const int = (s: string | null | undefined) => Number((/\d[\d,]*(\.\d+)?/.exec(s 
 async function upload(page: Page, name: string, text: string): Promise<string> {
   const path = join(scratch, name);
   writeFileSync(path, text);
-  await page.goto("/tests/new");
+  await page.goto("/vacuum-tests/new");
   await page.getByLabel("Gauge log file (CSV)").setInputFiles(path);
   await page.getByTestId("verdict-headline").waitFor({ timeout: 60_000 });
   await page.getByRole("link", { name: "Open the test page" }).click();
-  await page.waitForURL(/\/tests\/[0-9a-f-]{36}$/);
+  await page.waitForURL(/\/vacuum-tests\/[0-9a-f-]{36}$/);
   return page.url().split("/").pop()!;
 }
 
@@ -85,7 +85,7 @@ describe("one story per test", () => {
     if (SHOTS) await page.screenshot({ path: "/tmp/story-test-page-360.png", fullPage: true });
 
     // The report page: the report only, the same numbers and sentence.
-    await page.goto(`/tests/${id}/report`);
+    await page.goto(`/vacuum-tests/${id}/report`);
     await page.getByTestId("report").waitFor();
     expect(await page.getByTestId("review-panel").count()).toBe(0);
     expect(await page.getByTestId("report-hold-sentence").textContent()).toBe(sentence);
@@ -97,7 +97,7 @@ describe("one story per test", () => {
     if (SHOTS) await page.screenshot({ path: "/tmp/story-report-360.png", fullPage: true });
 
     // The PDF: the same sentence, the raw log's SHA-256 and the engine version.
-    const res = await page.request.get(`/api/tests/${id}/report`);
+    const res = await page.request.get(`/api/vacuum-tests/${id}/report`);
     expect(res.status()).toBe(200);
     const parser = new PDFParse({ data: new Uint8Array(await res.body()) });
     const text = (await parser.getText()).text.replace(/\s+/g, " ");
@@ -113,7 +113,7 @@ describe("one story per test", () => {
 
   it("typed minutes with an empty last row: isolation at the first reading, and a slow leak under the limit is an early fail, never a green pass", async () => {
     const { page, errors, close } = await pageFor(tech);
-    await page.goto("/tests/new");
+    await page.goto("/vacuum-tests/new");
     await page.getByRole("tab", { name: "Typed readings" }).click();
     await page.getByRole("radio", { name: "Minutes since isolation" }).check({ force: true });
     // 0–9 min, 350 microns climbing 40 per minute: 710 at minute 9, under the 1,000-micron limit, but a leak by rate.
@@ -149,11 +149,11 @@ describe("one story per test", () => {
     await t.close();
     const l = await pageFor(lead, DESKTOP);
     await l.page.goto("/review");
-    const item = l.page.locator(`a[href="/tests/${id}"]`).getByTestId("outcome-badge");
+    const item = l.page.locator(`a[href="/vacuum-tests/${id}"]`).getByTestId("outcome-badge");
     await item.waitFor({ timeout: 30_000 });
     expect(await item.textContent()).toBe("Tight and dry, misses profile");
-    await l.page.goto("/tests");
-    const row = l.page.locator(`a[href="/tests/${id}"]`).getByTestId("outcome-badge");
+    await l.page.goto("/vacuum-tests");
+    const row = l.page.locator(`a[href="/vacuum-tests/${id}"]`).getByTestId("outcome-badge");
     await row.waitFor({ timeout: 30_000 });
     expect(await row.textContent()).toBe("Tight and dry, misses profile");
     expect(await l.page.getByTestId("outcome-badge").filter({ hasText: /^Passed$/ }).count()).toBe(0);

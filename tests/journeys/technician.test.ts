@@ -42,7 +42,7 @@ async function phonePage(): Promise<{ context: BrowserContext; page: Page; error
 }
 
 async function chooseFile(page: Page, path: string) {
-  await page.goto("/tests/new");
+  await page.goto("/vacuum-tests/new");
   await page.getByLabel("Gauge log file (CSV)").setInputFiles(path);
 }
 
@@ -65,7 +65,7 @@ async function expectChartDrawn(page: Page) {
 }
 
 async function myTestCount(page: Page): Promise<number> {
-  const res = await page.request.get(`/api/tests?technicianId=${tech.userId}&limit=50`);
+  const res = await page.request.get(`/api/vacuum-tests?technicianId=${tech.userId}&limit=50`);
   expect(res.status()).toBe(200);
   return ((await res.json()) as { items: unknown[] }).items.length;
 }
@@ -76,14 +76,14 @@ describe("technician on a phone", () => {
     await chooseFile(page, SAMPLE_PASS);
     await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Tight and dry");
     await expectChartDrawn(page);
-    await expect.poll(() => page.getByRole("link", { name: "Open the test page" }).getAttribute("href")).toMatch(/^\/tests\/[0-9a-f-]{36}$/);
+    await expect.poll(() => page.getByRole("link", { name: "Open the test page" }).getAttribute("href")).toMatch(/^\/vacuum-tests\/[0-9a-f-]{36}$/);
     if (SHOTS) await page.screenshot({ path: "/tmp/tech-new-result-360.png", fullPage: true });
     expect(errors).toEqual([]);
     // A small log is analysed on the request thread; a three-hour 1 Hz log (over the 256 kB inline
     // size) goes to the engine's worker threads, which the built server must be able to start.
     const long = simulateLog({ scenario: "leak", seed: 11, sampleSeconds: 1, startInHold: true, holdMinutes: 180, layout: "iso" }).text;
     expect(long.length).toBeGreaterThan(256 * 1024);
-    const posted = await page.request.post("/api/tests", { multipart: { file: { name: "three-hours.csv", mimeType: "text/csv", buffer: Buffer.from(long) } } });
+    const posted = await page.request.post("/api/vacuum-tests", { multipart: { file: { name: "three-hours.csv", mimeType: "text/csv", buffer: Buffer.from(long) } } });
     expect(posted.status()).toBe(201);
     expect((await posted.json()).analysis.verdict).toBe("leak");
     expect((await (await page.request.get("/api/health")).json()).engine).toBe("workers");
@@ -113,7 +113,7 @@ describe("technician on a phone", () => {
 
   it("types readings with Enter between rows and gets a verdict from the same engine (steady 60 µ/min climb: a leak, common practice, no published source)", async () => {
     const { context, page, errors } = await phonePage();
-    await page.goto("/tests/new");
+    await page.goto("/vacuum-tests/new");
     await page.getByRole("tab", { name: "Typed readings" }).click();
     await page.getByRole("radio", { name: "Minutes since isolation" }).check({ force: true });
     // 0–14 min, 300 microns rising 60 per minute: a steady climb with no levelling off.
@@ -137,7 +137,7 @@ describe("technician on a phone", () => {
 
   it("makes a new visit in two taps (New visit, then a reason) before sending the log, and the test page shows that visit (our own product rule, no published source)", async () => {
     const { context, page, errors } = await phonePage();
-    await page.goto("/tests/new");
+    await page.goto("/vacuum-tests/new");
     const visit = page.getByTestId("new-visit");
     await visit.getByRole("button", { name: "New visit" }).tap(); // tap 1: the reasons
     await visit.getByRole("button", { name: "Leak repair" }).tap(); // tap 2: confirmed
@@ -145,7 +145,7 @@ describe("technician on a phone", () => {
     await page.getByLabel("Gauge log file (CSV)").setInputFiles(SAMPLE_PASS);
     await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Tight and dry");
     await page.getByRole("link", { name: "Open the test page" }).click();
-    await page.waitForURL(/\/tests\/[0-9a-f-]{36}$/);
+    await page.waitForURL(/\/vacuum-tests\/[0-9a-f-]{36}$/);
     const now = new Date();
     const today = `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, "0")}-${String(now.getDate()).padStart(2, "0")}`;
     await expect.poll(() => page.getByTestId("test-job").textContent(), { timeout: 30_000 }).toBe(`Visit ${today} · Leak repair`);
@@ -173,7 +173,7 @@ describe("technician on a phone", () => {
     await chooseFile(page, SAMPLE_PASS);
     await page.getByTestId("verdict-headline").waitFor({ timeout: 60_000 });
     await page.getByRole("link", { name: "Open the test page" }).click();
-    await page.waitForURL(/\/tests\/[0-9a-f-]{36}$/);
+    await page.waitForURL(/\/vacuum-tests\/[0-9a-f-]{36}$/);
     await expectChartDrawn(page);
     await expect.poll(() => page.getByTestId("history-entry").count()).toBe(1);
     // A tap on the chart fills the isolation field.

@@ -66,7 +66,7 @@ export interface World {
 }
 
 const L = {
-  tests: () => import("@/app/api/tests/route"),
+  tests: () => import("@/app/api/vacuum-tests/route"),
   call: () => import("@/app/api/practice/tests/[id]/call/route"),
   customers: () => import("@/app/api/customers/route"),
   sites: () => import("@/app/api/sites/route"),
@@ -79,12 +79,12 @@ const L = {
   rigItems: () => import("@/app/api/rigs/[id]/items/route"),
   pressure: () => import("@/app/api/pressure-tests/route"),
   profiles: () => import("@/app/api/settings/profiles/route"),
-  shareLinks: () => import("@/app/api/tests/[id]/share-links/route"),
+  shareLinks: () => import("@/app/api/vacuum-tests/[id]/share-links/route"),
 };
 
-/** A test uploaded through POST /api/tests with a real gauge file. */
+/** A test uploaded through POST /api/vacuum-tests with a real gauge file. */
 export async function uploadTest(as: TestMember, fields: Record<string, string> = {}): Promise<string> {
-  const res = await hit(L.tests, "POST", "/api/tests", as, { form: uploadRequest("/api/tests", { as, file: { body: sampleText(SAMPLE), name: SAMPLE }, fields }) });
+  const res = await hit(L.tests, "POST", "/api/vacuum-tests", as, { form: uploadRequest("/api/vacuum-tests", { as, file: { body: sampleText(SAMPLE), name: SAMPLE }, fields }) });
   return (await json<{ test: { id: string } }>(res, 201)).test.id;
 }
 

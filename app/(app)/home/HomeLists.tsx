@@ -2,12 +2,12 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { Alert, Button, Card, EmptyState, LinkButton, Spinner } from "@/components/ui";
-import { listTests, type TestListItem } from "@/lib/client/api";
-import { TestRow } from "../tests/TestRow";
+import { listTests, type VacuumTestListItem } from "@/lib/client/api";
+import { TestRow } from "../vacuum-tests/TestRow";
 
 /** Sent back first, then not passing or not decided, leaving out tests already signed off. */
-export function needsAttention(items: TestListItem[]): TestListItem[] {
-  const rank = (t: TestListItem) => (t.status === "sent_back" ? 0 : t.verdict === "inconclusive" || t.verdict == null ? 2 : 1);
+export function needsAttention(items: VacuumTestListItem[]): VacuumTestListItem[] {
+  const rank = (t: VacuumTestListItem) => (t.status === "sent_back" ? 0 : t.verdict === "inconclusive" || t.verdict == null ? 2 : 1);
   return items
     .filter((t) => t.status === "sent_back" || (t.status !== "signed_off" && t.verdict !== "pass"))
     .sort((a, b) => rank(a) - rank(b));
@@ -55,7 +55,7 @@ export function HomeLists({ userId }: { userId: string }) {
           </ul>
         )}
       </Card>
-      <Card title="Your recent tests" data-testid="recent" actions={<LinkButton href={`/tests?technicianId=${encodeURIComponent(userId)}`} variant="quiet">All</LinkButton>}>
+      <Card title="Your recent tests" data-testid="recent" actions={<LinkButton href={`/vacuum-tests?technicianId=${encodeURIComponent(userId)}`} variant="quiet">All</LinkButton>}>
         <ul className="space-y-3">
           {recent.map((t) => (
             <li key={t.id}>

@@ -16,7 +16,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
         <h1 className="text-headline">Hello, {first}</h1>
         <p className="text-body text-fg-soft">{actor.organizationName}</p>
       </div>
-      <LinkButton href="/tests/new" size="lg" block className="min-h-16 text-title sm:w-auto sm:px-10" data-testid="home-new-test">
+      <LinkButton href="/vacuum-tests/new" size="lg" block className="min-h-16 text-title sm:w-auto sm:px-10" data-testid="home-new-test">
         <svg aria-hidden="true" width="26" height="26" viewBox="0 0 24 24" fill="none" stroke="currentColor" strokeWidth="2.6" strokeLinecap="round">
           <path d="M12 5v14M5 12h14" />
         </svg>

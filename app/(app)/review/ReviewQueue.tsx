@@ -68,7 +68,7 @@ export function ReviewQueue({ technicians }: { technicians: { id: string; name: 
         <ul className="space-y-2" data-testid="review-queue">
           {q.data.items.map((t) => (
             <li key={t.id}>
-              <Link href={`/tests/${t.id}`} className="flex items-center gap-3 rounded-card border border-surface-line bg-surface-raised p-3 hover:border-tide-600" data-testid="queue-item">
+              <Link href={`/vacuum-tests/${t.id}`} className="flex items-center gap-3 rounded-card border border-surface-line bg-surface-raised p-3 hover:border-tide-600" data-testid="queue-item">
                 <Sparkline data={t.sparkline} width={96} height={40} className="shrink-0 text-fg" />
                 <div className="min-w-0 flex-1">
                   <p className="truncate text-body font-semibold">{t.title}</p>

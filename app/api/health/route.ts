@@ -1,7 +1,7 @@
 import { CHECK_TIMEOUT_MS, databaseReachable } from "@/lib/health/database";
 import { publicRoute } from "@/lib/api/handler";
 import { bucketReachable } from "@/lib/storage";
-import { engineMode } from "@/lib/tests/engine-pool";
+import { engineMode } from "@/lib/engine/pool";
 import { jobRunnerState } from "@/lib/jobs/runner";
 import { env } from "@/lib/env";
 

@@ -3,7 +3,7 @@ import { getMembershipByUser } from "@/db/queries/members";
 import { createJob, getSiteById, getSystemById, listJobsByOrganization } from "@/db/queries/records";
 import { route } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { createJobSchema, jobsQuerySchema } from "@/lib/tests/records-schemas";
+import { createJobSchema, jobsQuerySchema } from "@/lib/vacuum-tests/records-schemas";
 
 export const dynamic = "force-dynamic";
 

@@ -2,7 +2,7 @@ import { db } from "@/db/client";
 import { createPressureTest, isJobOfOrganization, listPressureTestsByViewer } from "@/db/queries/pressure-tests";
 import { route } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { evaluatePressureTestRequest } from "@/lib/pressure/evaluate";
+import { evaluatePressureTest } from "@/lib/engine/door";
 import { pressureTestCreateSchema, pressureTestListQuery } from "@/lib/pressure/schemas";
 import { viewerOf } from "@/lib/rigs/service";
 
@@ -19,13 +19,7 @@ export const GET = route({ permission: "member", query: pressureTestListQuery },
 export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ actor, body }) => {
   if (body.jobId && !(await isJobOfOrganization(db(), { organizationId: actor.organizationId, jobId: body.jobId })))
     throw new AppError("invalid_input", "jobId: no such job in this shop");
-  let evaluated;
-  try {
-    evaluated = evaluatePressureTestRequest(body);
-  } catch (err) {
-    if (err instanceof RangeError) throw new AppError("invalid_input", err.message);
-    throw err;
-  }
+  const evaluated = await evaluatePressureTest(body);
   const { result } = evaluated;
   if (result.overPressure && body.overPressureAcknowledged !== true)
     throw new AppError("invalid_input", `overPressureAcknowledged: ${result.warnings.find((w) => w.code === "above_rated_pressure")?.message ?? "a reading is above the rated test pressure."} Saving this record needs your acknowledgement.`, {

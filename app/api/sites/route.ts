@@ -2,7 +2,7 @@ import { db } from "@/db/client";
 import { createCustomer, createSite, getCustomerById, listSitesByOrganization } from "@/db/queries/records";
 import { route } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { createSiteSchema } from "@/lib/tests/records-schemas";
+import { createSiteSchema } from "@/lib/vacuum-tests/records-schemas";
 
 export const dynamic = "force-dynamic";
 

@@ -2,7 +2,7 @@ import { db } from "@/db/client";
 import { createSystem, getSiteById, listSystemsByOrganization } from "@/db/queries/records";
 import { route } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { createSystemSchema, systemsQuerySchema } from "@/lib/tests/records-schemas";
+import { createSystemSchema, systemsQuerySchema } from "@/lib/vacuum-tests/records-schemas";
 
 export const dynamic = "force-dynamic";
 

@@ -62,7 +62,7 @@ export function EntryCard({ index, entry, curate, collectionId, picked, onToggle
         <p className="flex flex-wrap items-center gap-2 text-caption text-fg-soft">
           {entry.analysisHidden ? <span>Make your practice call first</span> : <VerdictBadge verdict={entry.verdict} meetsProfile={entry.meetsProfile} />}
           <span>{new Date(entry.testedAt).toLocaleDateString("en-US", { dateStyle: "medium" })} · {entry.technicianName}{entry.refrigerant ? ` · ${entry.refrigerant}` : ""}</span>
-          {entry.canOpenTest && <Link className="underline" href={`/tests/${entry.testId}`}>Open the test</Link>}
+          {entry.canOpenTest && <Link className="underline" href={`/vacuum-tests/${entry.testId}`}>Open the test</Link>}
         </p>
         {d && (
           <p className="text-caption text-fg-soft" data-testid="entry-details">

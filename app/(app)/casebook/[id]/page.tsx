@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { db } from "@/db/client";
-import { listTestsByOrganization } from "@/db/queries/tests";
+import { listTestsByOrganization } from "@/db/queries/vacuum-tests";
 import { Badge } from "@/components/ui";
 import { loadCollection } from "@/lib/casebook/service";
 import { AppError } from "@/lib/errors";

@@ -90,7 +90,7 @@ export function PracticeCallView({ id, canCall }: { id: string; canCall: boolean
           {v.analysis && (
             <div className="space-y-3" data-testid="practice-analysis">
               <VerdictBanner analysis={v.analysis} />
-              <Link className="text-body underline" href={`/tests/${v.test.id}`}>Open the full test</Link>
+              <Link className="text-body underline" href={`/vacuum-tests/${v.test.id}`}>Open the full test</Link>
             </div>
           )}
         </div>

@@ -62,7 +62,7 @@ function MailRow({ m, onResend, busy }: { m: OutboxItem; onResend: (id: string) 
             </Button>
           )}
           {m.testId && (
-            <LinkButton variant="quiet" href={`/tests/${m.testId}`}>
+            <LinkButton variant="quiet" href={`/vacuum-tests/${m.testId}`}>
               Open the test
             </LinkButton>
           )}

@@ -54,7 +54,7 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
           {h.tests.map((t) => (
             <li key={t.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
               <div>
-                <Link href={`/tests/${t.id}`} className="font-medium text-tide-700 underline dark:text-tide-200">{t.title}</Link>
+                <Link href={`/vacuum-tests/${t.id}`} className="font-medium text-tide-700 underline dark:text-tide-200">{t.title}</Link>
                 <p className="text-caption text-fg-soft">{day(t.testedAt)} · {t.technicianName}{t.isPractice ? " · practice" : ""}</p>
               </div>
               {t.practiceCallUrl ? (

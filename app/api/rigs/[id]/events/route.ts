@@ -1,17 +1,10 @@
-import { importLog } from "@/analysis/import";
 import { db } from "@/db/client";
 import { createRigEvent, getRigItemById, listRigEventsByRig } from "@/db/queries/rigs";
 import { route } from "@/lib/api/handler";
+import { readBlankOffLog } from "@/lib/engine/door";
 import { AppError } from "@/lib/errors";
 import { rigEventSchema, rigParams } from "@/lib/rigs/schemas";
 import { requireRigAccess, viewerOf } from "@/lib/rigs/service";
-
-/** The lowest reading, by one loop: a blank-off log can hold a million readings (no spreading them as arguments). */
-function lowestOf(readings: number[]): number {
-  let lowest = Infinity;
-  for (let i = 0; i < readings.length; i++) if (readings[i] < lowest) lowest = readings[i];
-  return lowest;
-}
 
 export const GET = route({ permission: "member", params: rigParams }, async ({ actor, params }) => {
   await requireRigAccess(db(), viewerOf(actor), params.id, "read");
@@ -30,9 +23,9 @@ export const POST = route({ permission: "member", params: rigParams, body: rigEv
   let lowestMicrons = body.lowestMicrons ?? null;
   let note = body.note ?? null;
   if (body.kind === "blank_off" && body.logText) {
-    const log = importLog(body.logText);
-    lowestMicrons = lowestOf(log.microns);
-    note = [note, `lowest of ${log.microns.length} logged readings (${log.summary.unit})`].filter(Boolean).join("; ");
+    const read = await readBlankOffLog(body.logText);
+    lowestMicrons = read.lowestMicrons;
+    note = [note, `lowest of ${read.readings} logged readings (${read.unit})`].filter(Boolean).join("; ");
   }
   const event = await createRigEvent(db(), {
     organizationId: actor.organizationId,

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { db } from "@/db/client";
 import { route, uuidParam } from "@/lib/api/handler";
 import { taskDto } from "@/lib/jobs/tasks";
-import { startProfileReanalysis } from "@/lib/tests/bulk-reanalysis";
+import { startProfileReanalysis } from "@/lib/vacuum-tests/bulk-reanalysis";
 
 const body = z.object({ previousName: z.string().trim().min(1).max(120).optional() });
 

@@ -1,0 +1,119 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { useSearchParams } from "next/navigation";
+import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
+import { VerdictBanner } from "@/components/verdict/VerdictBanner";
+import { SafetyNote } from "@/components/verdict/SafetyNote";
+import { Alert, Button, Card, LinkButton, Spinner } from "@/components/ui";
+import { ApiError } from "@/lib/client/api";
+import { FindingsList } from "./FindingsList";
+import { HistoryList } from "./HistoryList";
+import { NumbersPanel } from "./NumbersPanel";
+import { RawDownload } from "./RawDownload";
+import { ReanalyseForm } from "./ReanalyseForm";
+import { STATUS_WORDS, dateTimeWords } from "./format";
+import { ImportPanel } from "./ImportPanel";
+import { TestReviewSection } from "@/components/review";
+import { getComments, reviewKeys } from "@/components/review/api";
+import { RigForTest } from "@/components/planner/RigForTest";
+import { PlanCompare } from "./PlanCompare";
+import { getTestView, testViewKey, versionHref } from "./version";
+import { VersionBanner } from "./VersionBanner";
+import { CustomerNote } from "./CustomerNote";
+
+/** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
+export function TestView({ id, canReanalyse, canShare, userId }: { id: string; canReanalyse: boolean; canShare: boolean; userId?: string }) {
+  // ?analysis=<id> shows an earlier analysis version (from the history); none shows the current one.
+  const analysisId = useSearchParams()?.get("analysis") || null;
+  const q = useQuery({ queryKey: testViewKey(id, analysisId), queryFn: ({ signal }) => getTestView(id, analysisId, signal) });
+  const comments = useQuery({ queryKey: reviewKeys.comments(id), queryFn: ({ signal }) => getComments(id, signal) });
+  const [picked, setPicked] = useState<number | null>(null);
+  const [shown, setShown] = useState<number | null>(null);
+  const markers = useMemo(
+    () => (comments.data?.comments ?? []).filter((c) => c.atSeconds != null).map((c) => ({ seconds: c.atSeconds!, label: c.body })),
+    [comments.data],
+  );
+
+  if (q.isPending)
+    return (
+      <div className="flex items-center gap-3 py-10 text-fg-soft" role="status">
+        <Spinner label="" /> Loading the test…
+      </div>
+    );
+  if (q.isError) {
+    const e = q.error;
+    const notFound = e instanceof ApiError && e.status === 404;
+    const practiceUrl = e instanceof ApiError ? (e.details?.practiceCallUrl as string | undefined) : undefined;
+    if (analysisId && e instanceof ApiError && (e.status === 404 || e.status === 400))
+      return (
+        <Alert tone="error" title="That analysis version was not found" action={<LinkButton href={versionHref(id, null)}>Show the current analysis</LinkButton>}>
+          The link may be mistyped, or the version belongs to another test.
+        </Alert>
+      );
+    if (practiceUrl)
+      return (
+        <Alert tone="info" title="Practice test: your call first" action={<LinkButton href={practiceUrl}>Make my call</LinkButton>}>
+          Look at the curve and say what you think it shows; the analysis appears once you have.
+        </Alert>
+      );
+    return (
+      <Alert tone="error" title={notFound ? "Test not found" : "The test could not be loaded"} action={notFound ? <LinkButton href="/vacuum-tests">All tests</LinkButton> : <Button onClick={() => q.refetch()}>Retry</Button>}>
+        {notFound ? "It may have been removed, or it is not shared with you." : (e as Error).message}
+      </Alert>
+    );
+  }
+
+  const { test, analysis, series, history, upload, shown: version } = q.data;
+  const earlier = !!version && !version.isCurrent;
+  const where = [test.site?.name, test.system?.name].filter(Boolean).join(" · ");
+  return (
+    <div className="space-y-5">
+      <header className="space-y-1">
+        <p className="text-body text-fg-soft">
+          {STATUS_WORDS[test.status] ?? test.status}
+          {test.isPractice ? " · practice" : ""} · {dateTimeWords(test.testedAt)}
+          {test.technician?.name ? ` · ${test.technician.name}` : ""}
+        </p>
+        <h1 className="text-headline break-words">{test.title}</h1>
+        {where && <p className="text-body">{where}</p>}
+        {test.job && (
+          <p className="text-body" data-testid="test-job">
+            Visit {[test.job.visitedOn, test.job.reason, test.job.reference].filter(Boolean).join(" · ")}
+          </p>
+        )}
+      </header>
+      {earlier && <VersionBanner testId={id} shown={version} />}
+      <VerdictBanner analysis={analysis} />
+      <div>
+        <h2 className="sr-only">Curve</h2>
+        <LazyDecayChart analysis={analysis} series={series} onPickSeconds={setPicked} pickedSeconds={picked} markers={markers} highlightSeconds={shown} />
+        <p className="mt-1 text-caption text-fg-soft">
+          Tap the chart to pick a time: {canReanalyse && !earlier ? "move the isolation point (“Analyse again” below) or " : ""}comment at that minute.
+        </p>
+      </div>
+      <div className="grid gap-5 lg:grid-cols-2">
+        <NumbersPanel analysis={analysis} />
+        <div className="space-y-5">
+          <SafetyNote full />
+        </div>
+      </div>
+      <FindingsList findings={analysis.findings} />
+      <PlanCompare analysis={analysis} series={series} volumeLitres={test.volumeLitres ?? null} />
+      <RigForTest testId={id} targetNotReached={analysis.findings.some((f) => f.code === "target_not_reached")} />
+      <TestReviewSection testId={id} canShare={canShare} pickedSeconds={picked} onShowSeconds={setShown} onChanged={() => void q.refetch()} />
+      <div className="grid gap-5 lg:grid-cols-2">
+        {canReanalyse && !earlier && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
+        <div className="space-y-5">
+          <HistoryList history={history} currentId={test.currentAnalysisId} testId={id} shownId={version?.analysisId ?? null} />
+          <CustomerNote testId={id} note={test.customerNote ?? null} canWrite={canShare || (!!userId && test.technician?.id === userId)} onSaved={() => void q.refetch()} />
+          <Card title="Record">
+            <RawDownload testId={id} upload={upload} />
+            <ImportPanel analysis={analysis} test={test} />
+          </Card>
+        </div>
+      </div>
+    </div>
+  );
+}
