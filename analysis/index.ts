@@ -5,23 +5,23 @@
  *   analyzeLog(text, options)      — CSV text as exported by a gauge
  *   analyzeReadings(log, options)  — readings already in hand (typed in, or imported earlier)
  */
-import { chosenFit, classifyHold, type HoldEvidence } from "./classify";
-import { diagnose } from "./diagnose";
-import { fitHoldModels } from "./fit";
-import { holdFigures, judgedHighest } from "./figures";
-import { earlyCallWithVerdict, forecastHold } from "./forecast";
-import { importLog } from "./import";
-import { judgeFieldHolds, spikeMask, spikeSecondsOf } from "./holds";
-import { findPhases } from "./phases";
-import { checkOptions } from "./profile";
-import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFigures, HoldFitResult, ImportedLog, LeakRate } from "./types";
-import { leakRateFromRise, systemVolumeLitres } from "./volume";
-import { LogError } from "./errors";
+import { chosenFit, classifyHold, type HoldEvidence } from "./decay/classify";
+import { diagnose } from "./decay/diagnose";
+import { fitHoldModels } from "./decay/fit";
+import { holdFigures, judgedHighest } from "./decay/figures";
+import { earlyCallWithVerdict, forecastHold } from "./decay/forecast";
+import { importLog } from "./decay/import";
+import { judgeFieldHolds, spikeMask, spikeSecondsOf } from "./decay/holds";
+import { findPhases } from "./decay/phases";
+import { checkOptions } from "./decay/profile";
+import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFigures, HoldFitResult, ImportedLog, LeakRate } from "./decay/types";
+import { leakRateFromRise, systemVolumeLitres } from "./shared/volume";
+import { LogError } from "./shared/errors";
 
 export const ENGINE_VERSION = "0.2.0";
 
-export { DEFAULT_PROFILE } from "./profile";
-export { downsampleForChart } from "./downsample";
+export { DEFAULT_PROFILE } from "./decay/profile";
+export { downsampleForChart } from "./shared/downsample";
 
 /** Analyse a gauge log given as text (CSV, semicolon or tab separated, as exported). */
 export function analyzeLog(text: string, options: AnalyzeOptions = {}): AnalysisResult {

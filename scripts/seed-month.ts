@@ -6,8 +6,8 @@
  * scripts/seed-tests.ts writes it through the real pipeline; scripts/evaluate-planner.ts and the
  * planner's demo test read it without a database. All names and data are invented.
  */
-import { makePulldownCurve, makeRng, scenarioParams, simulateFromParams, type Layout, type Scenario, type SimulatedLog } from "@/analysis/simulate";
-import { tubeLitresPerFoot } from "@/analysis/volume";
+import { makePulldownCurve, makeRng, scenarioParams, simulateFromParams, type Layout, type Scenario, type SimulatedLog } from "@/analysis/decay/simulate";
+import { tubeLitresPerFoot } from "@/analysis/shared/volume";
 import { SEED_RIGS, seedPulldown, type SeedCondition, type SeedRig } from "./seed-pulldowns";
 
 export interface DemoSystem {

@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { analyses, findings, user } from "@/db/schema";
-import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/decay/types";
 
 export interface NewAnalysis {
   id?: string;

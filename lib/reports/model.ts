@@ -12,7 +12,7 @@ import { getOrganizationNameById, listReviewEventsByTest } from "@/db/queries/re
 import { getRigByTest, listRigEventsByRig, listRigItemsByRig } from "@/db/queries/rigs";
 import { getOrganizationTimeZoneById } from "@/db/queries/settings";
 import { getTestById, getUploadByTest } from "@/db/queries/tests";
-import type { AcceptanceProfile, AnalysisResult, Finding } from "@/analysis/types";
+import type { AcceptanceProfile, AnalysisResult, Finding } from "@/analysis/decay/types";
 import type { TestStatus } from "@/db/schema";
 import { storyOf, type Story } from "@/lib/verdict/story";
 import { RULE_LABELS } from "@/lib/verdict/words";

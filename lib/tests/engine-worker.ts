@@ -3,8 +3,8 @@
  * or the LogError's fields. Started only by lib/tests/engine-pool.ts.
  */
 import { parentPort } from "node:worker_threads";
-import { LogError } from "@/analysis/errors";
-import type { AnalyzeOptions } from "@/analysis/types";
+import { LogError } from "@/analysis/shared/errors";
+import type { AnalyzeOptions } from "@/analysis/decay/types";
 import { runAnalysis } from "./engine";
 
 export interface EngineRequest {

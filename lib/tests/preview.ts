@@ -1,7 +1,7 @@
 /** The import preview: what the importer read from the first lines, without saving anything. */
 import Papa from "papaparse";
-import { LogError } from "@/analysis/errors";
-import type { ImportOptions, UnsureReason } from "@/analysis/types";
+import { LogError } from "@/analysis/shared/errors";
+import type { ImportOptions, UnsureReason } from "@/analysis/decay/types";
 import { AppError } from "@/lib/errors";
 import { readLogForPreview } from "./engine";
 

@@ -8,8 +8,8 @@
  * QR solver was measured to reach them, so a regression shows before it matters).
  */
 import { describe, expect, it } from "vitest";
-import { fitNonlinear, type NonlinearModel } from "@/analysis/fit/nls";
-import { fitStraightLine } from "@/analysis/fit/linear";
+import { fitNonlinear, type NonlinearModel } from "@/analysis/decay/fit/nls";
+import { fitStraightLine } from "@/analysis/decay/fit/linear";
 
 function expectDigits(got: number, certified: number, digits: number) {
   const tol = 0.5 * 10 ** (1 - digits) * Math.abs(certified);

@@ -1,4 +1,4 @@
-import { importLog } from "@/analysis/import";
+import { importLog } from "@/analysis/decay/import";
 import { db } from "@/db/client";
 import { createRigEvent, getRigItemById, listRigEventsByRig } from "@/db/queries/rigs";
 import { route } from "@/lib/api/handler";

@@ -7,7 +7,7 @@
 import type { Classification, HoldEvidence } from "./classify";
 import { chosenFit } from "./classify";
 import { certaintyWordsOf } from "./confidence";
-import { groupedInteger } from "./format";
+import { groupedInteger } from "../shared/format";
 import type { PhaseAnalysis } from "./phases";
 import { MIN_HOLD_READINGS } from "./profile";
 import type { AcceptanceProfile, Decay, HoldFitResult } from "./types";

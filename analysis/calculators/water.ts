@@ -8,7 +8,7 @@
  * −100…0.01 °C) and eq. 6 (over liquid water, 0.01…200 °C), switching at the triple point 0.01 °C.
  */
 import psychrolib from "psychrolib";
-import { PA_PER_MICRON } from "./units";
+import { PA_PER_MICRON } from "../shared/units";
 
 psychrolib.SetUnitSystem(psychrolib.SI);
 

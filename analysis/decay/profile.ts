@@ -13,7 +13,7 @@
  * sampling) and well below the rates of real leaks seen in logs (hundreds of microns per minute).
  */
 import { z } from "zod";
-import { LogError } from "./errors";
+import { LogError } from "../shared/errors";
 import type { AcceptanceProfile, AnalyzeOptions } from "./types";
 
 export const DEFAULT_PROFILE: Readonly<AcceptanceProfile> = Object.freeze({

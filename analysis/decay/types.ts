@@ -296,12 +296,12 @@ export type CertaintyWords = "sure" | "likely" | "unsure";
 
 /** The verdict's confidence: a calibrated probability that it is right, its words, and why it is not higher. */
 export interface Certainty {
-  /** 0–1, calibrated on simulated logs with known truth (analysis/confidence). */
+  /** 0–1, calibrated on simulated logs with known truth (analysis/decay/confidence). */
   confidence: number;
   words: CertaintyWords;
   /** What holds the confidence down, in plain words; empty when "sure". */
   why: string[];
-  /** The evidence the confidence was read from (named numbers, see analysis/confidence/features.ts). */
+  /** The evidence the confidence was read from (named numbers, see analysis/decay/confidence/features.ts). */
   evidence: Record<string, number>;
   /** Which calibration table gave it. */
   calibration: string;

@@ -4,7 +4,7 @@
  * with no published source unless a reference is named.
  */
 import type { Finding } from "../types";
-import { iceEquilibriumC } from "../water";
+import { iceEquilibriumC } from "../../calculators/water";
 import type { DiagnoseContext } from "./context";
 import { CAUTION_CODES, CAUTION_COMPRESSOR, CAUTION_NITROGEN, finding, fmt, median3 } from "./wording";
 

@@ -32,7 +32,7 @@ import {
 } from "./conductance";
 import { integratePullDown, integrateWithLoad, tabulateThroughput } from "./planner-integrate";
 import { CONDITION_WORDS, loadForVolume, WATER_LOAD_PRESETS, waterLoadMbarLps, type SystemCondition, type WaterLoad } from "./planner-load";
-import { durationWords } from "./format";
+import { durationWords } from "../shared/format";
 
 export { integratePullDown } from "./planner-integrate";
 export { planWhatIfs, HOSE_ID_1_4_IN, HOSE_ID_3_8_IN, type WhatIf } from "./planner-whatifs";

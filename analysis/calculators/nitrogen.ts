@@ -25,7 +25,7 @@
  * test's duration in hours (gauge unit per hour; negative = falling beyond what temperature explains).
  */
 import { checkAtmosphere, type AtmosphereUnit } from "./atmosphere";
-import { durationWords } from "./format";
+import { durationWords } from "../shared/format";
 
 export type NitrogenPressureUnit = "psig" | "kpa_gauge" | "bar_gauge";
 export type TemperatureUnit = "F" | "C";

@@ -2,9 +2,9 @@
  * Which column is the time, the pressure, a unit, an ambient temperature — from header words
  * and the first rows' cells — and what unit the pressure is in.
  */
-import { LogError } from "../errors";
+import { LogError } from "../../shared/errors";
 import type { ImportOptions, PressureUnit, UnsureReason } from "../types";
-import { type GaugeUnit, namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../units";
+import { type GaugeUnit, namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../../shared/units";
 import { classifyNonNumber, parseReading } from "./numbers";
 import type { Layout } from "./sniff";
 import { detectTimeSpec, detectTimeSpecLoosely, type TimeSpec } from "./timespec";

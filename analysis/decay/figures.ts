@@ -4,7 +4,7 @@
  * was measured at the profile's hold time. The verdict's reasons, the profile rules and every screen
  * quote these, so no two places can show two different "ends" or "highests".
  */
-import { groupedInteger } from "./format";
+import { groupedInteger } from "../shared/format";
 import type { Figure, HoldFigures, ModelFit } from "./types";
 
 export interface JudgedHighest {

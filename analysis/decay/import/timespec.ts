@@ -3,7 +3,7 @@
  * that into one parser used for every row.
  */
 import type { TimeFormat } from "../types";
-import { unitTokens } from "../units";
+import { unitTokens } from "../../shared/units";
 import { parseReading } from "./numbers";
 import {
   type DateOrder,

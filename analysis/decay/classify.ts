@@ -10,7 +10,7 @@
  *    fails is named, and the curve's own statement stays as it is (two statements, never merged).
  */
 import { certaintyOf, type Certainty } from "./confidence";
-import { groupedInteger } from "./format";
+import { groupedInteger } from "../shared/format";
 import { MIN_HOLD_READINGS } from "./profile";
 import { climbOf, curveVerdict, levelledOffWithin, type CurveReading } from "./rule";
 import type { AcceptanceProfile, AnalysisResult, Decay, Forecast, HoldFitResult, ModelFit, Verdict } from "./types";

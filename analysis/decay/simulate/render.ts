@@ -2,7 +2,7 @@
  * Renders simulated readings as a gauge-log CSV in one of the file layouts the importer reads.
  * Readings are microns; each layout writes them in its own unit with a sensible number of digits.
  */
-import { micronsTo } from "../units";
+import { micronsTo } from "../../shared/units";
 import type { PressureUnit } from "../types";
 import { FIELD_LAYOUTS, renderFieldLines, type FieldLayout } from "./render-field";
 

@@ -18,7 +18,7 @@
  * reason: a larger reading can fail a tight system but never pass a leaking or wet one.
  * Thresholds: common practice, no published source.
  */
-import { groupedInteger } from "../format";
+import { groupedInteger } from "../../shared/format";
 import type { UnsureReason } from "../types";
 import type { FileDecimalHint } from "./decimal";
 

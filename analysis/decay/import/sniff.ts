@@ -8,8 +8,8 @@
  * that follow, until SAMPLE_ROWS such rows are in hand or MAX_SAMPLE_SCAN_LINES lines after the
  * header have been looked at. Columns, units and the decimal convention are judged from it.
  */
-import { LogError } from "../errors";
-import { parsePressureUnit } from "../units";
+import { LogError } from "../../shared/errors";
+import { parsePressureUnit } from "../../shared/units";
 import { addEvidence, decideDecimalComma, emptyEvidence, fileDecimalHint, type FileDecimalHint } from "./decimal";
 import { classifyNonNumber } from "./numbers";
 

@@ -8,8 +8,8 @@
  * readings become gauge by subtracting the atmosphere (entered, or the standard 101325 Pa).
  */
 import Papa from "papaparse";
-import { LogError } from "./errors";
-import { unitTokens } from "./units";
+import { LogError } from "../shared/errors";
+import { unitTokens } from "../shared/units";
 import { STANDARD_ATMOSPHERE, type NitrogenPressureUnit, type NitrogenReading, type TemperatureUnit } from "./nitrogen";
 import { namesVacuumUnit, readNitrogenHeaderUnit, type NitrogenHeaderUnit, type PressureReference } from "./nitrogen-units";
 

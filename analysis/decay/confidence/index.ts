@@ -11,7 +11,7 @@
  *
  * Words: "sure" from 90 %, "likely" from 70 %, "unsure" below, each with what holds it down.
  */
-import { groupedInteger } from "../format";
+import { groupedInteger } from "../../shared/format";
 import type { Certainty, CertaintyWords } from "../types";
 import { confidenceFeatures, FEATURE_NAMES, type ConfidenceEvidence, type ConfidenceInput } from "./features";
 import { linearScore, sigmoid } from "./logistic";

@@ -14,7 +14,7 @@
  * by isentropic (choked) flow through its bore (choked-flow.ts).
  */
 import { nozzleThroughput } from "./choked-flow";
-import { PA_PER_MICRON } from "./units";
+import { PA_PER_MICRON } from "../shared/units";
 
 /** mbar in one micron of mercury (0.133322… Pa / 100). */
 export const MBAR_PER_MICRON = PA_PER_MICRON / 100;

@@ -7,7 +7,7 @@
  *   1 mmHg (conventional) = 133.322387415 Pa; 1 inHg (conventional) = 3386.388640 Pa;
  *   1 psi = 6894.757293168 Pa; 1 mbar = 1 hPa = 100 Pa; 1 kPa = 1000 Pa.
  */
-import type { PressureUnit } from "./types";
+import type { PressureUnit } from "../decay/types";
 
 /** Pascals in one micron of mercury (= one millitorr), exact by definition: 101325/760/1000. */
 export const PA_PER_MICRON = 101325 / 760 / 1000;

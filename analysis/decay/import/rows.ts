@@ -3,9 +3,9 @@
  * cells, temperature, per-row unit. Rows are taken a chunk at a time as the parser yields them;
  * nothing is allocated beyond the output arrays.
  */
-import { LogError } from "../errors";
+import { LogError } from "../../shared/errors";
 import type { PressureUnit } from "../types";
-import { micronsPerUnit, parsePressureUnit } from "../units";
+import { micronsPerUnit, parsePressureUnit } from "../../shared/units";
 import type { ColumnChoice } from "./columns";
 import { gaugeError, unknownUnitError } from "./columns";
 import { AmbiguousCells, readWatched, settleGrouping, type GroupingDecision } from "./grouping";

@@ -8,10 +8,10 @@
  * for the parse. A second pass only when the day/month order was a guess that the first proved wrong.
  */
 import Papa from "papaparse";
-import { LogError } from "../errors";
-import { groupedInteger } from "../format";
+import { LogError } from "../../shared/errors";
+import { groupedInteger } from "../../shared/format";
 import type { Finding, ImportedLog, ImportOptions, ImportSummary, PressureUnit } from "../types";
-import { UNITS_UNDERSTOOD } from "../units";
+import { UNITS_UNDERSTOOD } from "../../shared/units";
 import { chooseColumns } from "./columns";
 import { duplicatesFinding, reorderedFinding } from "./findings";
 import { RowReader, type NumberSettings, type RowsRead, type RowsResult } from "./rows";

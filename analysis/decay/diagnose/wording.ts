@@ -1,6 +1,6 @@
 /** Cautions and shared helpers for findings. Our own wording. */
 import type { Finding, Severity } from "../types";
-import { groupedInteger } from "../format";
+import { groupedInteger } from "../../shared/format";
 
 export const CAUTION_COMPRESSOR = "Never energise the compressor while the system is in deep vacuum.";
 export const CAUTION_NITROGEN =

@@ -6,7 +6,7 @@
  * Invented data. Over-range rows write the log's marker ("OL", "HI", "----", ">25000", or nothing).
  */
 import type { PressureUnit } from "../types";
-import { micronsTo } from "../units";
+import { micronsTo } from "../../shared/units";
 import type { RenderRow, RenderSpec } from "./render";
 
 export const FIELD_LAYOUTS = [

@@ -1,7 +1,7 @@
 /**
  * Fitting the hold (the rise after isolation): all four models, spikes left out, one chosen by rule.
  */
-import { LogError } from "../errors";
+import { LogError } from "../../shared/errors";
 import type { HoldFitResult, HoldModelKind, ModelFit } from "../types";
 import { fitStraightLine } from "./linear";
 import { HOLD_MODEL_PARAMS, holdModelMicrons, paramsFromVector } from "./models";

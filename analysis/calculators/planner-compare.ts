@@ -10,8 +10,8 @@
  * Thresholds (our own rule, common practice, no published source): slower than the plan's slow
  * end by SLOW_END_MARGIN or more is "much slower"; the factors are against the likely case.
  */
-import { durationWords } from "./format";
-import type { Finding } from "./types";
+import { durationWords } from "../shared/format";
+import type { Finding } from "../decay/types";
 import type { Plan } from "./planner";
 
 /** Real ÷ likely plan above which the part above or below 5,000 microns counts as lagging. */

@@ -3,7 +3,7 @@
  * units that a rate of rise means for that volume.
  */
 import { LogError } from "./errors";
-import type { LeakRate, SystemVolume } from "./types";
+import type { LeakRate, SystemVolume } from "../decay/types";
 import { PA_PER_MICRON } from "./units";
 
 export type TubeTemper = "annealed" | "drawn";
