@@ -11,7 +11,7 @@ export type TubeTemper = "annealed" | "drawn";
 /**
  * ACR copper tube, ASTM B280: outside diameter and wall (inches) of each size in the tempers the
  * standard makes it in. Drawn (straight lengths): B280-20 Table 1, read in the standard. Annealed
- * (coils): the standard's coil table as transcribed in /work/shared/reference/CHECK-VALUES.md and
+ * (coils): the standard's coil table as transcribed in tests/reference/CHECK-VALUES.md and
  * in secondary references. 5/16 comes in coils only; 1-5/8 and 2-1/8 in straight lengths only
  * (this table offers them so; 3/4 coils also come with a 0.042 wall, the 0.035 one is used here).
  */

@@ -12,8 +12,7 @@ import { findSpikesInResiduals } from "./robust";
 import { aiccLeastSquares, chooseHoldModel } from "./select";
 import { fitPlateauModel, type PlateauFitOutcome } from "./varpro";
 
-export { fitNonlinear } from "./nls";
-export type { NonlinearFit, NonlinearModel, NonlinearOptions } from "./nls";
+export type { NonlinearFit, NonlinearModel } from "./nls";
 export { fitStraightLine, solveLinearLeastSquares } from "./linear";
 
 /**

@@ -64,7 +64,7 @@ export function vectorFromParams(kind: HoldModelKind, params: HoldParams): numbe
 }
 
 /**
- * The hold model as a generic NonlinearModel over its parameter vector (for fitNonlinear), written out
+ * The hold model as a generic NonlinearModel over its parameter vector (for summariseFit), written out
  * per kind so the solver's inner loops make no objects: b = [p0, a, τ, l] with absent ones left out.
  * The batch forms (values, jacobian) repeat the point forms' arithmetic exactly, one loop per call.
  */

@@ -10,19 +10,20 @@
  */
 import type { HoldModelKind } from "../types";
 import { solveLinearLeastSquares } from "./linear";
-import { summariseFit, type NonlinearFit } from "./nls";
+import { summariseFit, type NonlinearFit, type NonlinearModel } from "./nls";
 import { holdNonlinearModel } from "./models";
 
 export interface ProjectedFit {
   tauSeconds: number;
-  /** p0, a and (with a climb) l, microns and microns per second. */
+  /** p0 (unless left out), a and (with a climb) l, microns and microns per second. */
   coef: number[];
   rss: number;
 }
 
 /**
  * The fixed part of the projection for one data set: an orthonormal basis Q of the columns that do not
- * depend on τ (1, and t with a climb; modified Gram–Schmidt, twice for stability) and the data's residual
+ * depend on τ (1 unless the offset is left out, and t with a climb; modified Gram–Schmidt, twice for
+ * stability) and the data's residual
  * y⊥ = y − QQᵀy. For a given τ only the rise column z = 1 − e^(−t/τ) has to be projected:
  * z⊥ = z − QQᵀz, a = (z⊥·y⊥)/‖z⊥‖², RSS(τ) = ‖y⊥‖² − (z⊥·y⊥)²/‖z⊥‖², an O(n) step per τ.
  * Reference: Golub & Van Loan §5.2.8 (modified Gram–Schmidt), Björck §2.4.5 (reorthogonalisation).
@@ -34,6 +35,8 @@ export interface ProjectionBasis {
   yPerp: Float64Array;
   yPerpNorm2: number;
   withClimb: boolean;
+  /** False for the rise from zero, a·(1 − e^(−t/τ)) [+ l·t] (no constant column). */
+  withOffset: boolean;
 }
 
 function orthogonalise(v: Float64Array, q: Float64Array[], passes = 2): void {
@@ -45,9 +48,10 @@ function orthogonalise(v: Float64Array, q: Float64Array[], passes = 2): void {
     }
 }
 
-export function projectionBasis(t: ArrayLike<number>, p: ArrayLike<number>, withClimb: boolean): ProjectionBasis {
+export function projectionBasis(t: ArrayLike<number>, p: ArrayLike<number>, withClimb: boolean, withOffset = true): ProjectionBasis {
   const n = t.length;
-  const cols = [new Float64Array(n).fill(1)];
+  const cols: Float64Array[] = [];
+  if (withOffset) cols.push(new Float64Array(n).fill(1));
   if (withClimb) cols.push(Float64Array.from(t));
   const q: Float64Array[] = [];
   for (const c of cols) {
@@ -62,7 +66,7 @@ export function projectionBasis(t: ArrayLike<number>, p: ArrayLike<number>, with
   orthogonalise(yPerp, q);
   let yPerpNorm2 = 0;
   for (let i = 0; i < n; i++) yPerpNorm2 += yPerp[i] * yPerp[i];
-  return { t: Float64Array.from(t), p: Float64Array.from(p), q, yPerp, yPerpNorm2, withClimb };
+  return { t: Float64Array.from(t), p: Float64Array.from(p), q, yPerp, yPerpNorm2, withClimb, withOffset };
 }
 
 /**
@@ -70,7 +74,8 @@ export function projectionBasis(t: ArrayLike<number>, p: ArrayLike<number>, with
  * the fixed columns, so τ cannot be separated from them.
  *
  * One O(n) pass, no allocation: with z = 1 − e^(−t/τ), q₁ = 1/√n and q₂ (the unit centred time column, with a
- * climb), z⊥ = z − QQᵀz has ‖z⊥‖² = Σz² − (Σz)²/n − (z·q₂)², and because y⊥ is orthogonal to Q,
+ * climb), z⊥ = z − QQᵀz has ‖z⊥‖² = Σz² − (Σz)²/n − (z·q₂)² (without the offset there is no q₁ and its
+ * term, and q₂ is the unit time column itself), and because y⊥ is orthogonal to Q,
  * z⊥·y⊥ = z·y⊥. So RSS(τ) = ‖y⊥‖² − (z·y⊥)²/‖z⊥‖² needs only the sums Σz, Σz², Σz·q₂ and Σz·y⊥.
  * The subtraction in ‖z⊥‖² loses about log10(‖z‖²/‖z⊥‖²) digits; a z within 1e-9 of span(Q) is rejected.
  */
@@ -84,7 +89,7 @@ export function projectedRss(b: ProjectionBasis, tauSeconds: number): number {
   let szy = 0;
   let szq = 0;
   if (b.withClimb) {
-    const q2 = b.q[1];
+    const q2 = b.q[b.q.length - 1];
     for (let i = 0; i < n; i++) {
       const z = -Math.expm1(-t[i] * rate);
       sz += z;
@@ -100,25 +105,28 @@ export function projectedRss(b: ProjectionBasis, tauSeconds: number): number {
       szy += z * yPerp[i];
     }
   }
-  const zz = szz - (sz * sz) / n - szq * szq;
+  const zz = szz - (b.withOffset ? (sz * sz) / n : 0) - szq * szq;
   if (!(zz > 1e-18 * szz)) return Infinity;
   return Math.max(0, b.yPerpNorm2 - (szy * szy) / zz);
 }
 
 /**
  * Best (p0, a[, l]) for a fixed τ and its RSS (microns²), by QR on the basis 1, 1 − e^(−t/τ)[, t]
- * (the full solve, used once at the chosen τ; the search itself uses the O(n) projected RSS).
+ * (without the offset: (a[, l]) on 1 − e^(−t/τ)[, t]); the full solve, used once at the chosen τ; the
+ * search itself uses the O(n) projected RSS.
  */
-export function projectedFit(t: ArrayLike<number>, p: ArrayLike<number>, tauSeconds: number, withClimb: boolean): ProjectedFit {
+export function projectedFit(t: ArrayLike<number>, p: ArrayLike<number>, tauSeconds: number, withClimb: boolean, withOffset = true): ProjectedFit {
   const n = t.length;
-  const ones = new Float64Array(n).fill(1);
   const rise = new Float64Array(n);
   for (let i = 0; i < n; i++) rise[i] = -Math.expm1(-t[i] / tauSeconds);
-  const cols: ArrayLike<number>[] = withClimb ? [ones, rise, t] : [ones, rise];
+  const cols: ArrayLike<number>[] = withOffset ? [new Float64Array(n).fill(1), rise] : [rise];
+  if (withClimb) cols.push(t);
   const ls = solveLinearLeastSquares(cols, p, 1e-9);
   if (ls.rank < cols.length) return { tauSeconds, coef: ls.coef, rss: Infinity };
-  const [p0, a] = ls.coef;
-  const l = withClimb ? ls.coef[2] : 0;
+  const first = withOffset ? 1 : 0;
+  const p0 = withOffset ? ls.coef[0] : 0;
+  const a = ls.coef[first];
+  const l = withClimb ? ls.coef[first + 1] : 0;
   let rss = 0;
   for (let i = 0; i < n; i++) {
     const r = p[i] - (p0 + a * rise[i] + l * t[i]);
@@ -177,11 +185,12 @@ export function searchTimeConstant(
   tauMinSeconds: number,
   tauMaxSeconds: number,
   gridPoints = 32,
+  withOffset = true,
 ): TimeConstantSearch {
-  const basis = projectionBasis(t, p, withClimb);
+  const basis = projectionBasis(t, p, withClimb, withOffset);
   // the grid only brackets the minimum: on a long hold it runs on ≤ GRID_FIT_POINTS group means
   const grouped = t.length > GRID_FIT_POINTS ? groupMeans(t, p, GRID_FIT_POINTS) : null;
-  const coarse = grouped ? projectionBasis(grouped[0], grouped[1], withClimb) : basis;
+  const coarse = grouped ? projectionBasis(grouped[0], grouped[1], withClimb, withOffset) : basis;
   const lo = Math.log(tauMinSeconds);
   const hi = Math.log(tauMaxSeconds);
   const gridU: number[] = [];
@@ -199,7 +208,7 @@ export function searchTimeConstant(
     return projectedRss(basis, Math.exp(u));
   };
   const finish = (u: number, atEdge: TimeConstantSearch["atEdge"]): TimeConstantSearch => ({
-    best: projectedFit(t, p, Math.exp(u), withClimb),
+    best: projectedFit(t, p, Math.exp(u), withClimb, withOffset),
     atEdge,
     evaluations: evaluations + 1,
   });
@@ -302,12 +311,27 @@ export interface PlateauFitOutcome {
 }
 
 /**
+ * The rise from zero, y = a·(1 − e^(−t/τ)), as a NonlinearModel over b = [a, τ]: the plateau model
+ * without its offset, for summariseFit when withOffset is false (the form of the NIST StRD problems
+ * Misra1a and BoxBOD, y = b1·(1 − e^(−b2·x)) with b1 = a and b2 = 1/τ).
+ */
+const RISE_FROM_ZERO: NonlinearModel = {
+  value: (t, b) => b[0] * -Math.expm1(-t / b[1]),
+  gradient: (t, b, out) => {
+    out[0] = -Math.expm1(-t / b[1]);
+    out[1] = (-b[0] * t * Math.exp(-t / b[1])) / (b[1] * b[1]);
+  },
+};
+
+/**
  * Fit plateau (withClimb false) or plateau_climb (true) to (t seconds, p microns): variable projection
  * over τ ∈ [tauMinSeconds, tauMaxSeconds] (searchTimeConstant). The projected minimum is the joint
  * least-squares solution (Golub & Pereyra 1973, Theorem 2.1: minimisers of the projected functional and
  * of the full one coincide), so a joint Levenberg–Marquardt iteration from it would only move τ within
- * the search tolerance; the solution is summarised as fitNonlinear would report it (summariseFit: RSS,
- * s²·(JᵀJ)⁻¹ by QR, standard errors), with iterations = projected-RSS evaluations.
+ * the search tolerance; the solution is summarised by summariseFit (RSS, s²·(JᵀJ)⁻¹ by QR, standard
+ * errors), with iterations = projected-RSS evaluations. withOffset false fits the rise from zero
+ * (b = [a, τ], no climb): the same search, checked against NIST StRD Misra1a and BoxBOD
+ * (tests/analysis/fit-nist.test.ts).
  */
 export function fitPlateauModel(
   t: ArrayLike<number>,
@@ -315,13 +339,16 @@ export function fitPlateauModel(
   withClimb: boolean,
   tauMinSeconds: number,
   tauMaxSeconds: number,
+  withOffset = true,
 ): PlateauFitOutcome {
+  if (!withOffset && withClimb) throw new Error("fitPlateauModel: the rise from zero has no climb term");
   const kind: HoldModelKind = withClimb ? "plateau_climb" : "plateau";
-  const nParams = withClimb ? 4 : 3;
+  const nParams = (withClimb ? 4 : 3) - (withOffset ? 0 : 1);
   if (t.length < nParams + 2) return { fit: null, notIdentified: "too_few_points" };
-  const search = searchTimeConstant(t, p, withClimb, tauMinSeconds, tauMaxSeconds);
+  const search = searchTimeConstant(t, p, withClimb, tauMinSeconds, tauMaxSeconds, 32, withOffset);
   if (search.atEdge) return { fit: null, notIdentified: search.atEdge === "low" ? "step" : "no_bend" };
   const { coef, tauSeconds } = search.best;
+  if (!withOffset) return { fit: summariseFit(RISE_FROM_ZERO, t, p, [coef[0], tauSeconds], search.evaluations, "converged"), notIdentified: null };
   const start = withClimb ? [coef[0], coef[1], tauSeconds, coef[2]] : [coef[0], coef[1], tauSeconds];
   const model = holdNonlinearModel(kind);
   return { fit: summariseFit(model, t, p, start, search.evaluations, "converged"), notIdentified: null };
