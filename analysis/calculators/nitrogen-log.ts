@@ -6,10 +6,19 @@
  * that names only the unit (kPa, mbar, Pa, psi, bar) is never guessed: the caller passes the
  * technician's answer (`ambiguousAs`) or the log is refused with the column named. Absolute
  * readings become gauge by subtracting the atmosphere (entered, or the standard 101325 Pa).
+ *
+ * Layout, numbers and times are read by the decay importer's own reader (analysis/decay/import:
+ * delimiter, preamble and header sniffing, the decimal comma decided per column, thousands groups,
+ * every time form it knows including separate date and time columns), so both logs follow one set of
+ * rules; only the pressure column and its unit are the nitrogen test's own.
  */
 import Papa from "papaparse";
+import { findTime } from "../decay/import/columns";
+import { addEvidence, decideDecimalComma, emptyEvidence } from "../decay/import/decimal";
+import { parseReading } from "../decay/import/numbers";
+import { sniffLayout, type Layout } from "../decay/import/sniff";
+import type { TimeSpec } from "../decay/import/timespec";
 import { LogError } from "../shared/errors";
-import { unitTokens } from "../shared/units";
 import { STANDARD_ATMOSPHERE, type NitrogenPressureUnit, type NitrogenReading, type TemperatureUnit } from "./nitrogen";
 import { namesVacuumUnit, readNitrogenHeaderUnit, type NitrogenHeaderUnit, type PressureReference } from "./nitrogen-units";
 
@@ -49,17 +58,6 @@ export interface NitrogenLogHeader {
   unit: NitrogenHeaderUnit;
 }
 
-function num(cell: string | undefined): number {
-  if (cell === undefined) return NaN;
-  const s = cell.trim().replace(/\s/g, "");
-  return s === "" ? NaN : Number(s.replace(/,(?=\d+$)/, "."));
-}
-
-function isTimeHeader(h: string): boolean {
-  const t = unitTokens(h);
-  return t.some((x) => ["time", "date", "timestamp", "elapsed", "t", "seconds", "s", "min", "minutes"].includes(x));
-}
-
 function isTemperatureHeader(h: string): boolean {
   return /temp|°|deg/i.test(h) || /(^|[^a-z])(f|c)\)?$/i.test(h.trim());
 }
@@ -70,13 +68,29 @@ function temperatureUnitOf(h: string): TemperatureUnit | null {
   return null;
 }
 
-function parseRows(text: string): { rows: string[][]; headerIndex: number; header: string[] } {
+/**
+ * The log's layout by the decay importer's own sniffing (sniff.ts: delimiter, preamble, header row,
+ * a units row under the names, sample rows), so both logs are read by one set of rules.
+ */
+function layoutOf(text: string): Layout {
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   if (text.trim() === "") throw new LogError("empty_file", "the file is empty");
-  const rows = Papa.parse<string[]>(text.trim(), { header: false, skipEmptyLines: true }).data;
-  const headerIndex = rows.findIndex((r) => r.some((c) => /[a-z]/i.test(c)) && r.length >= 2);
-  if (headerIndex < 0) throw new LogError("no_header", "no header row with column names was found");
-  return { rows, headerIndex, header: rows[headerIndex].map((h) => h.trim()) };
+  return sniffLayout(text);
+}
+
+/**
+ * Decimal comma for one column, from its own sample cells by the importer's rule (decimal.ts), else
+ * the file's: a logger may localise one column and not another.
+ */
+function columnDecimalComma(layout: Layout, index: number): boolean {
+  const ev = emptyEvidence();
+  for (const row of layout.sampleRows) if (row[index] !== undefined) addEvidence(ev, row[index].trim());
+  return ev.commaProof > 0 || ev.pointProof > 0 || ev.ambiguousComma > 0 ? decideDecimalComma(ev, layout.delimiter) : layout.decimalComma;
+}
+
+/** A number cell by the importer's reader (numbers.ts: decimal comma, thousands groups, spaces); NaN when none. */
+function num(cell: string | undefined, decimalComma: boolean): number {
+  return cell === undefined ? NaN : parseReading(cell.trim(), decimalComma);
 }
 
 function findPressureColumn(header: string[]): { index: number; unit: NitrogenHeaderUnit } {
@@ -101,7 +115,7 @@ function findPressureColumn(header: string[]): { index: number; unit: NitrogenHe
  * the header alone, so a form can ask the technician before reading the readings.
  */
 export function inspectNitrogenLogHeader(text: string): NitrogenLogHeader {
-  const { header } = parseRows(text);
+  const { header } = layoutOf(text);
   const { index, unit } = findPressureColumn(header);
   return { column: header[index], unit };
 }
@@ -111,7 +125,9 @@ export function inspectNitrogenLogHeader(text: string): NitrogenLogHeader {
  * header, and optionally a temperature column. Throws LogError with the line and column.
  */
 export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}): NitrogenLog {
-  const { rows, headerIndex, header } = parseRows(text);
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  const layout = layoutOf(text);
+  const { header } = layout;
   const assumptions: string[] = [];
   const { index: pIdx, unit } = findPressureColumn(header);
   const pHeader = header[pIdx];
@@ -131,9 +147,11 @@ export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}):
   }
   if (unit.toFamily !== 1) assumptions.push(`Readings in ${unit.unitWord} are shown in ${unit.family === "kpa_gauge" ? "kPa" : unit.family}.`);
 
-  const tIdx = header.findIndex((h, i) => i !== pIdx && isTimeHeader(h));
-  if (tIdx < 0) throw new LogError("no_time_column", `no time column: columns are ${header.join(", ")}`);
-  const tempIdx = header.findIndex((h, i) => i !== pIdx && i !== tIdx && isTemperatureHeader(h));
+  // time (and a separate date) column and how it is written: the decay importer's rules (columns.ts, timespec.ts)
+  const time = findTime(layout, {}, new Set([pIdx]));
+  const tIdx = time.timeIndex;
+  const dIdx = time.dateIndex;
+  const tempIdx = header.findIndex((h, i) => i !== pIdx && i !== tIdx && i !== dIdx && isTemperatureHeader(h));
   let temperatureUnit: TemperatureUnit | null = null;
   if (tempIdx >= 0) {
     temperatureUnit = temperatureUnitOf(header[tempIdx]) ?? options.temperatureUnit ?? null;
@@ -142,33 +160,24 @@ export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}):
 
   const absolute = readingsAre === "absolute";
   const atmosphereAbs = options.atmosphereAbs ?? STANDARD_ATMOSPHERE[unit.family];
-  const minutes = /min/i.test(header[tIdx]);
-  const tSeconds: number[] = [];
+  const pComma = columnDecimalComma(layout, pIdx);
+  const tempComma = tempIdx >= 0 ? columnDecimalComma(layout, tempIdx) : false;
+  const rows = Papa.parse<string[]>(text.slice(layout.headerOffset), { delimiter: layout.delimiter, newline: layout.newline, skipEmptyLines: false }).data;
+  const read = (spec: TimeSpec) => readRows(rows, layout.headerLine + 1, spec, tIdx, dIdx, (row) => num(row[pIdx], pComma));
+  let timed = read(time.spec);
+  if ("badLine" in timed && time.spec.alternate) {
+    const other = read(time.spec.alternate);
+    if (!("badLine" in other)) timed = other;
+  }
+  if ("badLine" in timed)
+    throw new LogError("bad_time", `line ${timed.badLine}: time '${timed.badCell.slice(0, 40)}' is not a time`, { line: timed.badLine, column: header[tIdx] });
+  const { tSeconds, lines, rowIndex } = timed;
   const pressureGauge: number[] = [];
-  const lines: number[] = [];
   const temperature: number[] = [];
-  let t0: number | null = null;
-  let startedAtMs: number | null = null;
-  for (let r = headerIndex + 1; r < rows.length; r++) {
-    const row = rows[r];
-    const line = r + 1;
-    const rawP = num(row[pIdx]);
-    if (!Number.isFinite(rawP)) continue;
-    const cell = (row[tIdx] ?? "").trim();
-    let t = num(cell);
-    if (Number.isFinite(t)) t = minutes ? t * 60 : t;
-    else {
-      const ms = Date.parse(cell.replace(" ", "T"));
-      if (!Number.isFinite(ms)) throw new LogError("bad_time", `line ${line}: time '${cell.slice(0, 40)}' is not a time`, { line, column: header[tIdx] });
-      t = ms / 1000;
-      if (t0 === null) startedAtMs = ms;
-    }
-    t0 ??= t;
-    tSeconds.push(t - t0);
-    lines.push(line);
-    const inFamily = rawP * unit.toFamily;
+  for (const r of rowIndex) {
+    const inFamily = num(rows[r][pIdx], pComma) * unit.toFamily;
     pressureGauge.push(absolute ? inFamily - atmosphereAbs : inFamily);
-    if (tempIdx >= 0) temperature.push(num(row[tempIdx]));
+    if (tempIdx >= 0) temperature.push(num(rows[r][tempIdx], tempComma));
   }
   if (pressureGauge.length < 2) throw new LogError("too_few_readings", `only ${pressureGauge.length} usable reading(s); at least 2 are needed`);
   if (absolute) assumptions.push(`Absolute readings turned into gauge by subtracting the atmosphere (${atmosphereAbs}).`);
@@ -182,11 +191,50 @@ export function readNitrogenLog(text: string, options: NitrogenLogOptions = {}):
     tSeconds,
     pressureGauge,
     lines,
-    startedAtMs,
+    startedAtMs: time.spec.dated && timed.firstRaw === timed.firstRaw ? Math.round(timed.firstRaw * 1000) : null,
     temperatureUnit,
     temperature: tempIdx >= 0 ? temperature : null,
     assumptions,
   };
+}
+
+const HALF_DAY_SECONDS = 43_200;
+
+type TimedRows = { tSeconds: number[]; lines: number[]; rowIndex: number[]; firstRaw: number } | { badLine: number; badCell: string };
+
+/**
+ * Times of the rows that carry a pressure reading (seconds from the first such row), by the time
+ * spec; clock times roll over midnight as in the importer (rows.ts). Row 0 is the header; `headerLine`
+ * is its 1-based file line.
+ */
+function readRows(rows: string[][], headerLine: number, spec: TimeSpec, tIdx: number, dIdx: number, pressureOf: (row: string[]) => number): TimedRows {
+  const tSeconds: number[] = [];
+  const lines: number[] = [];
+  const rowIndex: number[] = [];
+  let firstRaw = NaN;
+  let prevRaw = NaN;
+  let dayOffset = 0;
+  for (let r = 1; r < rows.length; r++) {
+    const row = rows[r];
+    if (row.length === 1 && row[0].trim() === "") continue;
+    if (!Number.isFinite(pressureOf(row))) continue;
+    const cell = (row[tIdx] ?? "").trim();
+    let t = spec.parse(cell, dIdx >= 0 ? (row[dIdx] ?? "").trim() : "");
+    if (!Number.isFinite(t)) return { badLine: headerLine + r, badCell: cell };
+    if (spec.rollover) {
+      t += dayOffset;
+      if (prevRaw === prevRaw) {
+        if (t < prevRaw - HALF_DAY_SECONDS) { dayOffset += 86400; t += 86400; }
+        else if (t > prevRaw + HALF_DAY_SECONDS) { dayOffset -= 86400; t -= 86400; }
+      }
+      prevRaw = t;
+    }
+    if (firstRaw !== firstRaw) firstRaw = t;
+    tSeconds.push(t - firstRaw);
+    lines.push(headerLine + r);
+    rowIndex.push(r);
+  }
+  return { tSeconds, lines, rowIndex, firstRaw };
 }
 
 /**

@@ -124,7 +124,7 @@ export function unknownUnitNamed(header: string): string | null {
   return inside;
 }
 
-function findTime(layout: Layout, options: ImportOptions, taken: Set<number>): { timeIndex: number; dateIndex: number; spec: TimeSpec } {
+export function findTime(layout: Layout, options: ImportOptions, taken: Set<number>): { timeIndex: number; dateIndex: number; spec: TimeSpec } {
   const { header, decimalComma } = layout;
   const tokens = header.map((h) => unitTokens(h));
   const detect = (i: number, dateIndex = -1) =>
