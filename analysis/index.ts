@@ -39,12 +39,17 @@ export function analyzeReadings(log: ImportedLog, options: AnalyzeOptions = {}):
   return analyzeChecked(log, checked.options, checked.profile);
 }
 
+/** The reading a full sort puts at ⌊n/2⌋ (a reading of the log, not the mean of two as simple-statistics' median gives; kept so the ambient figure stays as it was). */
 function median(values: number[]): number | null {
   const v = values.filter(Number.isFinite).sort((a, b) => a - b);
   return v.length ? v[v.length >> 1] : null;
 }
 
-/** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings), `skip` left out. */
+/**
+ * Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3
+ * readings), `skip` left out. Summed in place rather than by simple-statistics' linearRegression, which
+ * takes an array of [x, y] pairs: one allocation per reading over a hold of up to a million.
+ */
 function lateSlopePerMinute(t: number[], p: number[], from: number, to: number, skip: Uint8Array): number | null {
   const mid = t[from] + (t[to] - t[from]) / 2;
   let n = 0;

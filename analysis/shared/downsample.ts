@@ -1,9 +1,32 @@
 /**
- * Downsampling a log for a chart without losing what matters: the time axis is cut into equal
- * buckets and each bucket keeps its first, lowest, highest and last reading (min/max decimation, in
- * the spirit of LTTB, Steinarsson 2013, but keeping extremes exactly so a dip or spike never
- * vanishes). Readings nearest the `keepTimes` (isolation, end of hold) are always kept. O(n).
+ * Downsampling a log for a chart without losing what matters (min/max decimation, in the spirit of
+ * LTTB, Steinarsson 2013, but keeping extremes exactly so a dip or spike never vanishes):
+ *
+ *  - bucketExtremes: the lowest and highest reading of each of a number of equal-count buckets (the
+ *    report's and the lists' small curves);
+ *  - downsampleForChart: equal-time buckets, each keeping its first, lowest, highest and last reading,
+ *    and the readings nearest the `keepTimes` (isolation, end of hold) always (the test's chart).
+ * Both O(n).
  */
+
+/**
+ * Cuts values[0, n) into `buckets` equal-count buckets, bucket b = [⌊b·n/buckets⌋, ⌊(b+1)·n/buckets⌋),
+ * and calls visit(lowest, highest) with the indices of each bucket's lowest and highest value (the
+ * first of equal ones), bucket by bucket. An empty bucket (buckets > n) reports its start index twice.
+ */
+export function bucketExtremes(values: ArrayLike<number>, n: number, buckets: number, visit: (lowest: number, highest: number) => void): void {
+  for (let b = 0; b < buckets; b++) {
+    const from = Math.floor((b * n) / buckets);
+    const to = Math.floor(((b + 1) * n) / buckets);
+    let lo = from;
+    let hi = from;
+    for (let i = from; i < to; i++) {
+      if (values[i] < values[lo]) lo = i;
+      if (values[i] > values[hi]) hi = i;
+    }
+    visit(lo, hi);
+  }
+}
 export interface ChartSeries {
   tSeconds: number[];
   microns: number[];

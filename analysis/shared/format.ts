@@ -1,7 +1,7 @@
 /**
  * Number formatting for user-facing text, without the locale machinery: the first
- * Number.prototype.toLocaleString call of a process loads locale data (tens of milliseconds), and
- * every call after it is far slower than building the string by hand.
+ * Number.prototype.toLocaleString call of a process loads locale data, and every call after it is
+ * slower than building the string by hand.
  */
 
 /**

@@ -3,7 +3,7 @@
  * agrees with the fit on every reading, on generated holds with known truth (invented data, seeded noise:
  * 2 % of the reading, rounded to the gauge's resolution step — analysis/decay/fit/synthetic.ts).
  *
- * The unbinned reference is the same variable-projection + Levenberg–Marquardt fit (fitPlateauModel) run
+ * The unbinned reference is the same variable-projection fit (fitPlateauModel) run
  * on all readings. Tolerances, both relative to the unbinned fit's own standard errors (SE):
  * - each parameter within 0.3 SE: binning may move an estimate by a small fraction of its own uncertainty
  *   (measured: under 0.2 SE on these holds), far below what any decision can see;

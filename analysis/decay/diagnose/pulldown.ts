@@ -6,7 +6,8 @@
 import type { Finding } from "../types";
 import { iceEquilibriumC } from "../../calculators/water";
 import type { DiagnoseContext } from "./context";
-import { CAUTION_CODES, CAUTION_COMPRESSOR, CAUTION_NITROGEN, finding, fmt, median3 } from "./wording";
+import { runningMedian3 } from "../fit/median";
+import { CAUTION_CODES, CAUTION_COMPRESSOR, CAUTION_NITROGEN, finding, fmt } from "./wording";
 
 /** e-folding time of the best stretch of the pull-down above which it counts as slow (seconds). */
 export const SLOW_PULLDOWN_TAU_SECONDS = 300;
@@ -19,7 +20,7 @@ export function pulldownFindings(ctx: DiagnoseContext): Finding[] {
   if (!range || !pd || range.endIndex - range.startIndex < 4) return [];
   const out: Finding[] = [];
   const t = ctx.tSeconds;
-  const smooth = median3(ctx.microns, range.startIndex, range.endIndex);
+  const smooth = runningMedian3(ctx.microns, range.startIndex, range.endIndex);
   const at = (k: number) => t[range.startIndex + k];
 
   if (pd.lowestMicrons > ctx.profile.targetMicrons) {

@@ -22,18 +22,3 @@ export function finding(
 ): Finding {
   return { code, severity, title, message, evidence, checks, cautions, atSeconds };
 }
-
-/** 3-point running median of values[from..to] inclusive (edges copied), in one typed array. */
-export function median3(values: ArrayLike<number>, from: number, to: number): Float64Array {
-  const out = new Float64Array(Math.max(0, to - from + 1));
-  for (let i = from; i <= to; i++) {
-    if (i === from || i === to) out[i - from] = values[i];
-    else {
-      const a = values[i - 1];
-      const b = values[i];
-      const c = values[i + 1];
-      out[i - from] = Math.max(Math.min(a, b), Math.min(Math.max(a, b), c));
-    }
-  }
-  return out;
-}

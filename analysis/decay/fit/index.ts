@@ -7,7 +7,7 @@ import { fitStraightLine } from "./linear";
 import { HOLD_MODEL_PARAMS, holdModelMicrons, paramsFromVector } from "./models";
 import type { NonlinearFit } from "./nls";
 import { reduceHold, type ReducedHold } from "./reduce";
-import { medianInPlace } from "./median";
+import { medianIntervalSeconds } from "../phases/smooth";
 import { findSpikesInResiduals } from "./robust";
 import { aiccLeastSquares, chooseHoldModel } from "./select";
 import { fitPlateauModel, type PlateauFitOutcome } from "./varpro";
@@ -21,14 +21,6 @@ export { fitStraightLine, solveLinearLeastSquares } from "./linear";
  */
 export function evaluateModel(fit: ModelFit, tSeconds: number): number {
   return holdModelMicrons(fit.params, tSeconds);
-}
-
-/** Median interval between successive readings, seconds (repeated time stamps ignored; 1 s if none). */
-function medianPositiveStep(t: ArrayLike<number>): number {
-  const d = new Float64Array(Math.max(0, t.length - 1));
-  let m = 0;
-  for (let i = 1; i < t.length; i++) if (t[i] > t[i - 1]) d[m++] = t[i] - t[i - 1];
-  return m === 0 ? 1 : medianInPlace(d, 0, m);
 }
 
 function maskOf(indices: number[], n: number): Uint8Array {
@@ -214,7 +206,7 @@ export function fitHoldModels(tSeconds: ArrayLike<number>, microns: ArrayLike<nu
   if (tSeconds.length < 2) throw new LogError("too_few_readings", `hold has ${tSeconds.length} reading(s); at least 2 are needed to fit`);
   const robust = options.robust ?? true;
   const holdSeconds = tSeconds[tSeconds.length - 1] - Math.min(0, tSeconds[0]);
-  const sampleSeconds = medianPositiveStep(tSeconds);
+  const sampleSeconds = medianIntervalSeconds(tSeconds);
   const ctx = { holdSeconds, sampleSeconds };
 
   const run = (excluded: number[], reduced = reduceHold(tSeconds, microns, maskOf(excluded, tSeconds.length)), plateauClimb?: PlateauFitOutcome | null) => {

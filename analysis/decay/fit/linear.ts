@@ -3,7 +3,9 @@
  *
  * Used directly for straight-line fits (Norris, the "climb" hold model), inside the variable
  * projection of the plateau models (the linear part for a fixed time constant) and for the
- * Levenberg–Marquardt step of the nonlinear solver (augmented system, see nls.ts).
+ * linearised covariance of a fit (nls.ts). Not simple-statistics' linearRegression: the fits need the
+ * parameters' standard errors and covariance, and QR rather than normal equations (checked against NIST
+ * StRD Norris to 10 digits).
  *
  * Reference: G. H. Golub & C. F. Van Loan, Matrix Computations (4th ed.), §5.2 (Householder QR)
  * and §5.3 (least squares via QR); Å. Björck, Numerical Methods for Least Squares Problems (1996), §2.
@@ -52,9 +54,9 @@ function copyOf(v: ArrayLike<number>): Float64Array {
  * solveLinearLeastSquares on work arrays it may overwrite: the columns `a` (each of length ≥ y's) and `qty`
  * (y on entry, Qᵀy on return). Same method and the same floating-point operations in the same order, so the
  * same bits; the Householder vector of each column is kept in the column's own lower part instead of a
- * fresh array. For callers that solve many systems of one size (the Levenberg–Marquardt steps).
+ * fresh array (solveLinearLeastSquares copies its input and calls this).
  */
-export function solveLinearLeastSquaresInPlace(a: Float64Array[], qty: Float64Array, rankTolerance = 1e-10): LinearLeastSquares {
+function solveLinearLeastSquaresInPlace(a: Float64Array[], qty: Float64Array, rankTolerance = 1e-10): LinearLeastSquares {
   const p = a.length;
   const n = qty.length;
   const scale: number[] = [];

@@ -1,5 +1,7 @@
 /**
  * Median by quickselect (Hoare's FIND, 1961): expected O(n), reorders the given range in place.
+ * Kept beside simple-statistics (which the engine uses where a copy costs nothing): the phase and fit
+ * loops call these on reused typed-array scratch, where the library's copy per call would allocate.
  * Even counts give the mean of the two middle values.
  */
 export function medianInPlace(v: Float64Array, from = 0, to = v.length): number {
@@ -44,4 +46,25 @@ function select(v: Float64Array, left: number, right: number, k: number): number
     else return v[k];
   }
   return v[k];
+}
+
+/**
+ * 3-point running median of values[from..to] (inclusive), the first and last reading copied, written
+ * into `out` from index 0 (a fresh array when none is given): a lone spike never survives it, a step
+ * does. One pass, no allocation when `out` is given (the phase search reuses its scratch).
+ * Reference: J. W. Tukey, Exploratory Data Analysis (1977), running medians of 3.
+ */
+export function runningMedian3(values: ArrayLike<number>, from: number, to: number, out: Float64Array = new Float64Array(Math.max(0, to - from + 1))): Float64Array {
+  const n = to - from + 1;
+  for (let i = 0; i < n; i++) {
+    const j = from + i;
+    if (i === 0 || i === n - 1) out[i] = values[j];
+    else {
+      const a = values[j - 1];
+      const b = values[j];
+      const c = values[j + 1];
+      out[i] = Math.max(Math.min(a, b), Math.min(Math.max(a, b), c));
+    }
+  }
+  return out;
 }

@@ -1,7 +1,7 @@
 /**
  * Spike handling: a lone bad reading (a gauge glitch, a bumped hose) must not bend the fitted rise.
  */
-import { medianInPlace } from "./median";
+import { median, medianAbsoluteDeviation } from "simple-statistics";
 
 /** Residuals beyond this many robust standard deviations are spikes. */
 export const SPIKE_K = 5;
@@ -47,17 +47,15 @@ export function findSpikesInResiduals(resid: Float64Array, k = SPIKE_K): number[
   const n = resid.length;
   if (n < 5) return [];
   const block = Math.max(SPIKE_BLOCK_MIN, Math.ceil(n / 20));
-  const work = new Float64Array(block);
   const out: number[] = [];
   for (let from = 0; from < n; from += block) {
     // Fold a short last block into a full-size window ending at n.
     const lo = Math.max(0, Math.min(from, n - block));
     const hi = Math.min(n, lo + block);
-    const m = hi - lo;
-    for (let i = 0; i < m; i++) work[i] = resid[lo + i];
-    const centre = medianInPlace(work, 0, m);
-    for (let i = 0; i < m; i++) work[i] = Math.abs(resid[lo + i] - centre);
-    const scale = Math.max(1.4826 * medianInPlace(work, 0, m), 1);
+    // simple-statistics copies each block (at most ~20 blocks of the reduced hold's ≤ 1,000 points), not per reading
+    const window = Array.from(resid.subarray(lo, hi));
+    const centre = median(window);
+    const scale = Math.max(1.4826 * medianAbsoluteDeviation(window), 1);
     for (let i = from; i < Math.min(n, from + block); i++) {
       const off = Math.abs(resid[i] - centre);
       if (off > k * scale && off > SPIKE_MIN_MICRONS) out.push(i);

@@ -2,6 +2,7 @@
  * Which column is the time, the pressure, a unit, an ambient temperature — from header words
  * and the first rows' cells — and what unit the pressure is in.
  */
+import { median } from "simple-statistics";
 import { LogError } from "../../shared/errors";
 import type { ImportOptions, PressureUnit, UnsureReason } from "../types";
 import { type GaugeUnit, namesAmbiguousUnit, parsePressureUnit, UNITS_UNDERSTOOD, unitTokens } from "../../shared/units";
@@ -252,9 +253,7 @@ export function chooseColumns(layout: Layout, options: ImportOptions): ColumnCho
     if (t.some((w) => w === "f" || w === "degf" || w === "fahrenheit" || w === "of")) temperatureFahrenheit = true;
     else if (!t.some((w) => w === "c" || w === "degc" || w === "celsius" || w === "oc")) {
       const cells = columnCells(layout, temperatureIndex).map((c) => parseReading(c, decimalComma)).filter((v) => v === v);
-      const sorted = cells.sort((a, b) => a - b);
-      const median = sorted.length > 0 ? sorted[Math.floor(sorted.length / 2)] : NaN;
-      temperatureFahrenheit = median > 50;
+      temperatureFahrenheit = cells.length > 0 && median(cells) > 50;
       assumptions.push(`temperature column '${header[temperatureIndex]}' names no unit: read as ${temperatureFahrenheit ? "°F (values above 50)" : "°C"}`);
     }
   }

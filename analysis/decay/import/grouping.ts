@@ -18,6 +18,7 @@
  * reason: a larger reading can fail a tight system but never pass a leaking or wet one.
  * Thresholds: common practice, no published source.
  */
+import { median } from "simple-statistics";
 import { groupedInteger } from "../../shared/format";
 import type { UnsureReason } from "../types";
 import type { FileDecimalHint } from "./decimal";
@@ -249,9 +250,8 @@ function plausible(microns: number[], ev: AmbiguousCells, large: boolean): boole
     if (v > max) max = v;
     if (i % stride === 0) sample.push(v);
   }
-  sample.sort((a, b) => a - b);
-  const median = sample.length ? sample[sample.length >> 1] : NaN;
-  return max <= MAX_PLAUSIBLE_MICRONS && min <= VACUUM_REACHED_MICRONS && !(median < DEEPEST_MEDIAN_MICRONS);
+  const middle = sample.length ? median(sample) : NaN;
+  return max <= MAX_PLAUSIBLE_MICRONS && min <= VACUUM_REACHED_MICRONS && !(middle < DEEPEST_MEDIAN_MICRONS);
 }
 
 /**

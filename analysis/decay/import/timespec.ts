@@ -13,6 +13,7 @@ import {
   parseDateOnly,
   parseDateTime,
 } from "./time";
+import { median } from "simple-statistics";
 
 export type ElapsedUnit = "ms" | "s" | "min" | "h";
 
@@ -304,6 +305,5 @@ function medianStep(samples: string[], decimalComma: boolean): number {
     if (v === v && prev === prev && v > prev) steps.push(v - prev);
     if (v === v) prev = v;
   }
-  steps.sort((a, b) => a - b);
-  return steps.length ? steps[steps.length >> 1] : Infinity;
+  return steps.length ? median(steps) : Infinity;
 }

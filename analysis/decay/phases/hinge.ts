@@ -5,6 +5,7 @@
  * (segmented regression with a change point; Hinkley 1969, Biometrika 56:495). Prefix sums make each
  * candidate O(1), so the search is linear in the window length.
  */
+import { runningMedian3 } from "../fit/median";
 
 /**
  * Scratch arrays reused from call to call (grown when a window is longer): a multi-day log's flat floor
@@ -15,22 +16,6 @@ let scratch = new Float64Array(0);
 function scratchFor(n: number): Float64Array {
   if (scratch.length < 6 * (n + 1)) scratch = new Float64Array(Math.max(6 * (n + 1), 2 * scratch.length));
   return scratch;
-}
-
-/** 3-point running median of microns[from..to] (inclusive), edges copied, into `out`. */
-function median3(values: ArrayLike<number>, from: number, to: number, out: Float64Array): Float64Array {
-  const n = to - from + 1;
-  for (let i = 0; i < n; i++) {
-    const j = from + i;
-    if (i === 0 || i === n - 1) out[i] = values[j];
-    else {
-      const a = values[j - 1];
-      const b = values[j];
-      const c = values[j + 1];
-      out[i] = Math.max(Math.min(a, b), Math.min(Math.max(a, b), c));
-    }
-  }
-  return out;
 }
 
 /**
@@ -53,7 +38,7 @@ export function hingeSplit(
   const part = (k: number) => buffer.subarray(k * (n + 1), (k + 1) * (n + 1));
   // a 3-point median guards against spikes on dense logs; on sparse ones it would erase the corner
   const y = part(5);
-  if (n >= 15) median3(microns, from, to, y);
+  if (n >= 15) runningMedian3(microns, from, to, y);
   else for (let i = 0; i < n; i++) y[i] = microns[from + i];
   const t0 = t[from];
   // prefix sums of 1, x, y, x², xy, y² (index 0 is the empty sum)

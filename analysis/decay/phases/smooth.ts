@@ -82,6 +82,8 @@ export function medianIntervalSeconds(t: ArrayLike<number>): number {
  * quartile of |N(0, s²)| is 0.3186·s, so σ_rel ≈ ln(10) · Q25(|Δ² log10 p|) / (0.3186 · √6). Second
  * differences cancel straight-line trends; the lower quartile ignores spikes and the curvature of a
  * sparsely sampled pull-down (robust scale estimation in the manner of Hampel 1974). Capped at 20 %.
+ * The quartile is the element at ⌊m/4⌋ by quickselect on the strided typed array, not simple-statistics'
+ * quantile (which copies the array and interpolates between elements, so the 0.3186 factor would not hold).
  */
 export function relativeNoise(microns: ArrayLike<number>): number {
   const n = microns.length;

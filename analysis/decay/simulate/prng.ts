@@ -1,8 +1,10 @@
 /**
  * Seeded pseudo-random numbers for the simulator, so every generated log can be made again
- * from its seed. mulberry32 (a 32-bit multiply–xorshift generator, public domain) for uniforms,
- * Box–Muller for normals. Not for cryptography.
+ * from its seed. Uniforms from the engine's one seeded generator (mulberry32, fit/prng.ts) on the
+ * seed mixed with 0x9e3779b9, Box–Muller for normals. Not for cryptography.
  */
+import { seededUniform } from "../fit/prng";
+
 export interface Rng {
   /** Uniform in [0, 1). */
   next(): number;
@@ -20,14 +22,7 @@ export interface Rng {
 }
 
 export function makeRng(seed: number): Rng {
-  let state = (Math.floor(seed) ^ 0x9e3779b9) >>> 0;
-  const next = (): number => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let z = state;
-    z = Math.imul(z ^ (z >>> 15), z | 1);
-    z ^= z + Math.imul(z ^ (z >>> 7), z | 61);
-    return ((z ^ (z >>> 14)) >>> 0) / 4294967296;
-  };
+  const next = seededUniform((Math.floor(seed) ^ 0x9e3779b9) >>> 0);
   let spare: number | null = null;
   const rng: Rng = {
     next,
