@@ -8,10 +8,10 @@
  * on stderr.
  */
 import { readFileSync } from "node:fs";
-import { LogError } from "./errors";
+import { LogError } from "./shared/errors";
 import { analyzeLog } from "./index";
-import type { AnalysisResult, AnalyzeOptions, PressureUnit } from "./types";
-import { micronsTo } from "./units";
+import type { AnalysisResult, AnalyzeOptions, PressureUnit } from "./decay/types";
+import { micronsTo } from "./shared/units";
 
 const USAGE = "usage: tsx analysis/cli.ts FILE [--json] [--unit micron|mtorr|torr|mmhg|pa|kpa|mbar|hpa|psia|inhg] [--time-unit s|min] [--volume-l LITRES]";
 const UNITS: readonly PressureUnit[] = ["micron", "mtorr", "torr", "mmhg", "pa", "kpa", "mbar", "hpa", "psia", "inhg"];

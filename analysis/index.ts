@@ -5,23 +5,23 @@
  *   analyzeLog(text, options)      — CSV text as exported by a gauge
  *   analyzeReadings(log, options)  — readings already in hand (typed in, or imported earlier)
  */
-import { chosenFit, classifyHold, type HoldEvidence } from "./classify";
-import { diagnose } from "./diagnose";
-import { fitHoldModels } from "./fit";
-import { holdFigures, judgedHighest } from "./figures";
-import { earlyCallWithVerdict, forecastHold } from "./forecast";
-import { importLog } from "./import";
-import { judgeFieldHolds, spikeMask, spikeSecondsOf } from "./holds";
-import { findPhases } from "./phases";
-import { checkOptions } from "./profile";
-import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFigures, HoldFitResult, ImportedLog, LeakRate } from "./types";
-import { leakRateFromRise, systemVolumeLitres } from "./volume";
-import { LogError } from "./errors";
+import { chosenFit, classifyHold, type HoldEvidence } from "./decay/classify";
+import { diagnose } from "./decay/diagnose";
+import { fitHoldModels } from "./decay/fit";
+import { holdFigures, judgedHighest } from "./decay/figures";
+import { earlyCallWithVerdict, forecastHold } from "./decay/forecast";
+import { importLog } from "./decay/import";
+import { judgeFieldHolds, spikeMask, spikeSecondsOf } from "./decay/holds";
+import { findPhases } from "./decay/phases";
+import { checkOptions } from "./decay/profile";
+import type { AcceptanceProfile, AnalysisResult, AnalyzeOptions, Forecast, HoldFigures, HoldFitResult, ImportedLog, LeakRate } from "./decay/types";
+import { leakRateFromRise, systemVolumeLitres } from "./shared/volume";
+import { LogError } from "./shared/errors";
 
 export const ENGINE_VERSION = "0.2.0";
 
-export { DEFAULT_PROFILE } from "./profile";
-export { downsampleForChart } from "./downsample";
+export { DEFAULT_PROFILE } from "./decay/profile";
+export { downsampleForChart } from "./shared/downsample";
 
 /** Analyse a gauge log given as text (CSV, semicolon or tab separated, as exported). */
 export function analyzeLog(text: string, options: AnalyzeOptions = {}): AnalysisResult {
@@ -39,12 +39,17 @@ export function analyzeReadings(log: ImportedLog, options: AnalyzeOptions = {}):
   return analyzeChecked(log, checked.options, checked.profile);
 }
 
+/** The reading a full sort puts at ⌊n/2⌋ (a reading of the log, not the mean of two as simple-statistics' median gives; kept so the ambient figure stays as it was). */
 function median(values: number[]): number | null {
   const v = values.filter(Number.isFinite).sort((a, b) => a - b);
   return v.length ? v[v.length >> 1] : null;
 }
 
-/** Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3 readings), `skip` left out. */
+/**
+ * Ordinary least-squares slope of the last half of p[from..to] against t, microns per minute (null under 3
+ * readings), `skip` left out. Summed in place rather than by simple-statistics' linearRegression, which
+ * takes an array of [x, y] pairs: one allocation per reading over a hold of up to a million.
+ */
 function lateSlopePerMinute(t: number[], p: number[], from: number, to: number, skip: Uint8Array): number | null {
   const mid = t[from] + (t[to] - t[from]) / 2;
   let n = 0;

@@ -21,7 +21,7 @@ import os from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import Papa from "papaparse";
-import { importLog } from "../analysis/import";
+import { importLog } from "../analysis/decay/import";
 import { SHAPES, shapeTable, timeShape, type ShapeResult } from "./bench-shapes";
 
 /** Rows of each field-export shape (goal: analysis ≤ 1.5 × a bare parse of the same file, for any shape). */

@@ -13,7 +13,7 @@ import { getAuth } from "@/lib/auth";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
-import { simulateLog } from "@/analysis/simulate";
+import { simulateLog } from "@/analysis/decay/simulate";
 import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { twoServerRounds } from "./bench-two-servers";
 

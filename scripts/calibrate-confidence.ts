@@ -1,21 +1,21 @@
 /**
  * `npm run calibrate`: fit the verdict confidence to simulated logs with known truth and write the
- * table the engine reads (analysis/confidence/table.ts). Run it again whenever the engine changes
+ * table the engine reads (analysis/decay/confidence/table.ts). Run it again whenever the engine changes
  * (import, phases, fit or classify), then `npm run eval:analysis` to see the reliability on
  * held-out and independent logs.
  *
  *   tsx scripts/calibrate-confidence.ts [fileLogs=6000] [typedLogs=1500]
  *
  * Method: per verdict, a logistic regression of "the verdict was right" on the evidence of
- * analysis/confidence/features.ts (Platt scaling widened to a few features, analysis/confidence/logistic.ts),
+ * analysis/decay/confidence/features.ts (Platt scaling widened to a few features, analysis/decay/confidence/logistic.ts),
  * L2 penalty 1e-3. Fitting seeds 100001… (gauge logs) and 200001… (typed logs) are never used by
  * the evaluation (900001…, 300001…, and the independent set).
  */
 import { writeFileSync } from "node:fs";
-import { FEATURE_NAMES } from "../analysis/confidence";
-import { fitLogistic } from "../analysis/confidence/logistic";
+import { FEATURE_NAMES } from "../analysis/decay/confidence";
+import { fitLogistic } from "../analysis/decay/confidence/logistic";
 import { ENGINE_VERSION } from "../analysis";
-import type { Verdict } from "../analysis/types";
+import type { Verdict } from "../analysis/decay/types";
 import { simulatedSet, typedSet, type Labelled } from "./eval/training";
 
 const fileCount = Number(process.argv[2] ?? 6000);
@@ -52,6 +52,6 @@ ${VERDICTS.map((v) => `    ${v}: [${weights[v].join(", ")}],`).join("\n")}
   },
 };
 `;
-writeFileSync(new URL("../analysis/confidence/table.ts", import.meta.url), table);
+writeFileSync(new URL("../analysis/decay/confidence/table.ts", import.meta.url), table);
 console.log(lines.join("\n"));
-console.log(`wrote analysis/confidence/table.ts (${id}) in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+console.log(`wrote analysis/decay/confidence/table.ts (${id}) in ${((Date.now() - started) / 1000).toFixed(1)} s`);

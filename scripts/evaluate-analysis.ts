@@ -13,8 +13,8 @@
  * tell analysis errors from import errors.
  */
 import { analyzeLog, analyzeReadings } from "../analysis";
-import { SCENARIOS, simulateLog, simulatedAsImported, type SimulatedLog } from "../analysis/simulate";
-import type { AnalysisResult, Verdict } from "../analysis/types";
+import { SCENARIOS, simulateLog, simulatedAsImported, type SimulatedLog } from "../analysis/decay/simulate";
+import type { AnalysisResult, Verdict } from "../analysis/decay/types";
 import { calibrationLines } from "./eval/calibration-section";
 import { earlyCallLines } from "./eval/early-call";
 import type { Judged } from "./eval/reliability";

@@ -5,7 +5,7 @@
  * minutes, a gross leak out of range), and accuracy printed per artifact and per layout, so a weak spot
  * shows by name. Seeds apart from the main part's.
  */
-import { DEFAULT_PROFILE } from "../analysis/profile";
+import { DEFAULT_PROFILE } from "../analysis/decay/profile";
 import {
   FIELD_ARTIFACTS,
   FIELD_LAYOUTS,
@@ -18,8 +18,8 @@ import {
   type Layout,
   type Scenario,
   type SimulatedLog,
-} from "../analysis/simulate";
-import type { AnalysisResult } from "../analysis/types";
+} from "../analysis/decay/simulate";
+import type { AnalysisResult } from "../analysis/decay/types";
 
 interface Tally {
   n: number;

@@ -6,7 +6,7 @@
  * coils, the condition from the job and the test's own hold). Prints one line per test and the
  * share within a factor of 2 of the likely plan.
  */
-import { durationWords } from "@/analysis/format";
+import { durationWords } from "@/analysis/shared/format";
 import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { planRecordedPullDown } from "@/lib/planner/recorded";
 import type { RigItemForPlan } from "@/lib/planner/setup";

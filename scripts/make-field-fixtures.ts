@@ -12,7 +12,7 @@
 import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { analyzeLog } from "../analysis";
-import { FIELD_ARTIFACTS, FIELD_LAYOUTS, simulateLog, type ScenarioOptions, type SimulatedLog } from "../analysis/simulate";
+import { FIELD_ARTIFACTS, FIELD_LAYOUTS, simulateLog, type ScenarioOptions, type SimulatedLog } from "../analysis/decay/simulate";
 
 const dir = path.resolve(import.meta.dirname, "../fixtures/field");
 mkdirSync(dir, { recursive: true });

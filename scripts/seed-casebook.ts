@@ -10,7 +10,7 @@
  */
 import type { Database } from "@/db/client";
 import { getCollectionBySeedKey, insertCollection, insertEntry, insertPin } from "@/db/queries/casebook";
-import { simulateLog, type Scenario, type SimulatedLog } from "@/analysis/simulate";
+import { simulateLog, type Scenario, type SimulatedLog } from "@/analysis/decay/simulate";
 import { createTestFromUpload } from "@/lib/vacuum-tests/upload";
 import { testMetadataSchema } from "@/lib/vacuum-tests/schemas";
 

@@ -6,8 +6,9 @@
  * scripts/seed-tests.ts writes it through the real pipeline; scripts/evaluate-planner.ts and the
  * planner's demo test read it without a database. All names and data are invented.
  */
-import { makePulldownCurve, makeRng, scenarioParams, simulateFromParams, type Layout, type Scenario, type SimulatedLog } from "@/analysis/simulate";
-import { tubeLitresPerFoot } from "@/analysis/volume";
+import { seededUniform } from "@/analysis/decay/fit/prng";
+import { makePulldownCurve, makeRng, scenarioParams, simulateFromParams, type Layout, type Scenario, type SimulatedLog } from "@/analysis/decay/simulate";
+import { tubeLitresPerFoot } from "@/analysis/shared/volume";
 import { SEED_RIGS, seedPulldown, type SeedCondition, type SeedRig } from "./seed-pulldowns";
 
 export interface DemoSystem {
@@ -65,17 +66,8 @@ const WET: ReadonlySet<Scenario> = new Set(["moisture", "leak_and_moisture", "fr
 export const REASONS = ["New install", "Compressor change", "Coil replacement", "Leak repair", "Line set replaced", "Service valve repair"];
 const LAYOUT_ROTATION: Layout[] = ["iso", "datetime", "clock_preamble", "elapsed_s", "semicolon_comma", "tab", "extra_columns", "elapsed_min"];
 
-/** Small deterministic generator (mulberry32) so the demo month is the same every time. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The engine's seeded generator (mulberry32), so the demo month is the same every time. */
+const rng = seededUniform;
 
 export interface DemoTest {
   index: number;

@@ -1,6 +1,6 @@
 /**
  * Pull-downs for the demo month that fit the system and the rig they were made with (invented
- * data, physically shaped). They use the simulator's own curve (analysis/simulate/curve.ts: a gas
+ * data, physically shaped). They use the simulator's own curve (analysis/decay/simulate/curve.ts: a gas
  * term whose speed falls below a knee pressure, plus a moisture tail M·e^(−t/τm)) with its knobs
  * set from textbook rules of thumb, independently of the planner's model:
  *  - high-pressure speed: the pump (80–100 % of its rating) or the choked limit of the smallest
@@ -15,7 +15,7 @@
  *    gauge up for a while: 1.2–2× for a dry one, 2–4× for a repair, 4–8× for a wet one).
  * Rules and ranges are common practice, no published source.
  */
-import { makePulldownCurve, makeRng, type PulldownSpec, type Rng } from "@/analysis/simulate";
+import { makePulldownCurve, makeRng, type PulldownSpec, type Rng } from "@/analysis/decay/simulate";
 
 export interface SeedRig {
   name: string;

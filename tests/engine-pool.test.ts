@@ -6,7 +6,7 @@
 import { spawnSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { LogError } from "@/analysis/errors";
+import { LogError } from "@/analysis/shared/errors";
 import { AppError } from "@/lib/errors";
 import { runAnalysis } from "@/lib/vacuum-tests/engine";
 import { Worker } from "node:worker_threads";

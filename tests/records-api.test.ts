@@ -6,7 +6,7 @@ import { GET as jobsGet, POST as jobsPost } from "@/app/api/jobs/route";
 import { GET as profilesGet } from "@/app/api/profiles/route";
 import { db } from "@/db/client";
 import { createProfile } from "@/db/queries/profiles";
-import { DEFAULT_PROFILE } from "@/analysis/profile";
+import { DEFAULT_PROFILE } from "@/analysis/decay/profile";
 import type { Role } from "@/lib/permissions";
 import { appRequest, createCrew, createShop, type TestMember } from "./helpers/members";
 import { jsonRequest } from "./helpers/uploads";

@@ -18,7 +18,7 @@ import {
   type ChartConfiguration,
   type Plugin,
 } from "chart.js";
-import type { AnalysisResult } from "@/analysis/types";
+import type { AnalysisResult } from "@/analysis/decay/types";
 import { buildCurve, curveSummary, durationWords, microns, type CurveModel } from "./model";
 import { CurveLegend } from "./CurveLegend";
 

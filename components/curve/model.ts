@@ -2,8 +2,8 @@
  * What the decay chart draws, computed from the server's analysis and the stored series.
  * Pure functions, no chart library: x is minutes from the first data row, y is microns.
  */
-import { durationWords } from "@/analysis/format";
-import type { AnalysisResult, Hold, ModelFit } from "@/analysis/types";
+import { durationWords } from "@/analysis/shared/format";
+import type { AnalysisResult, Hold, ModelFit } from "@/analysis/decay/types";
 import { storyOf } from "@/lib/verdict/story";
 
 export interface XY {
@@ -143,7 +143,7 @@ export function buildCurve(analysis: AnalysisResult, series: { t: number[]; p: n
   };
 }
 
-/** "1 h 05 min", "12 min 30 s", "45 s": the shared formatter (analysis/format.ts). */
+/** "1 h 05 min", "12 min 30 s", "45 s": the shared formatter (analysis/shared/format.ts). */
 export { durationWords };
 
 /** 1234.5 → "1,235". */

@@ -5,7 +5,7 @@
  * Loaded with next/dynamic only (LazyPlanChart), so chart.js stays out of first loads.
  */
 import { useEffect, useRef } from "react";
-import { durationWords } from "@/analysis/format";
+import { durationWords } from "@/analysis/shared/format";
 import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, Legend, type ChartConfiguration } from "chart.js";
 
 Chart.register(LineController, LineElement, PointElement, LinearScale, LogarithmicScale, Tooltip, Legend);

@@ -8,8 +8,8 @@
  * Usage: <PlanOverlay plannerInput={...} real={{ tSeconds, microns }} /> (the pull-down part, before isolation).
  */
 import { useMemo } from "react";
-import { planPullDown, type PlannerInput } from "@/analysis/planner";
-import { comparePlanWithPullDown } from "@/analysis/planner-compare";
+import { planPullDown, type PlannerInput } from "@/analysis/calculators/planner";
+import { comparePlanWithPullDown } from "@/analysis/calculators/planner-compare";
 import { Alert } from "@/components/ui";
 import { LazyPlanChart } from "./LazyPlanChart";
 import { durationWords } from "./format";

@@ -5,8 +5,8 @@
  * never show a negative saving, the curves, and every assumption listed beside the numbers.
  */
 import { useMemo } from "react";
-import type { Plan, WhatIf } from "@/analysis/planner";
-import { comparedWords } from "@/analysis/planner-whatifs";
+import type { Plan, WhatIf } from "@/analysis/calculators/planner";
+import { comparedWords } from "@/analysis/calculators/planner-whatifs";
 import { Alert, Card } from "@/components/ui";
 import { LazyPlanChart } from "./LazyPlanChart";
 import { durationWords } from "./format";

@@ -4,10 +4,10 @@
  * What water does at a vacuum: the temperature at which it boils (above the triple point,
  * about 4,588 microns) or at which ice is in equilibrium (below it). Small enough to sit beside
  * the freeze-risk finding: <WaterAtVacuum microns={500} />.
- * Physics in analysis/water.ts (PsychroLib, ASHRAE Hyland–Wexler).
+ * Physics in analysis/calculators/water.ts (PsychroLib, ASHRAE Hyland–Wexler).
  */
-import { iceEquilibriumC } from "@/analysis/water";
-import { PA_PER_MICRON } from "@/analysis/units";
+import { iceEquilibriumC } from "@/analysis/calculators/water";
+import { PA_PER_MICRON } from "@/analysis/shared/units";
 
 /** Triple point of water, 611.657 Pa (IAPWS), in microns. */
 export const TRIPLE_POINT_MICRONS = 611.657 / PA_PER_MICRON;

@@ -1,4 +1,4 @@
-import { durationWords as words } from "@/analysis/format";
+import { durationWords as words } from "@/analysis/shared/format";
 
 /** A duration in words (the shared formatter), "never" when there is none (a target out of reach). */
 export function durationWords(seconds: number | null): string {

@@ -5,7 +5,7 @@ import { useMutation } from "@tanstack/react-query";
 import { Alert, Button, Input, Textarea } from "@/components/ui";
 import { newIdempotencyKey } from "@/lib/client/api";
 import { verdictText } from "@/components/verdict/words";
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 import { postRetest, type RetestResult } from "./api";
 
 export interface RetestFormProps {

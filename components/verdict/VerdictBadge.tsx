@@ -1,4 +1,4 @@
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 import { outcomeOf } from "@/lib/verdict/words";
 import { VerdictIcon } from "./VerdictIcon";
 import { outcomeClasses } from "./words";

@@ -1,4 +1,4 @@
-import type { AnalysisResult } from "@/analysis/types";
+import type { AnalysisResult } from "@/analysis/decay/types";
 import { storyOf } from "@/lib/verdict/story";
 import { VerdictIcon } from "./VerdictIcon";
 import { verdictText } from "./words";

@@ -1,4 +1,4 @@
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 
 /** A distinct shape per verdict, so the verdict reads without colour. Decorative: pair with words. */
 export function VerdictIcon({ verdict, className = "h-6 w-6" }: { verdict: Verdict | null | undefined; className?: string }) {

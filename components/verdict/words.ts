@@ -2,7 +2,7 @@
  * Riseline's verdict words on screen: the one vocabulary of lib/verdict/words.ts with the colours
  * each verdict is drawn in. Every verdict is shown as icon + colour + words, never colour alone.
  */
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 import { CURVE_WORDS, curveWords, type CurveWords, type Outcome } from "@/lib/verdict/words";
 
 export { RULE_LABELS, outcomeOf, curveWords, type Outcome } from "@/lib/verdict/words";

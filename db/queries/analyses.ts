@@ -3,7 +3,7 @@ import { and, asc, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { analyses, findings, user } from "@/db/schema";
 import { lockTestById, updateTestCurrentAnalysis } from "./vacuum-tests";
-import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/decay/types";
 
 export interface NewAnalysis {
   id?: string;

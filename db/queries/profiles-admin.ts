@@ -5,7 +5,7 @@
 import { and, eq, ne, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { acceptanceProfiles } from "@/db/schema";
-import type { AcceptanceProfile } from "@/analysis/types";
+import type { AcceptanceProfile } from "@/analysis/decay/types";
 import { profileColumns } from "./profiles";
 
 /** Serialise default changes within one organization (call first in the transaction). */

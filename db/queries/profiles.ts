@@ -1,8 +1,8 @@
 import { and, asc, desc, eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { acceptanceProfiles } from "@/db/schema";
-import { DEFAULT_PROFILE } from "@/analysis/profile";
-import type { AcceptanceProfile } from "@/analysis/types";
+import { DEFAULT_PROFILE } from "@/analysis/decay/profile";
+import type { AcceptanceProfile } from "@/analysis/decay/types";
 
 export interface ProfileRow extends AcceptanceProfile {
   /** null for the engine's built-in default (no row in the database). */

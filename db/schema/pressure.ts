@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
 import { pgTable, text, timestamp, uuid, real, jsonb, index, check } from "drizzle-orm/pg-core";
-import type { NitrogenResult } from "@/analysis/nitrogen";
+import type { NitrogenResult } from "@/analysis/calculators/nitrogen";
 import { organization, user } from "./auth";
 import { jobs } from "./records";
 

@@ -1,7 +1,7 @@
 import {
   pgTable, text, timestamp, uuid, real, integer, boolean, jsonb, index, uniqueIndex, primaryKey,
 } from "drizzle-orm/pg-core";
-import type { AnalysisResult, AnalyzeOptions, AcceptanceProfile } from "@/analysis/types";
+import type { AnalysisResult, AnalyzeOptions, AcceptanceProfile } from "@/analysis/decay/types";
 import { organization, user } from "./auth";
 import { jobs, sites, systems } from "./records";
 

@@ -1,6 +1,6 @@
 /** Any thrown value as a response. Details go to the log (secrets taken out), never to the client. */
 import { ZodError } from "zod";
-import { LogError } from "@/analysis/errors";
+import { LogError } from "@/analysis/shared/errors";
 import { AppError, errorResponse } from "@/lib/errors";
 import { describeError, log } from "@/lib/log";
 import { failureOf } from "./failures";

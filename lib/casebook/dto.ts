@@ -4,7 +4,7 @@
  * `details` is null for everyone but owners and leads.
  */
 import { storyOf } from "@/lib/verdict/story";
-import type { AcceptanceProfile, Decay, Verdict } from "@/analysis/types";
+import type { AcceptanceProfile, Decay, Verdict } from "@/analysis/decay/types";
 import type { EntryDetailRow } from "@/db/queries/casebook";
 import { canReadAllTests, type Role } from "@/lib/permissions";
 

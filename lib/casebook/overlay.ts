@@ -4,7 +4,7 @@
  * none is visible the answer is 404. An apprentice's uncalled practice test shows its curve only.
  */
 import { z } from "zod";
-import type { Decay, Verdict } from "@/analysis/types";
+import type { Decay, Verdict } from "@/analysis/decay/types";
 import type { Db } from "@/db/client";
 import { listOverlayTestsByIds } from "@/db/queries/overlay";
 import type { Viewer } from "@/db/queries/visibility";

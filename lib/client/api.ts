@@ -3,7 +3,7 @@
  * retries that reuse the same Idempotency-Key, so a retry on a weak signal never creates a
  * second test. Uploads go through XMLHttpRequest for progress.
  */
-import type { AnalysisResult, PressureUnit, UnsureReason, Verdict } from "@/analysis/types";
+import type { AnalysisResult, PressureUnit, UnsureReason, Verdict } from "@/analysis/decay/types";
 import type { VacuumTestListItem as ServerTestListItem } from "@/lib/vacuum-tests/dto";
 
 export type TestStatus = "submitted" | "waiting_review" | "signed_off" | "sent_back";

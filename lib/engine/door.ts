@@ -4,8 +4,8 @@
  * through runOnEngine (lib/engine/pool.ts), which keeps a large log off the request thread. Each
  * function maps the engine's errors to the answer the route gives (422 with the engine's words).
  */
-import { LogError } from "@/analysis/errors";
-import type { AnalyzeOptions, ImportOptions } from "@/analysis/types";
+import { LogError } from "@/analysis/shared/errors";
+import type { AnalyzeOptions, ImportOptions } from "@/analysis/decay/types";
 import { AppError } from "@/lib/errors";
 import type { EvaluatedPressureTest } from "@/lib/pressure/evaluate";
 import type { PressureTestCreate } from "@/lib/pressure/schemas";

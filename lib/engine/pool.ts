@@ -24,8 +24,8 @@
 import { availableParallelism } from "node:os";
 import path from "node:path";
 import { Worker } from "node:worker_threads";
-import { LogError } from "@/analysis/errors";
-import type { AnalyzeOptions } from "@/analysis/types";
+import { LogError } from "@/analysis/shared/errors";
+import type { AnalyzeOptions } from "@/analysis/decay/types";
 import { AppError } from "@/lib/errors";
 import { env } from "@/lib/env";
 import { log } from "@/lib/log";

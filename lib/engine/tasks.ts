@@ -8,8 +8,8 @@
  *  - "nitrogen": a nitrogen standing-pressure test, typed or from a logger CSV.
  * Each answer is plain data (dates and arrays), so it crosses a worker's message port unchanged.
  */
-import { importLog } from "@/analysis/import/index";
-import type { AnalyzeOptions, ImportOptions } from "@/analysis/types";
+import { importLog } from "@/analysis/decay/import/index";
+import type { AnalyzeOptions, ImportOptions } from "@/analysis/decay/types";
 import { evaluatePressureTestRequest, type EvaluatedPressureTest } from "@/lib/pressure/evaluate";
 import type { PressureTestCreate } from "@/lib/pressure/schemas";
 import { runAnalysis, type EngineRun } from "@/lib/vacuum-tests/engine";

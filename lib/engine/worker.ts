@@ -3,7 +3,7 @@
  * answer or the error's fields (a LogError's in full). Started only by lib/engine/pool.ts.
  */
 import { parentPort } from "node:worker_threads";
-import { LogError } from "@/analysis/errors";
+import { LogError } from "@/analysis/shared/errors";
 import { runEngineTask, type EngineTask } from "./tasks";
 
 export interface EngineRequest {

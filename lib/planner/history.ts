@@ -3,7 +3,7 @@
  * may see), the recorded pull-down from the first reading at or below 20,000 microns to the
  * target, and the plan for that test's rig, volume and condition over the same span — both shown.
  */
-import { conditionFromHistory, type SystemCondition } from "@/analysis/planner-load";
+import { conditionFromHistory, type SystemCondition } from "@/analysis/calculators/planner-load";
 import type { Db } from "@/db/client";
 import { listPullDownsBySystem, listRigSetupsByIds } from "@/db/queries/planner-history";
 import { getSystemById } from "@/db/queries/records";

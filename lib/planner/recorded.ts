@@ -3,9 +3,9 @@
  * 20,000 microns to the target, and the plan for that test's rig, volume and condition over the
  * same span. Pure (the rows come from db/queries/planner-history.ts, or from the demo month).
  */
-import { planPullDown, type PlannerInput } from "@/analysis/planner";
-import { comparePlanWithPullDown } from "@/analysis/planner-compare";
-import type { SystemCondition } from "@/analysis/planner-load";
+import { planPullDown, type PlannerInput } from "@/analysis/calculators/planner";
+import { comparePlanWithPullDown } from "@/analysis/calculators/planner-compare";
+import type { SystemCondition } from "@/analysis/calculators/planner-load";
 import { conditionOfTest, isNewInstall, setupFromRig, volumeForPlan, type BlankOffForPlan, type RigItemForPlan } from "./setup";
 
 export interface RecordedPullDown {

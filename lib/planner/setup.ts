@@ -3,9 +3,9 @@
  * hoses, core tools), the system's volume and the condition it was in. Pure; the rules are our
  * own (common practice, no published source) and each one used is said in words beside the plan.
  */
-import type { PlannerInput } from "@/analysis/planner";
-import type { SystemCondition } from "@/analysis/planner-load";
-import { systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/volume";
+import type { PlannerInput } from "@/analysis/calculators/planner";
+import type { SystemCondition } from "@/analysis/calculators/planner-load";
+import { systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/shared/volume";
 
 export interface RigItemForPlan {
   id: string;

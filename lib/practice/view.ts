@@ -2,7 +2,7 @@
  * The practice API's shapes and steps: the practice view of one test (curve only until the
  * apprentice has called it), recording a call, the calls list with match rates, comments.
  */
-import type { AnalysisResult } from "@/analysis/types";
+import type { AnalysisResult } from "@/analysis/decay/types";
 import type { Db } from "@/db/client";
 import { getAnalysisById } from "@/db/queries/analyses";
 import {

@@ -7,7 +7,7 @@
  * every row goes into the over-pressure check. The atmosphere is the one entered, or the standard
  * atmosphere at the site's elevation (ISO 2533), or the standard sea-level one.
  */
-import { atmosphereAtElevation, ATMOSPHERE_UNIT_LABEL, METRES_PER_FOOT } from "@/analysis/atmosphere";
+import { atmosphereAtElevation, ATMOSPHERE_UNIT_LABEL, METRES_PER_FOOT } from "@/analysis/calculators/atmosphere";
 import {
   ABSOLUTE_UNIT_OF,
   evaluateNitrogenTest,
@@ -15,8 +15,8 @@ import {
   type NitrogenReading,
   type NitrogenResult,
   type TemperatureUnit,
-} from "@/analysis/nitrogen";
-import { endReadingsOfNitrogenLog, inspectNitrogenLogHeader, readNitrogenLog } from "@/analysis/nitrogen-log";
+} from "@/analysis/calculators/nitrogen";
+import { endReadingsOfNitrogenLog, inspectNitrogenLogHeader, readNitrogenLog } from "@/analysis/calculators/nitrogen-log";
 import type { PressureTestCreate } from "./schemas";
 
 export interface EvaluatedPressureTest {

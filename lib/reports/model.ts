@@ -12,7 +12,8 @@ import { getOrganizationNameById, listReviewEventsByTest } from "@/db/queries/re
 import { getRigByTest, listRigEventsByRig, listRigItemsByRig } from "@/db/queries/rigs";
 import { getOrganizationTimeZoneById } from "@/db/queries/settings";
 import { getTestById, getUploadByTest } from "@/db/queries/vacuum-tests";
-import type { AcceptanceProfile, AnalysisResult, Finding } from "@/analysis/types";
+import type { AcceptanceProfile, AnalysisResult, Finding } from "@/analysis/decay/types";
+import { bucketExtremes } from "@/analysis/shared/downsample";
 import type { TestStatus } from "@/db/schema";
 import { storyOf, type Story } from "@/lib/verdict/story";
 import { RULE_LABELS } from "@/lib/verdict/words";
@@ -83,21 +84,12 @@ function thin(t: number[], p: number[]): { x: number[]; y: number[] } {
   if (n <= REPORT_POINTS) return { x: t.slice(0, n).map((s) => s / 60), y: p.slice(0, n) };
   const x: number[] = [];
   const y: number[] = [];
-  const buckets = REPORT_POINTS / 2;
-  for (let b = 0; b < buckets; b++) {
-    const from = Math.floor((b * n) / buckets);
-    const to = Math.floor(((b + 1) * n) / buckets);
-    let lo = from;
-    let hi = from;
-    for (let i = from; i < to; i++) {
-      if (p[i] < p[lo]) lo = i;
-      if (p[i] > p[hi]) hi = i;
-    }
+  bucketExtremes(p, n, REPORT_POINTS / 2, (lo, hi) => {
     for (const i of lo <= hi ? [lo, hi] : [hi, lo]) {
       x.push(t[i] / 60);
       y.push(p[i]);
     }
-  }
+  });
   return { x, y };
 }
 

@@ -18,7 +18,7 @@
  * column choices, isolation or hold window: those described the old file.
  */
 import { randomUUID } from "node:crypto";
-import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/decay/types";
 import type { Database, Tx } from "@/db/client";
 import { getAnalysisById, saveNewAnalysis } from "@/db/queries/analyses";
 import { insertTestEvent, listReviewerEmailsByOrganization, lockTestReviewStateById, updateTestStatusById } from "@/db/queries/review";

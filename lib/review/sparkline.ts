@@ -2,6 +2,8 @@
  * A tiny curve for lists: the series thinned to at most `points` readings by taking each
  * bucket's highest value (a rise must stay visible), microns floored at 1 for the log scale.
  */
+import { bucketExtremes } from "@/analysis/shared/downsample";
+
 export interface Sparkline {
   /** Minutes from the first data row. */
   xMinutes: number[];
@@ -16,14 +18,11 @@ export function sparklineOf(series: { t: number[]; p: number[] } | null, opts: {
   const buckets = Math.min(opts.points ?? 48, n);
   const xMinutes: number[] = [];
   const microns: number[] = [];
-  for (let b = 0; b < buckets; b++) {
-    const from = Math.floor((b * n) / buckets);
-    const to = Math.max(from + 1, Math.floor(((b + 1) * n) / buckets));
-    let hi = from;
-    for (let i = from; i < to; i++) if (series.p[i] > series.p[hi]) hi = i;
+  // buckets ≤ n, so every bucket holds at least one reading
+  bucketExtremes(series.p, n, buckets, (_lo, hi) => {
     xMinutes.push(series.t[hi] / 60);
     microns.push(Math.max(1, series.p[hi]));
-  }
+  });
   return {
     xMinutes,
     microns,

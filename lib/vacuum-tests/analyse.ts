@@ -4,7 +4,7 @@
  * With an Idempotency-Key, a retry of the same request answers with the version it made (never a
  * second one), and the key with other overrides is a 422 (lib/vacuum-tests/idempotency.ts).
  */
-import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/decay/types";
 import type { Database, Tx } from "@/db/client";
 import type { EngineRun } from "./engine";
 import { getAnalysisById, saveNewAnalysis as writeNewAnalysis } from "@/db/queries/analyses";

@@ -15,8 +15,8 @@
  * reads counts as done and failed.
  */
 import { randomUUID } from "node:crypto";
-import { LogError } from "@/analysis/errors";
-import type { AnalyzeOptions } from "@/analysis/types";
+import { LogError } from "@/analysis/shared/errors";
+import type { AnalyzeOptions } from "@/analysis/decay/types";
 import type { Database } from "@/db/client";
 import { getAnalysisById } from "@/db/queries/analyses";
 import { getProfileById } from "@/db/queries/profiles";

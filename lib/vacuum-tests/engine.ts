@@ -2,8 +2,8 @@
  * The server's one door to the analysis engine: analyse a log's text, read its columns for a
  * preview, and thin a series for the chart. Everything here is a thin adapter over analysis/.
  */
-import { importLog } from "@/analysis/import/index";
-import type { AnalysisResult, AnalyzeOptions, ImportedLog } from "@/analysis/types";
+import { importLog } from "@/analysis/decay/import/index";
+import type { AnalysisResult, AnalyzeOptions, ImportedLog } from "@/analysis/decay/types";
 import { analyzeReadings, downsampleForChart } from "@/analysis/index";
 
 /** Most points the chart series keeps (the detail page draws it on a phone). */

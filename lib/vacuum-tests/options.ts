@@ -1,5 +1,5 @@
 /** Building the engine's options from a test's metadata, the org's profile and overrides. */
-import type { AcceptanceProfile, AnalyzeOptions, ImportOptions, SystemVolume } from "@/analysis/types";
+import type { AcceptanceProfile, AnalyzeOptions, ImportOptions, SystemVolume } from "@/analysis/decay/types";
 import type { Db } from "@/db/client";
 import { getDefaultProfileByOrganization, getProfileById } from "@/db/queries/profiles";
 import { AppError } from "@/lib/errors";

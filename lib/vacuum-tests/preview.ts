@@ -1,6 +1,6 @@
 /** The import preview: what the importer read from the first lines, without saving anything (run through lib/engine/door.ts). */
 import Papa from "papaparse";
-import type { ImportOptions, UnsureReason } from "@/analysis/types";
+import type { ImportOptions, UnsureReason } from "@/analysis/decay/types";
 import { readLogForPreview } from "./engine";
 
 export const PREVIEW_ROWS = 8;

@@ -14,8 +14,8 @@
  *    task "failed" with the importer's words and deletes the file.
  */
 import { randomUUID } from "node:crypto";
-import { LogError } from "@/analysis/errors";
-import type { AnalyzeOptions } from "@/analysis/types";
+import { LogError } from "@/analysis/shared/errors";
+import type { AnalyzeOptions } from "@/analysis/decay/types";
 import type { Database } from "@/db/client";
 import { finishTaskById, getTaskByIdempotencyKey, getTaskById, insertTask, isTaskKeyTaken, lockTaskById, updateTaskProgressById, type TaskRow } from "@/db/queries/tasks";
 import { AppError } from "@/lib/errors";

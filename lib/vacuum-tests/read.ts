@@ -1,5 +1,5 @@
 /** Reading tests back: one test with its analysis, chart series and history; the list page. */
-import type { AnalysisResult } from "@/analysis/types";
+import type { AnalysisResult } from "@/analysis/decay/types";
 import type { Db } from "@/db/client";
 import { getAnalysisById, getAnalysisByTestAndId, listAnalysesByTest } from "@/db/queries/analyses";
 import { getTestById, getUploadByTest, listTestsByOrganization, type VacuumTestDetailRow } from "@/db/queries/vacuum-tests";

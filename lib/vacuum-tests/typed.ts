@@ -3,7 +3,7 @@
  * Pure (no env, no I/O): the upload route and `npm run eval:analysis` / `npm run calibrate` use the
  * same conversion, so typed logs are judged and calibrated exactly as the product reads them.
  */
-import type { AnalyzeOptions } from "@/analysis/types";
+import type { AnalyzeOptions } from "@/analysis/decay/types";
 
 export interface TypedReadingsInput {
   timeMode: "clock" | "minutes";

@@ -23,7 +23,7 @@ import { entersReviewOnUpload, reviewRowsOfNewTest } from "@/lib/review/auto";
 import { uploadInProgress } from "@/lib/jobs/local-load";
 import { enqueueMailDelivery } from "@/lib/notify/outbox";
 import { randomUUID } from "node:crypto";
-import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
+import type { AnalysisResult, AnalyzeOptions } from "@/analysis/decay/types";
 import type { Database, Tx } from "@/db/client";
 import { getJobById, getSiteById, getSystemById, createJob, createSite, createSystem } from "@/db/queries/records";
 import { getIdempotencyKeyByKey, insertNewTestTogether, isIdempotencyKeyTaken, type NewVacuumTestRows, type VacuumTestDetailRow } from "@/db/queries/vacuum-tests";

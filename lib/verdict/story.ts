@@ -6,8 +6,8 @@
  * Pure (no React, no database). Older analyses, stored before the engine gave its figures, get
  * figures rebuilt from their decay numbers, labelled as such.
  */
-import type { AnalysisResult, CertaintyWords, Figure, HoldFigures } from "@/analysis/types";
-import { groupedInteger } from "@/analysis/format";
+import type { AnalysisResult, CertaintyWords, Figure, HoldFigures } from "@/analysis/decay/types";
+import { groupedInteger } from "@/analysis/shared/format";
 import { curveWords, outcomeOf, profileSentence, RULE_LABELS, type CurveWords, type Outcome } from "./words";
 
 const fmt = (x: number) => groupedInteger(Math.round(x));

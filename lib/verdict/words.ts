@@ -3,7 +3,7 @@
  * Two statements, never merged: what the curve shows (the engine's verdict) and whether the shop's
  * acceptance profile was met. "Passed" is the word for both at once and for nothing else.
  */
-import type { AnalysisResult, Verdict } from "@/analysis/types";
+import type { AnalysisResult, Verdict } from "@/analysis/decay/types";
 
 export type CurveKey = "tight_dry" | "levels_off" | "steady_climb" | "both" | "unclear";
 

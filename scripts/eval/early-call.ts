@@ -4,11 +4,11 @@
  * early calls contradict the verdict printed beside them (a "will pass" beside a leak): goal 0.
  */
 import { analyzeLog } from "../../analysis";
-import { SCENARIOS, simulateLog, type Scenario, type SimulatedLog } from "../../analysis/simulate";
-import { DEFAULT_PROFILE } from "../../analysis/profile";
-import type { AnalysisResult, Verdict } from "../../analysis/types";
+import { SCENARIOS, simulateLog, type Scenario, type SimulatedLog } from "../../analysis/decay/simulate";
+import { DEFAULT_PROFILE } from "../../analysis/decay/profile";
+import type { AnalysisResult, Verdict } from "../../analysis/decay/types";
 import { independentLogs } from "./independent";
-import { MIN_EARLY_CALL_READINGS } from "../../analysis/forecast";
+import { MIN_EARLY_CALL_READINGS } from "../../analysis/decay/forecast";
 
 export const EARLY_SECONDS = 240;
 

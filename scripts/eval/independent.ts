@@ -1,5 +1,5 @@
 /**
- * An independent set of invented logs for the evaluation: written apart from analysis/simulate, with
+ * An independent set of invented logs for the evaluation: written apart from analysis/decay/simulate, with
  * its own random generator, its own curve shapes and its own gauge habits, so a weakness the
  * project's simulator shares with the engine still shows here. All data invented.
  *
@@ -12,8 +12,8 @@
  * Truth (common practice thresholds of the default profile): leak when L ≥ the leak rate; moisture
  * when the level-off A₁ + A₂ ends above the limit, or the curve passes the limit without a leak.
  */
-import type { AnalyzeOptions, Verdict } from "../../analysis/types";
-import { DEFAULT_PROFILE } from "../../analysis/profile";
+import type { AnalyzeOptions, Verdict } from "../../analysis/decay/types";
+import { DEFAULT_PROFILE } from "../../analysis/decay/profile";
 import { typedReadingsToCsv } from "../../lib/vacuum-tests/typed";
 
 export interface IndependentLog {

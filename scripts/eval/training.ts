@@ -5,8 +5,8 @@
  * the simulator's truth. Seed ranges keep the fitting set apart from the held-out ones.
  */
 import { analyzeLog } from "../../analysis";
-import { SCENARIOS, simulateLog } from "../../analysis/simulate";
-import type { AnalysisResult, Verdict } from "../../analysis/types";
+import { SCENARIOS, simulateLog } from "../../analysis/decay/simulate";
+import type { AnalysisResult, Verdict } from "../../analysis/decay/types";
 import { TYPED_SCENARIOS, typedFromSimulator } from "./typed-sim";
 
 export interface Labelled {

@@ -3,8 +3,8 @@
  * the isolation, whole microns, written as the typed-readings screen writes them (lib/vacuum-tests/typed.ts)
  * and analysed with the same options. For calibrating and evaluating typed logs as the product reads them.
  */
-import { simulateLog, type Scenario } from "../../analysis/simulate";
-import type { AnalyzeOptions, Verdict } from "../../analysis/types";
+import { simulateLog, type Scenario } from "../../analysis/decay/simulate";
+import type { AnalyzeOptions, Verdict } from "../../analysis/decay/types";
 import { typedReadingsToCsv } from "../../lib/vacuum-tests/typed";
 
 export const TYPED_SCENARIOS: Scenario[] = ["tight_dry", "moisture", "leak", "leak_and_moisture", "short_hold", "target_not_reached"];

@@ -2,8 +2,8 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { analyzeLog, analyzeReadings, downsampleForChart, ENGINE_VERSION } from "@/analysis";
-import { LogError } from "@/analysis/errors";
-import { simulateLog } from "@/analysis/simulate";
+import { LogError } from "@/analysis/shared/errors";
+import { simulateLog } from "@/analysis/decay/simulate";
 import { simulatedAsImported } from "./helpers";
 
 const golden = (f: string) => readFileSync(path.resolve(import.meta.dirname, "../../fixtures/golden", f), "utf8");

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { atmosphereAtElevation, checkAtmosphere, PLAUSIBLE_ATMOSPHERE, standardAtmospherePa } from "@/analysis/atmosphere";
+import { atmosphereAtElevation, checkAtmosphere, PLAUSIBLE_ATMOSPHERE, standardAtmospherePa } from "@/analysis/calculators/atmosphere";
 
 describe("standard atmosphere at a site's elevation (ISO 2533 / ICAO standard atmosphere)", () => {
   // Table values of the standard atmosphere, printed to 0.1 Pa (from memory; the 1976 US Standard

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { chokedSpeedLpsPerCm2, criticalPressureRatio, nozzleThroughput } from "@/analysis/choked-flow";
+import { chokedSpeedLpsPerCm2, criticalPressureRatio, nozzleThroughput } from "@/analysis/calculators/choked-flow";
 import {
   apertureConductanceLps,
   elementThroughput,
@@ -7,7 +7,7 @@ import {
   molecularConductanceLps,
   shortTubeConductanceLps,
   shortTubeMolecularConductanceLps,
-} from "@/analysis/conductance";
+} from "@/analysis/calculators/conductance";
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { classifyHold, type HoldEvidence } from "@/analysis/classify";
-import { DEFAULT_PROFILE } from "@/analysis/profile";
-import type { HoldFitResult, HoldModelKind, ModelFit } from "@/analysis/types";
+import { classifyHold, type HoldEvidence } from "@/analysis/decay/classify";
+import { DEFAULT_PROFILE } from "@/analysis/decay/profile";
+import type { HoldFitResult, HoldModelKind, ModelFit } from "@/analysis/decay/types";
 
 function fitOf(kind: HoldModelKind, params: ModelFit["params"]): HoldFitResult {
   const m: ModelFit = {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeReadings } from "@/analysis";
-import { CAUTION_COMPRESSOR, CAUTION_NITROGEN } from "@/analysis/diagnose";
-import { simulateLog, type Scenario } from "@/analysis/simulate";
+import { CAUTION_COMPRESSOR, CAUTION_NITROGEN } from "@/analysis/decay/diagnose";
+import { simulateLog, type Scenario } from "@/analysis/decay/simulate";
 import { simulatedAsImported } from "./helpers";
 
 function codesOf(scenario: Scenario, seed: number) {

@@ -3,7 +3,7 @@
  * 60 min = 1 h); the wording is our own (common practice, no published source).
  */
 import { describe, expect, it } from "vitest";
-import { durationWords } from "@/analysis/format";
+import { durationWords } from "@/analysis/shared/format";
 
 /** Reads "1 h 05 min", "12 min 5 s", "45 s" back into seconds and the parts as written. */
 function parse(words: string): { seconds: number; parts: Record<string, number> } {

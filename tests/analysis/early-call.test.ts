@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { analyzeLog } from "@/analysis";
-import { SCENARIOS, simulateLog } from "@/analysis/simulate";
+import { SCENARIOS, simulateLog } from "@/analysis/decay/simulate";
 import { contradicts, truncateSimulated } from "@/scripts/eval/early-call";
 
 describe("early call against the verdict, every simulator scenario (common practice, no published source)", () => {

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { analyzeLog } from "@/analysis";
-import { FIELD_ARTIFACTS, FIELD_LAYOUTS } from "@/analysis/simulate";
+import { FIELD_ARTIFACTS, FIELD_LAYOUTS } from "@/analysis/decay/simulate";
 
 // Field-log fixtures: simulated logs with fixed seeds (scripts/make-field-fixtures.ts), one per export
 // layout, per field artifact and per field scenario; expected values are the simulation's truth.

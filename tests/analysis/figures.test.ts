@@ -1,12 +1,12 @@
 /**
  * One source for every number of a hold: the figures the engine returns are the ones its rules and
- * reasons quote, each with what it is (invented data, analysis/simulate).
+ * reasons quote, each with what it is (invented data, analysis/decay/simulate).
  */
 import { describe, expect, it } from "vitest";
 import { analyzeLog } from "@/analysis";
-import { judgedHighest } from "@/analysis/figures";
-import { groupedInteger } from "@/analysis/format";
-import { SCENARIOS, simulateLog } from "@/analysis/simulate";
+import { judgedHighest } from "@/analysis/decay/figures";
+import { groupedInteger } from "@/analysis/shared/format";
+import { SCENARIOS, simulateLog } from "@/analysis/decay/simulate";
 
 const fmt = (x: number) => groupedInteger(Math.round(x));
 

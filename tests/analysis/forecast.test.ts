@@ -1,18 +1,18 @@
 /**
  * Forecast of the verdict at 10 minutes from the first 4 minutes of generated holds (invented data,
- * seeded noise: 2 % of the reading plus resolution steps, analysis/fit/synthetic.ts), default profile:
+ * seeded noise: 2 % of the reading plus resolution steps, analysis/decay/fit/synthetic.ts), default profile:
  * limit 1,000 microns, leak from 20 microns/min. The rates asserted are Riseline's own acceptance
  * bars: common practice, no published source.
  */
 import { describe, expect, it } from "vitest";
-import { fitHoldModels } from "@/analysis/fit/index";
-import { holdModelMicrons, type HoldParams } from "@/analysis/fit/models";
-import { seededUniform } from "@/analysis/fit/prng";
-import { studentTCdf, studentTQuantile } from "@/analysis/fit/student";
-import { syntheticHold } from "@/analysis/fit/synthetic";
-import { earlyCallWithVerdict, forecastHold, FORECAST_BAND_POINTS } from "@/analysis/forecast";
-import { DEFAULT_PROFILE } from "@/analysis/profile";
-import { climbOf, curveVerdict, levelledOffWithin } from "@/analysis/rule";
+import { fitHoldModels } from "@/analysis/decay/fit/index";
+import { holdModelMicrons, type HoldParams } from "@/analysis/decay/fit/models";
+import { seededUniform } from "@/analysis/decay/fit/prng";
+import { studentTCdf, studentTQuantile } from "@/analysis/decay/fit/student";
+import { syntheticHold } from "@/analysis/decay/fit/synthetic";
+import { earlyCallWithVerdict, forecastHold, FORECAST_BAND_POINTS } from "@/analysis/decay/forecast";
+import { DEFAULT_PROFILE } from "@/analysis/decay/profile";
+import { climbOf, curveVerdict, levelledOffWithin } from "@/analysis/decay/rule";
 
 const LIMIT = DEFAULT_PROFILE.limitMicrons;
 

@@ -3,7 +3,7 @@
  * is the ECMAScript Internationalization API as this Node build implements it, ECMA-402 §15.5.4).
  */
 import { describe, expect, it } from "vitest";
-import { groupedInteger } from "@/analysis/format";
+import { groupedInteger } from "@/analysis/shared/format";
 
 describe("groupedInteger — en-US grouping (ECMA-402 Number.prototype.toLocaleString as reference)", () => {
   it("matches toLocaleString('en-US') on whole numbers from 0 to 10^20, negatives, -0 and non-integers", () => {

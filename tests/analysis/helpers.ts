@@ -1,5 +1,5 @@
 /** Test helpers for the analysis tests. */
-export { simulatedAsImported } from "@/analysis/simulate";
+export { simulatedAsImported } from "@/analysis/decay/simulate";
 
 /** Isolation tolerance of the product goal: max(3 sampling intervals, 45 s). */
 export function isolationTolerance(sampleSeconds: number): number {

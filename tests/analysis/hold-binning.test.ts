@@ -1,9 +1,9 @@
 /**
- * Long holds are fitted on equal-time-bin means (analysis/fit/reduce.ts). These tests show the binned fit
+ * Long holds are fitted on equal-time-bin means (analysis/decay/fit/reduce.ts). These tests show the binned fit
  * agrees with the fit on every reading, on generated holds with known truth (invented data, seeded noise:
- * 2 % of the reading, rounded to the gauge's resolution step — analysis/fit/synthetic.ts).
+ * 2 % of the reading, rounded to the gauge's resolution step — analysis/decay/fit/synthetic.ts).
  *
- * The unbinned reference is the same variable-projection + Levenberg–Marquardt fit (fitPlateauModel) run
+ * The unbinned reference is the same variable-projection fit (fitPlateauModel) run
  * on all readings. Tolerances, both relative to the unbinned fit's own standard errors (SE):
  * - each parameter within 0.3 SE: binning may move an estimate by a small fraction of its own uncertainty
  *   (measured: under 0.2 SE on these holds), far below what any decision can see;
@@ -12,11 +12,11 @@
  * Common practice for grouped-data least squares, no published source for the thresholds.
  */
 import { describe, expect, it } from "vitest";
-import { fitHoldModels } from "@/analysis/fit/index";
-import { HOLD_MODEL_PARAMS, type HoldParams } from "@/analysis/fit/models";
-import { BIN_ABOVE_POINTS, binCountFor, reduceHold } from "@/analysis/fit/reduce";
-import { syntheticHold } from "@/analysis/fit/synthetic";
-import { fitPlateauModel } from "@/analysis/fit/varpro";
+import { fitHoldModels } from "@/analysis/decay/fit/index";
+import { HOLD_MODEL_PARAMS, type HoldParams } from "@/analysis/decay/fit/models";
+import { BIN_ABOVE_POINTS, binCountFor, reduceHold } from "@/analysis/decay/fit/reduce";
+import { syntheticHold } from "@/analysis/decay/fit/synthetic";
+import { fitPlateauModel } from "@/analysis/decay/fit/varpro";
 
 interface Case {
   name: string;

@@ -1,15 +1,15 @@
 /**
  * Hold-model fitting on generated holds with known truth (invented data, seeded noise from
- * analysis/fit/prng.ts): parameter recovery, model choice, spikes, long holds.
- * Noise model (analysis/fit/synthetic.ts): 2 % of the reading, rounded to 1 micron (10 from 1,000 up) —
+ * analysis/decay/fit/prng.ts): parameter recovery, model choice, spikes, long holds.
+ * Noise model (analysis/decay/fit/synthetic.ts): 2 % of the reading, rounded to 1 micron (10 from 1,000 up) —
  * common practice for digital micron gauges, no published source.
  */
 import { describe, expect, it } from "vitest";
-import { evaluateModel, fitHoldModels } from "@/analysis/fit/index";
-import { seededUniform } from "@/analysis/fit/prng";
-import { syntheticHold } from "@/analysis/fit/synthetic";
-import { aiccLeastSquares } from "@/analysis/fit/select";
-import type { HoldModelKind } from "@/analysis/types";
+import { evaluateModel, fitHoldModels } from "@/analysis/decay/fit/index";
+import { seededUniform } from "@/analysis/decay/fit/prng";
+import { syntheticHold } from "@/analysis/decay/fit/synthetic";
+import { aiccLeastSquares } from "@/analysis/decay/fit/select";
+import type { HoldModelKind } from "@/analysis/decay/types";
 
 describe("fitHoldModels — parameter recovery (generated curves, common practice, no published source)", () => {
   it("recovers a leak rate l within 3 % and p0 within 2 % on a 10-minute climb", () => {

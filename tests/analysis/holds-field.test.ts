@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeLog, analyzeReadings } from "@/analysis";
-import type { ImportedLog } from "@/analysis/types";
+import type { ImportedLog } from "@/analysis/decay/types";
 
 // Holds as field logs carry them. Gauge behaviour: common practice, no published source. The curves are
 // p_iso + A(1 − e^(−t/τ)) + L·t after a pull-down (outgassing levels off, a leak climbs linearly;
@@ -204,7 +204,7 @@ describe("never a pass on a hold whose readings pass the limit (common practice,
 
 describe("phase helpers for field logs (common practice, no published source)", () => {
   it("a two-reading spike and a two-reading dip in a sparse log (one reading a minute) are taken out of the smoothed series; a turn of the curve is kept", async () => {
-    const { removeShortExcursions } = await import("@/analysis/phases/smooth");
+    const { removeShortExcursions } = await import("@/analysis/decay/phases/smooth");
     const y = Float64Array.from([3.36, 3.36, 3.87, 3.86, 3.36, 3.37, 3.0, 3.0, 3.37, 3.37].map((v) => v));
     expect(removeShortExcursions(y, 0.06)).toBe(4);
     for (const v of y) expect(v).toBeGreaterThan(3.3);
@@ -213,7 +213,7 @@ describe("phase helpers for field logs (common practice, no published source)", 
   });
 
   it("the display step of a coarse gauge is found from the readings below 1,000 microns: 100, 10 or 1", async () => {
-    const { resolutionMicrons } = await import("@/analysis/phases/smooth");
+    const { resolutionMicrons } = await import("@/analysis/decay/phases/smooth");
     const base = Array.from({ length: 200 }, (_, i) => 250 + 3 * Math.sin(i) + i);
     expect(resolutionMicrons(base.map((v) => Math.round(v / 100) * 100))).toBe(100);
     expect(resolutionMicrons(base.map((v) => Math.round(v / 10) * 10))).toBe(10);

@@ -1,9 +1,9 @@
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { LogError, type LogErrorCode } from "@/analysis/errors";
-import { importLog } from "@/analysis/import";
-import { importLogStrict } from "@/analysis/import/index";
+import { LogError, type LogErrorCode } from "@/analysis/shared/errors";
+import { importLog } from "@/analysis/decay/import";
+import { importLogStrict } from "@/analysis/decay/import/index";
 
 const root = path.resolve(import.meta.dirname, "../..");
 const bad = (name: string) => readFileSync(path.join(root, "fixtures/bad", name), "utf8");

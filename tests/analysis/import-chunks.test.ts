@@ -1,8 +1,8 @@
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { importLogStrict } from "@/analysis/import";
-import { LogError } from "@/analysis/errors";
+import { importLogStrict } from "@/analysis/decay/import";
+import { LogError } from "@/analysis/shared/errors";
 
 const root = path.resolve(import.meta.dirname, "../..");
 const files = (dir: string) =>

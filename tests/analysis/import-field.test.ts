@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeLog } from "@/analysis";
-import { importLog } from "@/analysis/import";
-import { toMicrons } from "@/analysis/units";
+import { importLog } from "@/analysis/decay/import";
+import { toMicrons } from "@/analysis/shared/units";
 
 // Field-export layouts written by hand, with the expected values worked out from the cells.
 const close = (a: number, b: number, relTol = 1e-9) => expect(Math.abs(a - b)).toBeLessThanOrEqual(relTol * Math.max(1, Math.abs(b)));

@@ -1,10 +1,10 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { importLog } from "@/analysis/import";
-import { classifyNonNumber, parseReading } from "@/analysis/import/numbers";
-import { parseClock, parseColonDuration, parseDateTime } from "@/analysis/import/time";
-import { toMicrons } from "@/analysis/units";
+import { importLog } from "@/analysis/decay/import";
+import { classifyNonNumber, parseReading } from "@/analysis/decay/import/numbers";
+import { parseClock, parseColonDuration, parseDateTime } from "@/analysis/decay/import/time";
+import { toMicrons } from "@/analysis/shared/units";
 
 const root = path.resolve(import.meta.dirname, "../..");
 const sample = (name: string) => readFileSync(path.join(root, "fixtures/samples", name), "utf8");

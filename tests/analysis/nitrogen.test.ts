@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
-import { evaluateNitrogenTest, NITROGEN_CAUTIONS } from "@/analysis/nitrogen";
-import { endReadingsOfNitrogenLog, inspectNitrogenLogHeader, readNitrogenLog } from "@/analysis/nitrogen-log";
-import { readNitrogenHeaderUnit } from "@/analysis/nitrogen-units";
-import { LogError } from "@/analysis/errors";
+import { evaluateNitrogenTest, NITROGEN_CAUTIONS } from "@/analysis/calculators/nitrogen";
+import { endReadingsOfNitrogenLog, inspectNitrogenLogHeader, readNitrogenLog } from "@/analysis/calculators/nitrogen-log";
+import { readNitrogenHeaderUnit } from "@/analysis/calculators/nitrogen-units";
+import { LogError } from "@/analysis/shared/errors";
 
 // The worked examples are given to two decimals; 0.005 is half the last printed digit.
 const HALF_CENT = 0.005;

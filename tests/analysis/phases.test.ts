@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { findPhases } from "@/analysis/phases";
-import { simulateLog } from "@/analysis/simulate";
+import { findPhases } from "@/analysis/decay/phases";
+import { simulateLog } from "@/analysis/decay/simulate";
 import { isolationTolerance, simulatedAsImported } from "./helpers";
 
 function phasesOf(scenario: Parameters<typeof simulateLog>[0]) {

@@ -9,13 +9,13 @@ import {
   seriesConductanceLps,
   shortTubeMolecularConductanceLps,
   viscousConductanceLps,
-} from "@/analysis/conductance";
-import { integratePullDown, planPullDown, planWhatIfs, type PlannerInput } from "@/analysis/planner";
-import { comparePlanWithPullDown } from "@/analysis/planner-compare";
-import { integrateWithLoad } from "@/analysis/planner-integrate";
-import { MBAR_LITRES_PER_GRAM_WATER, waterLoadMbarLps, waterReleasedGrams } from "@/analysis/planner-load";
-import { comparedWords } from "@/analysis/planner-whatifs";
-import { systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/volume";
+} from "@/analysis/calculators/conductance";
+import { integratePullDown, planPullDown, planWhatIfs, type PlannerInput } from "@/analysis/calculators/planner";
+import { comparePlanWithPullDown } from "@/analysis/calculators/planner-compare";
+import { integrateWithLoad } from "@/analysis/calculators/planner-integrate";
+import { MBAR_LITRES_PER_GRAM_WATER, waterLoadMbarLps, waterReleasedGrams } from "@/analysis/calculators/planner-load";
+import { comparedWords } from "@/analysis/calculators/planner-whatifs";
+import { systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/shared/volume";
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { analyzeLog } from "@/analysis";
-import { importLog } from "@/analysis/import";
+import { importLog } from "@/analysis/decay/import";
 
 // Expected values: the samples' README (fixtures/samples/EXPECTED.md, a copy of it; invented logs
 // generated from a physical model with known truth), read from its table so no number is typed twice.

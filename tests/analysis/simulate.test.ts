@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeReadings } from "@/analysis";
-import { LAYOUTS, SCENARIOS, UNITS, holdMicrons, simulateLog } from "@/analysis/simulate";
-import { importLog } from "@/analysis/import";
+import { LAYOUTS, SCENARIOS, UNITS, holdMicrons, simulateLog } from "@/analysis/decay/simulate";
+import { importLog } from "@/analysis/decay/import";
 import { isolationTolerance, simulatedAsImported } from "./helpers";
 
 describe("simulator", () => {

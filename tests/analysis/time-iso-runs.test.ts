@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { daysFromCivil, parseDateTime } from "@/analysis/import/time";
+import { daysFromCivil, parseDateTime } from "@/analysis/decay/import/time";
 
 // Expected values: days from 1970-01-01 by Hinnant's civil-date algorithm (the same module), times by hand.
 const day = daysFromCivil(2026, 6, 14) * 86400;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { unit as mathUnit } from "mathjs";
-import { micronsTo, PA_PER_MICRON, parsePressureUnit, toMicrons, UNITS_UNDERSTOOD } from "@/analysis/units";
-import type { PressureUnit } from "@/analysis/types";
+import { micronsTo, PA_PER_MICRON, parsePressureUnit, toMicrons, UNITS_UNDERSTOOD } from "@/analysis/shared/units";
+import type { PressureUnit } from "@/analysis/decay/types";
 
 /** Relative difference |a − b| / |b|. */
 function rel(a: number, b: number): number {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { ACR_TUBE, leakRateFromRise, systemVolumeLitres, temperOf, tubeInsideDiameterIn, tubeLitresPerFoot } from "@/analysis/volume";
+import { ACR_TUBE, leakRateFromRise, systemVolumeLitres, temperOf, tubeInsideDiameterIn, tubeLitresPerFoot } from "@/analysis/shared/volume";
 import { TUBE_ODS } from "@/lib/vacuum-tests/schemas";
-import { LogError } from "@/analysis/errors";
+import { LogError } from "@/analysis/shared/errors";
 
 describe("tubeLitresPerFoot — ACR copper tube", () => {
   // Table values are printed to 0.01 mL/ft: 0.005 mL is their rounding.

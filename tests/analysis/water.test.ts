@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { iceEquilibriumC, waterBoilingC, waterVapourPressurePa } from "@/analysis/water";
+import { iceEquilibriumC, waterBoilingC, waterVapourPressurePa } from "@/analysis/calculators/water";
 
 /** Relative difference in parts per million. */
 const ppm = (got: number, ref: number) => Math.abs(got / ref - 1) * 1e6;

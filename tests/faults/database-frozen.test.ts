@@ -11,7 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { NextRequest } from "next/server";
 import { proxy } from "@/proxy";
 import { GET as health } from "@/app/api/health/route";
-import { GET as testsGet, POST as testsPost } from "@/app/api/tests/route";
+import { GET as testsGet, POST as testsPost } from "@/app/api/vacuum-tests/route";
 import { appRequest, createShop, type TestMember } from "../helpers/members";
 import { countRows, listKeys, sampleText, uploadRequest } from "../helpers/uploads";
 import { postgres, timed, until } from "./parts";

@@ -13,7 +13,7 @@ import { openSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "drizzle-orm";
-import { simulateLog } from "@/analysis/simulate";
+import { simulateLog } from "@/analysis/decay/simulate";
 import { db } from "@/db/client";
 import { env } from "@/lib/env";
 import { createShop, type TestMember } from "../helpers/members";

@@ -7,7 +7,7 @@ import { randomUUID } from "node:crypto";
 import { db } from "@/db/client";
 import { insertAnalysis } from "@/db/queries/analyses";
 import { insertTest, updateTestCurrentAnalysis } from "@/db/queries/vacuum-tests";
-import type { AnalysisResult, Verdict } from "@/analysis/types";
+import type { AnalysisResult, Verdict } from "@/analysis/decay/types";
 import type { TestMember } from "./members";
 
 export interface SeedOptions {

@@ -3,7 +3,7 @@
  * profile rules, the report page and the PDF of one test quote the same start, last reading and
  * highest; a leak never sits beside a green "will pass"; "Passed" never stands on a test that misses
  * the profile. Real Chromium against the running Riseline, real database, S3 fake; the PDF is read
- * back with pdf-parse. Invented data (analysis/simulate); thresholds: the default profile, common
+ * back with pdf-parse. Invented data (analysis/decay/simulate); thresholds: the default profile, common
  * practice, no published source.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -15,7 +15,7 @@ import { PDFParse } from "pdf-parse";
 import type { Page } from "playwright-core";
 import { DESKTOP, PHONE, launch, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
-import { simulateLog } from "@/analysis/simulate";
+import { simulateLog } from "@/analysis/decay/simulate";
 
 let session: Session;
 let owner: TestMember;

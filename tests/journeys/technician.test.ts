@@ -11,7 +11,7 @@ import { join } from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
 import { launch, PHONE, signInThroughPage, type Session } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
-import { simulateLog } from "@/analysis/simulate";
+import { simulateLog } from "@/analysis/decay/simulate";
 
 const SAMPLE_PASS = "fixtures/samples/sample-1-iso-microns.csv";
 const SAMPLE_LEAK = "fixtures/samples/sample-2-elapsed-mtorr.csv";

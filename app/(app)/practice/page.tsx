@@ -3,7 +3,7 @@ import Link from "next/link";
 import { db } from "@/db/client";
 import { Badge, Card, EmptyState } from "@/components/ui";
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 import { canReadAllTests } from "@/lib/permissions";
 import { listPracticeCalls, listPracticeTests } from "@/lib/practice/view";
 import { PRACTICE_CALL_WORDS, type CallChoice } from "@/lib/practice/words";

@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 import { Alert, Badge, Button, EmptyState, Select, Spinner } from "@/components/ui";
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
 import { Sparkline } from "@/components/review/Sparkline";

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
 import type { VacuumTestListItem } from "@/lib/client/api";
 

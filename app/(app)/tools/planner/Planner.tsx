@@ -7,9 +7,9 @@
  * and for a recorded system its own pull-downs beside the plan.
  */
 import { useState } from "react";
-import { planWhatIfs, type PlannerInput, type WhatIf } from "@/analysis/planner";
-import { CONDITION_WORDS, type SystemCondition } from "@/analysis/planner-load";
-import { ACR_TUBE_ID_INCHES, systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/volume";
+import { planWhatIfs, type PlannerInput, type WhatIf } from "@/analysis/calculators/planner";
+import { CONDITION_WORDS, type SystemCondition } from "@/analysis/calculators/planner-load";
+import { ACR_TUBE_ID_INCHES, systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/shared/volume";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
 import { PlanResult } from "@/components/planner/PlanResult";
 import { RigPicker, type RigSetup } from "@/components/planner/RigPicker";

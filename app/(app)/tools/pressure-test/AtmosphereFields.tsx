@@ -4,7 +4,7 @@
  * Where the atmosphere comes from: the standard sea-level one, the standard atmosphere at the
  * site's elevation (ISO 2533), or a barometer reading — always labelled in the test's absolute unit.
  */
-import { ATMOSPHERE_UNIT_LABEL, atmosphereAtElevation, PLAUSIBLE_ATMOSPHERE, type AtmosphereUnit } from "@/analysis/atmosphere";
+import { ATMOSPHERE_UNIT_LABEL, atmosphereAtElevation, PLAUSIBLE_ATMOSPHERE, type AtmosphereUnit } from "@/analysis/calculators/atmosphere";
 import { Input, Select } from "@/components/ui";
 
 export type AtmosphereMode = "standard" | "elevation" | "entered";

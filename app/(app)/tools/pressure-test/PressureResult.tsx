@@ -4,8 +4,8 @@
  * The worked-out result of a nitrogen test, warning first: a reading above the rated test
  * pressure stands at the very top, before the verdict, and the verdict then says "Stopped".
  */
-import type { NitrogenResult } from "@/analysis/nitrogen";
-import { durationWords } from "@/analysis/format";
+import type { NitrogenResult } from "@/analysis/calculators/nitrogen";
+import { durationWords } from "@/analysis/shared/format";
 import { Alert, Badge, Card } from "@/components/ui";
 import { VERDICT_TONE, VERDICT_WORDS } from "./words";
 

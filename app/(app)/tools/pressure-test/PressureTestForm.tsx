@@ -7,8 +7,8 @@
  */
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
-import { ABSOLUTE_UNIT_OF, NITROGEN_CAUTIONS, type NitrogenPressureUnit, type NitrogenResult, type TemperatureUnit } from "@/analysis/nitrogen";
-import { inspectNitrogenLogHeader, type NitrogenLogHeader } from "@/analysis/nitrogen-log";
+import { ABSOLUTE_UNIT_OF, NITROGEN_CAUTIONS, type NitrogenPressureUnit, type NitrogenResult, type TemperatureUnit } from "@/analysis/calculators/nitrogen";
+import { inspectNitrogenLogHeader, type NitrogenLogHeader } from "@/analysis/calculators/nitrogen-log";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
 import { apiFetch, ApiError } from "@/lib/client/api";
 import { evaluatePressureTestRequest } from "@/lib/pressure/evaluate";

@@ -5,7 +5,7 @@ import { listJobsByOrganization } from "@/db/queries/records";
 import { Badge, Card } from "@/components/ui";
 import { pageActor } from "@/lib/session";
 import { PressureTestForm } from "./PressureTestForm";
-import { durationWords } from "@/analysis/format";
+import { durationWords } from "@/analysis/shared/format";
 import { UNIT_WORDS, VERDICT_TONE, VERDICT_WORDS } from "./words";
 
 export const metadata: Metadata = { title: "Nitrogen pressure test" };

@@ -1,4 +1,4 @@
-import type { NitrogenPressureUnit, NitrogenVerdict } from "@/analysis/nitrogen";
+import type { NitrogenPressureUnit, NitrogenVerdict } from "@/analysis/calculators/nitrogen";
 
 export const UNIT_WORDS: Record<NitrogenPressureUnit, string> = { psig: "psig", kpa_gauge: "kPa gauge", bar_gauge: "bar gauge" };
 export const VERDICT_WORDS: Record<NitrogenVerdict, string> = {

@@ -1,8 +1,8 @@
 "use client";
 
 import { useState } from "react";
-import { PA_PER_MICRON } from "@/analysis/units";
-import { waterVapourPressurePa } from "@/analysis/water";
+import { PA_PER_MICRON } from "@/analysis/shared/units";
+import { waterVapourPressurePa } from "@/analysis/calculators/water";
 import { cToF, TRIPLE_POINT_MICRONS, WaterAtVacuum } from "@/components/planner/WaterAtVacuum";
 import { Card, Input, Select } from "@/components/ui";
 

@@ -1,4 +1,4 @@
-import type { Finding, Severity } from "@/analysis/types";
+import type { Finding, Severity } from "@/analysis/decay/types";
 import { Card } from "@/components/ui";
 import { durationWords } from "./format";
 

@@ -1,7 +1,7 @@
 import { Card, LinkButton } from "@/components/ui";
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
 import { confidenceWords } from "@/components/verdict/words";
-import { certaintyWordsOf } from "@/analysis/confidence";
+import { certaintyWordsOf } from "@/analysis/decay/confidence";
 import type { HistoryEntry } from "@/lib/client/api";
 import { dateTimeWords, durationWords } from "./format";
 import { versionHref } from "./version";

@@ -1,4 +1,4 @@
-import type { AnalysisResult } from "@/analysis/types";
+import type { AnalysisResult } from "@/analysis/decay/types";
 import type { TestRecord } from "@/lib/client/api";
 import { UNIT_LABELS } from "../new/ColumnChooser";
 

@@ -1,5 +1,5 @@
-import type { AnalysisResult } from "@/analysis/types";
-import { PA_PER_MICRON } from "@/analysis/units";
+import type { AnalysisResult } from "@/analysis/decay/types";
+import { PA_PER_MICRON } from "@/analysis/shared/units";
 import { Card } from "@/components/ui";
 import { shapeWords, primaryHold } from "@/components/curve/model";
 import { storyOf, type StoryNumber } from "@/lib/verdict/story";

@@ -6,8 +6,8 @@
  * findings when the real one is much slower (restrictions, a leak or moisture).
  */
 import { useMemo, useState } from "react";
-import type { AnalysisResult } from "@/analysis/types";
-import type { PlannerInput } from "@/analysis/planner";
+import type { AnalysisResult } from "@/analysis/decay/types";
+import type { PlannerInput } from "@/analysis/calculators/planner";
 import { PlanOverlay } from "@/components/planner/PlanOverlay";
 import { Button, Card, Input, Select } from "@/components/ui";
 

@@ -2,7 +2,7 @@
 
 import { useRef, useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { AnalysisResult, PressureUnit } from "@/analysis/types";
+import type { AnalysisResult, PressureUnit } from "@/analysis/decay/types";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
 import { listProfiles, newIdempotencyKey, reanalyse, type ReanalyseBody } from "@/lib/client/api";
 import { UNIT_LABELS } from "../new/ColumnChooser";

@@ -2,7 +2,7 @@
  * Numbers for the test page: microns first with SI beside (1 micron = 0.133322 Pa,
  * from 1 Torr = 101325/760 Pa exactly), durations in words, leak rates in three units.
  */
-import { PA_PER_MICRON } from "@/analysis/units";
+import { PA_PER_MICRON } from "@/analysis/shared/units";
 import { durationWords, microns } from "@/components/curve/model";
 
 export { durationWords, microns };

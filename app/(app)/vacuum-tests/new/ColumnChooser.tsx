@@ -1,8 +1,8 @@
 "use client";
 
 import { useState } from "react";
-import type { PressureUnit, UnsureReason } from "@/analysis/types";
-import { toMicrons } from "@/analysis/units";
+import type { PressureUnit, UnsureReason } from "@/analysis/decay/types";
+import { toMicrons } from "@/analysis/shared/units";
 import { Alert, Button, Select } from "@/components/ui";
 import type { ImportPreview } from "@/lib/client/api";
 

@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useRef, useState } from "react";
-import type { AnalysisResult, UnsureReason } from "@/analysis/types";
+import type { AnalysisResult, UnsureReason } from "@/analysis/decay/types";
 import { useQuery } from "@tanstack/react-query";
 import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
 import { VerdictBanner } from "@/components/verdict/VerdictBanner";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import type { Verdict } from "@/analysis/types";
+import type { Verdict } from "@/analysis/decay/types";
 import { db } from "@/db/client";
 import { Card, LinkButton } from "@/components/ui";
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
