@@ -27,20 +27,29 @@ const serwist = new Serwist({
   navigationPreload: false,
   runtimeCaching: [
     {
-      // A Web Worker's bootstrap carries its chunk list in its query (`?params=`), which the precache
-      // key has not. Answered from the precache as a new Response: a response taken from the cache
-      // as it is would give the worker the cached URL, without its query, as its location.
-      matcher: ({ url }) => url.origin === self.location.origin && /^\/_next\/static\/chunks\/turbopack-worker-[\w-]+\.js$/.test(url.pathname) && url.search !== "",
-      handler: async ({ request, url }): Promise<Response> => {
-        const res: Response = (await caches.match(`${url.origin}${url.pathname}`)) ?? (await fetch(request));
-        return new Response(await res.blob(), { status: res.status, statusText: res.statusText, headers: res.headers });
-      },
-    },
-    {
       matcher: ({ request, url }) => url.origin === self.location.origin && request.mode === "navigate" && OFFLINE_PAGES.includes(url.pathname),
       handler: pages,
     },
   ],
+});
+
+/**
+ * A Web Worker's bootstrap (the phone's engine) reads its chunk list from its own URL's fragment
+ * (`#params=`). A response taken from the cache as it is would give the worker the cached URL, without
+ * the fragment, as its location; a new Response carries no URL, so the worker keeps the one it was
+ * started with. Registered before Serwist's listener, which then leaves the request alone.
+ */
+const WORKER_BOOTSTRAP = /^\/_next\/static\/chunks\/turbopack-worker-[\w-]+\.js$/;
+self.addEventListener("fetch", (event: FetchEvent) => {
+  const url = new URL(event.request.url);
+  if (url.origin !== self.location.origin || !WORKER_BOOTSTRAP.test(url.pathname)) return;
+  event.stopImmediatePropagation();
+  event.respondWith(
+    (async () => {
+      const res: Response = (await caches.match(`${url.origin}${url.pathname}`)) ?? (await fetch(event.request));
+      return new Response(await res.blob(), { status: res.status, statusText: res.statusText, headers: res.headers });
+    })(),
+  );
 });
 
 serwist.addEventListeners();
