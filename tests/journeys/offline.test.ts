@@ -15,6 +15,7 @@ import { simulateLog } from "@/analysis/simulate";
 
 let session: Session;
 let tech: TestMember;
+let other: TestMember;
 const scratch = mkdtempSync(join(tmpdir(), "rl-offline-"));
 
 function logFile(name: string, text: string): string {
@@ -33,6 +34,7 @@ beforeAll(async () => {
   session = await launch();
   const owner = await createShop();
   tech = await addMember(owner.organizationId, "technician", "Basil Basement");
+  other = await addMember(owner.organizationId, "technician", "Opal Other");
 });
 
 afterAll(async () => {
@@ -56,8 +58,8 @@ async function readyPhone(): Promise<{ context: BrowserContext; page: Page }> {
   return { context, page };
 }
 
-async function myTests(page: Page): Promise<{ id: string; verdict: string | null; title: string }[]> {
-  const res = await page.request.get(`/api/tests?technicianId=${tech.userId}&limit=50`);
+async function myTests(page: Page, who: TestMember = tech): Promise<{ id: string; verdict: string | null; title: string }[]> {
+  const res = await page.request.get(`/api/tests?technicianId=${who.userId}&limit=50`);
   expect(res.status()).toBe(200);
   return ((await res.json()) as { items: { id: string; verdict: string | null; title: string }[] }).items;
 }
@@ -232,7 +234,38 @@ describe("offline capture on a phone (W3C Service Workers, WHATWG Background Syn
     await context.close();
   });
 
-  it("sign-out warns about unsent tests and clears the phone's outbox; another person never sees or sends them", async () => {
+  it("a capture waits while the session has ended, is never sent under another person's account, and goes once its own person signs in again", async () => {
+    const { context, page } = await readyPhone();
+    const before = (await myTests(page)).length;
+    await context.setOffline(true);
+    await page.getByTestId("offline-banner").waitFor();
+    await captureFile(page, LEAK_1H, 0);
+    // The session ends while the phone is offline (the cookie is gone), then the signal returns.
+    await context.clearCookies();
+    await context.setOffline(false);
+    await page.evaluate(() => window.dispatchEvent(new Event("online")));
+    await expect.poll(() => page.getByTestId("outbox-status").allTextContents(), { timeout: 30_000 }).toEqual(["Waiting for sign-in"]);
+
+    // Someone else signs in on this phone: the capture is neither shown nor sent under their account.
+    await signInThroughPage(page, other.email, other.password);
+    await page.goto("/tests/new");
+    await page.getByRole("heading", { name: "New test" }).waitFor();
+    await page.waitForTimeout(1500);
+    expect(await page.getByTestId("outbox-item").count()).toBe(0);
+    expect((await myTests(page, other)).length).toBe(0);
+
+    // Its own person signs in again: it is sent, once.
+    await page.request.post("/api/auth/sign-out", { headers: { origin: new URL(APP_URL).origin }, data: {} });
+    await context.clearCookies();
+    await signInThroughPage(page, tech.email, tech.password);
+    await page.goto("/tests/new");
+    await expect.poll(() => page.getByTestId("outbox-status").allTextContents(), { timeout: 30_000 }).toEqual(["Confirmed"]);
+    expect((await myTests(page)).length - before).toBe(1);
+    expect((await myTests(page, other)).length).toBe(0);
+    await context.close();
+  });
+
+  it("sign-out warns about unsent tests and clears the phone's outbox and the page kept for offline use", async () => {
     const { context, page } = await readyPhone();
     await context.setOffline(true);
     await captureFile(page, PASS_1H, 0);
