@@ -265,6 +265,25 @@ describe("offline capture on a phone (W3C Service Workers, WHATWG Background Syn
     await context.close();
   });
 
+  it("a log nobody can read says so on the phone, fails with the server's reason when sent (no retry by itself), and can be discarded", async () => {
+    const { context, page } = await readyPhone();
+    const before = (await myTests(page)).length;
+    await context.setOffline(true);
+    await page.getByTestId("offline-banner").waitFor();
+    await page.getByLabel("Gauge log file (CSV)").setInputFiles("fixtures/bad/bad-time.csv");
+    await page.getByTestId("provisional-error").waitFor({ timeout: 20_000 });
+    expect(await page.getByTestId("provisional-error").textContent()).toMatch(/line/i);
+    await context.setOffline(false);
+    await expect.poll(() => page.getByTestId("outbox-status").allTextContents(), { timeout: 30_000 }).toEqual(["Not sent"]);
+    expect(await page.getByTestId("outbox-reason").textContent()).toMatch(/line/i);
+    await page.getByRole("button", { name: "Send now" }).waitFor();
+    page.once("dialog", (d) => void d.accept());
+    await page.getByRole("button", { name: "Discard" }).click();
+    await expect.poll(() => page.getByTestId("outbox-item").count()).toBe(0);
+    expect((await myTests(page)).length).toBe(before);
+    await context.close();
+  });
+
   it("sign-out warns about unsent tests and clears the phone's outbox and the page kept for offline use", async () => {
     const { context, page } = await readyPhone();
     await context.setOffline(true);
