@@ -8,13 +8,16 @@
  */
 import { useEffect } from "react";
 
+let timer: ReturnType<typeof setTimeout> | null = null;
+
+/** Drains now, then again when the outbox says; stops while offline (the `online` event restarts it). */
 async function drainSoon(): Promise<void> {
+  if (timer) clearTimeout(timer);
+  timer = null;
+  if (!navigator.onLine) return;
   const { drainOutbox } = await import("@/lib/offline/drain");
   const report = await drainOutbox();
-  if (report?.nextAt != null) {
-    const wait = Math.max(500, report.nextAt - Date.now());
-    setTimeout(() => void drainSoon(), wait);
-  }
+  if (report.nextAt != null) timer = setTimeout(() => void drainSoon().catch(() => undefined), Math.max(500, report.nextAt - Date.now()));
 }
 
 export function ServiceWorker() {
@@ -29,11 +32,17 @@ export function ServiceWorker() {
       })
       .catch(() => undefined);
     const online = () => void drainSoon().catch(() => undefined);
+    // Background Sync fired while this page is open: the worker hands the sending to the page.
+    const fromWorker = (e: MessageEvent) => {
+      if (e.data === "riseline-drain") online();
+    };
     if (navigator.onLine) online();
     window.addEventListener("online", online);
+    navigator.serviceWorker.addEventListener("message", fromWorker);
     return () => {
       stopped = true;
       window.removeEventListener("online", online);
+      navigator.serviceWorker.removeEventListener("message", fromWorker);
     };
   }, []);
   return null;

@@ -8,10 +8,16 @@ import { listAllCaptures, updateCapture, type Capture } from "./outbox";
 import { isDue, isUnsent, mayBeSentBy, nextTryAt, outcomeOf, retryAfterMs, whatChanged } from "./rules";
 import { summaryOf } from "./summary";
 
+/** A try that has no answer by then counts as no answer (and frees the outbox for the next try). */
+const TRY_TIMEOUT_MS = 60_000;
+const SESSION_TIMEOUT_MS = 15_000;
+/** Ask again this soon when another sender held the outbox or the server did not answer. */
+const AGAIN_SOON_MS = 3_000;
+
 /** Who the server says is signed in: their id, null when nobody is, undefined when there is no answer. */
 export async function sessionUserId(): Promise<string | null | undefined> {
   try {
-    const res = await fetch("/api/auth/get-session", { credentials: "same-origin", headers: { accept: "application/json" }, cache: "no-store" });
+    const res = await fetch("/api/auth/get-session", { credentials: "same-origin", headers: { accept: "application/json" }, cache: "no-store", signal: AbortSignal.timeout(SESSION_TIMEOUT_MS) });
     if (!res.ok) return res.status === 401 ? null : undefined;
     const body = (await res.json()) as { user?: { id?: string } } | null;
     return body?.user?.id ?? null;
@@ -43,7 +49,7 @@ async function sendOne(userId: string, c: Capture, now: () => number): Promise<v
   let retryAfter: number | null = null;
   let body: Created | null = null;
   try {
-    const res = await fetch("/api/tests", requestOf(c));
+    const res = await fetch("/api/tests", { ...requestOf(c), signal: AbortSignal.timeout(TRY_TIMEOUT_MS) });
     status = res.status;
     retryAfter = retryAfterMs(res.headers.get("retry-after"), now());
     const text = await res.text();
@@ -87,13 +93,17 @@ async function withLock<T>(run: () => Promise<T>): Promise<T | null> {
   return locks.request("riseline-outbox-send", { ifAvailable: true }, async (lock: Lock | null) => (lock ? run() : null));
 }
 
-/** Sends every due capture of whoever is signed in, one after another. */
-export async function drainOutbox(now: () => number = Date.now): Promise<DrainReport | null> {
-  return withLock(async () => {
+/**
+ * Sends every due capture of whoever is signed in, one after another. When another sender (the
+ * service worker, another tab) holds the outbox, or the server gave no answer, the report asks for
+ * another drain soon, so a missed `online` event never leaves captures waiting.
+ */
+export async function drainOutbox(now: () => number = Date.now): Promise<DrainReport> {
+  const report = await withLock(async () => {
     const all = await listAllCaptures();
     if (!all.some(isUnsent)) return { sent: 0, nextAt: null, signedIn: undefined };
     const who = await sessionUserId();
-    if (who === undefined) return { sent: 0, nextAt: null, signedIn: who };
+    if (who === undefined) return { sent: 0, nextAt: now() + AGAIN_SOON_MS, signedIn: who };
     let sent = 0;
     for (const c of all) {
       if (!isUnsent(c)) continue;
@@ -111,4 +121,5 @@ export async function drainOutbox(now: () => number = Date.now): Promise<DrainRe
     const nextAt = left.length ? Math.min(...left.map((c) => c.nextTryAt)) : null;
     return { sent, nextAt, signedIn: who };
   });
+  return report ?? { sent: 0, nextAt: now() + AGAIN_SOON_MS, signedIn: undefined };
 }

@@ -265,6 +265,22 @@ describe("offline capture on a phone (W3C Service Workers, WHATWG Background Syn
     await context.close();
   });
 
+  it("with the app closed, the service worker sends the outbox by Background Sync once the signal returns (WHATWG Background Sync draft)", async () => {
+    const { context, page } = await readyPhone();
+    const before = (await myTests(page)).length;
+    await context.setOffline(true);
+    await page.getByTestId("offline-banner").waitFor();
+    await captureFile(page, PASS_1H, 0);
+    await page.close();
+    await context.setOffline(false);
+    const count = async () => {
+      const res = await context.request.get(`/api/tests?technicianId=${tech.userId}&limit=50`);
+      return ((await res.json()) as { items: unknown[] }).items.length;
+    };
+    await expect.poll(count, { timeout: 90_000, interval: 1000 }).toBe(before + 1);
+    await context.close();
+  });
+
   it("a log nobody can read says so on the phone, fails with the server's reason when sent (no retry by itself), and can be discarded", async () => {
     const { context, page } = await readyPhone();
     const before = (await myTests(page)).length;

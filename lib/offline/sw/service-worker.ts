@@ -72,9 +72,16 @@ self.addEventListener("sync", (event) => {
   const e = event as SyncEvent;
   if (e.tag !== SYNC_TAG) return;
   e.waitUntil(
-    drainOutbox().then((r) => {
+    (async () => {
+      // An open page sends and shows the progress itself; with none open, this worker sends.
+      const windows = await self.clients.matchAll({ type: "window" });
+      if (windows.length) {
+        for (const w of windows) w.postMessage("riseline-drain");
+        return;
+      }
+      const r = await drainOutbox();
       // Something still waits for a retry: a rejected sync is retried later by the browser.
-      if (r && r.nextAt !== null) throw new Error("outbox not empty yet");
-    }),
+      if (r.nextAt !== null) throw new Error("outbox not empty yet");
+    })(),
   );
 });
