@@ -5,6 +5,7 @@ import "@fontsource/ibm-plex-sans/500.css";
 import "@fontsource/ibm-plex-sans/600.css";
 import "./globals.css";
 import { Providers } from "@/components/providers";
+import { ServiceWorker } from "@/components/offline/ServiceWorker";
 
 export const metadata: Metadata = {
   title: { default: "Riseline", template: "%s · Riseline" },
@@ -37,6 +38,7 @@ export default async function RootLayout({ children }: { children: React.ReactNo
       </head>
       <body className="min-h-dvh bg-surface text-fg antialiased">
         <Providers>{children}</Providers>
+        <ServiceWorker />
       </body>
     </html>
   );

@@ -37,7 +37,7 @@ stale() {
 }
 if stale; then
   say "Building (next build)…"
-  flock /tmp/riseline-next-build.lock ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 || { tail -40 "$ROOT/build.log"; exit 1; }
+  flock /tmp/riseline-next-build.lock sh -c "./node_modules/.bin/next build && ./node_modules/.bin/serwist build serwist.config.mjs" >"$ROOT/build.log" 2>&1 || { tail -40 "$ROOT/build.log"; exit 1; }
 fi
 
 # SERVER_NODE_FLAGS: node flags for the server only (profiling, e.g. --cpu-prof --cpu-prof-dir=DIR);

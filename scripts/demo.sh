@@ -44,7 +44,7 @@ set -a; . ./.env; set +a
 ENGINE_WORKER_ENTRY=source ./node_modules/.bin/tsx scripts/seed.ts
 
 say "Building the app (next build)…"
-./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 || { tail -40 "$ROOT/build.log"; exit 1; }
+{ ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 && ./node_modules/.bin/serwist build serwist.config.mjs >>"$ROOT/build.log" 2>&1; } || { tail -40 "$ROOT/build.log"; exit 1; }
 
 mkdir -p "$ROOT/run"
 : >"$ROOT/next.log"

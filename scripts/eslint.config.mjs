@@ -6,7 +6,7 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
-    ignores: [".next/**", "node_modules/**", ".data/**", "db/migrations/**", "next-env.d.ts", "coverage/**"],
+    ignores: [".next/**", "node_modules/**", ".data/**", "db/migrations/**", "next-env.d.ts", "coverage/**", "public/sw.js"],
   },
   {
     rules: {

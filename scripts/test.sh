@@ -57,7 +57,7 @@ step "Unit and integration tests" logged "$ROOT/unit.log" ./node_modules/.bin/vi
   --reporter=default --reporter=json --outputFile.json="$ROOT/unit.json"
 
 say "Production build for the journeys"
-if ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1; then
+if ./node_modules/.bin/next build >"$ROOT/build.log" 2>&1 && ./node_modules/.bin/serwist build serwist.config.mjs >>"$ROOT/build.log" 2>&1; then
   mkdir -p "$ROOT/run"
   setsid ./node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" >"$ROOT/next.log" 2>&1 &
   echo $! >"$ROOT/run/next.pid"

@@ -16,6 +16,10 @@ export function SignOutButton({ className }: { className?: string }) {
       data-testid="sign-out"
       disabled={busy}
       onClick={async () => {
+        // The phone's outbox is this person's: cleared now, with a warning if tests were never sent.
+        const { clearPhoneOnSignOut } = await import("@/lib/offline/signout");
+        const go = await clearPhoneOnSignOut((n) => window.confirm(`${n} test${n === 1 ? " is" : "s are"} on this phone and not sent yet. Signing out deletes ${n === 1 ? "it" : "them"}. Sign out anyway?`));
+        if (!go) return;
         setBusy(true);
         await authClient.signOut();
         router.replace("/sign-in");

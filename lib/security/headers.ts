@@ -66,6 +66,9 @@ export function pagePolicy(nonce: string, mode: HeaderMode): string {
  * needs to show it inline.
  */
 export function nonPagePolicy(path: string): string {
+  // A Web Worker's bootstrap (the phone's engine, lib/offline/engine-client.ts) runs under its own
+  // response's policy and loads its chunks with importScripts: same-origin scripts only.
+  if (/^\/_next\/static\/chunks\/turbopack-worker-[\w-]+\.js$/.test(path)) return "default-src 'none'; script-src 'self'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
   const pdf = /^\/api\/(?:vacuum-)?tests\/[^/]+\/report$|^\/share\/[^/]+\/pdf$/.test(path);
   return pdf ? "default-src 'none'; object-src 'self'; style-src 'unsafe-inline'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'" : "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 }

@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
 import { Alert, Button, LinkButton } from "@/components/ui";
 import {
@@ -33,6 +33,8 @@ const ColumnChooser = dynamic(() => import("./ColumnChooser").then((m) => m.Colu
 const TypedReadings = dynamic(() => import("./TypedReadings").then((m) => m.TypedReadings), { loading: Loading });
 const UploadResult = dynamic(() => import("./UploadResult").then((m) => m.UploadResult), { loading: Loading });
 const AnalysisWait = dynamic(() => import("./AnalysisWait").then((m) => m.AnalysisWait), { loading: Loading });
+// The phone's outbox (IndexedDB) and engine load apart from the page, too.
+const OfflineOutbox = dynamic(() => import("@/components/offline/OfflineOutbox").then((m) => m.OfflineOutbox), { ssr: false });
 
 type Phase =
   | { kind: "pick" }
@@ -78,28 +80,26 @@ export interface NewTestProps {
   technicianName: string;
   /** records.manage: may make a new visit (job) with the test. */
   canCreateJob: boolean;
+  /** The signed-in member: the phone's outbox is theirs. */
+  userId: string;
 }
 
-export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
+export function NewTest({ technicianName, canCreateJob, userId }: NewTestProps) {
   const [tab, setTab] = useState<"file" | "typed">("file");
   const [phase, setPhase] = useState<Phase>({ kind: "pick" });
   const [context, setContext] = useState<TestContext>(EMPTY_CONTEXT);
-  const [online, setOnline] = useState(true);
   const queryClient = useQueryClient();
 
-  useEffect(() => {
-    const update = () => setOnline(!isOffline());
-    update();
-    window.addEventListener("online", update);
-    window.addEventListener("offline", update);
-    return () => {
-      window.removeEventListener("online", update);
-      window.removeEventListener("offline", update);
-    };
-  }, []);
+  /** No signal: the capture goes to the phone's outbox (its key made there) and is judged on the phone. */
+  const keepOnPhone = async (a: { source: "file"; file: File } | { source: "typed"; readings: Extract<Attempt, { source: "typed" }>["readings"]; mode: TimeMode }) => {
+    const { captureOffline } = await import("@/lib/offline/capture");
+    setPhase({ kind: "pick" });
+    await captureOffline(userId, a.source === "file" ? a : { source: "typed", readings: a.readings, timeMode: a.mode }, contextFields(context));
+  };
 
   const send = async (a: Attempt) => {
     const file = a.source === "file" ? a.file : undefined;
+    if (isOffline() && !(a.source === "file" && a.choice)) return keepOnPhone(a.source === "file" ? { source: "file", file: a.file } : a);
     setPhase({ kind: "sending", file, progress: a.source === "file" ? 0 : null });
     try {
       if (isOffline()) throw new ApiError(0, "offline", "You are offline.");
@@ -153,9 +153,9 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
       setPhase({ kind: "error", error: new ApiError(422, "invalid_file", `${file.name} is empty.`), file, retry: reset });
       return;
     }
+    if (isOffline()) return keepOnPhone({ source: "file", file });
     setPhase({ kind: "checking", file });
     try {
-      if (isOffline()) throw new ApiError(0, "offline", "You are offline.");
       const preview = await previewImport(await previewPart(file), file.name);
       if (preview.detected.unsure) {
         setPhase({ kind: "choose", file, preview });
@@ -186,11 +186,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
 
   return (
     <div className="space-y-5">
-      {!online && (
-        <Alert tone="warning" title="You are offline">
-          You can fill in the test now; sending waits for signal.
-        </Alert>
-      )}
+      <OfflineOutbox userId={userId} />
       <div role="tablist" aria-label="How to enter the test" className="grid grid-cols-2 gap-1 rounded-xl bg-surface-sunken p-1">
         {([
           ["file", "Gauge file"],

@@ -14,7 +14,7 @@ export default async function NewTestPage() {
         <h1 className="text-headline">New test</h1>
         <p className="text-body text-fg-soft">Send the micron gauge’s log, or type the readings. The verdict shows here in seconds.</p>
       </div>
-      <NewTest technicianName={actor.name} canCreateJob={can(actor.role, "records.manage")} />
+      <NewTest technicianName={actor.name} canCreateJob={can(actor.role, "records.manage")} userId={actor.userId} />
     </div>
   );
 }
