@@ -1,5 +1,5 @@
 /**
- * Sending the outbox: each due capture of the signed-in person is POSTed to /api/tests with the
+ * Sending the outbox: each due capture of the signed-in person is POSTed to /api/vacuum-tests with the
  * Idempotency-Key it got when captured. Runs in the page (on open, on `online`, on a timer) and in
  * the service worker (on Background Sync); a Web Lock keeps two of them from sending at once.
  */
