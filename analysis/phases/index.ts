@@ -141,6 +141,19 @@ function endOfFloor(p: number[], split: number, endIndex: number): number {
   return last;
 }
 
+/**
+ * A valved-off system's reading does not fall: where the readings after the placed isolation still
+ * drop by more than the turn threshold from one to the next (a sparse log, one reading every few
+ * minutes, whose smoothed trough sits a reading early), the pump was still on, and the isolation is
+ * the reading where that fall stops. `factor` is the turn threshold as a ratio (at least 1.15).
+ * Common practice, no published source.
+ */
+function pastStillFalling(p: number[], start: number, end: number, factor: number): number {
+  let s = start;
+  while (s + 2 <= end && p[s + 1] * factor < p[s]) s++;
+  return s;
+}
+
 interface Candidate {
   start: number;
   end: number;
@@ -207,7 +220,7 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
       let start = 0;
       let seen = false;
       if (fallBefore) {
-        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog, step);
+        start = pastStillFalling(p, refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog, step), end, 10 ** threshold);
         seen = start > 0;
       }
       if (end <= start) end = Math.min(start + 1, n - 1);
