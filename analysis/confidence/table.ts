@@ -7,13 +7,13 @@
 import type { Verdict } from "../types";
 
 export const CALIBRATION: { id: string; fittedOn: string; weights: Record<Verdict, number[]> } = {
-  id: "engine 0.2.0, 7496 logs",
-  fittedOn: "6000 simulated gauge logs (seeds 100001…) and 1500 typed logs from the simulator (seeds 200001…), 2026-12-03",
+  id: "engine 0.2.0, 11996 logs",
+  fittedOn: "6000 simulated gauge logs (seeds 100001…) and 3000 typed logs from the simulator (seeds 200001…) and 3000 field logs (seeds 400001…), 2026-12-04",
   weights: {
-    pass: [-1.5216, -0.0749, -0.968, 1.326, 0.5727, 0, 2.58, -0.5934, 0.4476],
-    leak: [1.9553, -0.204, -0.4537, 4.1024, 2.6739, -2.1412, -2.8597, 0.9367, -0.0151],
-    moisture: [-1.2402, -2.569, -1.4544, 0.188, 2.2368, 0.0342, 3.2653, 0.752, 0.4982],
-    leak_and_moisture: [-1.2917, 0.7801, 0.2536, 1.93, -0.1627, -0.0008, -0.2621, 0.0299, 0.5017],
-    inconclusive: [2.5303, 1.8426, 0, 0, 0, -0.5945, 0.8335, 0.0687, 0.2157],
+    pass: [-0.2129, -0.0141, -0.3859, 0.9033, 0.6875, 0, 1.304, -0.3281, 0.3005],
+    leak: [4.6733, -0.1167, 0.8132, 2.8375, 0.4959, -1.4045, -2.027, 3.1369, -0.0185],
+    moisture: [-2.9944, -2.618, -0.0925, 0.5692, 2.2228, 0.1554, 1.605, 0.5364, -0.2538],
+    leak_and_moisture: [-3.5109, 1.0508, 1.0861, 1.7012, -0.0147, 0, 0.035, 0.1999, 0.2663],
+    inconclusive: [0.1222, 3.0568, 0, 0, 0, -1.9254, 1.3942, 1.6405, 2.5435],
   },
 };

@@ -145,12 +145,14 @@ function endOfFloor(p: number[], split: number, endIndex: number): number {
  * A valved-off system's reading does not fall: where the readings after the placed isolation still
  * drop by more than the turn threshold from one to the next (a sparse log, one reading every few
  * minutes, whose smoothed trough sits a reading early), the pump was still on, and the isolation is
- * the reading where that fall stops. `factor` is the turn threshold as a ratio (at least 1.15).
+ * the reading where that fall stops. Only a run of falls moves it (a reading above the one before it
+ * is a rise, and one low reading after it a spike). `factor` is the turn threshold as a ratio (at least 1.15).
  * Common practice, no published source.
  */
 function pastStillFalling(p: number[], start: number, end: number, factor: number): number {
   let s = start;
-  while (s + 2 <= end && p[s + 1] * factor < p[s]) s++;
+  // a run of falls only: a reading above the one before it is a rise (or an up-spike), not the pull-down
+  while (s + 2 <= end && s > 0 && p[s] <= p[s - 1] && p[s + 1] * factor < p[s]) s++;
   return s;
 }
 

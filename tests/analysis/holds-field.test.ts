@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeLog, analyzeReadings } from "@/analysis";
 import type { ImportedLog } from "@/analysis/types";
+import { calibratedConfidence, type ConfidenceEvidence } from "@/analysis/confidence";
 
 // Holds as field logs carry them. Gauge behaviour: common practice, no published source. The curves are
 // p_iso + A(1 − e^(−t/τ)) + L·t after a pull-down (outgassing levels off, a leak climbs linearly;
@@ -149,6 +150,21 @@ describe("holds robust to the field (common practice, no published source)", () 
     expect(r.decay!.leakRateMicronsPerMinute).toBeGreaterThanOrEqual(bound * 0.999);
     expect(r.reasons.join(" ")).toMatch(/climbed out of the gauge's range 45 seconds after isolation .*climbing at least/);
     expect(r.findings.find((f) => f.code === "gross_leak")?.severity).toBe("danger");
+  });
+
+  it("a gross leak's confidence is the calibration table's for its evidence (no fixed floor), sure for a climb far past the leak rate (common practice, no source)", () => {
+    const c = curve({ holdS: 0 });
+    const t = c.t.slice();
+    const p = c.p.slice();
+    const iso = t[t.length - 1];
+    t.push(iso + 15, iso + 30);
+    p.push(9000, 18000);
+    const r = analyzeReadings(readings(t, p, [iso + 45, iso + 60]));
+    expect(r.verdict).toBe("leak");
+    const e = r.certainty!.evidence as unknown as ConfidenceEvidence;
+    expect(e.margin).toBe(3);
+    expect(r.confidence).toBe(calibratedConfidence("leak", e));
+    expect(r.certainty!.words).toBe("sure");
   });
 
   it("a tight hold ended by breaking the vacuum (a jump straight out of range) is a break, not a gross leak", () => {
