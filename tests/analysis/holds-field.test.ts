@@ -236,6 +236,22 @@ describe("phase helpers for field logs (common practice, no published source)", 
     expect(resolutionMicrons(base.map((v) => Math.round(v)))).toBe(1);
   });
 
+  it("on a coarse gauge whose pull-down was still falling at the valve-off, the isolation is one step's rise time before the run of equal readings ends (common practice, no source)", () => {
+    const t: number[] = [];
+    const p: number[] = [];
+    for (let s = 0; s <= 3600; s += 10) {
+      // valved off at 1500 s while still falling (about 340 microns); the rise needs minutes to cross a 100-micron step
+      const v = s <= 1500 ? 120 + 20000 * Math.exp(-s / 300) : 120 + 20000 * Math.exp(-1500 / 300) + 700 * (1 - Math.exp(-(s - 1500) / 600));
+      t.push(s);
+      p.push(Math.max(100, Math.round(v / 100) * 100));
+    }
+    const r = analyzeReadings(readings(t, p));
+    let runEnd = 0;
+    for (let i = 0; i < t.length; i++) if (t[i] >= 1500 && p[i] === p[t.indexOf(1500)]) runEnd = t[i];
+    expect(runEnd - 1500).toBeGreaterThan(60);
+    expect(Math.abs(r.isolationAt! - 1500)).toBeLessThanOrEqual(60);
+  });
+
   it("on a coarse gauge the isolation is the end of the run of equal readings at the floor, where the rise leaves it", () => {
     const t: number[] = [];
     const p: number[] = [];
