@@ -4,25 +4,28 @@
  * (import, phases, fit or classify), then `npm run eval:analysis` to see the reliability on
  * held-out and independent logs.
  *
- *   tsx scripts/calibrate-confidence.ts [fileLogs=6000] [typedLogs=1500]
+ *   tsx scripts/calibrate-confidence.ts [fileLogs=6000] [typedLogs=3000] [fieldLogs=3000]
  *
  * Method: per verdict, a logistic regression of "the verdict was right" on the evidence of
  * analysis/decay/confidence/features.ts (Platt scaling widened to a few features, analysis/decay/confidence/logistic.ts),
- * L2 penalty 1e-3. Fitting seeds 100001… (gauge logs) and 200001… (typed logs) are never used by
- * the evaluation (900001…, 300001…, and the independent set).
+ * L2 penalty 1e-3. Fitting seeds 100001… (gauge logs), 200001… (typed logs) and 400001… (field logs:
+ * every layout, field artifacts, typed minutes and gross leaks out of range, drawn as the evaluation's
+ * field part draws them) are never used by the evaluation (900001…, 1000001…, 300001…, and the
+ * independent set).
  */
 import { writeFileSync } from "node:fs";
 import { FEATURE_NAMES } from "../analysis/decay/confidence";
 import { fitLogistic } from "../analysis/decay/confidence/logistic";
 import { ENGINE_VERSION } from "../analysis";
 import type { Verdict } from "../analysis/decay/types";
-import { simulatedSet, typedSet, type Labelled } from "./eval/training";
+import { fieldSet, simulatedSet, typedSet, type Labelled } from "./eval/training";
 
 const fileCount = Number(process.argv[2] ?? 6000);
-const typedCount = Number(process.argv[3] ?? 1500);
+const typedCount = Number(process.argv[3] ?? 3000);
+const fieldCount = Number(process.argv[4] ?? 3000);
 const VERDICTS: Verdict[] = ["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"];
 const started = Date.now();
-const rows: Labelled[] = [...simulatedSet(fileCount, 100001), ...typedSet(typedCount, 200001)];
+const rows: Labelled[] = [...simulatedSet(fileCount, 100001), ...typedSet(typedCount, 200001), ...fieldSet(fieldCount, 400001)];
 
 const weights = {} as Record<Verdict, number[]>;
 const lines: string[] = [];
@@ -35,7 +38,7 @@ for (const v of VERDICTS) {
   lines.push(`${v.padEnd(18)} ${String(mine.length).padStart(5)} verdicts, ${(100 * (ys.reduce((s: number, y) => s + y, 0) / Math.max(ys.length, 1))).toFixed(1)} % right, log-loss ${fit.logLoss.toFixed(3)}, ${fit.iterations} Newton steps`);
 }
 const id = `engine ${ENGINE_VERSION}, ${rows.length} logs`;
-const fittedOn = `${fileCount} simulated gauge logs (seeds 100001…) and ${typedCount} typed logs from the simulator (seeds 200001…), ${new Date().toISOString().slice(0, 10)}`;
+const fittedOn = `${fileCount} simulated gauge logs (seeds 100001…) and ${typedCount} typed logs from the simulator (seeds 200001…) and ${fieldCount} field logs (seeds 400001…), ${new Date().toISOString().slice(0, 10)}`;
 const table = `/**
  * Calibration table of the verdict confidence, written by \`npm run calibrate\`
  * (scripts/calibrate-confidence.ts). Do not edit by hand: re-fit it whenever the engine changes.

@@ -99,6 +99,7 @@ for (const tv of VERDICTS) {
   console.log([tv, ...[...VERDICTS, "error"].map((rv) => String(confusion.get(`${tv}→${rv}`) ?? 0))].map((s) => s.padEnd(18)).join(""));
 }
 if (process.argv.includes("--misses")) console.log(misses.join("\n"));
-console.log(evaluateField(count, firstSeed + 100_000, (sim) => analyse(sim), process.argv.includes("--misses")).join("\n"));
+const fieldJudged: Judged[] = [];
+console.log(evaluateField(count, firstSeed + 100_000, (sim) => analyse(sim), process.argv.includes("--misses"), fieldJudged).join("\n"));
 console.log(earlyCallLines(firstSeed, independentCount).join("\n"));
-console.log(calibrationLines(judged, independentCount).join("\n"));
+console.log(calibrationLines(judged, independentCount, fieldJudged).join("\n"));

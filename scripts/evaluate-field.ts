@@ -55,10 +55,29 @@ function table(title: string, m: Map<string, Tally>): string[] {
   return rows;
 }
 
-/** Draw, analyse and report `count` field logs from `firstSeed`; `analyse` is the same path as the main part's. */
-export function evaluateField(count: number, firstSeed: number, analyse: (sim: SimulatedLog) => AnalysisResult, showMisses: boolean): string[] {
-  const scenarios: Scenario[] = [...SCENARIOS, ...FIELD_SCENARIOS];
-  const layouts: Layout[] = [...LAYOUTS, ...FIELD_LAYOUTS];
+const FIELD_SCENARIO_MIX: Scenario[] = [...SCENARIOS, ...FIELD_SCENARIOS];
+const FIELD_LAYOUT_MIX: Layout[] = [...LAYOUTS, ...FIELD_LAYOUTS].filter((l) => l !== "typed_minutes");
+
+/** The k-th field log of a run: its scenario in turn, a layout and up to three artifacts drawn from the seed. */
+export function drawFieldLog(k: number, seed: number): { scenario: Scenario; layout: Layout; artifacts: FieldArtifact[]; sim: SimulatedLog } {
+  const rng = makeRng(seed * 31 + 7);
+  const scenario = FIELD_SCENARIO_MIX[k % FIELD_SCENARIO_MIX.length];
+  const layout: Layout = scenario === "typed_minutes" ? "typed_minutes" : rng.pick(FIELD_LAYOUT_MIX);
+  const artifacts: FieldArtifact[] = [];
+  const want = rng.int(0, 3);
+  while (artifacts.length < want) {
+    const a = rng.pick(FIELD_ARTIFACTS);
+    if (!artifacts.includes(a)) artifacts.push(a);
+  }
+  const sim = simulateLog({ scenario, seed, layout, artifacts, startInHold: seed % 5 === 0, breakAtEnd: seed % 7 === 0 });
+  return { scenario, layout, artifacts, sim };
+}
+
+/**
+ * Draw, analyse and report `count` field logs from `firstSeed`; `analyse` is the same path as the main
+ * part's. Each verdict's confidence and rightness is pushed to `judged` when given (the calibration section).
+ */
+export function evaluateField(count: number, firstSeed: number, analyse: (sim: SimulatedLog) => AnalysisResult, showMisses: boolean, judged?: { confidence: number; right: boolean }[]): string[] {
   const byLayout = new Map<string, Tally>();
   const byArtifact = new Map<string, Tally>();
   let right = 0;
@@ -71,16 +90,7 @@ export function evaluateField(count: number, firstSeed: number, analyse: (sim: S
   const misses: string[] = [];
   for (let k = 0; k < count; k++) {
     const seed = firstSeed + k;
-    const rng = makeRng(seed * 31 + 7);
-    const scenario = scenarios[k % scenarios.length];
-    const layout = scenario === "typed_minutes" ? "typed_minutes" : rng.pick(layouts.filter((l) => l !== "typed_minutes"));
-    const artifacts: FieldArtifact[] = [];
-    const want = rng.int(0, 3);
-    while (artifacts.length < want) {
-      const a = rng.pick(FIELD_ARTIFACTS);
-      if (!artifacts.includes(a)) artifacts.push(a);
-    }
-    const sim = simulateLog({ scenario, seed, layout, artifacts, startInHold: seed % 5 === 0, breakAtEnd: seed % 7 === 0 });
+    const { scenario, layout, artifacts, sim } = drawFieldLog(k, seed);
     const truth = sim.truth;
     let verdict = "error";
     let isoGood = false;
@@ -88,6 +98,7 @@ export function evaluateField(count: number, firstSeed: number, analyse: (sim: S
     try {
       const r = analyse(sim);
       verdict = r.verdict;
+      judged?.push({ confidence: r.confidence, right: r.verdict === truth.verdict });
       const tol = Math.max(3 * truth.sampleSeconds, 45);
       isoGood = truth.isolationAtSeconds === null ? r.isolationAt === null : r.isolationAt !== null && Math.abs(r.isolationAt - truth.isolationAtSeconds) <= tol;
       const high = trueHighest(sim);

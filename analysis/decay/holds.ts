@@ -6,7 +6,7 @@
  */
 import type { Classification, HoldEvidence } from "./classify";
 import { chosenFit } from "./classify";
-import { certaintyWordsOf } from "./confidence";
+import { calibratedConfidence, certaintyWordsOf, FEATURE_NAMES, type ConfidenceEvidence } from "./confidence";
 import { groupedInteger } from "../shared/format";
 import type { PhaseAnalysis } from "./phases";
 import { MIN_HOLD_READINGS } from "./profile";
@@ -74,9 +74,28 @@ function grossLeak(c: Classification, pa: PhaseAnalysis, t: number[], p: number[
         ? { ...rule, met: false, detail: `highest ${fmt(e.maxMicrons)} microns, then out of the gauge's range (last reading in range ${fmt(last)}; limit ${fmt(profile.limitMicrons)})` }
         : rule,
   );
-  const confidence = Math.max(c.confidence, 0.9);
-  const certainty = { ...c.certainty, confidence, words: certaintyWordsOf(confidence), why: [] };
-  return { ...c, verdict: both ? "leak_and_moisture" : "leak", confidence, certainty, reasons, decay, meetsProfile: false, profileRules, climbMicronsPerMinute: rate };
+  const verdict = both ? "leak_and_moisture" : "leak";
+  const evidence = grossLeakEvidence(c.certainty.evidence, rate, profile);
+  const confidence = calibratedConfidence(verdict, evidence);
+  const words = certaintyWordsOf(confidence);
+  const why = words === "sure" ? [] : [`Only ${e.readings} readings in range before the gauge left its range.`];
+  const certainty = { ...c.certainty, confidence, words, why, evidence: { ...evidence } };
+  return { ...c, verdict, confidence, certainty, reasons, decay, meetsProfile: false, profileRules, climbMicronsPerMinute: rate };
+}
+
+/**
+ * The confidence evidence of a gross leak: the hold's own evidence, with the deciding margin the
+ * lower bound of the climb against the leak rate (log₂, clipped to ±3 as in features.ts) and the
+ * climb's noise margin at least the one of an unmeasured scatter; the calibration table maps it (it
+ * is fitted on field logs with gross leaks out of range).
+ */
+function grossLeakEvidence(held: Record<string, number>, rateMicronsPerMinute: number, profile: AcceptanceProfile): ConfidenceEvidence {
+  const e = {} as ConfidenceEvidence;
+  for (const k of FEATURE_NAMES) e[k] = Number.isFinite(held[k]) ? held[k] : 0;
+  e.margin = Math.min(Math.max(Math.log2(rateMicronsPerMinute / profile.leakRateMicronsPerMinute), -3), 3);
+  // without a fit of the hold its noise is unmeasured: the climb's noise margin is then what features.ts gives an unmeasured sd (5)
+  if (!(e.climbNoiseMargin > 0)) e.climbNoiseMargin = 5;
+  return e;
 }
 
 /** Reasons when the log holds more than one hold (a re-pull): which one was judged and why. */

@@ -5,8 +5,8 @@ import { reliabilityLines, reliabilityOf, type Judged } from "./reliability";
 import { typedSet } from "./training";
 import { contradicts } from "./early-call";
 
-/** Lines for the evaluation; `simulated` are the main loop's verdicts (held-out seeds). */
-export function calibrationLines(simulated: Judged[], independentCount: number): string[] {
+/** Lines for the evaluation; `simulated` and `field` are the main loop's and the field part's verdicts (held-out seeds). */
+export function calibrationLines(simulated: Judged[], independentCount: number, field: Judged[] = []): string[] {
   const typed = typedSet(600, 300001).map((l) => ({ confidence: l.confidence, right: l.right }));
   const ind: Judged[] = [];
   const indTyped: Judged[] = [];
@@ -28,6 +28,7 @@ export function calibrationLines(simulated: Judged[], independentCount: number):
     "confidence calibration (reliability table: stated confidence against the share right; Guo et al. 2017, DeGroot & Fienberg 1983):",
     ...reliabilityLines("simulated gauge logs (held out)", reliabilityOf(simulated)),
     ...reliabilityLines("typed logs from the simulator (held out)", reliabilityOf(typed)),
+    ...(field.length ? reliabilityLines("field logs (held out)", reliabilityOf(field)) : []),
     ...reliabilityLines(`independent set, all (${independentCount} logs, ${errors} unreadable)`, reliabilityOf([...ind, ...indTyped])),
     ...reliabilityLines("independent set, typed only", reliabilityOf(indTyped)),
     `independent set verdicts (truth→result): ${[...confusion].sort().map(([k, n]) => `${k} ${n}`).join(", ")}; early calls contradicting the verdict: ${contradictions}`,

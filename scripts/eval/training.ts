@@ -8,6 +8,7 @@ import { analyzeLog } from "../../analysis";
 import { SCENARIOS, simulateLog } from "../../analysis/decay/simulate";
 import type { AnalysisResult, Verdict } from "../../analysis/decay/types";
 import { TYPED_SCENARIOS, typedFromSimulator } from "./typed-sim";
+import { drawFieldLog } from "../evaluate-field";
 
 export interface Labelled {
   verdict: Verdict;
@@ -15,7 +16,7 @@ export interface Labelled {
   right: boolean;
   confidence: number;
   evidence: Record<string, number>;
-  source: "file" | "typed";
+  source: "file" | "typed" | "field";
 }
 
 function labelled(r: AnalysisResult, truth: Verdict, source: Labelled["source"]): Labelled {
@@ -45,6 +46,20 @@ export function typedSet(count: number, firstSeed: number): Labelled[] {
     if (!log) continue;
     try {
       out.push(labelled(analyzeLog(log.text, log.options), log.truth.verdict, "typed"));
+    } catch {
+      /* no verdict */
+    }
+  }
+  return out;
+}
+
+/** Field logs drawn as the evaluation's field part draws them (every layout, artifacts, typed and out-of-range scenarios). */
+export function fieldSet(count: number, firstSeed: number): Labelled[] {
+  const out: Labelled[] = [];
+  for (let k = 0; k < count; k++) {
+    const { sim } = drawFieldLog(k, firstSeed + k);
+    try {
+      out.push(labelled(analyzeLog(sim.text), sim.truth.verdict, "field"));
     } catch {
       /* no verdict */
     }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeLog, analyzeReadings } from "@/analysis";
 import type { ImportedLog } from "@/analysis/decay/types";
+import { calibratedConfidence, type ConfidenceEvidence } from "@/analysis/decay/confidence";
 
 // Holds as field logs carry them. Gauge behaviour: common practice, no published source. The curves are
 // p_iso + A(1 − e^(−t/τ)) + L·t after a pull-down (outgassing levels off, a leak climbs linearly;
@@ -151,6 +152,21 @@ describe("holds robust to the field (common practice, no published source)", () 
     expect(r.findings.find((f) => f.code === "gross_leak")?.severity).toBe("danger");
   });
 
+  it("a gross leak's confidence is the calibration table's for its evidence (no fixed floor), sure for a climb far past the leak rate (common practice, no source)", () => {
+    const c = curve({ holdS: 0 });
+    const t = c.t.slice();
+    const p = c.p.slice();
+    const iso = t[t.length - 1];
+    t.push(iso + 15, iso + 30);
+    p.push(9000, 18000);
+    const r = analyzeReadings(readings(t, p, [iso + 45, iso + 60]));
+    expect(r.verdict).toBe("leak");
+    const e = r.certainty!.evidence as unknown as ConfidenceEvidence;
+    expect(e.margin).toBe(3);
+    expect(r.confidence).toBe(calibratedConfidence("leak", e));
+    expect(r.certainty!.words).toBe("sure");
+  });
+
   it("a tight hold ended by breaking the vacuum (a jump straight out of range) is a break, not a gross leak", () => {
     const c = curve({ plateau: 600 });
     const last = c.t[c.t.length - 1];
@@ -218,6 +234,22 @@ describe("phase helpers for field logs (common practice, no published source)", 
     expect(resolutionMicrons(base.map((v) => Math.round(v / 100) * 100))).toBe(100);
     expect(resolutionMicrons(base.map((v) => Math.round(v / 10) * 10))).toBe(10);
     expect(resolutionMicrons(base.map((v) => Math.round(v)))).toBe(1);
+  });
+
+  it("on a coarse gauge whose pull-down was still falling at the valve-off, the isolation is one step's rise time before the run of equal readings ends (common practice, no source)", () => {
+    const t: number[] = [];
+    const p: number[] = [];
+    for (let s = 0; s <= 3600; s += 10) {
+      // valved off at 1500 s while still falling (about 340 microns); the rise needs minutes to cross a 100-micron step
+      const v = s <= 1500 ? 120 + 20000 * Math.exp(-s / 300) : 120 + 20000 * Math.exp(-1500 / 300) + 700 * (1 - Math.exp(-(s - 1500) / 600));
+      t.push(s);
+      p.push(Math.max(100, Math.round(v / 100) * 100));
+    }
+    const r = analyzeReadings(readings(t, p));
+    let runEnd = 0;
+    for (let i = 0; i < t.length; i++) if (t[i] >= 1500 && p[i] === p[t.indexOf(1500)]) runEnd = t[i];
+    expect(runEnd - 1500).toBeGreaterThan(60);
+    expect(Math.abs(r.isolationAt! - 1500)).toBeLessThanOrEqual(60);
   });
 
   it("on a coarse gauge the isolation is the end of the run of equal readings at the floor, where the rise leaves it", () => {

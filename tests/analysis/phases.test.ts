@@ -26,6 +26,24 @@ describe("phase finding", () => {
     expect(within / total).toBeGreaterThanOrEqual(0.9);
   });
 
+  it("puts a sparse log's isolation where the readings stop falling, not a reading early (a valved-off system does not fall; common practice, no source)", () => {
+    // one reading every 4–5 minutes: the pull-down's last readings fall by hundreds of microns each
+    const t = [0, 270, 540, 800, 1070, 1340, 1600, 1870, 2150, 2420, 2690, 2950, 3220];
+    const p = [9000, 6100, 3820, 1190, 669, 477, 370, 487, 508, 518, 503, 530, 527];
+    const r = findPhases(t, p, [], { holdSeconds: 600 });
+    expect(r.phases.holds).toHaveLength(1);
+    // the turn threshold grows with the scatter such a short log shows, so the last fall (477 → 370) may stay inside it
+    expect(r.phases.holds[0].isolatedAtSeconds).toBeGreaterThanOrEqual(1340);
+    expect(r.phases.holds[0].isolatedAtSeconds).toBeLessThanOrEqual(1600);
+    expect(r.phases.holds[0].startMicrons).toBeLessThanOrEqual(477);
+  });
+
+  it("keeps the isolation on a reading that rose, when one low reading follows it (a spike, not the pull-down)", () => {
+    const { s, r } = phasesOf({ scenario: "moisture", seed: 5 });
+    const h = r.phases.holds[r.phases.primary!];
+    expect(Math.abs(h.isolatedAtSeconds - s.truth.isolationAtSeconds!)).toBeLessThanOrEqual(isolationTolerance(s.truth.sampleSeconds));
+  });
+
   it("starts the hold at the first reading when the log starts in the hold (no isolation seen)", () => {
     const { r } = phasesOf({ scenario: "leak", seed: 4, startInHold: true });
     expect(r.phases.holds.length).toBe(1);

@@ -7,13 +7,13 @@
 import type { Verdict } from "../types";
 
 export const CALIBRATION: { id: string; fittedOn: string; weights: Record<Verdict, number[]> } = {
-  id: "engine 0.2.0, 7496 logs",
-  fittedOn: "6000 simulated gauge logs (seeds 100001…) and 1500 typed logs from the simulator (seeds 200001…), 2026-12-03",
+  id: "engine 0.2.0, 11996 logs",
+  fittedOn: "6000 simulated gauge logs (seeds 100001…) and 3000 typed logs from the simulator (seeds 200001…) and 3000 field logs (seeds 400001…), 2026-12-04",
   weights: {
-    pass: [-1.5216, -0.0749, -0.968, 1.326, 0.5727, 0, 2.58, -0.5934, 0.4476],
-    leak: [1.9553, -0.204, -0.4537, 4.1024, 2.6739, -2.1412, -2.8597, 0.9367, -0.0151],
-    moisture: [-1.2402, -2.569, -1.4544, 0.188, 2.2368, 0.0342, 3.2653, 0.752, 0.4982],
-    leak_and_moisture: [-1.2917, 0.7801, 0.2536, 1.93, -0.1627, -0.0008, -0.2621, 0.0299, 0.5017],
-    inconclusive: [2.5303, 1.8426, 0, 0, 0, -0.5945, 0.8335, 0.0687, 0.2157],
+    pass: [-0.226, -0.0116, -0.3846, 0.9151, 0.6822, 0, 1.295, -0.3287, 0.2994],
+    leak: [4.6738, -0.1169, 0.8128, 2.8376, 0.4959, -1.4044, -2.0281, 3.1367, -0.0187],
+    moisture: [-3.0266, -2.5602, -0.0969, 0.5257, 2.2549, 0.1512, 1.6403, 0.6051, -0.2738],
+    leak_and_moisture: [-3.5108, 1.0508, 1.086, 1.7012, -0.0147, 0, 0.035, 0.1999, 0.2663],
+    inconclusive: [0.1228, 3.0837, 0, 0, 0, -1.9313, 1.3873, 1.65, 2.5519],
   },
 };

@@ -114,7 +114,7 @@ function refineIsolation(t: number[], p: number[], bins: Bins, b: number, prevBi
   while (floor + 1 < Math.min(endBin, r) && y[floor + 1] <= yb + Math.max(threshold / 2, flicker)) floor++;
   const hi = Math.min(to, bins.start[Math.max(last, floor) + 1] - 1 + reach);
   const split = hingeSplitBounded(t, p, from, to, trough, lo, hi);
-  return stepMicrons >= COARSE_STEP_MICRONS ? endOfFloor(p, split, endIndex) : split;
+  return stepMicrons >= COARSE_STEP_MICRONS ? endOfFloor(t, p, split, endIndex) : split;
 }
 
 /** A display step this coarse (microns) hides the corner in a run of equal readings. */
@@ -124,11 +124,14 @@ const FLOOR_END_READINGS = 3;
 
 /**
  * On a coarse gauge the pull-down's last step and the start of the rise read the same, so the two-line
- * fit puts the corner at the start of that run of equal readings; the pump was valved off at its end,
- * where the readings leave the floor for good (FLOOR_END_READINGS in a row above it). The floor is the
- * reading at the split. Common practice, no published source.
+ * fit puts the corner at the start of that run of equal readings, and the readings leave the floor for
+ * good (FLOOR_END_READINGS in a row above it) only once the rise has crossed a whole step. The valve-off
+ * is taken one step's rise time before the run ends (the time from leaving the floor's step to leaving
+ * the next one; the first step of a slowing rise is quicker, so at worst a little early), never before
+ * the run starts: a long floor (a pump that sat there) keeps its end, a short run moves back into it.
+ * The floor is the reading at the split. Common practice, no published source.
  */
-function endOfFloor(p: number[], split: number, endIndex: number): number {
+function endOfFloor(t: number[], p: number[], split: number, endIndex: number): number {
   const floor = p[split];
   let last = split;
   let above = 0;
@@ -138,7 +141,31 @@ function endOfFloor(p: number[], split: number, endIndex: number): number {
       above = 0;
     } else if (++above >= FLOOR_END_READINGS) break;
   }
-  return last;
+  // the time the rise takes to cross one step: from leaving the floor's step to leaving the next one
+  let up = last + 1;
+  while (up <= endIndex && p[up] <= floor) up++;
+  let next = up + 1;
+  while (next <= endIndex && up <= endIndex && p[next] <= p[up]) next++;
+  if (up > endIndex || next > endIndex) return last;
+  const valvedOff = t[last] - (t[next] - t[up]);
+  let k = last;
+  while (k > split && t[k - 1] >= valvedOff) k--;
+  return k;
+}
+
+/**
+ * A valved-off system's reading does not fall: where the readings after the placed isolation still
+ * drop by more than the turn threshold from one to the next (a sparse log, one reading every few
+ * minutes, whose smoothed trough sits a reading early), the pump was still on, and the isolation is
+ * the reading where that fall stops. Only a run of falls moves it (a reading above the one before it
+ * is a rise, and one low reading after it a spike). `factor` is the turn threshold as a ratio (at least 1.15).
+ * Common practice, no published source.
+ */
+function pastStillFalling(p: number[], start: number, end: number, factor: number): number {
+  let s = start;
+  // a run of falls only: a reading above the one before it is a rise (or an up-spike), not the pull-down
+  while (s + 2 <= end && s > 0 && p[s] <= p[s - 1] && p[s + 1] * factor < p[s]) s++;
+  return s;
 }
 
 interface Candidate {
@@ -207,7 +234,7 @@ export function findPhases(t: number[], p: number[], overRangeSeconds: number[],
       let start = 0;
       let seen = false;
       if (fallBefore) {
-        start = refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog, step);
+        start = pastStillFalling(p, refineIsolation(t, p, bins, pv.bin, prevPeakBin, endBin, threshold, end, sigmaLog, step), end, 10 ** threshold);
         seen = start > 0;
       }
       if (end <= start) end = Math.min(start + 1, n - 1);
