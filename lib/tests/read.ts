@@ -6,16 +6,11 @@ import { getTestById, getUploadByTest, listTestsByOrganization, type TestDetailR
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
 import { hiddenPracticeTestIds, practiceGate, practisesCalls } from "@/lib/practice/gate";
-import { toTestDto, type AnalysisHistoryEntry, type TestDto, type TestListItem } from "./dto";
+import { toTestDto, type AnalysisHistoryEntry, type TestListItem } from "./dto";
 import type { ListTestsQuery } from "./schemas";
+import type { ShownAnalysis, TestDetail, TestSummary } from "@/contracts/vacuum-tests";
 
-export interface TestDetail {
-  test: TestDto;
-  analysis: AnalysisResult;
-  series: { t: number[]; p: number[] };
-  history: AnalysisHistoryEntry[];
-  upload: { filename: string; sizeBytes: number; sha256: string } | null;
-}
+export type { ShownAnalysis, TestDetail, TestSummary };
 
 /** A visible test or a 404 (unknown, other organization and not visible all look the same). */
 export async function requireVisibleTest(db: Db, viewer: Viewer, testId: string) {
@@ -36,9 +31,6 @@ export async function requireRevealedTest(db: Db, viewer: Viewer, testId: string
   }
   return row;
 }
-
-/** What POST /api/tests answers: the test and its analysis, or no analysis and where to make the practice call first. */
-export type TestSummary = { test: TestDto; analysis: AnalysisResult } | { test: TestDto; analysis: null; practiceCallUrl: string };
 
 /**
  * The test and its current analysis only (what POST /api/tests answers with). `known` is what a
@@ -105,15 +97,6 @@ function toHistoryEntry(h: Awaited<ReturnType<typeof listAnalysesByTest>>[number
     reason: h.reason,
     options: h.options,
   };
-}
-
-/** Which analysis version a detail shows, out of how many the test has. */
-export interface ShownAnalysis {
-  analysisId: string;
-  version: number;
-  versionCount: number;
-  /** The shown version is the test's current analysis. */
-  isCurrent: boolean;
 }
 
 /**

@@ -1,0 +1,31 @@
+/**
+ * The words a vacuum test's record is made of, declared once: the database's CHECK constraints,
+ * the server's answers and the client's types all come from these lists. Plain module: no
+ * server-only imports, safe in the browser bundle.
+ */
+import { z } from "zod";
+import type { Verdict } from "@/analysis/types";
+
+/** Where a test stands in review. */
+export const TEST_STATUSES = ["submitted", "waiting_review", "signed_off", "sent_back"] as const;
+export type TestStatus = (typeof TEST_STATUSES)[number];
+export const testStatusSchema = z.enum(TEST_STATUSES);
+
+/** The engine's verdicts (analysis/types.ts `Verdict`), as the database stores them. */
+export const VERDICTS = ["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"] as const satisfies readonly Verdict[];
+export const verdictSchema = z.enum(VERDICTS);
+
+// Fails to compile if the engine grows a verdict this list lacks.
+type MissingVerdict = Exclude<Verdict, (typeof VERDICTS)[number]>;
+const everyVerdictListed: MissingVerdict extends never ? true : never = true;
+void everyVerdictListed;
+
+/** How the readings came in: a gauge's file, or typed by hand. */
+export const TEST_SOURCES = ["file", "typed"] as const;
+export type TestSource = (typeof TEST_SOURCES)[number];
+
+/** A nitrogen pressure test's verdict. */
+export const PRESSURE_VERDICTS = ["holds", "drops", "rises", "stopped"] as const;
+export type PressureVerdict = (typeof PRESSURE_VERDICTS)[number];
+
+export type { Verdict };
