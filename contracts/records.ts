@@ -5,7 +5,7 @@
  */
 import { z } from "zod";
 
-export const siteItemSchema = z.object({
+export const siteItemSchema = z.strictObject({
   id: z.string(),
   name: z.string(),
   address: z.string().nullable(),
@@ -15,7 +15,7 @@ export const siteItemSchema = z.object({
 });
 export type SiteItem = z.infer<typeof siteItemSchema>;
 
-export const systemItemSchema = z.object({
+export const systemItemSchema = z.strictObject({
   id: z.string(),
   siteId: z.string(),
   name: z.string(),
@@ -33,7 +33,7 @@ export const systemItemSchema = z.object({
 export type SystemItem = z.infer<typeof systemItemSchema>;
 
 /** A visit; it has no name of its own (the picker labels it by reference, date and reason). */
-export const jobItemSchema = z.object({
+export const jobItemSchema = z.strictObject({
   id: z.string(),
   siteId: z.string().nullable(),
   systemId: z.string().nullable(),
@@ -46,7 +46,7 @@ export const jobItemSchema = z.object({
 export type JobItem = z.infer<typeof jobItemSchema>;
 
 /** An acceptance profile; id null is the engine's built-in default. */
-export const profileItemSchema = z.object({
+export const profileItemSchema = z.strictObject({
   id: z.string().nullable(),
   name: z.string(),
   targetMicrons: z.number(),
@@ -57,7 +57,7 @@ export const profileItemSchema = z.object({
 });
 export type ProfileItem = z.infer<typeof profileItemSchema>;
 
-export const memberItemSchema = z.object({
+export const memberItemSchema = z.strictObject({
   userId: z.string(),
   role: z.string(),
   name: z.string(),
@@ -66,11 +66,11 @@ export const memberItemSchema = z.object({
 });
 export type MemberItem = z.infer<typeof memberItemSchema>;
 
-export const sitesAnswerSchema = z.object({ items: z.array(siteItemSchema) });
-export const systemsAnswerSchema = z.object({ items: z.array(systemItemSchema) });
-export const jobsAnswerSchema = z.object({ items: z.array(jobItemSchema) });
-export const profilesAnswerSchema = z.object({ items: z.array(profileItemSchema) });
-export const membersAnswerSchema = z.object({ members: z.array(memberItemSchema) });
+export const sitesAnswerSchema = z.strictObject({ items: z.array(siteItemSchema) });
+export const systemsAnswerSchema = z.strictObject({ items: z.array(systemItemSchema) });
+export const jobsAnswerSchema = z.strictObject({ items: z.array(jobItemSchema) });
+export const profilesAnswerSchema = z.strictObject({ items: z.array(profileItemSchema) });
+export const membersAnswerSchema = z.strictObject({ members: z.array(memberItemSchema) });
 export type SitesAnswer = z.infer<typeof sitesAnswerSchema>;
 export type SystemsAnswer = z.infer<typeof systemsAnswerSchema>;
 export type JobsAnswer = z.infer<typeof jobsAnswerSchema>;

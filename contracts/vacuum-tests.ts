@@ -8,14 +8,14 @@ import { z } from "zod";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
 import { TEST_SOURCES, testStatusSchema, verdictSchema } from "./vocabulary";
 
-const person = z.object({ id: z.string(), name: z.string() });
-const named = z.object({ id: z.string(), name: z.string() });
+const person = z.strictObject({ id: z.string(), name: z.string() });
+const named = z.strictObject({ id: z.string(), name: z.string() });
 
 /** The engine's whole result; its shape is the engine's type (analysis/types.ts), checked there. */
 export const analysisResultSchema = z.custom<AnalysisResult>((v) => typeof v === "object" && v !== null && "verdict" in v, "not an analysis result");
 
 /** One test record as the pages show it. */
-export const testDtoSchema = z.object({
+export const testDtoSchema = z.strictObject({
   id: z.string(),
   title: z.string(),
   source: z.enum(TEST_SOURCES),
@@ -26,7 +26,7 @@ export const testDtoSchema = z.object({
   testedAt: z.string(),
   createdAt: z.string(),
   technician: person,
-  job: z.object({ id: z.string(), reference: z.string().nullable(), visitedOn: z.string().nullable(), reason: z.string().nullable() }).nullable(),
+  job: z.strictObject({ id: z.string(), reference: z.string().nullable(), visitedOn: z.string().nullable(), reason: z.string().nullable() }).nullable(),
   site: named.nullable(),
   system: named.nullable(),
   refrigerant: z.string().nullable(),
@@ -44,7 +44,7 @@ export const testDtoSchema = z.object({
 export type TestDto = z.infer<typeof testDtoSchema>;
 
 /** A row of the tests list. */
-export const testListItemSchema = z.object({
+export const testListItemSchema = z.strictObject({
   id: z.string(),
   title: z.string(),
   verdict: verdictSchema.nullable(),
@@ -65,11 +65,11 @@ export const testListItemSchema = z.object({
 export type TestListItem = z.infer<typeof testListItemSchema>;
 
 /** GET /api/tests: one page of the list and the cursor of the next (null on the last). */
-export const testPageSchema = z.object({ items: z.array(testListItemSchema), nextCursor: z.string().nullable() });
+export const testPageSchema = z.strictObject({ items: z.array(testListItemSchema), nextCursor: z.string().nullable() });
 export type TestPage = z.infer<typeof testPageSchema>;
 
 /** One analysis version in a test's history. */
-export const analysisHistoryEntrySchema = z.object({
+export const analysisHistoryEntrySchema = z.strictObject({
   id: z.string(),
   version: z.number().int(),
   verdict: verdictSchema,
@@ -84,10 +84,10 @@ export const analysisHistoryEntrySchema = z.object({
 export type AnalysisHistoryEntry = z.infer<typeof analysisHistoryEntrySchema>;
 
 /** The stored raw file's facts (null for typed readings). */
-export const uploadFactsSchema = z.object({ filename: z.string(), sizeBytes: z.number().int(), sha256: z.string() });
+export const uploadFactsSchema = z.strictObject({ filename: z.string(), sizeBytes: z.number().int(), sha256: z.string() });
 
 /** Which analysis version a detail shows, out of how many the test has. */
-export const shownAnalysisSchema = z.object({
+export const shownAnalysisSchema = z.strictObject({
   analysisId: z.string(),
   version: z.number().int(),
   versionCount: z.number().int(),
@@ -97,11 +97,11 @@ export const shownAnalysisSchema = z.object({
 export type ShownAnalysis = z.infer<typeof shownAnalysisSchema>;
 
 /** GET /api/tests/:id; with ?analysisId= also `shown`. */
-export const testDetailSchema = z.object({
+export const testDetailSchema = z.strictObject({
   test: testDtoSchema,
   analysis: analysisResultSchema,
   /** t: seconds from the first data row; p: microns. */
-  series: z.object({ t: z.array(z.number()), p: z.array(z.number()) }),
+  series: z.strictObject({ t: z.array(z.number()), p: z.array(z.number()) }),
   history: z.array(analysisHistoryEntrySchema),
   upload: uploadFactsSchema.nullable(),
   shown: shownAnalysisSchema.optional(),
@@ -113,7 +113,7 @@ export type TestDetail = z.infer<typeof testDetailSchema>;
  * test, whose verdict waits for their call at `practiceCallUrl`.
  */
 export const testSummarySchema = z.union([
-  z.object({ test: testDtoSchema, analysis: analysisResultSchema, practiceCallUrl: z.undefined().optional() }),
-  z.object({ test: testDtoSchema, analysis: z.null(), practiceCallUrl: z.string() }),
+  z.strictObject({ test: testDtoSchema, analysis: analysisResultSchema, practiceCallUrl: z.undefined().optional() }),
+  z.strictObject({ test: testDtoSchema, analysis: z.null(), practiceCallUrl: z.string() }),
 ]);
 export type TestSummary = z.infer<typeof testSummarySchema>;

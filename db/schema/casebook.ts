@@ -1,6 +1,6 @@
 import { pgTable, text, timestamp, uuid, real, integer, boolean, index, uniqueIndex } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
-import { VERDICTS, type Verdict } from "@/contracts/vocabulary";
+import { PRACTICE_CALLS, VERDICTS, type PracticeCall, type Verdict } from "@/contracts/vocabulary";
 import { oneOf } from "./checks";
 import { vacuumTests } from "./tests";
 
@@ -53,8 +53,7 @@ export const casebookPins = pgTable(
   (t) => [index("casebook_pins_entry_idx").on(t.entryId)],
 );
 
-export const PRACTICE_CALLS = ["pass", "leak", "moisture", "leak_and_moisture"] as const;
-export type PracticeCall = (typeof PRACTICE_CALLS)[number];
+export { PRACTICE_CALLS, type PracticeCall };
 
 /** An apprentice's own reading of a practice test, made before the verdict was shown. */
 export const practiceCalls = pgTable(
