@@ -2,6 +2,7 @@
 
 import { useEffect, useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
+import { testKeys, useUploadTest } from "@/lib/client/queries";
 import { Alert, Button, LinkButton } from "@/components/ui";
 import {
   ApiError,
@@ -9,7 +10,6 @@ import {
   isOffline,
   newIdempotencyKey,
   previewImport,
-  uploadTest,
   type CreatedTest,
   type ImportPreview,
 } from "@/lib/client/api";
@@ -86,6 +86,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
   const [context, setContext] = useState<TestContext>(EMPTY_CONTEXT);
   const [online, setOnline] = useState(true);
   const queryClient = useQueryClient();
+  const upload = useUploadTest();
 
   useEffect(() => {
     const update = () => setOnline(!isOffline());
@@ -115,7 +116,8 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
           if (a.choice.decimalMark) form.set("decimalMark", a.choice.decimalMark);
         }
         appendContext(form, context);
-        answer = (await uploadTest(form, {
+        answer = (await upload.mutateAsync({
+          form,
           idempotencyKey: a.key,
           onProgress: (f) => setPhase((p) => (p.kind === "sending" ? { ...p, progress: f } : p)),
         })) as UploadAnswer;
@@ -134,7 +136,7 @@ export function NewTest({ technicianName, canCreateJob }: NewTestProps) {
   };
 
   function finish(created: CreatedTest) {
-    queryClient.invalidateQueries({ queryKey: ["tests"] });
+    queryClient.invalidateQueries({ queryKey: testKeys.all });
     if (context.newJob && created.test.job) {
       // The visit now exists: the next test of this visit joins it instead of making another.
       const jobId = created.test.job.id;
