@@ -6,7 +6,10 @@
  */
 import { z } from "zod";
 import type { AnalysisResult, AnalyzeOptions } from "@/analysis/types";
-import { TEST_SOURCES, testStatusSchema, verdictSchema } from "./vocabulary";
+import { TEST_SOURCES, TEST_STATUSES, VERDICTS } from "./vocabulary";
+
+export const testStatusSchema = z.enum(TEST_STATUSES);
+export const verdictSchema = z.enum(VERDICTS);
 
 const person = z.strictObject({ id: z.string(), name: z.string() });
 const named = z.strictObject({ id: z.string(), name: z.string() });

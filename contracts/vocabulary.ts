@@ -1,19 +1,16 @@
 /**
  * The words a vacuum test's record is made of, declared once: the database's CHECK constraints,
  * the server's answers and the client's types all come from these lists. Plain module: no
- * server-only imports, safe in the browser bundle.
+ * server-only imports and no zod (the schemas are in vacuum-tests.ts), cheap in the browser bundle.
  */
-import { z } from "zod";
 import type { Verdict } from "@/analysis/types";
 
 /** Where a test stands in review. */
 export const TEST_STATUSES = ["submitted", "waiting_review", "signed_off", "sent_back"] as const;
 export type TestStatus = (typeof TEST_STATUSES)[number];
-export const testStatusSchema = z.enum(TEST_STATUSES);
 
 /** The engine's verdicts (analysis/types.ts `Verdict`), as the database stores them. */
 export const VERDICTS = ["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"] as const satisfies readonly Verdict[];
-export const verdictSchema = z.enum(VERDICTS);
 
 // Fails to compile if the engine grows a verdict this list lacks.
 type MissingVerdict = Exclude<Verdict, (typeof VERDICTS)[number]>;

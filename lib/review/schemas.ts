@@ -1,7 +1,7 @@
 /** zod schemas for review, comments, share links, reports by e-mail and the queue filters. */
 import { z } from "zod";
 import { REVIEW_ACTIONS } from "./state";
-import { verdictSchema } from "@/contracts/vocabulary";
+import { verdictSchema } from "@/contracts/vacuum-tests";
 
 export const reviewActionSchema = z.object({
   action: z.enum(REVIEW_ACTIONS),

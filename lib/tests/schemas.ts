@@ -4,7 +4,7 @@
  */
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
-import { verdictSchema } from "@/contracts/vocabulary";
+import { verdictSchema } from "@/contracts/vacuum-tests";
 
 export const PRESSURE_UNITS = ["micron", "mtorr", "torr", "mmhg", "pa", "kpa", "mbar", "hpa", "psia", "inhg"] as const;
 
