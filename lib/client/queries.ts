@@ -1,14 +1,12 @@
 /**
- * The TanStack Query hooks the vacuum-test pages read and write through: the list (pages of 20
- * with "Load more"), one test's detail (the current analysis or an earlier version), and the
- * upload. Keys live here so a page invalidates exactly what another one reads.
+ * The TanStack Query hooks the vacuum-test pages read and write through: one test's detail (the
+ * current analysis or an earlier version) and the upload; the list is in list-query.ts (apart, so
+ * the upload page's first load carries no infinite-query code). Keys live here so a page
+ * invalidates exactly what another one reads.
  * Tested against mocked answers in tests/client/queries.test.ts (msw).
  */
-import { useInfiniteQuery, useMutation, useQuery } from "@tanstack/react-query";
-import { apiFetch, getTest, listTests, uploadTest, type CreatedTest, type TestDetail, type TestFilters, type UploadOptions } from "./api";
-
-/** Rows per page of the tests list. */
-export const TEST_PAGE_SIZE = 20;
+import { useMutation, useQuery } from "@tanstack/react-query";
+import { apiFetch, getTest, uploadTest, type CreatedTest, type TestDetail, type TestFilters, type UploadOptions } from "./api";
 
 export const testKeys = {
   /** Everything about tests: invalidated after an upload. */
@@ -22,16 +20,6 @@ export const testKeys = {
 export function getTestView(testId: string, analysisId: string | null, signal?: AbortSignal): Promise<TestDetail> {
   if (!analysisId) return getTest(testId, signal);
   return apiFetch<TestDetail>(`/api/tests/${encodeURIComponent(testId)}?analysisId=${encodeURIComponent(analysisId)}`, {}, { signal });
-}
-
-/** The tests the member may see with these filters, newest first; `fetchNextPage` follows the cursor. */
-export function useTestList(filters: TestFilters) {
-  return useInfiniteQuery({
-    queryKey: testKeys.list(filters),
-    queryFn: ({ pageParam, signal }) => listTests({ ...filters, cursor: pageParam, limit: TEST_PAGE_SIZE }, signal),
-    initialPageParam: undefined as string | undefined,
-    getNextPageParam: (last) => last.nextCursor ?? undefined,
-  });
 }
 
 /** One test's page: test, analysis, series, history (404 and the practice gate arrive as ApiError). */

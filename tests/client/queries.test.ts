@@ -14,7 +14,8 @@ import { setupServer } from "msw/node";
 import type { AnalysisResult } from "@/analysis/types";
 import type { TestDetail, TestDto, TestListItem } from "@/contracts/vacuum-tests";
 import { ApiError } from "@/lib/client/api";
-import { TEST_PAGE_SIZE, useTestDetail, useTestList, useUploadTest } from "@/lib/client/queries";
+import { TEST_PAGE_SIZE, useTestList } from "@/lib/client/list-query";
+import { useTestDetail, useUploadTest } from "@/lib/client/queries";
 
 const ORIGIN = "http://127.0.0.1:3000";
 const server = setupServer();

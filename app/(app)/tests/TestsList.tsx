@@ -3,7 +3,7 @@
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useMemo } from "react";
 import { Alert, Button, EmptyState, LinkButton, Spinner } from "@/components/ui";
-import { useTestList } from "@/lib/client/queries";
+import { useTestList } from "@/lib/client/list-query";
 import { FilterBar } from "./FilterBar";
 import { activeCount, filtersForApi, filtersFromParams, filtersToParams, type ListFilters } from "./filters";
 import { TestRow } from "./TestRow";
