@@ -1,12 +1,11 @@
 /**
- * The TanStack Query hooks the vacuum-test pages read and write through: one test's detail (the
- * current analysis or an earlier version) and the upload; the list is in list-query.ts (apart, so
- * the upload page's first load carries no infinite-query code). Keys live here so a page
- * invalidates exactly what another one reads.
+ * The TanStack Query hooks the vacuum-test pages read through: one test's detail (the current
+ * analysis or an earlier version); the list is in list-query.ts. Keys live here so a page
+ * invalidates exactly what another one reads. The upload page calls uploadTest (api.ts) itself.
  * Tested against mocked answers in tests/client/queries.test.ts (msw).
  */
-import { useMutation, useQuery } from "@tanstack/react-query";
-import { apiFetch, getTest, uploadTest, type CreatedTest, type TestDetail, type TestFilters, type UploadOptions } from "./api";
+import { useQuery } from "@tanstack/react-query";
+import { apiFetch, getTest, type TestDetail, type TestFilters } from "./api";
 
 export const testKeys = {
   /** Everything about tests: invalidated after an upload. */
@@ -25,20 +24,4 @@ export function getTestView(testId: string, analysisId: string | null, signal?: 
 /** One test's page: test, analysis, series, history (404 and the practice gate arrive as ApiError). */
 export function useTestDetail(testId: string, analysisId: string | null = null) {
   return useQuery({ queryKey: testKeys.detail(testId, analysisId), queryFn: ({ signal }) => getTestView(testId, analysisId, signal) });
-}
-
-export interface UploadVariables extends UploadOptions {
-  form: FormData;
-}
-
-/**
- * Send a gauge log (POST /api/tests). The mutation itself never retries: uploadTest retries a
- * dropped or 502–504 answer with the same Idempotency-Key, so a retry never makes a second test;
- * anything else arrives as an ApiError with the server's code, words and details.
- */
-export function useUploadTest() {
-  return useMutation<CreatedTest, Error, UploadVariables>({
-    mutationFn: ({ form, ...opts }) => uploadTest(form, opts),
-    retry: false,
-  });
 }

@@ -1,7 +1,8 @@
 // @vitest-environment happy-dom
 /**
- * The browser's query hooks (lib/client/queries.ts) against mocked answers: msw's node server
- * answers the fetch and XMLHttpRequest calls the hooks make, in the shapes of contracts/, and a
+ * The browser's query hooks (lib/client/queries.ts, list-query.ts) and the upload (lib/client/api.ts
+ * uploadTest, which the upload page calls) against mocked answers: msw's node server answers the
+ * fetch and XMLHttpRequest calls they make, in the shapes of contracts/, and a
  * tiny React root renders each hook in happy-dom. The answers are invented; the server's own side
  * is tested against the real database in tests/contracts.test.ts.
  */
@@ -13,9 +14,9 @@ import { http, HttpResponse } from "msw";
 import { setupServer } from "msw/node";
 import type { AnalysisResult } from "@/analysis/types";
 import type { TestDetail, TestDto, TestListItem } from "@/contracts/vacuum-tests";
-import { ApiError } from "@/lib/client/api";
+import { ApiError, uploadTest } from "@/lib/client/api";
 import { TEST_PAGE_SIZE, useTestList } from "@/lib/client/list-query";
-import { useTestDetail, useUploadTest } from "@/lib/client/queries";
+import { useTestDetail } from "@/lib/client/queries";
 
 const ORIGIN = "http://127.0.0.1:3000";
 const server = setupServer();
@@ -157,7 +158,7 @@ describe("useTestDetail (GET /api/tests/:id)", () => {
   });
 });
 
-describe("useUploadTest (POST /api/tests, multipart through XMLHttpRequest)", () => {
+describe("uploadTest (POST /api/tests, multipart through XMLHttpRequest): the upload's error handling", () => {
   const form = () => {
     const f = new FormData();
     f.set("file", new File(["seconds,microns\n0,500\n"], "log.csv", { type: "text/csv" }));
@@ -172,17 +173,10 @@ describe("useUploadTest (POST /api/tests, multipart through XMLHttpRequest)", ()
         return HttpResponse.json(errorBody("invalid_file", "Line 7: no number in the microns column.", { line: 7 }), { status: 422 });
       }),
     );
-    const hook = renderHook(() => useUploadTest());
-    let thrown: unknown;
-    await act(async () => {
-      await hook.current.mutateAsync({ form: form(), idempotencyKey: "key-422" }).catch((e) => (thrown = e));
-    });
-    await waitFor(() => hook.current.isError, "the mutation's error state");
-    const e = thrown as ApiError;
-    expect([e.status, e.code, e.message, e.details]).toEqual([422, "invalid_file", "Line 7: no number in the microns column.", { line: 7 }]);
-    expect(hook.current.error).toBe(thrown);
+    const e = await uploadTest(form(), { idempotencyKey: "key-422" }).then(() => null, (err: unknown) => err as ApiError);
+    expect(e).toBeInstanceOf(ApiError);
+    expect([e!.status, e!.code, e!.message, e!.details, e!.retryable]).toEqual([422, "invalid_file", "Line 7: no number in the microns column.", { line: 7 }, false]);
     expect(keys).toEqual(["key-422"]);
-    hook.unmount();
   });
 
   it("retries a 503 with the same Idempotency-Key and ends with the created test (IETF httpapi Idempotency-Key draft)", async () => {
@@ -195,25 +189,14 @@ describe("useUploadTest (POST /api/tests, multipart through XMLHttpRequest)", ()
           : HttpResponse.json({ test: testDto, analysis }, { status: 201 });
       }),
     );
-    const hook = renderHook(() => useUploadTest());
-    await act(async () => {
-      await hook.current.mutateAsync({ form: form(), idempotencyKey: "key-503", retries: 1 });
-    });
-    await waitFor(() => hook.current.isSuccess, "the created test");
-    expect(hook.current.data!.test.id).toBe("t-1");
+    const created = await uploadTest(form(), { idempotencyKey: "key-503", retries: 1 });
+    expect(created.test.id).toBe("t-1");
     expect(keys).toEqual(["key-503", "key-503"]);
-    hook.unmount();
   });
 
   it("reports a dropped connection as retryable network trouble, not as the file's fault", async () => {
     server.use(http.post(`${ORIGIN}/api/tests`, () => HttpResponse.error()));
-    const hook = renderHook(() => useUploadTest());
-    let thrown: unknown;
-    await act(async () => {
-      await hook.current.mutateAsync({ form: form(), idempotencyKey: "key-net", retries: 0 }).catch((e) => (thrown = e));
-    });
-    const e = thrown as ApiError;
-    expect([e.status, e.code, e.retryable]).toEqual([0, "network", true]);
-    hook.unmount();
+    const e = await uploadTest(form(), { idempotencyKey: "key-net", retries: 0 }).then(() => null, (err: unknown) => err as ApiError);
+    expect([e!.status, e!.code, e!.retryable]).toEqual([0, "network", true]);
   });
 });
