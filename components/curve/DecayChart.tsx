@@ -4,8 +4,10 @@
  * The evacuation and decay curve: microns on a log axis against minutes from the first row,
  * with the pull-down and the hold shaded, the isolation marker, the fitted hold model, the
  * forecast band, and the profile's limit and target lines. Loaded with next/dynamic only.
+ * react-chartjs-2 owns the chart's life (create, update, destroy); the drawing on top of it is
+ * our plugin, which gets what it draws as its options (`options.plugins.riselinePhases`).
  */
-import { useEffect, useMemo, useRef, useState } from "react";
+import { useEffect, useMemo, useRef, useState, type MouseEvent } from "react";
 import {
   Chart,
   Filler,
@@ -15,9 +17,13 @@ import {
   LogarithmicScale,
   PointElement,
   Tooltip,
-  type ChartConfiguration,
+  type ChartData,
+  type ChartOptions,
+  type ChartType,
   type Plugin,
 } from "chart.js";
+import { getRelativePosition } from "chart.js/helpers";
+import { Line } from "react-chartjs-2";
 import type { AnalysisResult } from "@/analysis/decay/types";
 import { buildCurve, curveSummary, durationWords, microns, type CurveModel } from "./model";
 import { CurveLegend } from "./CurveLegend";
@@ -103,69 +109,89 @@ function drawMarkers(chart: Chart, marks: Marks, colors: Palette) {
   });
 }
 
-function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number | null, marks: () => Marks): Plugin<"line"> {
-  const vline = (chart: Chart, xMinutes: number, color: string, label: string, dash: number[]) => {
-    const { ctx, chartArea, scales } = chart;
-    const x = scales.x.getPixelForValue(xMinutes);
-    if (x < chartArea.left || x > chartArea.right) return;
-    ctx.save();
-    ctx.strokeStyle = color;
-    ctx.lineWidth = 2;
-    ctx.setLineDash(dash);
-    ctx.beginPath();
-    ctx.moveTo(x, chartArea.top);
-    ctx.lineTo(x, chartArea.bottom);
-    ctx.stroke();
-    ctx.setLineDash([]);
-    ctx.fillStyle = color;
-    ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
-    const w = ctx.measureText(label).width;
-    const tx = x + 4 + w > chartArea.right ? x - 4 - w : x + 4;
-    ctx.fillText(label, tx, chartArea.top + 14);
-    ctx.restore();
-  };
-  return {
-    id: "riselinePhases",
-    beforeDatasetsDraw(chart) {
-      const { ctx, chartArea, scales } = chart;
-      const band = (range: [number, number] | null, color: string, label: string) => {
-        if (!range) return;
-        const x0 = Math.max(chartArea.left, scales.x.getPixelForValue(range[0]));
-        const x1 = Math.min(chartArea.right, scales.x.getPixelForValue(range[1]));
-        if (x1 <= x0) return;
-        ctx.save();
-        ctx.fillStyle = color;
-        ctx.fillRect(x0, chartArea.top, x1 - x0, chartArea.bottom - chartArea.top);
-        ctx.fillStyle = colors.soft;
-        ctx.font = "500 12px 'IBM Plex Sans', system-ui, sans-serif";
-        if (x1 - x0 > ctx.measureText(label).width + 8) ctx.fillText(label, x0 + 4, chartArea.bottom - 6);
-        ctx.restore();
-      };
-      band(model.pulldown, colors.pulldown, "Pull-down");
-      for (const other of model.otherHolds) band(other.range, colors.pulldown, other.earlier ? "Earlier hold" : "Later hold");
-      band(model.hold, colors.hold, "Hold");
-    },
-    afterDatasetsDraw(chart) {
-      const { ctx, chartArea, scales } = chart;
-      const hline = (micronsValue: number, color: string, label: string) => {
-        const y = scales.y.getPixelForValue(micronsValue);
-        if (y < chartArea.top || y > chartArea.bottom) return;
-        ctx.save();
-        ctx.fillStyle = color;
-        ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
-        const w = ctx.measureText(label).width;
-        ctx.fillText(label, chartArea.right - w - 4, y - 4);
-        ctx.restore();
-      };
-      hline(model.limitMicrons, colors.limit, `Limit ${microns(model.limitMicrons)}`);
-      hline(model.targetMicrons, colors.target, `Target ${microns(model.targetMicrons)}`);
-      if (model.isolationMinutes != null) vline(chart, model.isolationMinutes, colors.soft, "Isolated", [6, 4]);
-      const p = picked();
-      if (p != null) vline(chart, p / 60, colors.pick, "New isolation", []);
-      drawMarkers(chart, marks(), colors);
-    },
-  };
+/** A labelled vertical line at a time, in minutes. */
+function drawVline(chart: Chart, colors: Palette, xMinutes: number, color: string, label: string, dash: number[]) {
+  const { ctx, chartArea, scales } = chart;
+  const x = scales.x.getPixelForValue(xMinutes);
+  if (x < chartArea.left || x > chartArea.right) return;
+  ctx.save();
+  ctx.strokeStyle = color;
+  ctx.lineWidth = 2;
+  ctx.setLineDash(dash);
+  ctx.beginPath();
+  ctx.moveTo(x, chartArea.top);
+  ctx.lineTo(x, chartArea.bottom);
+  ctx.stroke();
+  ctx.setLineDash([]);
+  ctx.fillStyle = color;
+  ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
+  const w = ctx.measureText(label).width;
+  const tx = x + 4 + w > chartArea.right ? x - 4 - w : x + 4;
+  ctx.fillText(label, tx, chartArea.top + 14);
+  ctx.restore();
 }
+
+/** What the phases plugin draws: passed as its options, so a change is an ordinary chart update. */
+interface PhasesOptions {
+  model: CurveModel;
+  colors: Palette;
+  picked: number | null;
+  marks: Marks;
+}
+
+declare module "chart.js" {
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars
+  interface PluginOptionsByType<TType extends ChartType> {
+    riselinePhases?: PhasesOptions | false;
+  }
+}
+
+/** Phase bands, limit and target labels, the isolation and picked lines, and the comment flags. */
+const phasesPlugin: Plugin<"line", PhasesOptions> = {
+  id: "riselinePhases",
+  beforeDatasetsDraw(chart, _args, opts) {
+    if (!opts?.model) return;
+    const { model, colors } = opts;
+    const { ctx, chartArea, scales } = chart;
+    const band = (range: [number, number] | null, color: string, label: string) => {
+      if (!range) return;
+      const x0 = Math.max(chartArea.left, scales.x.getPixelForValue(range[0]));
+      const x1 = Math.min(chartArea.right, scales.x.getPixelForValue(range[1]));
+      if (x1 <= x0) return;
+      ctx.save();
+      ctx.fillStyle = color;
+      ctx.fillRect(x0, chartArea.top, x1 - x0, chartArea.bottom - chartArea.top);
+      ctx.fillStyle = colors.soft;
+      ctx.font = "500 12px 'IBM Plex Sans', system-ui, sans-serif";
+      if (x1 - x0 > ctx.measureText(label).width + 8) ctx.fillText(label, x0 + 4, chartArea.bottom - 6);
+      ctx.restore();
+    };
+    band(model.pulldown, colors.pulldown, "Pull-down");
+    for (const other of model.otherHolds) band(other.range, colors.pulldown, other.earlier ? "Earlier hold" : "Later hold");
+    band(model.hold, colors.hold, "Hold");
+  },
+  afterDatasetsDraw(chart, _args, opts) {
+    if (!opts?.model) return;
+    const { model, colors, picked, marks } = opts;
+    const vline = (xMinutes: number, color: string, label: string, dash: number[]) => drawVline(chart, colors, xMinutes, color, label, dash);
+    const { ctx, chartArea, scales } = chart;
+    const hline = (micronsValue: number, color: string, label: string) => {
+      const y = scales.y.getPixelForValue(micronsValue);
+      if (y < chartArea.top || y > chartArea.bottom) return;
+      ctx.save();
+      ctx.fillStyle = color;
+      ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
+      const w = ctx.measureText(label).width;
+      ctx.fillText(label, chartArea.right - w - 4, y - 4);
+      ctx.restore();
+    };
+    hline(model.limitMicrons, colors.limit, `Limit ${microns(model.limitMicrons)}`);
+    hline(model.targetMicrons, colors.target, `Target ${microns(model.targetMicrons)}`);
+    if (model.isolationMinutes != null) vline(model.isolationMinutes, colors.soft, "Isolated", [6, 4]);
+    if (picked != null) vline(picked / 60, colors.pick, "New isolation", []);
+    drawMarkers(chart, marks, colors);
+  },
+};
 
 /** 1, 2, 5 × 10^k ticks with thousands separators; other log ticks are hidden. */
 function logTick(value: number | string): string {
@@ -174,20 +200,83 @@ function logTick(value: number | string): string {
   return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
 }
 
-export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, markers = [], highlightSeconds = null, className = "" }: DecayChartProps) {
-  const canvasRef = useRef<HTMLCanvasElement | null>(null);
+type Points = { x: number; y: number }[];
+
+/**
+ * The chart's datasets and options for one curve, palette and scale (`_themeTick` only makes a
+ * theme change build them again with the new palette).
+ */
+function chartConfig(model: CurveModel, _themeTick: number, logScale: boolean) {
+  const colors = palette();
+  const line = (data: Points, extra: Record<string, unknown>) => ({
+    data,
+    pointRadius: 0,
+    pointHitRadius: 0,
+    borderWidth: 2,
+    tension: 0,
+    ...extra,
+  });
+  const xMin = 0;
+  const xMax = model.xMaxMinutes;
+  const data: ChartData<"line", Points> = {
+    datasets: [
+      line(model.band.high, { label: "Forecast high", borderColor: colors.bandLine, borderWidth: 1, borderDash: [3, 3], fill: "+1", backgroundColor: colors.band }),
+      line(model.band.low, { label: "Forecast low", borderColor: colors.bandLine, borderWidth: 1, borderDash: [3, 3], fill: false }),
+      line([{ x: xMin, y: model.limitMicrons }, { x: xMax, y: model.limitMicrons }], { label: "Limit", borderColor: colors.limit, borderDash: [8, 5], borderWidth: 2 }),
+      line([{ x: xMin, y: model.targetMicrons }, { x: xMax, y: model.targetMicrons }], { label: "Target", borderColor: colors.target, borderDash: [2, 4], borderWidth: 2 }),
+      line(model.measured, { label: "Reading", borderColor: colors.measured, borderWidth: 2.5, pointHitRadius: 6 }),
+      line(model.fitted, { label: "Fitted hold", borderColor: colors.fit, borderWidth: 2 }),
+    ],
+  };
+  const options: ChartOptions<"line"> = {
+    animation: false,
+    responsive: true,
+    maintainAspectRatio: false,
+    parsing: false,
+    normalized: true,
+    interaction: { mode: "nearest", axis: "x", intersect: false },
+    layout: { padding: { right: 4 } },
+    scales: {
+      x: {
+        type: "linear",
+        min: xMin,
+        max: xMax,
+        title: { display: true, text: "minutes from the first reading", color: colors.soft, font: { size: 12 } },
+        ticks: { color: colors.soft, font: { size: 12 }, maxTicksLimit: 7 },
+        grid: { color: colors.grid },
+      },
+      y: {
+        type: logScale ? "logarithmic" : "linear",
+        min: logScale ? model.yMinMicrons : 0,
+        max: logScale ? model.yMaxMicrons : undefined,
+        suggestedMax: logScale ? undefined : model.limitMicrons * 1.1,
+        title: { display: true, text: "microns", color: colors.soft, font: { size: 12 } },
+        ticks: { color: colors.soft, font: { size: 12 }, callback: logScale ? logTick : (v) => Number(v).toLocaleString("en-US"), autoSkip: !logScale },
+        grid: { color: colors.grid },
+      },
+    },
+    plugins: {
+      tooltip: {
+        filter: (item) => item.dataset.label === "Reading" || item.dataset.label === "Fitted hold",
+        callbacks: {
+          title: (items) => (items[0] ? `${durationWords(items[0].parsed.x! * 60)} from start` : ""),
+          label: (item) => `${item.dataset.label}: ${microns(item.parsed.y)} microns`,
+        },
+      },
+    },
+  };
+  return { colors, data, options };
+}
+
+const PLUGINS = [phasesPlugin];
+const NO_MARKERS: { seconds: number; label: string }[] = [];
+
+export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, markers = NO_MARKERS, highlightSeconds = null, className = "" }: DecayChartProps) {
   const chartRef = useRef<Chart<"line"> | null>(null);
-  const pickedRef = useRef<number | null>(pickedSeconds);
-  const pickRef = useRef(onPickSeconds);
-  const marksRef = useRef<Marks>({ markers, highlight: highlightSeconds });
   const [themeTick, setThemeTick] = useState(0);
   const [logScale, setLogScale] = useState(true);
   const model = useMemo(() => buildCurve(analysis, series), [analysis, series]);
   const summary = useMemo(() => curveSummary(analysis, series), [analysis, series]);
-
-  useEffect(() => {
-    pickRef.current = onPickSeconds;
-  }, [onPickSeconds]);
 
   useEffect(() => {
     const obs = new MutationObserver(() => setThemeTick((n) => n + 1));
@@ -195,95 +284,25 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
     return () => obs.disconnect();
   }, []);
 
-  useEffect(() => {
-    const canvas = canvasRef.current;
-    if (!canvas) return;
-    const colors = palette();
-    const line = (data: { x: number; y: number }[], extra: Record<string, unknown>) => ({
-      data,
-      pointRadius: 0,
-      pointHitRadius: 0,
-      borderWidth: 2,
-      tension: 0,
-      ...extra,
-    });
-    const xMin = 0;
-    const xMax = model.xMaxMinutes;
-    const config: ChartConfiguration<"line", { x: number; y: number }[]> = {
-      type: "line",
-      data: {
-        datasets: [
-          line(model.band.high, { label: "Forecast high", borderColor: colors.bandLine, borderWidth: 1, borderDash: [3, 3], fill: "+1", backgroundColor: colors.band }),
-          line(model.band.low, { label: "Forecast low", borderColor: colors.bandLine, borderWidth: 1, borderDash: [3, 3], fill: false }),
-          line([{ x: xMin, y: model.limitMicrons }, { x: xMax, y: model.limitMicrons }], { label: "Limit", borderColor: colors.limit, borderDash: [8, 5], borderWidth: 2 }),
-          line([{ x: xMin, y: model.targetMicrons }, { x: xMax, y: model.targetMicrons }], { label: "Target", borderColor: colors.target, borderDash: [2, 4], borderWidth: 2 }),
-          line(model.measured, { label: "Reading", borderColor: colors.measured, borderWidth: 2.5, pointHitRadius: 6 }),
-          line(model.fitted, { label: "Fitted hold", borderColor: colors.fit, borderWidth: 2 }),
-        ],
-      },
-      options: {
-        animation: false,
-        responsive: true,
-        maintainAspectRatio: false,
-        parsing: false,
-        normalized: true,
-        interaction: { mode: "nearest", axis: "x", intersect: false },
-        layout: { padding: { right: 4 } },
-        scales: {
-          x: {
-            type: "linear",
-            min: xMin,
-            max: xMax,
-            title: { display: true, text: "minutes from the first reading", color: colors.soft, font: { size: 12 } },
-            ticks: { color: colors.soft, font: { size: 12 }, maxTicksLimit: 7 },
-            grid: { color: colors.grid },
-          },
-          y: {
-            type: logScale ? "logarithmic" : "linear",
-            min: logScale ? model.yMinMicrons : 0,
-            max: logScale ? model.yMaxMicrons : undefined,
-            suggestedMax: logScale ? undefined : model.limitMicrons * 1.1,
-            title: { display: true, text: "microns", color: colors.soft, font: { size: 12 } },
-            ticks: { color: colors.soft, font: { size: 12 }, callback: logScale ? logTick : (v) => Number(v).toLocaleString("en-US"), autoSkip: !logScale },
-            grid: { color: colors.grid },
-          },
-        },
-        plugins: {
-          tooltip: {
-            filter: (item) => item.dataset.label === "Reading" || item.dataset.label === "Fitted hold",
-            callbacks: {
-              title: (items) => (items[0] ? `${durationWords(items[0].parsed.x! * 60)} from start` : ""),
-              label: (item) => `${item.dataset.label}: ${microns(item.parsed.y)} microns`,
-            },
-          },
-        },
-        onClick: (event, _els, chart) => {
-          if (!pickRef.current || event.x == null) return;
-          const minutes = chart.scales.x.getValueForPixel(event.x);
-          if (minutes == null || !Number.isFinite(minutes)) return;
-          const lastSeconds = series.t.length ? series.t[series.t.length - 1] : 0;
-          pickRef.current(Math.round(Math.min(Math.max(0, minutes * 60), lastSeconds)));
-        },
-      },
-      plugins: [phasesPlugin(model, colors, () => pickedRef.current, () => marksRef.current)],
-    };
-    const chart = new Chart(canvas, config);
-    chartRef.current = chart;
-    return () => {
-      chart.destroy();
-      chartRef.current = null;
-    };
-  }, [model, series, themeTick, logScale]);
+  const base = useMemo(() => chartConfig(model, themeTick, logScale), [model, themeTick, logScale]);
+  const options = useMemo<ChartOptions<"line">>(
+    () => ({
+      ...base.options,
+      plugins: { ...base.options.plugins, riselinePhases: { model, colors: base.colors, picked: pickedSeconds, marks: { markers, highlight: highlightSeconds } } },
+    }),
+    [base, model, pickedSeconds, markers, highlightSeconds],
+  );
 
-  useEffect(() => {
-    pickedRef.current = pickedSeconds;
-    chartRef.current?.draw();
-  }, [pickedSeconds]);
-
-  useEffect(() => {
-    marksRef.current = { markers, highlight: highlightSeconds };
-    chartRef.current?.draw();
-  }, [markers, highlightSeconds]);
+  /** A tap on the plot: the time under it, in seconds from the first row, within the log. */
+  const onClick = (event: MouseEvent<HTMLCanvasElement>) => {
+    const chart = chartRef.current;
+    if (!onPickSeconds || !chart) return;
+    const { x } = getRelativePosition(event.nativeEvent, chart as unknown as Chart);
+    const minutes = chart.scales.x.getValueForPixel(x);
+    if (minutes == null || !Number.isFinite(minutes)) return;
+    const lastSeconds = series.t.length ? series.t[series.t.length - 1] : 0;
+    onPickSeconds(Math.round(Math.min(Math.max(0, minutes * 60), lastSeconds)));
+  };
 
   return (
     <figure data-testid="decay-chart" className={`rounded-card border border-surface-line bg-surface-raised p-2 shadow-card sm:p-4 ${className}`}>
@@ -306,7 +325,7 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
         </div>
       </div>
       <div className="relative h-72 w-full sm:h-96">
-        <canvas ref={canvasRef} role="img" aria-label={`Decay curve. ${summary}`} className={onPickSeconds ? "cursor-crosshair" : undefined} />
+        <Line ref={chartRef} data={base.data} options={options} plugins={PLUGINS} onClick={onClick} role="img" aria-label={`Decay curve. ${summary}`} className={onPickSeconds ? "cursor-crosshair" : undefined} />
       </div>
       <CurveLegend hasFit={model.fitted.length > 0} hasBand={model.band.mid.length > 0} hasIsolation={model.isolationMinutes != null} />
       <figcaption className="sr-only" data-testid="chart-summary">

@@ -2,11 +2,13 @@
 
 /**
  * Predicted pull-down curves (and optionally a real one) on a log micron axis against minutes.
- * Loaded with next/dynamic only (LazyPlanChart), so chart.js stays out of first loads.
+ * Loaded with next/dynamic only (LazyPlanChart), so chart.js stays out of first loads;
+ * react-chartjs-2 owns the chart's life.
  */
-import { useEffect, useRef } from "react";
+import { useMemo } from "react";
 import { durationWords } from "@/analysis/shared/format";
-import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, Legend, type ChartConfiguration } from "chart.js";
+import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, Legend, type ChartData, type ChartOptions } from "chart.js";
+import { Line } from "react-chartjs-2";
 
 Chart.register(LineController, LineElement, PointElement, LinearScale, LogarithmicScale, Tooltip, Legend);
 
@@ -35,18 +37,14 @@ function logTick(value: number | string): string {
   return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
 }
 
-export default function PlanChart({ series, targetMicrons, summary, className = "" }: PlanChartProps) {
-  const canvas = useRef<HTMLCanvasElement>(null);
-  useEffect(() => {
-    if (!canvas.current) return;
+/** The datasets and options for the plans, the real curve and the target line. */
+function chartConfig(series: PlanChartSeries[], targetMicrons: number) {
     const dark = document.documentElement.classList.contains("dark");
     const colours = dark ? COLOURS_DARK : COLOURS_LIGHT;
     const fg = dark ? "#e8f0ee" : "#14232b";
     const grid = dark ? "rgba(232,240,238,0.12)" : "rgba(20,35,43,0.10)";
     const maxMinutes = Math.max(1, ...series.map((s) => (s.tSeconds[s.tSeconds.length - 1] ?? 0) / 60));
-    const config: ChartConfiguration<"line", { x: number; y: number }[]> = {
-      type: "line",
-      data: {
+    const data: ChartData<"line", { x: number; y: number }[]> = {
         datasets: [
           ...series.map((s, i) => ({
             label: s.label,
@@ -68,8 +66,8 @@ export default function PlanChart({ series, targetMicrons, summary, className = 
             pointRadius: 0,
           },
         ],
-      },
-      options: {
+      };
+    const options: ChartOptions<"line"> = {
         responsive: true,
         maintainAspectRatio: false,
         animation: false,
@@ -83,14 +81,15 @@ export default function PlanChart({ series, targetMicrons, summary, className = 
           legend: { position: "bottom", labels: { color: fg, boxWidth: 18, font: { family: "'IBM Plex Sans', system-ui, sans-serif" } } },
           tooltip: { callbacks: { label: (c) => `${c.dataset.label}: ${Math.round(c.parsed.y ?? 0).toLocaleString("en-US")} microns at ${durationWords((c.parsed.x ?? 0) * 60)}` } },
         },
-      },
     };
-    const chart = new Chart(canvas.current, config);
-    return () => chart.destroy();
-  }, [series, targetMicrons]);
+    return { data, options };
+}
+
+export default function PlanChart({ series, targetMicrons, summary, className = "" }: PlanChartProps) {
+  const { data, options } = useMemo(() => chartConfig(series, targetMicrons), [series, targetMicrons]);
   return (
     <figure className={`relative h-72 sm:h-96 ${className}`}>
-      <canvas ref={canvas} role="img" aria-label={summary} />
+      <Line data={data} options={options} role="img" aria-label={summary} />
       <figcaption className="sr-only">{summary}</figcaption>
     </figure>
   );

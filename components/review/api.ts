@@ -2,7 +2,9 @@
 import { apiFetch } from "@/lib/client/api";
 import type { ReviewAction } from "@/lib/review/state";
 
-export type Status = "submitted" | "waiting_review" | "signed_off" | "sent_back";
+import type { TestStatus, Verdict } from "@/db/vocabulary";
+
+export type Status = TestStatus;
 
 export interface ReviewState {
   status: Status;
@@ -16,7 +18,7 @@ export interface RetestResult {
   analysisId: string;
   version: number;
   status: Status;
-  analysis: { verdict: string };
+  analysis: { verdict: Verdict };
 }
 export interface CommentItem {
   id: string;

@@ -6,6 +6,7 @@ import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { analyses, practiceCalls, practiceComments, user, vacuumTests, type PracticeCall } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
+import type { Verdict } from "@/db/vocabulary";
 
 /** The practice flag of one test of the organization, or null when there is no such test. */
 export async function getPracticeFlagByTest(db: Db, params: { organizationId: string; testId: string }) {
@@ -58,7 +59,7 @@ export async function getPracticeCallById(db: Db, params: { organizationId: stri
 /** Record a call; returns null when this apprentice already called this test (first call stands). */
 export async function insertPracticeCall(
   db: Db,
-  params: { organizationId: string; testId: string; apprenticeId: string; call: PracticeCall; reason: string; analysisVerdict: string; matched: boolean },
+  params: { organizationId: string; testId: string; apprenticeId: string; call: PracticeCall; reason: string; analysisVerdict: Verdict; matched: boolean },
 ) {
   const [row] = await db.insert(practiceCalls).values(params).onConflictDoNothing().returning();
   return row ?? null;

@@ -2,6 +2,7 @@ import { and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from "drizzle-or
 import type { Db } from "@/db/client";
 import { analyses, member, organization, sites, systems, testEvents, user, vacuumTests, type TestEventKind, type TestStatus } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
+import type { Verdict } from "@/db/vocabulary";
 
 /** The review fields of one test of the organization, locked for update in this transaction. */
 export async function lockTestReviewStateById(db: Db, params: { organizationId: string; testId: string }) {
@@ -107,7 +108,7 @@ export async function getUserEmailById(db: Db, params: { organizationId: string;
 
 export interface ReviewQueueFilters {
   technicianId?: string;
-  verdict?: string;
+  verdict?: Verdict;
   helpOnly?: boolean;
   from?: Date;
   to?: Date;

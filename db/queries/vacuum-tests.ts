@@ -3,6 +3,7 @@ import { getTableConfig } from "drizzle-orm/pg-core";
 import type { Db } from "@/db/client";
 import { analyses, findings, idempotencyKeys, mailOutbox, sites, systems, testEvents, uploads, user, vacuumTests, jobs } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
+import type { Verdict } from "@/db/vocabulary";
 
 export type VacuumTestRow = typeof vacuumTests.$inferSelect;
 export type NewVacuumTestRow = typeof vacuumTests.$inferInsert;
@@ -91,7 +92,7 @@ export async function lockTestById(db: Db, params: { organizationId: string; tes
   return row ?? null;
 }
 
-export async function updateTestCurrentAnalysis(db: Db, params: { organizationId: string; testId: string; analysisId: string; verdict: string }) {
+export async function updateTestCurrentAnalysis(db: Db, params: { organizationId: string; testId: string; analysisId: string; verdict: Verdict }) {
   await db
     .update(vacuumTests)
     .set({ currentAnalysisId: params.analysisId, verdict: params.verdict, updatedAt: new Date() })
@@ -99,7 +100,7 @@ export async function updateTestCurrentAnalysis(db: Db, params: { organizationId
 }
 
 export interface VacuumTestListFilters {
-  verdict?: string;
+  verdict?: Verdict;
   technicianId?: string;
   siteId?: string;
   from?: Date;

@@ -1,5 +1,7 @@
 import { pgTable, text, timestamp, uuid, real, integer, boolean, index, uniqueIndex } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
+import { PRACTICE_CALLS, VERDICTS, type PracticeCall, type Verdict } from "@/db/vocabulary";
+import { oneOf } from "./checks";
 import { vacuumTests } from "./tests";
 
 /** A trainer's collection of curves worth teaching from ("Leaks that look like moisture"). */
@@ -51,8 +53,7 @@ export const casebookPins = pgTable(
   (t) => [index("casebook_pins_entry_idx").on(t.entryId)],
 );
 
-export const PRACTICE_CALLS = ["pass", "leak", "moisture", "leak_and_moisture"] as const;
-export type PracticeCall = (typeof PRACTICE_CALLS)[number];
+export { PRACTICE_CALLS, type PracticeCall };
 
 /** An apprentice's own reading of a practice test, made before the verdict was shown. */
 export const practiceCalls = pgTable(
@@ -65,11 +66,16 @@ export const practiceCalls = pgTable(
     call: text("call", { enum: PRACTICE_CALLS }).notNull(),
     reason: text("reason").notNull(),
     /** The analysis' verdict when the call was made (the call is judged against this). */
-    analysisVerdict: text("analysis_verdict").notNull(),
+    analysisVerdict: text("analysis_verdict").$type<Verdict>().notNull(),
     matched: boolean("matched").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [uniqueIndex("practice_calls_test_apprentice_idx").on(t.testId, t.apprenticeId), index("practice_calls_org_apprentice_idx").on(t.organizationId, t.apprenticeId)],
+  (t) => [
+    uniqueIndex("practice_calls_test_apprentice_idx").on(t.testId, t.apprenticeId),
+    index("practice_calls_org_apprentice_idx").on(t.organizationId, t.apprenticeId),
+    oneOf("practice_calls_call_check", t.call, PRACTICE_CALLS),
+    oneOf("practice_calls_analysis_verdict_check", t.analysisVerdict, VERDICTS),
+  ],
 );
 
 /** A trainer's (or anyone's) comment on a practice call. */

@@ -2,6 +2,8 @@ import { sql } from "drizzle-orm";
 import { pgTable, text, timestamp, uuid, real, jsonb, index, check } from "drizzle-orm/pg-core";
 import type { NitrogenResult } from "@/analysis/calculators/nitrogen";
 import { organization, user } from "./auth";
+import { PRESSURE_VERDICTS } from "@/db/vocabulary";
+import { oneOf } from "./checks";
 import { jobs } from "./records";
 
 /**
@@ -42,7 +44,7 @@ export const pressureTests = pgTable(
     overPressureAcknowledgedById: text("over_pressure_acknowledged_by_id").references(() => user.id),
     /** The logger's readings (gauge unit) when the test came from a file. */
     series: jsonb("series").$type<{ tSeconds: number[]; pressureGauge: number[]; temperature: number[] | null }>(),
-    verdict: text("verdict", { enum: ["holds", "drops", "rises", "stopped"] }).notNull(),
+    verdict: text("verdict", { enum: PRESSURE_VERDICTS }).notNull(),
     result: jsonb("result").$type<NitrogenResult>().notNull(),
     notes: text("notes"),
     testedAt: timestamp("tested_at", { withTimezone: true }).defaultNow().notNull(),
@@ -52,6 +54,7 @@ export const pressureTests = pgTable(
     index("pressure_tests_org_tested_idx").on(t.organizationId, t.testedAt),
     index("pressure_tests_org_creator_idx").on(t.organizationId, t.createdById),
     check("pressure_tests_over_pressure_acknowledged", sql`${t.verdict} <> 'stopped' OR (${t.overPressureAcknowledgedAt} IS NOT NULL AND ${t.overPressureAcknowledgedById} IS NOT NULL)`),
+    oneOf("pressure_tests_verdict_check", t.verdict, PRESSURE_VERDICTS),
     check("pressure_tests_times_in_order", sql`${t.startedAt} IS NULL OR ${t.endedAt} IS NULL OR ${t.endedAt} > ${t.startedAt}`),
   ],
 );

@@ -1,4 +1,4 @@
-import { pgTable, text, timestamp, uuid, real, date, index } from "drizzle-orm/pg-core";
+import { pgTable, text, timestamp, uuid, real, date, index, unique, foreignKey } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
 
 /** Customers, their sites, the systems at a site, and the visits (jobs) to them. */
@@ -25,7 +25,7 @@ export const sites = pgTable(
     address: text("address"),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [index("sites_org_idx").on(t.organizationId)],
+  (t) => [index("sites_org_idx").on(t.organizationId), unique("sites_org_id_key").on(t.organizationId, t.id)],
 );
 
 export const systems = pgTable(
@@ -33,7 +33,8 @@ export const systems = pgTable(
   {
     id: uuid("id").primaryKey().defaultRandom(),
     organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    siteId: uuid("site_id").notNull().references(() => sites.id, { onDelete: "cascade" }),
+    /** A site of the same organization (composite foreign key below). */
+    siteId: uuid("site_id").notNull(),
     name: text("name").notNull(),
     kind: text("kind"),
     refrigerant: text("refrigerant"),
@@ -46,7 +47,12 @@ export const systems = pgTable(
     installedOn: date("installed_on"),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [index("systems_org_idx").on(t.organizationId), index("systems_site_idx").on(t.siteId)],
+  (t) => [
+    index("systems_org_idx").on(t.organizationId),
+    index("systems_site_idx").on(t.siteId),
+    unique("systems_org_id_key").on(t.organizationId, t.id),
+    foreignKey({ name: "systems_site_fk", columns: [t.organizationId, t.siteId], foreignColumns: [sites.organizationId, sites.id] }).onDelete("cascade"),
+  ],
 );
 
 export const jobs = pgTable(
@@ -62,5 +68,5 @@ export const jobs = pgTable(
     reference: text("reference"),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [index("jobs_org_idx").on(t.organizationId)],
+  (t) => [index("jobs_org_idx").on(t.organizationId), unique("jobs_org_id_key").on(t.organizationId, t.id)],
 );

@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
 import { pgTable, text, timestamp, uuid, real, integer, index, uniqueIndex } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
+import { oneOf } from "./checks";
 import { TEST_STATUSES, vacuumTests } from "./tests";
 
 /** What happened to a test, for the audit trail shown on the test page. */
@@ -34,7 +35,12 @@ export const testEvents = pgTable(
     note: text("note"),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [index("test_events_test_idx").on(t.organizationId, t.testId, t.createdAt)],
+  (t) => [
+    index("test_events_test_idx").on(t.organizationId, t.testId, t.createdAt),
+    oneOf("test_events_kind_check", t.kind, TEST_EVENT_KINDS),
+    oneOf("test_events_from_status_check", t.fromStatus, TEST_STATUSES),
+    oneOf("test_events_to_status_check", t.toStatus, TEST_STATUSES),
+  ],
 );
 
 /** A comment on a test, optionally pinned to a time on the curve. */
@@ -80,7 +86,11 @@ export const mailOutbox = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
     sentAt: timestamp("sent_at", { withTimezone: true }),
   },
-  (t) => [index("mail_outbox_status_idx").on(t.status, t.createdAt), index("mail_outbox_org_idx").on(t.organizationId)],
+  (t) => [
+    index("mail_outbox_status_idx").on(t.status, t.createdAt),
+    index("mail_outbox_org_idx").on(t.organizationId),
+    oneOf("mail_outbox_status_check", t.status, MAIL_STATUSES),
+  ],
 );
 
 /** A read-only link to one test's report. Only the SHA-256 of the token is stored. */

@@ -1,5 +1,6 @@
 import { pgTable, text, timestamp, uuid, integer, jsonb, index, uniqueIndex } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
+import { oneOf } from "./checks";
 import { vacuumTests } from "./tests";
 
 /** Background work a person started and follows: a large log being analysed, a re-analysis of many tests. */
@@ -52,5 +53,7 @@ export const backgroundTasks = pgTable(
     // Keys belong to the person who sent them, as idempotency_keys do.
     uniqueIndex("background_tasks_key_idx").on(t.organizationId, t.requestedById, t.idempotencyKey),
     index("background_tasks_org_state_idx").on(t.organizationId, t.state),
+    oneOf("background_tasks_state_check", t.state, TASK_STATES),
+    oneOf("background_tasks_stage_check", t.stage, TASK_STAGES),
   ],
 );

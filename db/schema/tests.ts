@@ -1,12 +1,14 @@
 import {
-  pgTable, text, timestamp, uuid, real, integer, boolean, jsonb, index, uniqueIndex, primaryKey,
+  pgTable, text, timestamp, uuid, real, integer, boolean, jsonb, index, uniqueIndex, primaryKey, unique, foreignKey,
+  type PgTableExtraConfigValue,
 } from "drizzle-orm/pg-core";
 import type { AnalysisResult, AnalyzeOptions, AcceptanceProfile } from "@/analysis/decay/types";
+import { TEST_SOURCES, TEST_STATUSES, VERDICTS, type TestStatus, type Verdict } from "@/db/vocabulary";
 import { organization, user } from "./auth";
+import { oneOf } from "./checks";
 import { jobs, sites, systems } from "./records";
 
-export const TEST_STATUSES = ["submitted", "waiting_review", "signed_off", "sent_back"] as const;
-export type TestStatus = (typeof TEST_STATUSES)[number];
+export { TEST_STATUSES, type TestStatus };
 
 /** One evacuation and decay test: the record a technician keeps. */
 export const vacuumTests = pgTable(
@@ -15,11 +17,12 @@ export const vacuumTests = pgTable(
     id: uuid("id").primaryKey().defaultRandom(),
     organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
     createdById: text("created_by_id").notNull().references(() => user.id),
-    jobId: uuid("job_id").references(() => jobs.id, { onDelete: "set null" }),
-    siteId: uuid("site_id").references(() => sites.id, { onDelete: "set null" }),
-    systemId: uuid("system_id").references(() => systems.id, { onDelete: "set null" }),
+    // job, site, system and current analysis: composite foreign keys with the organization below.
+    jobId: uuid("job_id"),
+    siteId: uuid("site_id"),
+    systemId: uuid("system_id"),
     title: text("title").notNull(),
-    source: text("source", { enum: ["file", "typed"] }).notNull(),
+    source: text("source", { enum: TEST_SOURCES }).notNull(),
     refrigerant: text("refrigerant"),
     lineSetFeet: real("line_set_feet"),
     liquidOd: text("liquid_od"),
@@ -34,15 +37,27 @@ export const vacuumTests = pgTable(
     status: text("status", { enum: TEST_STATUSES }).default("submitted").notNull(),
     helpRequested: boolean("help_requested").default(false).notNull(),
     /** Denormalised from the current analysis for lists and filters. */
-    verdict: text("verdict"),
+    verdict: text("verdict").$type<Verdict>(),
     currentAnalysisId: uuid("current_analysis_id"),
     testedAt: timestamp("tested_at", { withTimezone: true }).defaultNow().notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [
+  // Typed by hand: the foreign keys to analyses and back make the inference circular.
+  (t): PgTableExtraConfigValue[] => [
     index("tests_org_tested_idx").on(t.organizationId, t.testedAt),
     index("tests_org_creator_idx").on(t.organizationId, t.createdById),
+    unique("vacuum_tests_org_id_key").on(t.organizationId, t.id),
+    oneOf("vacuum_tests_status_check", t.status, TEST_STATUSES),
+    oneOf("vacuum_tests_verdict_check", t.verdict, VERDICTS),
+    oneOf("vacuum_tests_source_check", t.source, TEST_SOURCES),
+    // The job, site, system and current analysis are the test's own organization's. Deleting one
+    // empties only its column (the migration writes ON DELETE SET NULL (column), PostgreSQL 15+).
+    foreignKey({ name: "vacuum_tests_job_fk", columns: [t.organizationId, t.jobId], foreignColumns: [jobs.organizationId, jobs.id] }).onDelete("set null"),
+    foreignKey({ name: "vacuum_tests_site_fk", columns: [t.organizationId, t.siteId], foreignColumns: [sites.organizationId, sites.id] }).onDelete("set null"),
+    foreignKey({ name: "vacuum_tests_system_fk", columns: [t.organizationId, t.systemId], foreignColumns: [systems.organizationId, systems.id] }).onDelete("set null"),
+    // Circular with analyses (an analysis belongs to a test): checked at commit (DEFERRABLE INITIALLY DEFERRED in the migration).
+    foreignKey({ name: "vacuum_tests_current_analysis_fk", columns: [t.organizationId, t.currentAnalysisId], foreignColumns: [analyses.organizationId, analyses.id] }).onDelete("set null"),
   ],
 );
 
@@ -69,21 +84,27 @@ export const analyses = pgTable(
   {
     id: uuid("id").primaryKey().defaultRandom(),
     organizationId: text("organization_id").notNull().references(() => organization.id, { onDelete: "cascade" }),
-    testId: uuid("test_id").notNull().references(() => vacuumTests.id, { onDelete: "cascade" }),
+    /** The test of the same organization (composite foreign key below). */
+    testId: uuid("test_id").notNull(),
     version: integer("version").notNull(),
     engineVersion: text("engine_version").notNull(),
     options: jsonb("options").$type<AnalyzeOptions>().notNull(),
     profile: jsonb("profile").$type<AcceptanceProfile>().notNull(),
     result: jsonb("result").$type<AnalysisResult>().notNull(),
     series: jsonb("series").$type<{ t: number[]; p: number[] }>().notNull(),
-    verdict: text("verdict").notNull(),
+    verdict: text("verdict").$type<Verdict>().notNull(),
     confidence: real("confidence").notNull(),
     isolationAt: real("isolation_at"),
     reason: text("reason"),
     createdById: text("created_by_id").notNull().references(() => user.id),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [uniqueIndex("analyses_test_version_idx").on(t.testId, t.version)],
+  (t): PgTableExtraConfigValue[] => [
+    uniqueIndex("analyses_test_version_idx").on(t.testId, t.version),
+    unique("analyses_org_id_key").on(t.organizationId, t.id),
+    oneOf("analyses_verdict_check", t.verdict, VERDICTS),
+    foreignKey({ name: "analyses_test_fk", columns: [t.organizationId, t.testId], foreignColumns: [vacuumTests.organizationId, vacuumTests.id] }).onDelete("cascade"),
+  ],
 );
 
 export const findings = pgTable(

@@ -3,71 +3,16 @@
  * retries that reuse the same Idempotency-Key, so a retry on a weak signal never creates a
  * second test. Uploads go through XMLHttpRequest for progress.
  */
-import type { AnalysisResult, PressureUnit, UnsureReason, Verdict } from "@/analysis/decay/types";
-import type { VacuumTestListItem as ServerTestListItem } from "@/lib/vacuum-tests/dto";
+import type { AnalysisResult, PressureUnit, UnsureReason } from "@/analysis/decay/types";
+import type { JobsAnswer, JobItem, MembersAnswer, ProfileItem, ProfilesAnswer, SiteItem, SitesAnswer, SystemItem, SystemsAnswer } from "@/lib/contracts/records";
+import type { AnalysisHistoryEntry, VacuumTestDetail, VacuumTestDto, VacuumTestListItem, TestPage, VacuumTestSummary } from "@/lib/contracts/vacuum-tests";
 
-export type TestStatus = "submitted" | "waiting_review" | "signed_off" | "sent_back";
-
-export interface TestRecord {
-  id: string;
-  title: string;
-  status: TestStatus;
-  verdict: Verdict | null;
-  source?: "file" | "typed";
-  testedAt?: string;
-  createdAt?: string;
-  createdById?: string;
-  refrigerant?: string | null;
-  lineSetFeet?: number | null;
-  liquidOd?: string | null;
-  suctionOd?: string | null;
-  volumeLitres?: number | null;
-  ambientC?: number | null;
-  notes?: string | null;
-  /** Printed on the customer's copy of the report; `notes` stay internal. */
-  customerNote?: string | null;
-  rigNote?: string | null;
-  isPractice?: boolean;
-  technician?: { id: string; name: string } | null;
-  site?: { id: string; name: string } | null;
-  system?: { id: string; name: string } | null;
-  job?: { id: string; reference: string | null; visitedOn: string | null; reason?: string | null } | null;
-  helpRequested?: boolean;
-  currentAnalysisId?: string | null;
-  [key: string]: unknown;
-}
-
+// The shapes the server answers with, declared once in lib/contracts/ (word lists in db/vocabulary.ts).
+export type { TestStatus } from "@/db/vocabulary";
+export type { JobItem, ProfileItem, SiteItem, SystemItem, VacuumTestDetail, VacuumTestDto, VacuumTestListItem, TestPage };
 /** A new test with its verdict — or an apprentice's practice test, whose verdict waits for their call at `practiceCallUrl`. */
-export type CreatedTest = { test: TestRecord; analysis: AnalysisResult; practiceCallUrl?: undefined } | { test: TestRecord; analysis: null; practiceCallUrl: string };
-
-/** A row of the tests list: the server's shape, with the verdict typed as the analysis' Verdict. */
-export type VacuumTestListItem = Omit<ServerTestListItem, "verdict"> & { verdict: Verdict | null };
-
-export interface TestPage {
-  items: VacuumTestListItem[];
-  nextCursor: string | null;
-}
-
-export interface HistoryEntry {
-  id: string;
-  version: number;
-  verdict: Verdict;
-  confidence: number;
-  meetsProfile?: boolean | null;
-  createdAt: string;
-  createdBy: string | { id: string; name: string } | null;
-  reason: string | null;
-  options: Record<string, unknown> | null;
-}
-
-export interface TestDetail {
-  test: TestRecord;
-  analysis: AnalysisResult;
-  /** t: seconds from the first data row; p: microns. */
-  series: { t: number[]; p: number[] };
-  history: HistoryEntry[];
-  upload: { filename: string; sizeBytes: number; sha256: string } | null;
-}
+export type CreatedTest = VacuumTestSummary;
+export type HistoryEntry = AnalysisHistoryEntry;
 
 export interface ImportPreview {
   columns: string[];
@@ -98,12 +43,6 @@ export interface TypedReadingsBody {
   readings: { time: string | number; microns: number }[];
   timeMode: "clock" | "minutes";
   [metadata: string]: unknown;
-}
-
-export interface NamedRecord {
-  id: string;
-  name: string;
-  [key: string]: unknown;
 }
 
 /** A failed call: `code` from the server (or "offline" / "network"), message in plain words. */
@@ -288,8 +227,8 @@ export function listTests(filters: TestFilters, signal?: AbortSignal): Promise<T
   return apiFetch<TestPage>(`/api/vacuum-tests?${q}`, {}, { signal });
 }
 
-export function getTest(id: string, signal?: AbortSignal): Promise<TestDetail> {
-  return apiFetch<TestDetail>(`/api/vacuum-tests/${encodeURIComponent(id)}`, {}, { signal });
+export function getTest(id: string, signal?: AbortSignal): Promise<VacuumTestDetail> {
+  return apiFetch<VacuumTestDetail>(`/api/vacuum-tests/${encodeURIComponent(id)}`, {}, { signal });
 }
 
 export function getRawLink(id: string): Promise<{ url: string; expiresInSeconds: number }> {
@@ -300,28 +239,19 @@ export function reanalyse(id: string, body: ReanalyseBody, idempotencyKey: strin
   return apiFetch(`/api/vacuum-tests/${encodeURIComponent(id)}/analyses`, { method: "POST", body: JSON.stringify(body) }, { idempotencyKey });
 }
 
-/** The first array in a list response ({ items } or { sites } …), so small shape changes do not break pickers. */
-function itemsOf<T>(res: unknown): T[] {
-  if (Array.isArray(res)) return res as T[];
-  if (res && typeof res === "object") for (const v of Object.values(res)) if (Array.isArray(v)) return v as T[];
-  return [];
+export async function listSites(): Promise<SiteItem[]> {
+  return (await apiFetch<SitesAnswer>("/api/sites")).items;
 }
-
-export async function listSites(): Promise<NamedRecord[]> {
-  return itemsOf<NamedRecord>(await apiFetch("/api/sites"));
+export async function listSystems(siteId: string): Promise<SystemItem[]> {
+  return (await apiFetch<SystemsAnswer>(`/api/systems?siteId=${encodeURIComponent(siteId)}`)).items;
 }
-export async function listSystems(siteId: string): Promise<NamedRecord[]> {
-  return itemsOf<NamedRecord>(await apiFetch(`/api/systems?siteId=${encodeURIComponent(siteId)}`));
+export async function listJobs(): Promise<JobItem[]> {
+  return (await apiFetch<JobsAnswer>("/api/jobs")).items;
 }
-export async function listJobs(): Promise<NamedRecord[]> {
-  return itemsOf<NamedRecord>(await apiFetch("/api/jobs"));
+export async function listProfiles(): Promise<ProfileItem[]> {
+  return (await apiFetch<ProfilesAnswer>("/api/profiles")).items;
 }
-export async function listProfiles(): Promise<(NamedRecord & { isDefault?: boolean; limitMicrons?: number })[]> {
-  return itemsOf(await apiFetch("/api/profiles"));
-}
+/** The shop's members as the technician filter shows them. */
 export async function listMembers(): Promise<{ id: string; name: string }[]> {
-  const raw = itemsOf<{ id?: string; userId?: string; name?: string; user?: { id: string; name: string } }>(await apiFetch("/api/members"));
-  return raw
-    .map((m) => ({ id: m.userId ?? m.user?.id ?? m.id ?? "", name: m.name ?? m.user?.name ?? "" }))
-    .filter((m) => m.id && m.name);
+  return (await apiFetch<MembersAnswer>("/api/members")).members.map((m) => ({ id: m.userId, name: m.name }));
 }

@@ -1,5 +1,7 @@
 /** Words for practice calls, safe for client components (no database imports). */
-export const CALL_CHOICES = ["pass", "leak", "moisture", "leak_and_moisture"] as const;
+import { PRACTICE_CALLS } from "@/db/vocabulary";
+
+export const CALL_CHOICES = PRACTICE_CALLS;
 export type CallChoice = (typeof CALL_CHOICES)[number];
 
 export const PRACTICE_CALL_WORDS: Record<CallChoice, string> = {

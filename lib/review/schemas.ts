@@ -1,6 +1,7 @@
 /** zod schemas for review, comments, share links, reports by e-mail and the queue filters. */
 import { z } from "zod";
 import { REVIEW_ACTIONS } from "./state";
+import { verdictSchema } from "@/lib/contracts/vacuum-tests";
 
 export const reviewActionSchema = z.object({
   action: z.enum(REVIEW_ACTIONS),
@@ -17,7 +18,7 @@ const blankToUndefined = (v: unknown) => (v === "" ? undefined : v);
 
 export const reviewQueueQuerySchema = z.object({
   technicianId: z.preprocess(blankToUndefined, z.string().max(100).optional()),
-  verdict: z.preprocess(blankToUndefined, z.enum(["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"]).optional()),
+  verdict: z.preprocess(blankToUndefined, verdictSchema.optional()),
   help: z.preprocess(blankToUndefined, z.enum(["1", "0"]).optional()),
   limit: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(200).default(100)),
 });

@@ -1,64 +1,8 @@
-/** What the tests API returns: the shapes the pages are built against. */
+/** Building what the tests API returns; the shapes themselves are declared in lib/contracts/vacuum-tests.ts. */
 import type { VacuumTestDetailRow } from "@/db/queries/vacuum-tests";
-import type { TestStatus } from "@/db/schema";
+import type { AnalysisHistoryEntry, VacuumTestDto, VacuumTestListItem } from "@/lib/contracts/vacuum-tests";
 
-export interface VacuumTestDto {
-  id: string;
-  title: string;
-  source: "file" | "typed";
-  status: TestStatus;
-  verdict: string | null;
-  isPractice: boolean;
-  helpRequested: boolean;
-  testedAt: string;
-  createdAt: string;
-  technician: { id: string; name: string };
-  job: { id: string; reference: string | null; visitedOn: string | null; reason: string | null } | null;
-  site: { id: string; name: string } | null;
-  system: { id: string; name: string } | null;
-  refrigerant: string | null;
-  lineSetFeet: number | null;
-  liquidOd: string | null;
-  suctionOd: string | null;
-  volumeLitres: number | null;
-  ambientC: number | null;
-  notes: string | null;
-  /** For the customer's copy of the report; `notes` stay internal. */
-  customerNote: string | null;
-  rigNote: string | null;
-  currentAnalysisId: string | null;
-}
-
-export interface VacuumTestListItem {
-  id: string;
-  title: string;
-  verdict: string | null;
-  confidence: number | null;
-  status: TestStatus;
-  testedAt: string;
-  technician: { id: string; name: string };
-  site: { id: string; name: string } | null;
-  systemName: string | null;
-  isPractice: boolean;
-  startMicrons: number | null;
-  endMicrons: number | null;
-  leakRateMicronsPerMinute: number | null;
-  /** Whether the current analysis met the shop's profile (null when not analysed or hidden). */
-  meetsProfile: boolean | null;
-  findingCodes: string[];
-}
-
-export interface AnalysisHistoryEntry {
-  id: string;
-  version: number;
-  verdict: string;
-  confidence: number;
-  meetsProfile: boolean | null;
-  createdAt: string;
-  createdBy: { id: string; name: string };
-  reason: string | null;
-  options: unknown;
-}
+export type { AnalysisHistoryEntry, VacuumTestDto, VacuumTestListItem };
 
 export function toVacuumTestDto(row: VacuumTestDetailRow): VacuumTestDto {
   const t = row.test;

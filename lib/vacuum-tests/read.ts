@@ -6,16 +6,11 @@ import { getTestById, getUploadByTest, listTestsByOrganization, type VacuumTestD
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
 import { hiddenPracticeTestIds, practiceGate, practisesCalls } from "@/lib/practice/gate";
-import { toVacuumTestDto, type AnalysisHistoryEntry, type VacuumTestDto, type VacuumTestListItem } from "./dto";
+import { toVacuumTestDto, type AnalysisHistoryEntry, type VacuumTestListItem } from "./dto";
 import type { ListVacuumTestsQuery } from "./schemas";
+import type { ShownAnalysis, VacuumTestDetail, VacuumTestSummary } from "@/lib/contracts/vacuum-tests";
 
-export interface VacuumTestDetail {
-  test: VacuumTestDto;
-  analysis: AnalysisResult;
-  series: { t: number[]; p: number[] };
-  history: AnalysisHistoryEntry[];
-  upload: { filename: string; sizeBytes: number; sha256: string } | null;
-}
+export type { ShownAnalysis, VacuumTestDetail, VacuumTestSummary };
 
 /** A visible test or a 404 (unknown, other organization and not visible all look the same). */
 export async function requireVisibleTest(db: Db, viewer: Viewer, testId: string) {
@@ -36,9 +31,6 @@ export async function requireRevealedTest(db: Db, viewer: Viewer, testId: string
   }
   return row;
 }
-
-/** What POST /api/vacuum-tests answers: the test and its analysis, or no analysis and where to make the practice call first. */
-export type VacuumTestSummary = { test: VacuumTestDto; analysis: AnalysisResult } | { test: VacuumTestDto; analysis: null; practiceCallUrl: string };
 
 /**
  * The test and its current analysis only (what POST /api/vacuum-tests answers with). `known` is what a
@@ -105,15 +97,6 @@ function toHistoryEntry(h: Awaited<ReturnType<typeof listAnalysesByTest>>[number
     reason: h.reason,
     options: h.options,
   };
-}
-
-/** Which analysis version a detail shows, out of how many the test has. */
-export interface ShownAnalysis {
-  analysisId: string;
-  version: number;
-  versionCount: number;
-  /** The shown version is the test's current analysis. */
-  isCurrent: boolean;
 }
 
 /**

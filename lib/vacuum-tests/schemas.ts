@@ -4,6 +4,7 @@
  */
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
+import { verdictSchema } from "@/lib/contracts/vacuum-tests";
 
 export const PRESSURE_UNITS = ["micron", "mtorr", "torr", "mmhg", "pa", "kpa", "mbar", "hpa", "psia", "inhg"] as const;
 
@@ -142,7 +143,7 @@ export type ReanalysisInput = z.infer<typeof reanalysisSchema>;
 const isoDate = z.string().refine((s) => !Number.isNaN(Date.parse(s)), "not an ISO date");
 
 export const listTestsQuerySchema = z.object({
-  verdict: z.enum(["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"]).optional(),
+  verdict: verdictSchema.optional(),
   technicianId: z.string().min(1).max(100).optional(),
   siteId: z.string().uuid("not a valid id").optional(),
   from: isoDate.optional(),

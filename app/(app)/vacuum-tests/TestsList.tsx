@@ -1,15 +1,12 @@
 "use client";
 
-import { useInfiniteQuery } from "@tanstack/react-query";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useMemo } from "react";
 import { Alert, Button, EmptyState, LinkButton, Spinner } from "@/components/ui";
-import { listTests } from "@/lib/client/api";
+import { useTestList } from "@/lib/client/list-query";
 import { FilterBar } from "./FilterBar";
 import { activeCount, filtersForApi, filtersFromParams, filtersToParams, type ListFilters } from "./filters";
 import { TestRow } from "./TestRow";
-
-const PAGE_SIZE = 20;
 
 /** The tests the member may see, newest first, with filters in the address bar and "Load more". */
 export function TestsList({ canSeeAll }: { canSeeAll: boolean }) {
@@ -22,12 +19,7 @@ export function TestsList({ canSeeAll }: { canSeeAll: boolean }) {
     router.replace(q ? `${pathname}?${q}` : pathname, { scroll: false });
   };
   const api = filtersForApi(filters);
-  const q = useInfiniteQuery({
-    queryKey: ["tests", "list", api],
-    queryFn: ({ pageParam, signal }) => listTests({ ...api, cursor: pageParam, limit: PAGE_SIZE }, signal),
-    initialPageParam: undefined as string | undefined,
-    getNextPageParam: (last) => last.nextCursor ?? undefined,
-  });
+  const q = useTestList(api);
   const items = q.data?.pages.flatMap((p) => p.items) ?? [];
 
   return (

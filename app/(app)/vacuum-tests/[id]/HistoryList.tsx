@@ -7,7 +7,7 @@ import { dateTimeWords, durationWords } from "./format";
 import { versionHref } from "./version";
 
 /** The overrides a version was run with, in words. */
-export function optionsWords(options: Record<string, unknown> | null): string[] {
+export function optionsWords(options: object | null): string[] {
   if (!options) return [];
   const out: string[] = [];
   const o = options as {
@@ -32,8 +32,7 @@ export function optionsWords(options: Record<string, unknown> | null): string[] 
 }
 
 function byName(createdBy: HistoryEntry["createdBy"]): string {
-  if (!createdBy) return "—";
-  return typeof createdBy === "string" ? createdBy : createdBy.name;
+  return createdBy.name || "—";
 }
 
 /**

@@ -1,9 +1,9 @@
 import type { AnalysisResult } from "@/analysis/decay/types";
-import type { TestRecord } from "@/lib/client/api";
+import type { VacuumTestDto } from "@/lib/client/api";
 import { UNIT_LABELS } from "../new/ColumnChooser";
 
 /** How the log was read and the context recorded with it. */
-export function ImportPanel({ analysis, test }: { analysis: AnalysisResult; test: TestRecord }) {
+export function ImportPanel({ analysis, test }: { analysis: AnalysisResult; test: VacuumTestDto }) {
   const s = analysis.import;
   const ctx: [string, string | number | null | undefined][] = [
     ["Refrigerant", test.refrigerant],

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { Alert, Button } from "@/components/ui";
-import { getRawLink, type TestDetail } from "@/lib/client/api";
+import { getRawLink, type VacuumTestDetail } from "@/lib/client/api";
 
 function sizeWords(bytes: number): string {
   if (bytes < 1024) return `${bytes}\u00a0B`;
@@ -11,7 +11,7 @@ function sizeWords(bytes: number): string {
 }
 
 /** The file exactly as uploaded, through a short-lived link. */
-export function RawDownload({ testId, upload }: { testId: string; upload: TestDetail["upload"] }) {
+export function RawDownload({ testId, upload }: { testId: string; upload: VacuumTestDetail["upload"] }) {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   if (!upload) return <p className="text-body text-fg-soft">Typed readings: there is no file to download.</p>;

@@ -138,7 +138,8 @@ export function ReanalyseForm({ testId, analysis, fromFile, pickedSeconds, onPic
         )}
         <Select label="Acceptance profile" value={profileId} onChange={(e) => setProfileId(e.target.value)} hint={profiles.isError ? "Profiles could not be loaded." : undefined}>
           <option value="">Keep “{analysis.profile.name}”</option>
-          {profiles.data?.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+          {/* The built-in default (id null) is not a profile one can pick to re-check with. */}
+          {profiles.data?.flatMap((p) => (p.id === null ? [] : [<option key={p.id} value={p.id}>{p.name}</option>]))}
         </Select>
         <Input label="Reason (kept in the history)" value={reason} onChange={(e) => setReason(e.target.value)} placeholder="e.g. pump valved off later than detected" />
         {problem && <Alert tone="error">{problem}</Alert>}

@@ -19,7 +19,8 @@ import { TestReviewSection } from "@/components/review";
 import { getComments, reviewKeys } from "@/components/review/api";
 import { RigForTest } from "@/components/planner/RigForTest";
 import { PlanCompare } from "./PlanCompare";
-import { getTestView, testViewKey, versionHref } from "./version";
+import { useTestDetail } from "@/lib/client/queries";
+import { versionHref } from "./version";
 import { VersionBanner } from "./VersionBanner";
 import { CustomerNote } from "./CustomerNote";
 
@@ -27,7 +28,7 @@ import { CustomerNote } from "./CustomerNote";
 export function TestView({ id, canReanalyse, canShare, userId }: { id: string; canReanalyse: boolean; canShare: boolean; userId?: string }) {
   // ?analysis=<id> shows an earlier analysis version (from the history); none shows the current one.
   const analysisId = useSearchParams()?.get("analysis") || null;
-  const q = useQuery({ queryKey: testViewKey(id, analysisId), queryFn: ({ signal }) => getTestView(id, analysisId, signal) });
+  const q = useTestDetail(id, analysisId);
   const comments = useQuery({ queryKey: reviewKeys.comments(id), queryFn: ({ signal }) => getComments(id, signal) });
   const [picked, setPicked] = useState<number | null>(null);
   const [shown, setShown] = useState<number | null>(null);

@@ -3,7 +3,7 @@
 import { useId } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { Input, Select, Textarea } from "@/components/ui";
-import { listJobs, listSites, listSystems, type NamedRecord } from "@/lib/client/api";
+import { listJobs, listSites, listSystems, type JobItem } from "@/lib/client/api";
 import { REFRIGERANTS, TUBE_SIZES, type TestContext } from "./context";
 
 interface Props {
@@ -15,12 +15,11 @@ interface Props {
 /** The Job select's value for "make a new visit with this test". */
 const NEW_VISIT = "new";
 
-function jobLabel(j: NamedRecord): string {
-  const r = j as NamedRecord & { reference?: string | null; visitedOn?: string | null; reason?: string | null };
-  return r.name || [r.reference, r.visitedOn, r.reason].filter(Boolean).join(" · ") || "Job";
+function jobLabel(j: JobItem): string {
+  return [j.reference, j.visitedOn, j.reason].filter(Boolean).join(" · ") || "Job";
 }
 
-function match(list: NamedRecord[] | undefined, name: string): string {
+function match(list: { id: string; name: string }[] | undefined, name: string): string {
   const n = name.trim().toLowerCase();
   return list?.find((x) => x.name.trim().toLowerCase() === n)?.id ?? "";
 }
