@@ -77,11 +77,11 @@ const analysis = { verdict: "leak" } as unknown as AnalysisResult;
 const detail: VacuumTestDetail = { test: testDto, analysis, series: { t: [0, 30], p: [500, 520] }, history: [], upload: null };
 const errorBody = (code: string, message: string, details?: Record<string, unknown>) => ({ error: { code, message, details } });
 
-describe("useTestList (GET /api/tests, cursor pages of 20)", () => {
+describe("useTestList (GET /api/vacuum-tests, cursor pages of 20)", () => {
   it("asks for the filters and 20 rows, then follows nextCursor and joins the pages", async () => {
     const asked: URLSearchParams[] = [];
     server.use(
-      http.get(`${ORIGIN}/api/tests`, ({ request }) => {
+      http.get(`${ORIGIN}/api/vacuum-tests`, ({ request }) => {
         const q = new URL(request.url).searchParams;
         asked.push(q);
         return q.get("cursor") === "c-2"
@@ -106,11 +106,11 @@ describe("useTestList (GET /api/tests, cursor pages of 20)", () => {
   });
 });
 
-describe("useTestDetail (GET /api/tests/:id)", () => {
+describe("useTestDetail (GET /api/vacuum-tests/:id)", () => {
   it("reads the current analysis, and an earlier version through ?analysisId=", async () => {
     const asked: string[] = [];
     server.use(
-      http.get(`${ORIGIN}/api/tests/t-1`, ({ request }) => {
+      http.get(`${ORIGIN}/api/vacuum-tests/t-1`, ({ request }) => {
         const analysisId = new URL(request.url).searchParams.get("analysisId");
         asked.push(analysisId ?? "current");
         return HttpResponse.json(analysisId ? { ...detail, shown: { analysisId, version: 1, versionCount: 2, isCurrent: false } } : detail);
@@ -131,7 +131,7 @@ describe("useTestDetail (GET /api/tests/:id)", () => {
   it("gives a 404 as an ApiError with the server's words, asked once (RFC 9110 §15.5.5: not retryable)", async () => {
     let calls = 0;
     server.use(
-      http.get(`${ORIGIN}/api/tests/t-9`, () => {
+      http.get(`${ORIGIN}/api/vacuum-tests/t-9`, () => {
         calls++;
         return HttpResponse.json(errorBody("not_found", "No such test."), { status: 404 });
       }),
@@ -147,7 +147,7 @@ describe("useTestDetail (GET /api/tests/:id)", () => {
 
   it("passes the practice gate's 403 details on, so the page can link to the call", async () => {
     server.use(
-      http.get(`${ORIGIN}/api/tests/t-p`, () =>
+      http.get(`${ORIGIN}/api/vacuum-tests/t-p`, () =>
         HttpResponse.json(errorBody("forbidden", "Make your practice call first; the analysis shows once you have.", { practiceCallUrl: "/practice/t-p" }), { status: 403 }),
       ),
     );
@@ -158,7 +158,7 @@ describe("useTestDetail (GET /api/tests/:id)", () => {
   });
 });
 
-describe("uploadTest (POST /api/tests, multipart through XMLHttpRequest): the upload's error handling", () => {
+describe("uploadTest (POST /api/vacuum-tests, multipart through XMLHttpRequest): the upload's error handling", () => {
   const form = () => {
     const f = new FormData();
     f.set("file", new File(["seconds,microns\n0,500\n"], "log.csv", { type: "text/csv" }));
@@ -168,7 +168,7 @@ describe("uploadTest (POST /api/tests, multipart through XMLHttpRequest): the up
   it("turns a 422 into an ApiError naming the line, sent once, with the Idempotency-Key", async () => {
     const keys: (string | null)[] = [];
     server.use(
-      http.post(`${ORIGIN}/api/tests`, ({ request }) => {
+      http.post(`${ORIGIN}/api/vacuum-tests`, ({ request }) => {
         keys.push(request.headers.get("idempotency-key"));
         return HttpResponse.json(errorBody("invalid_file", "Line 7: no number in the microns column.", { line: 7 }), { status: 422 });
       }),
@@ -182,7 +182,7 @@ describe("uploadTest (POST /api/tests, multipart through XMLHttpRequest): the up
   it("retries a 503 with the same Idempotency-Key and ends with the created test (IETF httpapi Idempotency-Key draft)", async () => {
     const keys: (string | null)[] = [];
     server.use(
-      http.post(`${ORIGIN}/api/tests`, ({ request }) => {
+      http.post(`${ORIGIN}/api/vacuum-tests`, ({ request }) => {
         keys.push(request.headers.get("idempotency-key"));
         return keys.length === 1
           ? HttpResponse.json(errorBody("storage_unavailable", "Riseline could not store this just now. Nothing was saved; try again."), { status: 503 })
@@ -195,7 +195,7 @@ describe("uploadTest (POST /api/tests, multipart through XMLHttpRequest): the up
   });
 
   it("reports a dropped connection as retryable network trouble, not as the file's fault", async () => {
-    server.use(http.post(`${ORIGIN}/api/tests`, () => HttpResponse.error()));
+    server.use(http.post(`${ORIGIN}/api/vacuum-tests`, () => HttpResponse.error()));
     const e = await uploadTest(form(), { idempotencyKey: "key-net", retries: 0 }).then(() => null, (err: unknown) => err as ApiError);
     expect([e!.status, e!.code, e!.retryable]).toEqual([0, "network", true]);
   });
