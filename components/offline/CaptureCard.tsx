@@ -55,7 +55,7 @@ export function CaptureCard({ c, now, onRetry, onDiscard }: { c: Capture; now: n
           ) : (
             <p className="text-caption text-fg-soft" data-testid="outbox-same">Same as on this phone.</p>
           )}
-          <LinkButton href={`/tests/${c.confirmed.testId}`} variant="secondary">Open the test page</LinkButton>
+          <LinkButton href={`/vacuum-tests/${c.confirmed.testId}`} variant="secondary">Open the test page</LinkButton>
         </div>
       ) : c.provisional ? (
         <div className="space-y-2" data-testid="provisional-verdict" data-verdict={c.provisional.result.verdict} data-engine={c.provisional.result.engineVersion} data-ms={c.provisional.elapsedMs}>

@@ -15,10 +15,10 @@ export const testKeys = {
   detail: (testId: string, analysisId: string | null) => (analysisId ? (["test", testId, "analysis", analysisId] as const) : (["test", testId] as const)),
 };
 
-/** The current analysis, or the version `analysisId` with `shown` set (GET /api/tests/:id?analysisId=). */
+/** The current analysis, or the version `analysisId` with `shown` set (GET /api/vacuum-tests/:id?analysisId=). */
 export function getTestView(testId: string, analysisId: string | null, signal?: AbortSignal): Promise<VacuumTestDetail> {
   if (!analysisId) return getTest(testId, signal);
-  return apiFetch<VacuumTestDetail>(`/api/tests/${encodeURIComponent(testId)}?analysisId=${encodeURIComponent(analysisId)}`, {}, { signal });
+  return apiFetch<VacuumTestDetail>(`/api/vacuum-tests/${encodeURIComponent(testId)}?analysisId=${encodeURIComponent(analysisId)}`, {}, { signal });
 }
 
 /** One test's page: test, analysis, series, history (404 and the practice gate arrive as ApiError). */
