@@ -22,6 +22,7 @@ import { PlanCompare } from "./PlanCompare";
 import { getTestView, testViewKey, versionHref } from "./version";
 import { VersionBanner } from "./VersionBanner";
 import { CustomerNote } from "./CustomerNote";
+import { NextStep } from "./NextStep";
 
 /** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
 export function TestView({ id, canReanalyse, canShare, userId }: { id: string; canReanalyse: boolean; canShare: boolean; userId?: string }) {
@@ -84,6 +85,7 @@ export function TestView({ id, canReanalyse, canShare, userId }: { id: string; c
           </p>
         )}
       </header>
+      {!earlier && <NextStep testId={id} />}
       {earlier && <VersionBanner testId={id} shown={version} />}
       <VerdictBanner analysis={analysis} />
       <div>
@@ -96,12 +98,13 @@ export function TestView({ id, canReanalyse, canShare, userId }: { id: string; c
       <div className="grid gap-5 lg:grid-cols-2">
         <NumbersPanel analysis={analysis} />
         <div className="space-y-5">
-          <SafetyNote full />
+          <SafetyNote full testCautions={analysis.findings.flatMap((f) => f.cautions)} />
         </div>
       </div>
-      <FindingsList findings={analysis.findings} />
+      <FindingsList findings={analysis.findings} cautionsInSafetyBox />
       <PlanCompare analysis={analysis} series={series} volumeLitres={test.volumeLitres ?? null} />
       <RigForTest testId={id} targetNotReached={analysis.findings.some((f) => f.code === "target_not_reached")} />
+      <div id="review" className="scroll-mt-4" />
       <TestReviewSection testId={id} canShare={canShare} pickedSeconds={picked} onShowSeconds={setShown} onChanged={() => void q.refetch()} />
       <div className="grid gap-5 lg:grid-cols-2">
         {canReanalyse && !earlier && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
