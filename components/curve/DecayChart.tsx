@@ -29,8 +29,10 @@ export interface DecayChartProps {
   series: { t: number[]; p: number[] };
   /** Called with seconds from the first row when the user taps the chart (re-analysis). */
   onPickSeconds?: (seconds: number) => void;
-  /** A chosen (not yet analysed) isolation point, seconds from the first row. */
+  /** The time the last tap chose (an isolation not yet analysed, or a comment's minute), seconds from the first row. */
   pickedSeconds?: number | null;
+  /** What the picked line is called on the chart: what the tap was for (default "New isolation"). */
+  pickLabel?: string;
   /** Points people refer to (comments at a time on the curve), seconds from the first row. */
   markers?: { seconds: number; label: string }[];
   /** A marker to emphasise (e.g. the comment just tapped). */
@@ -103,7 +105,7 @@ function drawMarkers(chart: Chart, marks: Marks, colors: Palette) {
   });
 }
 
-function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number | null, marks: () => Marks): Plugin<"line"> {
+function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number | null, marks: () => Marks, pickLabel: () => string): Plugin<"line"> {
   const vline = (chart: Chart, xMinutes: number, color: string, label: string, dash: number[]) => {
     const { ctx, chartArea, scales } = chart;
     const x = scales.x.getPixelForValue(xMinutes);
@@ -161,7 +163,7 @@ function phasesPlugin(model: CurveModel, colors: Palette, picked: () => number |
       hline(model.targetMicrons, colors.target, `Target ${microns(model.targetMicrons)}`);
       if (model.isolationMinutes != null) vline(chart, model.isolationMinutes, colors.soft, "Isolated", [6, 4]);
       const p = picked();
-      if (p != null) vline(chart, p / 60, colors.pick, "New isolation", []);
+      if (p != null) vline(chart, p / 60, colors.pick, pickLabel(), []);
       drawMarkers(chart, marks(), colors);
     },
   };
@@ -174,11 +176,12 @@ function logTick(value: number | string): string {
   return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
 }
 
-export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, markers = [], highlightSeconds = null, className = "" }: DecayChartProps) {
+export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, pickLabel = "New isolation", markers = [], highlightSeconds = null, className = "" }: DecayChartProps) {
   const canvasRef = useRef<HTMLCanvasElement | null>(null);
   const chartRef = useRef<Chart<"line"> | null>(null);
   const pickedRef = useRef<number | null>(pickedSeconds);
   const pickRef = useRef(onPickSeconds);
+  const pickLabelRef = useRef(pickLabel);
   const marksRef = useRef<Marks>({ markers, highlight: highlightSeconds });
   const [themeTick, setThemeTick] = useState(0);
   const [logScale, setLogScale] = useState(true);
@@ -265,7 +268,7 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
           pickRef.current(Math.round(Math.min(Math.max(0, minutes * 60), lastSeconds)));
         },
       },
-      plugins: [phasesPlugin(model, colors, () => pickedRef.current, () => marksRef.current)],
+      plugins: [phasesPlugin(model, colors, () => pickedRef.current, () => marksRef.current, () => pickLabelRef.current)],
     };
     const chart = new Chart(canvas, config);
     chartRef.current = chart;
@@ -277,8 +280,9 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
 
   useEffect(() => {
     pickedRef.current = pickedSeconds;
+    pickLabelRef.current = pickLabel;
     chartRef.current?.draw();
-  }, [pickedSeconds]);
+  }, [pickedSeconds, pickLabel]);
 
   useEffect(() => {
     marksRef.current = { markers, highlight: highlightSeconds };

@@ -35,7 +35,7 @@ export function HomeLists({ userId, reviewQueueCount = null }: { userId: string;
       </Alert>
     );
   const items = q.data.items;
-  if (items.length === 0)
+  if (items.length === 0 && !reviewQueueCount)
     return (
       <EmptyState title="No tests yet">
         After your next evacuation, upload the micron gauge’s log or type the readings. The verdict and the curve show in seconds.
@@ -67,7 +67,7 @@ export function HomeLists({ userId, reviewQueueCount = null }: { userId: string;
           </ul>
         )}
       </Card>
-      <Card title="Your recent tests" data-testid="recent" actions={<LinkButton href={`/tests?technicianId=${encodeURIComponent(userId)}`} variant="quiet">All</LinkButton>}>
+      {recent.length > 0 && <Card title="Your recent tests" data-testid="recent" actions={<LinkButton href={`/tests?technicianId=${encodeURIComponent(userId)}`} variant="quiet">All</LinkButton>}>
         <ul className="space-y-3">
           {recent.map((t) => (
             <li key={t.id}>
@@ -75,7 +75,7 @@ export function HomeLists({ userId, reviewQueueCount = null }: { userId: string;
             </li>
           ))}
         </ul>
-      </Card>
+      </Card>}
     </div>
   );
 }

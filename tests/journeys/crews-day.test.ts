@@ -1,0 +1,206 @@
+/**
+ * Each role's day without detours, in a real Chromium against `next start`: the technician on a
+ * phone finds the lead's request on the home card and first on the test page, with one safety box;
+ * the lead's home counts the review queue, a chart tap does the one thing chosen (a comment never
+ * moves the isolation used by "Analyse again"), and a leak can only be accepted with a reason,
+ * which the Review box, the audit trail and the report then show. Invented shop, people and data.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Locator, Page } from "playwright-core";
+import { DESKTOP, launch, PHONE, signInThroughPage, type Session } from "./browser";
+import { addMember, appRequest, createShop, routeParams, type TestMember } from "@/tests/helpers/members";
+import { jsonInit } from "@/tests/helpers/crew";
+import { seedTest } from "@/tests/helpers/seed-test";
+import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
+import { routeNewTestToReview } from "@/lib/review/auto";
+import { db } from "@/db/client";
+import { createCustomer, createSite, createSystem } from "@/db/queries/records";
+
+let session: Session;
+let lead: TestMember;
+let tech: TestMember;
+let sentBackId: string;
+let leakId: string;
+let owner: TestMember;
+let siteId: string;
+let systemId: string;
+const REQUEST = "Replace both core caps, pull down again and hold 15 minutes.";
+const REASON = "Customer declined the braze repair today; noted on the work order.";
+
+async function shown(locator: Locator): Promise<void> {
+  try {
+    await locator.first().waitFor({ state: "visible", timeout: 30_000 });
+  } catch (err) {
+    await locator.page().screenshot({ path: "/tmp/rl-crews-day-failure.png", fullPage: true }).catch(() => undefined);
+    throw err;
+  }
+}
+
+async function as(member: TestMember, device: typeof PHONE | typeof DESKTOP): Promise<{ ctx: BrowserContext; page: Page }> {
+  const ctx = await session.newContext(device);
+  const page = await ctx.newPage();
+  await signInThroughPage(page, member.email, member.password);
+  return { ctx, page };
+}
+
+beforeAll(async () => {
+  owner = await createShop("Tidewater Comfort (invented)");
+  lead = await addMember(owner.organizationId, "lead", "Lena Lead");
+  tech = await addMember(owner.organizationId, "technician", "Theo Tech");
+  sentBackId = await seedTest(tech, { verdict: "leak", title: "Harbor Lane Dental rooftop" });
+  await reviewPost(appRequest(`/api/tests/${sentBackId}/review`, jsonInit(lead, { action: "send_back", note: REQUEST })), routeParams({ id: sentBackId }));
+  leakId = await seedTest(tech, { verdict: "leak", title: "Bakery walk-in after coil swap" });
+  await routeNewTestToReview(db(), { organizationId: owner.organizationId, testId: leakId, actorId: null });
+  const customer = await createCustomer(db(), { organizationId: owner.organizationId, name: "Harbor Lane Dental" });
+  const site = await createSite(db(), { organizationId: owner.organizationId, name: "Harbor Lane Dental — main office", customerId: customer.id });
+  const system = await createSystem(db(), { organizationId: owner.organizationId, siteId: site.id, name: "Rooftop heat pump", kind: "heat_pump", refrigerant: "R-454B", factoryChargeKg: 2.5, lineSetFeet: 35 });
+  siteId = site.id;
+  systemId = system.id;
+  await seedTest(tech, { verdict: "pass", title: "Rooftop heat pump start-up", siteId, systemId });
+  session = await launch();
+});
+afterAll(async () => {
+  await session?.close();
+  const { closeDb } = await import("@/db/client");
+  await closeDb();
+});
+
+describe("crews' day (phone technician, desktop lead)", () => {
+  it("technician: the lead's request is on the home card and first on the test page; one safety box; the trail never says 'Sent back → Sent back'", async () => {
+    const t = await as(tech, PHONE);
+    await t.page.goto("/home");
+    const card = t.page.getByTestId("home-sent-back");
+    await shown(card);
+    expect(await card.getByTestId("home-sent-back-request").textContent()).toBe(`Lena Lead asks: ${REQUEST}`);
+    await card.getByRole("link", { name: "Harbor Lane Dental rooftop" }).click();
+    await t.page.waitForURL(new RegExp(`/tests/${sentBackId}$`));
+    const next = t.page.getByTestId("next-step");
+    await shown(next);
+    expect(await next.getByTestId("next-step-request").textContent()).toBe(`Lena Lead asks: ${REQUEST}`);
+    await shown(t.page.getByTestId("decay-chart"));
+    const nextBox = (await next.boundingBox())!;
+    const chartBox = (await t.page.getByTestId("decay-chart").boundingBox())!;
+    expect(nextBox.y).toBeLessThan(chartBox.y);
+    expect(nextBox.y + nextBox.height).toBeLessThan(740); // on the first screen of a 360 × 740 phone
+    expect(await t.page.getByTestId("safety-note").count()).toBe(1);
+    expect(await t.page.getByTestId("findings").getByRole("note").count()).toBe(0);
+    const panel = t.page.getByTestId("review-panel");
+    await shown(panel.getByTestId("review-last-step"));
+    expect(await panel.getByTestId("review-last-step").textContent()).toContain(REQUEST);
+    const trail = t.page.getByTestId("audit-trail");
+    await shown(trail.getByText("Sent back"));
+    expect(await trail.textContent()).not.toMatch(/Sent back\s*→\s*(now )?sent back/i);
+    await t.ctx.close();
+  }, 120_000);
+
+  it("lead: home counts the queue; a comment tap never moves the isolation; a leak is accepted only with a reason, shown in the box, trail and report", async () => {
+    const l = await as(lead, DESKTOP);
+    await l.page.goto("/home");
+    const attention = l.page.getByTestId("attention");
+    await shown(attention.getByTestId("attention-queue"));
+    expect(await attention.getByTestId("attention-queue").textContent()).toMatch(/^1 test waits for your review$/);
+    expect(await attention.textContent()).toContain("Needs your attention (1)");
+
+    await l.page.goto("/review");
+    const item = l.page.getByTestId("queue-item").filter({ hasText: "Bakery walk-in after coil swap" });
+    await shown(item);
+    expect(await item.textContent()).toContain("Sign-off needs a reason");
+
+    await l.page.goto(`/tests/${leakId}`);
+    const chart = l.page.getByTestId("decay-chart").locator("canvas");
+    await shown(chart);
+    const mode = l.page.getByTestId("chart-tap-mode");
+    expect(await mode.getByLabel("Comment at a minute").isChecked()).toBe(true);
+    const box = (await chart.boundingBox())!;
+    await chart.click({ position: { x: box.width * 0.8, y: box.height / 2 } });
+    const thread = l.page.getByTestId("comment-thread");
+    const minute = thread.getByLabel(/At minute on the curve/);
+    await expect.poll(async () => minute.inputValue()).not.toBe("");
+    const isolation = l.page.getByTestId("reanalyse-form").getByLabel("Isolation time");
+    expect(await isolation.inputValue()).toBe("");
+
+    await mode.getByLabel("Move the isolation").check();
+    await chart.click({ position: { x: box.width * 0.6, y: box.height / 2 } });
+    await expect.poll(async () => isolation.inputValue()).not.toBe("");
+    const commentMinute = await minute.inputValue();
+    expect(Number(await isolation.inputValue())).not.toBe(Number(commentMinute));
+
+    const panel = l.page.getByTestId("review-panel");
+    expect(await panel.getByRole("button", { name: "Sign off" }).count()).toBe(0);
+    await panel.getByRole("button", { name: "Accept with a reason" }).click();
+    await shown(panel.getByTestId("accept-warning"));
+    expect(await panel.getByTestId("accept-warning").textContent()).toContain("This test does not pass");
+    await panel.getByLabel("Why do you accept a test that does not pass?").fill(REASON);
+    await panel.getByRole("button", { name: "Accept with a reason" }).click();
+    await shown(panel.getByText("Signed off", { exact: true }));
+    await shown(panel.getByTestId("review-last-step"));
+    expect(await panel.getByTestId("review-last-step").textContent()).toContain(`Reason for accepting it: ${REASON}`);
+    const trail = l.page.getByTestId("audit-trail");
+    await shown(trail.getByText("Accepted with a reason"));
+    expect(await trail.textContent()).toContain(REASON);
+
+    await l.page.goto(`/tests/${leakId}/report`);
+    await shown(l.page.getByTestId("report-signoff"));
+    expect(await l.page.getByTestId("report-signoff").textContent()).toMatch(/^Accepted with a reason by Lena Lead on .+; the test does not pass\.$/);
+    expect(await l.page.getByTestId("report-accepted-reason").textContent()).toBe(`Reason for accepting it: ${REASON}`);
+    await l.ctx.close();
+  }, 120_000);
+
+  it("owner: no snake_case code and no metric figure standing alone on any page of the shop; distinct icons; Copy on a share link; a new profile starts from the shop's standard", async () => {
+    const o = await as(owner, DESKTOP);
+    const pages = [
+      "/home", "/tests", `/tests/${leakId}`, `/tests/${leakId}/report`, `/tests/${sentBackId}`, "/review", "/records", `/records/sites/${siteId}`,
+      `/records/systems/${systemId}`, "/casebook", "/tools", "/tools/water", "/tools/planner", "/tools/pressure-test", "/tools/rigs",
+      "/settings/profiles", "/settings/mail", "/settings/members", "/tests/new",
+    ];
+    const problems: string[] = [];
+    for (const path of pages) {
+      const res = await o.page.goto(path);
+      expect(res?.status(), path).toBe(200);
+      await o.page.waitForLoadState("networkidle");
+      const text = await o.page.locator("main").innerText();
+      // An e-mail address or a web address may hold underscores; nothing else on a page may.
+      const words = text.replace(/\S+@\S+|https?:\/\/\S+/g, " ");
+      for (const m of words.matchAll(/\b[a-z][a-z0-9]*(?:_[a-z0-9]+)+\b/g)) problems.push(`${path}: code "${m[0]}"`);
+      // The shop works in °F, ft, lb·oz and psig: a metric figure is only ever beside its imperial one, in brackets.
+      const outsideBrackets = words.replace(/\([^()]*\)/g, " ");
+      for (const m of outsideBrackets.matchAll(/\d\s*(?:kg|°C|kPa)\b|\d\s*°C/g)) problems.push(`${path}: metric "${m[0]}" without its imperial value`);
+    }
+    expect(problems).toEqual([]);
+
+    await o.page.goto(`/records/systems/${systemId}`);
+    expect(await o.page.locator("main").innerText()).toContain("Heat pump");
+    expect(await o.page.locator("main").innerText()).toContain("5 lb 8 oz (2.5 kg)");
+    await o.page.goto("/records");
+    expect(await o.page.getByRole("heading", { level: 1 }).textContent()).toBe("Customers");
+    const icons = async (label: string) => o.page.getByRole("navigation").getByRole("link", { name: label }).first().locator("svg").innerHTML();
+    const [customers, mail, shop, review, acceptance] = await Promise.all(["Customers", "Mail", "Shop", "Review", "Acceptance"].map(icons));
+    expect(new Set([customers, mail, shop]).size).toBe(3);
+    expect(review).not.toBe(acceptance);
+
+    // The shop's standard: a default profile at 10 microns/min; "New profile" starts from it.
+    await o.page.goto("/settings/profiles");
+    const newForm = o.page.locator("form").last();
+    await newForm.getByLabel("Name").fill("Tidewater standard");
+    await newForm.getByLabel("Leak if climbing at (microns/min)").fill("10");
+    await newForm.getByLabel("The shop's default").check();
+    await newForm.getByRole("button", { name: "Add profile" }).click();
+    await shown(o.page.getByRole("heading", { name: "Tidewater standard" }));
+    await expect.poll(async () => o.page.locator("form").last().getByLabel("Leak if climbing at (microns/min)").inputValue()).toBe("10");
+    expect(await o.page.locator("form").last().getByLabel("Name").inputValue()).toBe("");
+
+    await o.page.goto("/tools/water");
+    expect(await o.page.getByLabel("Unit").inputValue()).toBe("F");
+
+    await o.ctx.grantPermissions(["clipboard-read", "clipboard-write"]);
+    await o.page.goto(`/tests/${leakId}`);
+    const share = o.page.getByTestId("share-actions");
+    await share.getByRole("button", { name: /Make a read-only link/ }).click();
+    await shown(share.getByRole("button", { name: "Copy the link" }));
+    const url = await share.getByLabel("Share link").inputValue();
+    await share.getByRole("button", { name: "Copy the link" }).click();
+    await shown(share.getByText("Copied", { exact: true }));
+    expect(await o.page.evaluate(() => navigator.clipboard.readText())).toBe(url);
+    await o.ctx.close();
+  }, 180_000);
+});
