@@ -28,6 +28,7 @@ const L = {
   profileDefault: () => import("@/app/api/settings/profiles/[id]/default/route"),
   shopSettings: () => import("@/app/api/settings/shop/route"),
   plannerHistory: () => import("@/app/api/planner/history/route"),
+  similarNames: () => import("@/app/api/records/similar/route"),
 };
 
 const profile = { name: "Matrix profile", targetMicrons: 500, holdMinutes: 10, limitMicrons: 1000, leakRateMicronsPerMinute: 20 };
@@ -68,6 +69,12 @@ export const RECORD_PROBES: Probe[] = [
   { route: "GET /api/systems", call: (as) => hit(L.systems, "GET", "/x", as), expect: rule("member"), outsider: "no-leak" },
   { route: "POST /api/systems", call: (as, w) => hit(L.systems, "POST", "/x", as, { body: { siteId: w.siteId, name: "Matrix system" } }), expect: rule("records.manage"), outsider: 400 },
   { route: "GET /api/systems/:id", call: (as, w) => hit(L.system, "GET", "/x", as, { params: { id: w.systemId } }), expect: rule("member"), outsider: 404 },
+  {
+    route: "GET /api/records/similar",
+    call: (as) => hit(L.similarNames, "GET", "/api/records/similar?kind=site&name=Matrix%20site", as),
+    expect: rule("records.manage"),
+    outsider: "no-leak",
+  },
   { route: "GET /api/jobs", call: (as) => hit(L.jobs, "GET", "/x", as), expect: rule("member"), outsider: "no-leak" },
   { route: "POST /api/jobs", call: (as, w) => hit(L.jobs, "POST", "/x", as, { body: { visitedOn: "2026-11-21", siteId: w.siteId } }), expect: rule("records.manage"), outsider: 400 },
 

@@ -1,6 +1,7 @@
 "use client";
 
 import { useId } from "react";
+import { SimilarNames } from "@/components/records/SimilarNames";
 import { useQuery } from "@tanstack/react-query";
 import { Input, Select, Textarea } from "@/components/ui";
 import { listJobs, listSites, listSystems, type NamedRecord } from "@/lib/client/api";
@@ -16,8 +17,10 @@ interface Props {
 const NEW_VISIT = "new";
 
 function jobLabel(j: NamedRecord): string {
-  const r = j as NamedRecord & { reference?: string | null; visitedOn?: string | null; reason?: string | null };
-  return r.name || [r.reference, r.visitedOn, r.reason].filter(Boolean).join(" · ") || "Job";
+  const r = j as NamedRecord & { reference?: string | null; visitedOn?: string | null; reason?: string | null; siteName?: string | null; customerName?: string | null };
+  const what = r.name || [r.reference, r.visitedOn, r.reason].filter(Boolean).join(" · ") || "Job";
+  const whose = [r.customerName, r.siteName && r.siteName !== r.customerName ? r.siteName : null].filter(Boolean).join(", ");
+  return whose ? `${what} — ${whose}` : what;
 }
 
 function match(list: NamedRecord[] | undefined, name: string): string {
@@ -73,6 +76,9 @@ export function ContextForm({ value, onChange, canCreateJob }: Props) {
           }}
           hint={isNewSite ? `A new site “${value.siteName.trim()}” will be created.` : undefined}
         />
+        {isNewSite && canCreateJob && (
+          <SimilarNames kind="site" name={value.siteName} onUse={(m) => onChange({ ...value, siteName: m.name, siteId: m.id, systemId: "" })} />
+        )}
         <datalist id={`${ids}-sites`}>
           {sites.data?.map((s) => <option key={s.id} value={s.name} />)}
         </datalist>
@@ -88,6 +94,9 @@ export function ContextForm({ value, onChange, canCreateJob }: Props) {
           onChange={(e) => onChange({ ...value, systemName: e.target.value, systemId: match(systems.data, e.target.value) })}
           hint={!value.siteName.trim() ? "Choose a site first." : isNewSystem ? `A new system “${value.systemName.trim()}” will be created.` : undefined}
         />
+        {isNewSystem && canCreateJob && value.siteId && (
+          <SimilarNames kind="system" name={value.systemName} siteId={value.siteId} onUse={(m) => onChange({ ...value, systemName: m.name, systemId: m.id })} />
+        )}
         <datalist id={`${ids}-systems`}>
           {systems.data?.map((s) => <option key={s.id} value={s.name} />)}
         </datalist>
