@@ -5,13 +5,16 @@
  * Real PostgreSQL; invented names.
  */
 import { describe, expect, it } from "vitest";
-import { sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { createCustomer, createJob, createSite, createSystem, listJobsByOrganization } from "@/db/queries/records";
 import { listSimilarNamesByOrganization } from "@/db/queries/similar-names";
 import { GET as similarGet } from "@/app/api/records/similar/route";
+import { POST as mergePost } from "@/app/api/records/merge/route";
+import { sites, vacuumTests } from "@/db/schema";
+import { seedTest } from "./helpers/seed-test";
 import { appRequest, createShop } from "./helpers/members";
-import { crewForFile } from "./helpers/crew";
+import { crewForFile, jsonInit } from "./helpers/crew";
 
 const crew = crewForFile();
 
@@ -57,5 +60,31 @@ describe("similar names (pg_trgm)", () => {
     const job = await createJob(db(), { organizationId: org, visitedOn: "2026-12-02", siteId: site.id, reason: "New install", reference: "WO-4147" });
     const row = (await listJobsByOrganization(db(), { organizationId: org })).find((j) => j.id === job.id)!;
     expect(row).toMatchObject({ reference: "WO-4147", siteName: "Quayside — east wing", customerName: "Quayside Offices" });
+  });
+});
+
+describe("merging duplicates (product rule: nothing a test recorded is lost)", () => {
+  it("a duplicate site's tests, jobs and systems move to the kept site and the duplicate is gone; another shop's site is 404; into itself is 400", async () => {
+    const org = crew.owner.organizationId;
+    const kept = await createSite(db(), { organizationId: org, name: "Harbor Lane Dental — main office (kept)", customerId: null });
+    const dup = await createSite(db(), { organizationId: org, name: "Harbour Dental", customerId: null });
+    const sys = await createSystem(db(), { organizationId: org, siteId: dup.id, name: "Split in the lab" });
+    const job = await createJob(db(), { organizationId: org, visitedOn: "2026-12-02", siteId: dup.id });
+    const testId = await seedTest(crew.technician, { siteId: dup.id, systemId: sys.id });
+    const post = (body: unknown, as = crew.technician) => mergePost(appRequest("/api/records/merge", jsonInit(as, body)));
+    const res = await post({ kind: "site", fromId: dup.id, intoId: kept.id });
+    expect(res.status).toBe(200);
+    expect((await res.json()).moved).toEqual({ tests: 1, jobs: 1, sites: 0, systems: 1 });
+    const [t] = await db().select({ siteId: vacuumTests.siteId, systemId: vacuumTests.systemId }).from(vacuumTests).where(eq(vacuumTests.id, testId));
+    expect(t).toEqual({ siteId: kept.id, systemId: sys.id });
+    expect((await listJobsByOrganization(db(), { organizationId: org })).find((j) => j.id === job.id)?.siteId).toBe(kept.id);
+    expect((await db().select().from(sites).where(eq(sites.id, dup.id))).length).toBe(0);
+
+    const other = await createShop();
+    const foreign = await createSite(db(), { organizationId: other.organizationId, name: "Not yours", customerId: null });
+    expect((await post({ kind: "site", fromId: foreign.id, intoId: kept.id })).status).toBe(404);
+    expect((await db().select().from(sites).where(eq(sites.id, foreign.id))).length).toBe(1);
+    expect((await post({ kind: "site", fromId: kept.id, intoId: kept.id })).status).toBe(400);
+    expect((await post({ kind: "site", fromId: kept.id, intoId: foreign.id }, crew.apprentice)).status).toBe(403);
   });
 });

@@ -14,7 +14,7 @@ import { seedTest } from "@/tests/helpers/seed-test";
 import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
 import { routeNewTestToReview } from "@/lib/review/auto";
 import { db } from "@/db/client";
-import { createCustomer, createSite, createSystem } from "@/db/queries/records";
+import { createCustomer, createJob, createSite, createSystem } from "@/db/queries/records";
 
 let session: Session;
 let lead: TestMember;
@@ -24,6 +24,7 @@ let leakId: string;
 let owner: TestMember;
 let siteId: string;
 let systemId: string;
+let dupSiteId: string;
 const REQUEST = "Replace both core caps, pull down again and hold 15 minutes.";
 const REASON = "Customer declined the braze repair today; noted on the work order.";
 
@@ -55,6 +56,8 @@ beforeAll(async () => {
   const site = await createSite(db(), { organizationId: owner.organizationId, name: "Harbor Lane Dental — main office", customerId: customer.id });
   const system = await createSystem(db(), { organizationId: owner.organizationId, siteId: site.id, name: "Rooftop heat pump", kind: "heat_pump", refrigerant: "R-454B", factoryChargeKg: 2.5, lineSetFeet: 35 });
   siteId = site.id;
+  await createJob(db(), { organizationId: owner.organizationId, visitedOn: "2026-12-02", siteId: site.id, reason: "New install", reference: "WO-4147" });
+  dupSiteId = (await createSite(db(), { organizationId: owner.organizationId, name: "Harbour Dental", customerId: null })).id;
   systemId = system.id;
   await seedTest(tech, { verdict: "pass", title: "Rooftop heat pump start-up", siteId, systemId });
   session = await launch();
@@ -90,6 +93,19 @@ describe("crews' day (phone technician, desktop lead)", () => {
     const trail = t.page.getByTestId("audit-trail");
     await shown(trail.getByText("Sent back"));
     expect(await trail.textContent()).not.toMatch(/Sent back\s*→\s*(now )?sent back/i);
+
+    // A new test: the job picker names customer and site; typing "Harbour Dental" warns of the site on file.
+    await t.page.goto("/tests/new");
+    await t.page.getByText("Add job, site and system").click();
+    const job = t.page.getByLabel("Job", { exact: true });
+    await expect.poll(async () => job.locator("option").allTextContents()).toContain("WO-4147 · 2026-12-02 · New install — Harbor Lane Dental, Harbor Lane Dental — main office");
+    await t.page.getByLabel("Site", { exact: true }).fill("Harbor Dental office");
+    const similar = t.page.getByTestId("similar-site");
+    await shown(similar);
+    expect(await similar.textContent()).toContain("Harbor Lane Dental — main office");
+    await similar.getByRole("listitem").filter({ hasText: "Harbor Lane Dental — main office" }).getByRole("button", { name: "Use this site" }).click();
+    expect(await t.page.getByLabel("Site", { exact: true }).inputValue()).toBe("Harbor Lane Dental — main office");
+    expect(await t.page.getByTestId("similar-site").count()).toBe(0);
     await t.ctx.close();
   }, 120_000);
 
@@ -191,6 +207,15 @@ describe("crews' day (phone technician, desktop lead)", () => {
 
     await o.page.goto("/tools/water");
     expect(await o.page.getByLabel("Unit").inputValue()).toBe("F");
+
+    // The duplicate site is merged into the one kept; the kept site's page opens.
+    await o.page.goto(`/records/sites/${dupSiteId}`);
+    const merge = o.page.getByTestId("merge-site");
+    await merge.getByLabel("Keep this site instead").selectOption({ label: "Harbor Lane Dental — main office · Harbor Lane Dental" });
+    await merge.getByRole("checkbox").check();
+    await merge.getByRole("button", { name: "Merge into the site kept" }).click();
+    await o.page.waitForURL(new RegExp(`/records/sites/${siteId}$`));
+    expect((await o.page.goto(`/records/sites/${dupSiteId}`))?.status()).toBe(404);
 
     await o.ctx.grantPermissions(["clipboard-read", "clipboard-write"]);
     await o.page.goto(`/tests/${leakId}`);

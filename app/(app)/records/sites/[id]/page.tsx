@@ -3,7 +3,8 @@ import { codeWords } from "@/lib/words/codes";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db/client";
-import { getSiteById, listSystemsByOrganization } from "@/db/queries/records";
+import { getSiteById, listSitesByOrganization, listSystemsByOrganization } from "@/db/queries/records";
+import { MergeSite } from "./MergeSite";
 import { Card, LinkButton } from "@/components/ui";
 import { can } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
@@ -42,6 +43,15 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         )}
       </Card>
       {can(actor.role, "records.manage") && <NewSystemForm siteId={id} />}
+      {can(actor.role, "records.manage") && (
+        <MergeSite
+          siteId={id}
+          siteName={site.name}
+          others={(await listSitesByOrganization(db(), { organizationId: actor.organizationId }))
+            .filter((s) => s.id !== id)
+            .map((s) => ({ id: s.id, name: s.name, detail: [s.customerName, s.address].filter(Boolean).join(" · ") || null }))}
+        />
+      )}
     </div>
   );
 }
