@@ -6,6 +6,7 @@
  * tap that reports the time (for pinning). Loaded with next/dynamic only (LazySeriesChart).
  */
 import { useEffect, useRef } from "react";
+import { logTickLabel, logTicks125, roundLinearTicks } from "@/components/curve/log-ticks";
 import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, type ChartConfiguration, type Plugin } from "chart.js";
 import { decimateMinMax, durationWords, microns } from "@/components/curve/model";
 import { SERIES_COLOURS, SERIES_DASHES } from "./colours";
@@ -37,11 +38,15 @@ export interface SeriesChartProps {
   heightClass?: string;
 }
 
-function logTick(value: number | string): string {
-  const v = Number(value);
-  const mant = v / 10 ** Math.floor(Math.log10(v) + 1e-9);
-  return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
-}
+
+/** The axes' tick values written on the canvas element (data-x-ticks, data-y-ticks), for people's tools and the journeys. */
+const TICKS_ON_CANVAS: Plugin<"line"> = {
+  id: "riselineTicksOnCanvas",
+  afterUpdate(chart) {
+    chart.canvas.dataset.xTicks = chart.scales.x.ticks.map((t) => t.value).join(",");
+    chart.canvas.dataset.yTicks = chart.scales.y.ticks.map((t) => t.value).join(",");
+  },
+};
 
 function markersPlugin(markers: ChartMarker[], soft: string, pinColour: string): Plugin<"line"> {
   return {
@@ -130,11 +135,14 @@ export default function SeriesChart({ series, markers = [], yScale = "log", xTit
             max: xs.length ? Math.max(...xs) : 1,
             title: { display: true, text: xTitle, color: soft, font: { size: 12 } },
             ticks: { color: soft, font: { size: 12 }, maxTicksLimit: 7 },
+            afterBuildTicks: (axis) => {
+              axis.ticks = roundLinearTicks(axis.min, axis.max).map((value) => ({ value }));
+            },
             grid: { color: grid },
           },
           y:
             yScale === "log"
-              ? { type: "logarithmic", min: ys.length ? Math.max(1, Math.min(...ys) * 0.7) : 1, max: ys.length ? Math.max(...ys) * 1.4 : 1000, title: { display: true, text: yTitle, color: soft }, ticks: { color: soft, callback: logTick }, grid: { color: grid } }
+              ? { type: "logarithmic", min: ys.length ? Math.max(1, Math.min(...ys) * 0.7) : 1, max: ys.length ? Math.max(...ys) * 1.4 : 1000, title: { display: true, text: yTitle, color: soft }, ticks: { color: soft, callback: logTickLabel, autoSkip: false }, afterBuildTicks: (axis) => { axis.ticks = logTicks125(axis.min, axis.max).map((value) => ({ value })); }, grid: { color: grid } }
               : { type: "linear", title: { display: true, text: yTitle, color: soft }, ticks: { color: soft }, grid: { color: grid } },
         },
         plugins: {
@@ -151,7 +159,7 @@ export default function SeriesChart({ series, markers = [], yScale = "log", xTit
           if (minutes != null && Number.isFinite(minutes)) pickRef.current(Math.max(0, Math.round(minutes * 60)));
         },
       },
-      plugins: [markersPlugin(markers, soft, dark ? "#f7cd6b" : "#e8a317")],
+      plugins: [markersPlugin(markers, soft, dark ? "#f7cd6b" : "#e8a317"), TICKS_ON_CANVAS],
     };
     const chart = new Chart(canvas, config);
     return () => chart.destroy();

@@ -51,7 +51,7 @@ export const casebookPins = pgTable(
   (t) => [index("casebook_pins_entry_idx").on(t.entryId)],
 );
 
-export const PRACTICE_CALLS = ["pass", "leak", "moisture", "leak_and_moisture"] as const;
+export const PRACTICE_CALLS = ["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"] as const;
 export type PracticeCall = (typeof PRACTICE_CALLS)[number];
 
 /** An apprentice's own reading of a practice test, made before the verdict was shown. */

@@ -11,6 +11,8 @@ import { DESKTOP, launch, PHONE, signInThroughPage, type Session } from "./brows
 import { addMember, appRequest, createShop, routeParams, type TestMember } from "@/tests/helpers/members";
 import { jsonInit } from "@/tests/helpers/crew";
 import { seedTest } from "@/tests/helpers/seed-test";
+import { sampleText, uploadRequest } from "@/tests/helpers/uploads";
+import { POST as uploadPost } from "@/app/api/tests/route";
 import { POST as reviewPost } from "@/app/api/tests/[id]/review/route";
 import { routeNewTestToReview } from "@/lib/review/auto";
 import { db } from "@/db/client";
@@ -25,6 +27,9 @@ let owner: TestMember;
 let siteId: string;
 let systemId: string;
 let dupSiteId: string;
+let apprentice: TestMember;
+let trainer: TestMember;
+let practiceId: string;
 const REQUEST = "Replace both core caps, pull down again and hold 15 minutes.";
 const REASON = "Customer declined the braze repair today; noted on the work order.";
 
@@ -60,6 +65,12 @@ beforeAll(async () => {
   dupSiteId = (await createSite(db(), { organizationId: owner.organizationId, name: "Harbour Dental", customerId: null })).id;
   systemId = system.id;
   await seedTest(tech, { verdict: "pass", title: "Rooftop heat pump start-up", siteId, systemId });
+  apprentice = await addMember(owner.organizationId, "apprentice", "Ada Apprentice");
+  trainer = await addMember(owner.organizationId, "trainer", "Tara Trainer");
+  // A real upload (sample-2, a leak per fixtures/samples/EXPECTED.md), so the analysis has a fitted hold to draw.
+  const up = await uploadPost(uploadRequest("/api/tests", { as: apprentice, file: { body: sampleText("sample-2-elapsed-mtorr.csv"), name: "practice.csv" }, fields: { isPractice: "true", title: "Practice: garage split" } }));
+  expect(up.status).toBe(201);
+  practiceId = (await up.json()).test.id;
   session = await launch();
 });
 afterAll(async () => {
@@ -228,4 +239,54 @@ describe("crews' day (phone technician, desktop lead)", () => {
     expect(await o.page.evaluate(() => navigator.clipboard.readText())).toBe(url);
     await o.ctx.close();
   }, 180_000);
+
+  it("apprentice (phone): the practice chart's log axis reads at 1-2-5 steps with round minutes; 'Can't tell' is an answer; the reveal draws the fit and the limit", async () => {
+    const a = await as(apprentice, PHONE);
+    await a.page.goto(`/practice/${practiceId}`);
+    const canvas = a.page.getByTestId("practice-chart").locator("canvas");
+    await shown(canvas);
+    await expect.poll(async () => canvas.getAttribute("data-y-ticks")).toBeTruthy();
+    const yTicks = (await canvas.getAttribute("data-y-ticks"))!.split(",").map(Number);
+    expect(yTicks.length).toBeGreaterThanOrEqual(4);
+    for (const v of yTicks) expect([1, 2, 5]).toContain(Math.round(v / 10 ** Math.floor(Math.log10(v))));
+    const xTicks = (await canvas.getAttribute("data-x-ticks"))!.split(",").map(Number);
+    for (const v of xTicks) expect(Number.isInteger(v)).toBe(true);
+    await a.page.getByLabel("Can't tell").check();
+    await a.page.getByLabel("Why? (a few words)").fill("The hold is short and I cannot see it settle.");
+    await a.page.getByRole("button", { name: "Make my call" }).click();
+    await shown(a.page.getByTestId("my-call"));
+    expect(await a.page.getByTestId("my-call").textContent()).toContain("Can't tell");
+    await shown(a.page.getByTestId("practice-chart-revealed").getByTestId("decay-chart"));
+    const legend = await a.page.getByTestId("practice-chart-revealed").textContent();
+    expect(legend).toContain("Fitted hold");
+    expect(legend).toContain("Limit");
+    await a.ctx.close();
+  }, 120_000);
+
+  it("trainer: 'Add to casebook' and 'Compare with…' on the test page; the overlay's minute ticks are round", async () => {
+    const tr = await as(trainer, DESKTOP);
+    const made = await tr.page.request.post("/api/casebook", { data: { title: "Leaks that look like moisture" }, headers: { origin: new URL(tr.page.url()).origin } });
+    expect(made.status()).toBe(201);
+    const collectionId = (await made.json()).collection.id as string;
+    await tr.page.goto(`/tests/${leakId}`);
+    const box = tr.page.getByTestId("trainer-shortcuts");
+    await shown(box);
+    await box.getByRole("button", { name: "Add to casebook" }).click();
+    await shown(box.getByText("Added to the collection."));
+    await tr.page.goto(`/casebook/${collectionId}`);
+    await shown(tr.page.getByText("Bakery walk-in after coil swap"));
+
+    await tr.page.goto(`/tests/${leakId}`);
+    await tr.page.getByTestId("trainer-shortcuts").getByRole("link", { name: "Compare with…" }).click();
+    await tr.page.waitForURL(new RegExp(`/compare\\?tests=${leakId}`));
+    const canvas = tr.page.locator("canvas").first();
+    await shown(canvas);
+    await expect.poll(async () => canvas.getAttribute("data-x-ticks")).toBeTruthy();
+    const xTicks = (await canvas.getAttribute("data-x-ticks"))!.split(",").map(Number);
+    expect(xTicks.length).toBeGreaterThanOrEqual(2);
+    const step = xTicks[1] - xTicks[0];
+    expect([1, 2, 5].map((m) => m * 10 ** Math.floor(Math.log10(step)))).toContain(Number(step.toPrecision(6)));
+    for (const v of xTicks) expect(Math.abs(v / step - Math.round(v / step))).toBeLessThan(1e-9);
+    await tr.ctx.close();
+  }, 120_000);
 });

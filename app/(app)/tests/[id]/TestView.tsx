@@ -23,10 +23,11 @@ import { getTestView, testViewKey, versionHref } from "./version";
 import { VersionBanner } from "./VersionBanner";
 import { CustomerNote } from "./CustomerNote";
 import { NextStep } from "./NextStep";
+import { TrainerShortcuts } from "./TrainerShortcuts";
 import { ChartTapModePicker, type ChartTapMode } from "./ChartTapMode";
 
 /** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
-export function TestView({ id, canReanalyse, canShare, userId }: { id: string; canReanalyse: boolean; canShare: boolean; userId?: string }) {
+export function TestView({ id, canReanalyse, canShare, canCurate = false, userId }: { id: string; canReanalyse: boolean; canShare: boolean; canCurate?: boolean; userId?: string }) {
   // ?analysis=<id> shows an earlier analysis version (from the history); none shows the current one.
   const analysisId = useSearchParams()?.get("analysis") || null;
   const q = useQuery({ queryKey: testViewKey(id, analysisId), queryFn: ({ signal }) => getTestView(id, analysisId, signal) });
@@ -93,6 +94,7 @@ export function TestView({ id, canReanalyse, canShare, userId }: { id: string; c
       {!earlier && <NextStep testId={id} />}
       {earlier && <VersionBanner testId={id} shown={version} />}
       <VerdictBanner analysis={analysis} />
+      {canCurate && <TrainerShortcuts testId={id} title={test.title} />}
       <div>
         <h2 className="sr-only">Curve</h2>
         <LazyDecayChart
