@@ -284,6 +284,13 @@ describe("crews' day (phone technician, desktop lead)", () => {
     await expect.poll(async () => canvas.getAttribute("data-x-ticks")).toBeTruthy();
     const xTicks = (await canvas.getAttribute("data-x-ticks"))!.split(",").map(Number);
     expect(xTicks.length).toBeGreaterThanOrEqual(2);
+    // A figure, not a check: how long /compare takes from navigation to the drawn chart (warm server).
+    for (let i = 0; i < 3; i++) {
+      const start = Date.now();
+      await tr.page.goto(`/compare?tests=${leakId},${sentBackId}`);
+      await tr.page.locator("canvas[data-x-ticks]").first().waitFor({ state: "attached", timeout: 30_000 });
+      console.log(`/compare with 2 curves, navigation to drawn chart: ${Date.now() - start} ms`);
+    }
     const step = xTicks[1] - xTicks[0];
     expect([1, 2, 5].map((m) => m * 10 ** Math.floor(Math.log10(step)))).toContain(Number(step.toPrecision(6)));
     for (const v of xTicks) expect(Math.abs(v / step - Math.round(v / step))).toBeLessThan(1e-9);
