@@ -275,6 +275,12 @@ describe("crews' day (phone technician, desktop lead)", () => {
     await shown(box.getByText("Added to the collection."));
     await tr.page.goto(`/casebook/${collectionId}`);
     await shown(tr.page.getByText("Bakery walk-in after coil swap"));
+    // The picker: searchable, one line per test with site, technician, date and the verdict in words.
+    await tr.page.getByLabel("Find by site, technician, date or verdict").fill("rooftop heat pump passed");
+    const picked = tr.page.getByLabel("Test", { exact: true });
+    const line = await picked.locator("option:checked").textContent();
+    expect(line).toMatch(/^Rooftop heat pump start-up · Harbor Lane Dental — main office · Theo Tech · .+ · Passed$/);
+    expect(await picked.locator("option").allTextContents()).not.toContainEqual(expect.stringMatching(/_/));
 
     await tr.page.goto(`/tests/${leakId}`);
     await tr.page.getByTestId("trainer-shortcuts").getByRole("link", { name: "Compare with…" }).click();

@@ -40,7 +40,7 @@ export function AddEntryForm({ collectionId, recentTests }: { collectionId: stri
       }}
     >
       <Input
-        label="Find a test"
+        label="Find by site, technician, date or verdict"
         type="search"
         value={search}
         onChange={(e) => {
@@ -49,7 +49,7 @@ export function AddEntryForm({ collectionId, recentTests }: { collectionId: stri
           const first = recentTests.find((t) => w.every((x) => pickerLabel(t).toLowerCase().includes(x)));
           if (first) setTestId(first.id);
         }}
-        hint="Site, technician, date or verdict, newest first."
+        hint="Words from the line below; newest first."
       />
       <Select label="Test" value={testId} onChange={(e) => setTestId(e.target.value)} options={(shown.length ? shown : recentTests).map((t) => ({ value: t.id, label: pickerLabel(t) }))} />
       <Input label="Title for the casebook" value={title} onChange={(e) => setTitle(e.target.value)} required maxLength={200} hint="Say what it teaches, not whose job it was." />
