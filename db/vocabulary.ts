@@ -26,7 +26,7 @@ export const PRESSURE_VERDICTS = ["holds", "drops", "rises", "stopped"] as const
 export type PressureVerdict = (typeof PRESSURE_VERDICTS)[number];
 
 /** An apprentice's call on a practice test: a verdict, never "inconclusive". */
-export const PRACTICE_CALLS = ["pass", "leak", "moisture", "leak_and_moisture"] as const satisfies readonly Verdict[];
+export const PRACTICE_CALLS = ["pass", "leak", "moisture", "leak_and_moisture", "inconclusive"] as const satisfies readonly Verdict[];
 export type PracticeCall = (typeof PRACTICE_CALLS)[number];
 
 export type { Verdict };

@@ -12,6 +12,7 @@ import type { Database } from "@/db/client";
 import { createCustomer, createJob, createSite, createSystem } from "@/db/queries/records";
 import { createRig, createRigEvent, createRigItem, upsertTestRig } from "@/db/queries/rigs";
 import { countTestsByOrganization } from "@/db/queries/vacuum-tests";
+import { backdateSeededTestEventsByOrganization } from "@/db/queries/seed-history";
 import type { Role } from "@/lib/permissions";
 import { createTestFromUpload } from "@/lib/vacuum-tests/upload";
 import { testMetadataSchema } from "@/lib/vacuum-tests/schemas";
@@ -104,5 +105,7 @@ export async function seedDemoTests(
     await upsertTestRig(db, { organizationId, testId: upload.testId, rigId: rigIds[t.crewIndex] });
     created++;
   }
+  // The queue's "waiting" age reads the event that moved a test in: dated as on the test's day.
+  await backdateSeededTestEventsByOrganization(db, { organizationId, minutesAfterTest: 20 });
   return { created, skipped: false };
 }

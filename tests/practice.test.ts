@@ -99,7 +99,7 @@ describe("the call comes before the verdict (practice calls; common practice in 
   it("the first call stands (409 on a second), and a blank reason or an unknown call is 400", async () => {
     expect((await call(leakId, crew.apprentice, { call: "leak", reason: "Changed my mind." })).status).toBe(409);
     expect((await call(passId, crew.apprentice, { call: "pass", reason: "" })).status).toBe(400);
-    expect((await call(passId, crew.apprentice, { call: "inconclusive", reason: "Not sure at all" })).status).toBe(400);
+    expect((await call(passId, crew.apprentice, { call: "no_idea", reason: "Not sure at all" })).status).toBe(400);
     expect((await view(passId, crew.apprentice)).status).toBe(200);
     expect((await (await view(passId, crew.apprentice)).json()).state).toBe("awaiting_call");
   });

@@ -34,8 +34,8 @@ describe("review state machine (product rule, lib/review/state.ts)", () => {
         else expect(c.message).toMatch(/^Cannot .+ a test that is /);
       }
     }
-    // request_review 1 + ask_help 3 + sign_off 2 + send_back 2 + resubmit 1 = 9 legal pairs of 20.
-    expect(legal).toBe(9);
+    // request_review 1 + ask_help 3 + sign_off 2 + accept_with_reason 2 + send_back 2 + resubmit 1 = 11 legal pairs of 24.
+    expect(legal).toBe(11);
     expect(checkTransition("signed_off", "send_back").ok).toBe(false);
     expect(checkTransition("sent_back", "sign_off").ok).toBe(false);
     expect(checkTransition("sent_back", "resubmit")).toEqual({ ok: true, to: "waiting_review" });

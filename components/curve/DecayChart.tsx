@@ -37,6 +37,8 @@ export interface DecayChartProps {
   onPickSeconds?: (seconds: number) => void;
   /** A chosen (not yet analysed) isolation point, seconds from the first row. */
   pickedSeconds?: number | null;
+  /** What the picked line is called on the chart: what the tap was for (default "New isolation"). */
+  pickLabel?: string;
   /** Points people refer to (comments at a time on the curve), seconds from the first row. */
   markers?: { seconds: number; label: string }[];
   /** A marker to emphasise (e.g. the comment just tapped). */
@@ -136,6 +138,7 @@ interface PhasesOptions {
   model: CurveModel;
   colors: Palette;
   picked: number | null;
+  pickLabel: string;
   marks: Marks;
 }
 
@@ -172,7 +175,7 @@ const phasesPlugin: Plugin<"line", PhasesOptions> = {
   },
   afterDatasetsDraw(chart, _args, opts) {
     if (!opts?.model) return;
-    const { model, colors, picked, marks } = opts;
+    const { model, colors, picked, pickLabel, marks } = opts;
     const vline = (xMinutes: number, color: string, label: string, dash: number[]) => drawVline(chart, colors, xMinutes, color, label, dash);
     const { ctx, chartArea, scales } = chart;
     const hline = (micronsValue: number, color: string, label: string) => {
@@ -188,7 +191,7 @@ const phasesPlugin: Plugin<"line", PhasesOptions> = {
     hline(model.limitMicrons, colors.limit, `Limit ${microns(model.limitMicrons)}`);
     hline(model.targetMicrons, colors.target, `Target ${microns(model.targetMicrons)}`);
     if (model.isolationMinutes != null) vline(model.isolationMinutes, colors.soft, "Isolated", [6, 4]);
-    if (picked != null) vline(picked / 60, colors.pick, "New isolation", []);
+    if (picked != null) vline(picked / 60, colors.pick, pickLabel, []);
     drawMarkers(chart, marks, colors);
   },
 };
@@ -271,7 +274,7 @@ function chartConfig(model: CurveModel, _themeTick: number, logScale: boolean) {
 const PLUGINS = [phasesPlugin];
 const NO_MARKERS: { seconds: number; label: string }[] = [];
 
-export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, markers = NO_MARKERS, highlightSeconds = null, className = "" }: DecayChartProps) {
+export default function DecayChart({ analysis, series, onPickSeconds, pickedSeconds = null, pickLabel = "New isolation", markers = NO_MARKERS, highlightSeconds = null, className = "" }: DecayChartProps) {
   const chartRef = useRef<Chart<"line"> | null>(null);
   const [themeTick, setThemeTick] = useState(0);
   const [logScale, setLogScale] = useState(true);
@@ -288,9 +291,9 @@ export default function DecayChart({ analysis, series, onPickSeconds, pickedSeco
   const options = useMemo<ChartOptions<"line">>(
     () => ({
       ...base.options,
-      plugins: { ...base.options.plugins, riselinePhases: { model, colors: base.colors, picked: pickedSeconds, marks: { markers, highlight: highlightSeconds } } },
+      plugins: { ...base.options.plugins, riselinePhases: { model, colors: base.colors, picked: pickedSeconds, pickLabel, marks: { markers, highlight: highlightSeconds } } },
     }),
-    [base, model, pickedSeconds, markers, highlightSeconds],
+    [base, model, pickedSeconds, pickLabel, markers, highlightSeconds],
   );
 
   /** A tap on the plot: the time under it, in seconds from the first row, within the log. */

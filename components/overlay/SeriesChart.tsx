@@ -10,6 +10,7 @@ import { useMemo, useRef, type MouseEvent } from "react";
 import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, type ChartData, type ChartOptions, type ChartType, type Plugin } from "chart.js";
 import { getRelativePosition } from "chart.js/helpers";
 import { Line } from "react-chartjs-2";
+import { logTickLabel, logTicks125, roundLinearTicks } from "@/components/curve/log-ticks";
 import { decimateMinMax, durationWords, microns } from "@/components/curve/model";
 import { SERIES_COLOURS, SERIES_DASHES } from "./colours";
 
@@ -40,11 +41,14 @@ export interface SeriesChartProps {
   heightClass?: string;
 }
 
-function logTick(value: number | string): string {
-  const v = Number(value);
-  const mant = v / 10 ** Math.floor(Math.log10(v) + 1e-9);
-  return [1, 2, 5].some((m) => Math.abs(mant - m) < 1e-6) ? v.toLocaleString("en-US") : "";
-}
+/** The axes' tick values written on the canvas element (data-x-ticks, data-y-ticks), for people's tools and the journeys. */
+const TICKS_ON_CANVAS: Plugin<"line"> = {
+  id: "riselineTicksOnCanvas",
+  afterUpdate(chart) {
+    chart.canvas.dataset.xTicks = chart.scales.x.ticks.map((t) => t.value).join(",");
+    chart.canvas.dataset.yTicks = chart.scales.y.ticks.map((t) => t.value).join(",");
+  },
+};
 
 interface MarkersOptions {
   markers: ChartMarker[];
@@ -98,7 +102,7 @@ const markersPlugin: Plugin<"line", MarkersOptions> = {
       ctx.restore();
     },
 };
-const PLUGINS = [markersPlugin];
+const PLUGINS = [markersPlugin, TICKS_ON_CANVAS];
 const NO_MARKERS: ChartMarker[] = [];
 
 /** The datasets (decimated for the axis) and options of one set of curves. */
@@ -139,11 +143,14 @@ function chartConfig(series: ChartSeries[], markers: ChartMarker[], yScale: "log
           max: xs.length ? Math.max(...xs) : 1,
           title: { display: true, text: xTitle, color: soft, font: { size: 12 } },
           ticks: { color: soft, font: { size: 12 }, maxTicksLimit: 7 },
+          afterBuildTicks: (axis) => {
+            axis.ticks = roundLinearTicks(axis.min, axis.max).map((value) => ({ value }));
+          },
           grid: { color: grid },
         },
         y:
           yScale === "log"
-            ? { type: "logarithmic", min: ys.length ? Math.max(1, Math.min(...ys) * 0.7) : 1, max: ys.length ? Math.max(...ys) * 1.4 : 1000, title: { display: true, text: yTitle, color: soft }, ticks: { color: soft, callback: logTick }, grid: { color: grid } }
+            ? { type: "logarithmic", min: ys.length ? Math.max(1, Math.min(...ys) * 0.7) : 1, max: ys.length ? Math.max(...ys) * 1.4 : 1000, title: { display: true, text: yTitle, color: soft }, ticks: { color: soft, callback: logTickLabel, autoSkip: false }, afterBuildTicks: (axis) => { axis.ticks = logTicks125(axis.min, axis.max).map((value) => ({ value })); }, grid: { color: grid } }
             : { type: "linear", title: { display: true, text: yTitle, color: soft }, ticks: { color: soft }, grid: { color: grid } },
       },
       plugins: {

@@ -18,14 +18,14 @@ export function cToF(c: number): number {
 
 export function WaterAtVacuum({ microns, className = "" }: { microns: number; className?: string }) {
   const c = iceEquilibriumC(microns);
-  if (!Number.isFinite(c)) return <p className={className}>Outside the range of the water tables (−100 to 200 °C).</p>;
+  if (!Number.isFinite(c)) return <p className={className}>Outside the range of the water tables (−148 to 392 °F, −100 to 200 °C).</p>;
   const ice = microns < TRIPLE_POINT_MICRONS;
   return (
     <p className={`text-body ${className}`} data-testid="water-at-vacuum">
       At <strong>{Math.round(microns).toLocaleString("en-US")} microns</strong> ({(microns * PA_PER_MICRON).toFixed(1)} Pa){" "}
       {ice ? "ice is in equilibrium at " : "water boils at "}
       <strong>
-        {c.toFixed(1)} °C ({cToF(c).toFixed(1)} °F)
+        {cToF(c).toFixed(1)} °F ({c.toFixed(1)} °C)
       </strong>
       {ice ? ": water left in the system boils, cools itself and can freeze; ice then goes off only slowly." : "."}
     </p>

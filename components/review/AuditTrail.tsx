@@ -26,7 +26,9 @@ export function AuditTrail({ testId }: AuditTrailProps) {
             <li key={e.id} className="border-l-2 border-surface-line pl-3">
               <p className="text-body">
                 <span className="font-medium">{e.actorName}</span> — {EVENT_LABEL[e.kind] ?? e.kind}
-                {e.toStatus && e.fromStatus !== e.toStatus && <span className="text-fg-soft"> → {STATUS_LABEL[e.toStatus]}</span>}
+                {e.toStatus && e.fromStatus !== e.toStatus && !(EVENT_LABEL[e.kind] ?? "").startsWith(STATUS_LABEL[e.toStatus]) && e.kind !== "accepted_with_reason" && (
+                  <span className="text-fg-soft"> → now {STATUS_LABEL[e.toStatus].toLowerCase()}</span>
+                )}
               </p>
               {e.note && <p className="text-body text-fg-soft whitespace-pre-wrap">{e.note}</p>}
               <p className="text-caption text-fg-faint">

@@ -4,9 +4,9 @@ import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Alert, Badge, Button, Card, Spinner, Textarea } from "@/components/ui";
 import type { ReviewAction } from "@/lib/review/state";
-import { getReviewState, postReviewAction, reviewKeys, type RetestResult } from "./api";
+import { getReviewState, postReviewAction, reviewKeys, type RetestResult, type ReviewState } from "./api";
 import { RetestForm, retestWords } from "./RetestForm";
-import { STATUS_LABEL } from "./words";
+import { STATUS_LABEL, whenWords } from "./words";
 
 export interface ReviewPanelProps {
   testId: string;
@@ -18,6 +18,7 @@ const BUTTON: Record<ReviewAction, string> = {
   request_review: "Ask for review",
   ask_help: "Ask for help",
   sign_off: "Sign off",
+  accept_with_reason: "Accept with a reason",
   send_back: "Send back",
   resubmit: "Resubmit without a new log",
 };
@@ -27,6 +28,7 @@ const NOTE_LABEL: Partial<Record<ReviewAction, string>> = {
   ask_help: "What do you need help with?",
   resubmit: "What did you change? (optional)",
   sign_off: "Note for the record (optional)",
+  accept_with_reason: "Why do you accept a test that does not pass?",
 };
 
 /**
@@ -57,7 +59,7 @@ export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
 
   if (q.isPending) return <Card title="Review"><Spinner label="Loading the review state" /></Card>;
   if (q.isError) return <Alert tone="error" title="Review state not loaded">{(q.error as Error).message}</Alert>;
-  const { status, helpRequested, actions, retest } = q.data;
+  const { status, helpRequested, actions, retest, lastStep } = q.data;
 
   const start = (a: ReviewAction) => {
     m.reset();
@@ -73,8 +75,9 @@ export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
   return (
     <Card title="Review" actions={<Badge tone={status === "signed_off" ? "pass" : status === "sent_back" ? "attention" : "brand"}>{STATUS_LABEL[status]}</Badge>} data-testid="review-panel">
       <div className="space-y-3">
+        {lastStep && <LastStep step={lastStep} />}
         {helpRequested && <p className="text-body font-medium">The technician asked for help.</p>}
-        {actions.length === 0 && <p className="text-body text-fg-soft">{status === "signed_off" ? "Signed off: this record is final." : "Nothing to do here for your role."}</p>}
+        {actions.length === 0 && <p className="text-body text-fg-soft">{status === "signed_off" ? "This record is final." : "Nothing to do here for your role."}</p>}
         {retested && <p className="text-body" role="status" data-testid="retest-done">{retestWords(retested)}</p>}
         {retesting ? (
           <RetestForm
@@ -94,9 +97,25 @@ export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
               m.mutate({ action: open, note });
             }}
           >
-            <Textarea label={NOTE_LABEL[open] ?? "Note"} value={note} onChange={(e) => setNote(e.target.value)} rows={3} required={open === "send_back" || open === "ask_help"} maxLength={2000} />
+            {open === "accept_with_reason" && (
+              <div data-testid="accept-warning">
+                <Alert tone="warning" title="This test does not pass">
+                  Its curve or its profile fails. Accepting it makes the record final and the report says it was accepted with your reason. If
+                  the system needs work, send it back instead.
+                </Alert>
+              </div>
+            )}
+            {open === "sign_off" && <p className="text-caption text-fg-soft">Signing off makes this record final.</p>}
+            <Textarea
+              label={NOTE_LABEL[open] ?? "Note"}
+              value={note}
+              onChange={(e) => setNote(e.target.value)}
+              rows={3}
+              required={open === "send_back" || open === "ask_help" || open === "accept_with_reason"}
+              maxLength={2000}
+            />
             <div className="flex flex-wrap gap-2">
-              <Button type="submit" busy={m.isPending} variant={open === "send_back" ? "attention" : "primary"}>
+              <Button type="submit" busy={m.isPending} variant={open === "send_back" || open === "accept_with_reason" ? "attention" : "primary"}>
                 {BUTTON[open]}
               </Button>
               <Button variant="quiet" onClick={() => setOpen(null)}>
@@ -128,6 +147,30 @@ export function ReviewPanel({ testId, onChanged }: ReviewPanelProps) {
         {m.isError && <Alert tone="error">{(m.error as Error).message}</Alert>}
       </div>
     </Card>
+  );
+}
+
+const STEP_WORDS: Record<string, string> = {
+  sent_back: "Sent back by",
+  signed_off: "Signed off by",
+  accepted_with_reason: "Accepted with a reason by",
+};
+
+/** What the last step said, in the lead's own words: the request to the technician, or the reason a failing test was kept. */
+function LastStep({ step }: { step: NonNullable<ReviewState["lastStep"]> }) {
+  const label = step.kind === "sent_back" ? "What the lead asked" : step.kind === "accepted_with_reason" ? "Reason for accepting it" : "Note";
+  return (
+    <div className={step.kind === "signed_off" ? "" : "rounded-card border border-flare-500 bg-surface p-3"} data-testid="review-last-step">
+      <p className="text-caption text-fg-soft">
+        {STEP_WORDS[step.kind] ?? "By"} {step.by} · <time dateTime={step.at}>{whenWords(step.at)}</time>
+      </p>
+      {step.note && (
+        <p className="text-body whitespace-pre-wrap">
+          <span className="font-medium">{label}: </span>
+          {step.note}
+        </p>
+      )}
+    </div>
   );
 }
 

@@ -5,6 +5,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Alert, Button, Card, Input, LinkButton, Textarea } from "@/components/ui";
 import { createShareLinkCall, emailReportCall, getShareLinks, reviewKeys, revokeShareLinkCall } from "./api";
 import { whenWords } from "./words";
+import { CopyButton } from "@/components/ui/CopyButton";
 
 export interface ShareActionsProps {
   testId: string;
@@ -43,6 +44,9 @@ export function ShareActions({ testId, canShare, customerEmail }: ShareActionsPr
               {newUrl && (
                 <Alert tone="success" title="Link made — copy it now, it is shown once">
                   <input readOnly value={newUrl} aria-label="Share link" className="mt-1 w-full rounded-lg border border-surface-line bg-surface-raised px-2 py-1 text-caption" onFocus={(e) => e.currentTarget.select()} />
+                  <div className="mt-2">
+                    <CopyButton text={newUrl} label="Copy the link" />
+                  </div>
                 </Alert>
               )}
               {create.isError && <Alert tone="error">{(create.error as Error).message}</Alert>}

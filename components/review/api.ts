@@ -12,6 +12,10 @@ export interface ReviewState {
   actions: ReviewAction[];
   /** The caller may upload the re-test log now. */
   retest?: boolean;
+  /** The curve or the profile fails: only "accept with a reason" signs it off. */
+  signOffNeedsReason?: boolean;
+  /** The step that put it where it is (sent back with the lead's request, signed off, accepted with a reason). */
+  lastStep?: { kind: string; by: string; at: string; note: string | null } | null;
 }
 
 export interface RetestResult {

@@ -12,6 +12,7 @@ export const EVENT_LABEL: Record<string, string> = {
   review_requested: "Asked for review",
   help_requested: "Asked for help",
   signed_off: "Signed off",
+  accepted_with_reason: "Accepted with a reason (the test does not pass)",
   sent_back: "Sent back",
   resubmitted: "Resubmitted",
   retest_uploaded: "Uploaded the re-test log and resubmitted",

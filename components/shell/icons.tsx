@@ -1,7 +1,7 @@
 /** Line icons drawn for Riseline (24 px grid, currentColor). */
 const common = { width: 24, height: 24, viewBox: "0 0 24 24", fill: "none", stroke: "currentColor", strokeWidth: 2, strokeLinecap: "round" as const, strokeLinejoin: "round" as const, "aria-hidden": true };
 
-export type IconName = "home" | "tests" | "new" | "review" | "casebook" | "tools" | "shop" | "more" | "signout" | "close";
+export type IconName = "home" | "tests" | "new" | "review" | "casebook" | "tools" | "shop" | "customers" | "mail" | "profile" | "more" | "signout" | "close";
 
 export function Icon({ name, className }: { name: IconName; className?: string }) {
   switch (name) {
@@ -19,6 +19,12 @@ export function Icon({ name, className }: { name: IconName; className?: string }
       return <svg {...common} className={className}><circle cx="12" cy="12" r="8" /><path d="M12 12 16 8" /><path d="M12 4v2M4 12h2M18 12h2" /></svg>;
     case "shop":
       return <svg {...common} className={className}><circle cx="9" cy="8" r="3" /><path d="M3 20c0-3 3-5 6-5s6 2 6 5" /><circle cx="17" cy="9" r="2.5" /><path d="M16 15c3 0 5 2 5 4.5" /></svg>;
+    case "customers":
+      return <svg {...common} className={className}><path d="M4 20V9l8-5 8 5v11" /><path d="M9 20v-6h6v6" /></svg>;
+    case "mail":
+      return <svg {...common} className={className}><rect x="3" y="5" width="18" height="14" rx="2" /><path d="m3 7 9 6 9-6" /></svg>;
+    case "profile":
+      return <svg {...common} className={className}><path d="M5 4v16M12 4v16M19 4v16" /><circle cx="5" cy="9" r="2" /><circle cx="12" cy="15" r="2" /><circle cx="19" cy="7" r="2" /></svg>;
     case "more":
       return <svg {...common} className={className}><path d="M4 7h16M4 12h16M4 17h16" /></svg>;
     case "signout":

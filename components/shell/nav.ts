@@ -19,10 +19,10 @@ export function navItemsFor(role: Role): NavItem[] {
   if (can(role, "tests.review")) items.push({ href: "/review", label: "Review", icon: "review" });
   items.push({ href: "/casebook", label: "Casebook", icon: "casebook" });
   if (role === "apprentice" || role === "trainer") items.push({ href: "/practice", label: "Practice", icon: "casebook" });
-  if (can(role, "records.manage") || can(role, "tests.read_all")) items.push({ href: "/records", label: "Customers", icon: "shop" });
+  if (can(role, "records.manage") || can(role, "tests.read_all")) items.push({ href: "/records", label: "Customers", icon: "customers" });
   items.push({ href: "/tools", label: "Tools", icon: "tools" });
-  if (can(role, "profiles.manage")) items.push({ href: "/settings/profiles", label: "Acceptance", icon: "review" });
-  if (can(role, "tests.review")) items.push({ href: "/settings/mail", label: "Mail", icon: "shop" });
+  if (can(role, "profiles.manage")) items.push({ href: "/settings/profiles", label: "Acceptance", icon: "profile" });
+  if (can(role, "tests.review")) items.push({ href: "/settings/mail", label: "Mail", icon: "mail" });
   items.push({ href: "/settings/members", label: "Shop", icon: "shop" });
   return items;
 }

@@ -10,7 +10,12 @@ export const STANDING_CAUTIONS = [
 
 export const JUDGEMENT_LINE = "Riseline supports your judgement; it does not replace the manufacturer’s procedure.";
 
-export function SafetyNote({ full = false, className = "" }: { full?: boolean; className?: string }) {
+/**
+ * `testCautions`: the cautions of this test's findings, gathered into the one safety box (listed
+ * first, each once) so the page never shows several boxes saying similar things.
+ */
+export function SafetyNote({ full = false, className = "", testCautions = [] }: { full?: boolean; className?: string; testCautions?: readonly string[] }) {
+  const forThisTest = [...new Set(testCautions)].filter((c) => !(STANDING_CAUTIONS as readonly string[]).includes(c));
   return (
     <aside aria-label="Safety" data-testid="safety-note" className={`rounded-card border-2 border-flare-500 bg-flare-100 px-4 py-3 text-ink dark:bg-surface-raised dark:text-fg ${className}`}>
       <p className="flex items-center gap-2 font-semibold">
@@ -19,6 +24,15 @@ export function SafetyNote({ full = false, className = "" }: { full?: boolean; c
       </p>
       {full && (
         <>
+          {forThisTest.length > 0 && (
+            <>
+              <p className="mt-2 text-body font-semibold">For this test</p>
+              <ul className="list-disc space-y-1 pl-6 text-body" data-testid="safety-test-cautions">
+                {forThisTest.map((c) => <li key={c}>{c}</li>)}
+              </ul>
+              <p className="mt-2 text-body font-semibold">Always</p>
+            </>
+          )}
           <ul className="mt-2 list-disc space-y-1 pl-6 text-body">
             {STANDING_CAUTIONS.map((c) => <li key={c}>{c}</li>)}
           </ul>

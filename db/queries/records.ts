@@ -138,7 +138,15 @@ export async function listJobsByOrganization(db: Db, params: { organizationId: s
   const where = params.siteId
     ? and(eq(jobs.organizationId, params.organizationId), eq(jobs.siteId, params.siteId))
     : eq(jobs.organizationId, params.organizationId);
-  return db.select(jobColumns).from(jobs).where(where).orderBy(desc(jobs.visitedOn), desc(jobs.createdAt)).limit(500);
+  // With the site's and its customer's names, so a job picker can say whose visit it was.
+  return db
+    .select({ ...jobColumns, siteName: sites.name, customerName: customers.name })
+    .from(jobs)
+    .leftJoin(sites, and(eq(sites.id, jobs.siteId), eq(sites.organizationId, jobs.organizationId)))
+    .leftJoin(customers, and(eq(customers.id, sites.customerId), eq(customers.organizationId, sites.organizationId)))
+    .where(where)
+    .orderBy(desc(jobs.visitedOn), desc(jobs.createdAt))
+    .limit(500);
 }
 
 export async function getJobById(db: Db, params: { organizationId: string; jobId: string }) {

@@ -247,20 +247,20 @@ export async function getOrganizationNameById(db: Db, params: { organizationId: 
   return row?.name ?? null;
 }
 
-/** The latest sign-off of a test with who and when, or null. */
+/** The latest sign-off of a test (plain, or an acceptance with a reason) with who and when, or null. */
 export async function getLatestSignOffByTest(db: Db, params: { organizationId: string; testId: string }) {
   const [row] = await db
-    .select({ at: testEvents.createdAt, note: testEvents.note, actorName: user.name })
+    .select({ kind: testEvents.kind, at: testEvents.createdAt, note: testEvents.note, actorName: user.name })
     .from(testEvents)
     .leftJoin(user, eq(user.id, testEvents.actorId))
-    .where(and(eq(testEvents.organizationId, params.organizationId), eq(testEvents.testId, params.testId), eq(testEvents.kind, "signed_off")))
+    .where(and(eq(testEvents.organizationId, params.organizationId), eq(testEvents.testId, params.testId), inArray(testEvents.kind, ["signed_off", "accepted_with_reason"])))
     .orderBy(desc(testEvents.createdAt))
     .limit(1);
   return row ?? null;
 }
 
 /** Review events the report tells: sign-offs, send-backs, review requests and resubmissions. */
-const REVIEW_STORY_KINDS = ["signed_off", "sent_back", "review_requested", "help_requested", "resubmitted", "retest_uploaded"] as const;
+const REVIEW_STORY_KINDS = ["signed_off", "accepted_with_reason", "sent_back", "review_requested", "help_requested", "resubmitted", "retest_uploaded"] as const;
 
 /** A test's review events, newest first, with who made each (null: Riseline itself, or a former member). */
 export async function listReviewEventsByTest(db: Db, params: { organizationId: string; testId: string }) {

@@ -10,6 +10,7 @@ export const TEST_EVENT_KINDS = [
   "review_requested",
   "help_requested",
   "signed_off",
+  "accepted_with_reason",
   "sent_back",
   "resubmitted",
   "retest_uploaded",

@@ -42,6 +42,9 @@ export const jobItemSchema = z.strictObject({
   reason: z.string().nullable(),
   reference: z.string().nullable(),
   createdAt: z.string(),
+  /** Whose job it is, for the pickers ("WO-4147 · 2026-12-02 · New install — customer, site"). */
+  siteName: z.string().nullable(),
+  customerName: z.string().nullable(),
 });
 export type JobItem = z.infer<typeof jobItemSchema>;
 

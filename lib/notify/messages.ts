@@ -65,7 +65,15 @@ export function commentMail(to: string, t: VacuumTestSummary, opts: { by: string
   });
 }
 
-export function signedOffMail(to: string, t: VacuumTestSummary, opts: { by: string; note?: string | null }): OutgoingMail {
+export function signedOffMail(to: string, t: VacuumTestSummary, opts: { by: string; note?: string | null; acceptedWithReason?: boolean }): OutgoingMail {
+  if (opts.acceptedWithReason) {
+    return composeMail({
+      to,
+      subject: `Accepted with a reason: ${t.title}`,
+      paragraphs: [`${opts.by} accepted "${t.title}" although it does not pass.`, verdictLine(t), `Reason: ${opts.note ?? ""}`],
+      link: { label: "Open the test", url: testUrl(t.id) },
+    });
+  }
   return composeMail({
     to,
     subject: `Signed off: ${t.title}`,

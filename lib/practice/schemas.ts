@@ -3,7 +3,7 @@ import { z } from "zod";
 import { PRACTICE_CALLS } from "@/db/schema";
 
 export const practiceCallSchema = z.object({
-  call: z.enum(PRACTICE_CALLS, { error: "choose pass, leak, moisture or leak_and_moisture" }),
+  call: z.enum(PRACTICE_CALLS, { error: "choose pass, leak, moisture, leak_and_moisture or inconclusive (can't tell)" }),
   reason: z.string().trim().min(3, "say in a few words why").max(1000),
 });
 export type PracticeCallInput = z.infer<typeof practiceCallSchema>;

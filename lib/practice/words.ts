@@ -9,4 +9,6 @@ export const PRACTICE_CALL_WORDS: Record<CallChoice, string> = {
   leak: "Leak",
   moisture: "Moisture",
   leak_and_moisture: "Leak and moisture",
+  /** The curve does not say: an honest answer, matched when the analysis could not tell either. */
+  inconclusive: "Can't tell",
 };

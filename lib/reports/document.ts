@@ -108,7 +108,7 @@ export function reportDocument(m: ReportModel): ReportDocument {
       heading: "Review",
       blocks: [
         { kind: "paragraph", text: m.review.headline, tone: "strong", testId: "report-signoff" },
-        ...(m.review.acceptedWithReason ? [{ kind: "paragraph" as const, text: `Accepted by ${m.review.acceptedWithReason.by} on ${m.review.acceptedWithReason.at}: ${m.review.acceptedWithReason.reason}` }] : []),
+        ...(m.review.acceptedWithReason ? [{ kind: "paragraph" as const, text: `Reason for accepting it: ${m.review.acceptedWithReason.reason}`, testId: "report-accepted-reason" }] : []),
         ...(m.review.history.length ? [{ kind: "list" as const, items: m.review.history }] : []),
       ],
     },

@@ -1,8 +1,8 @@
 /**
  * The review status of a test as the report tells it: who did what and when (sent back, signed off,
  * asked for review), in the shop's time zone. Never "not signed off" for a test that was sent back:
- * each status has its own words. An acceptance with a reason (a lead keeping a test that missed the
- * profile) has its place here for when the review records one; today's review has no such step.
+ * each status has its own words. An acceptance with a reason (a lead keeping a test whose curve or
+ * profile fails, `accepted_with_reason`) is told as such, with the reason, never as a plain sign-off.
  */
 import type { TestStatus } from "@/db/schema";
 import { whenInZone } from "./time";
@@ -20,7 +20,7 @@ export interface ReviewStory {
   headline: string;
   /** Earlier steps, newest first, one line each. */
   history: string[];
-  /** Filled when the lead accepted a test that missed the profile, with the reason; null until the review records it. */
+  /** Filled when the lead accepted a test that does not pass, with the reason; null otherwise. */
   acceptedWithReason: { by: string; at: string; reason: string } | null;
 }
 
@@ -32,6 +32,8 @@ function lineOf(e: ReviewEventRow, timeZone: string): string {
   switch (e.kind) {
     case "signed_off":
       return `Signed off by ${who(e)} on ${when}${note}.`;
+    case "accepted_with_reason":
+      return `Accepted with a reason by ${who(e)} on ${when}${note}.`;
     case "sent_back":
       return `Sent back by ${who(e)} on ${when}${note}.`;
     case "review_requested":
@@ -51,14 +53,19 @@ function lineOf(e: ReviewEventRow, timeZone: string): string {
 export function reviewStoryOf(status: TestStatus, events: ReviewEventRow[], timeZone: string): ReviewStory {
   const last = (kind: string) => events.find((e) => e.kind === kind) ?? null;
   let headline: string;
-  const signed = last("signed_off");
+  const signed = events.find((e) => e.kind === "signed_off" || e.kind === "accepted_with_reason") ?? null;
   const sent = last("sent_back");
-  if (status === "signed_off" && signed) headline = lineOf(signed, timeZone);
+  if (status === "signed_off" && signed?.kind === "accepted_with_reason") headline = `Accepted with a reason by ${who(signed)} on ${whenInZone(signed.at, timeZone)}; the test does not pass.`;
+  else if (status === "signed_off" && signed) headline = lineOf(signed, timeZone);
   else if (status === "sent_back" && sent) headline = lineOf(sent, timeZone);
   else if (status === "sent_back") headline = "Sent back for another test.";
   else if (status === "waiting_review") headline = "Waiting for a lead's review; not reviewed yet.";
   else if (status === "signed_off") headline = "Signed off.";
   else headline = "Submitted; no review asked.";
   const shown = status === "signed_off" ? signed : status === "sent_back" ? sent : null;
-  return { status, headline, history: events.filter((e) => e !== shown).map((e) => lineOf(e, timeZone)), acceptedWithReason: null };
+  const accepted =
+    status === "signed_off" && signed?.kind === "accepted_with_reason"
+      ? { by: who(signed), at: whenInZone(signed.at, timeZone), reason: signed.note ?? "" }
+      : null;
+  return { status, headline, history: events.filter((e) => e !== shown).map((e) => lineOf(e, timeZone)), acceptedWithReason: accepted };
 }

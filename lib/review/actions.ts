@@ -15,7 +15,8 @@ import { requireVisibleTest } from "@/lib/vacuum-tests/read";
 import { reviewRequestedMail, sentBackMail, signedOffMail, type VacuumTestSummary } from "@/lib/notify/messages";
 import { queueMail } from "@/lib/notify/outbox";
 import type { OutgoingMail } from "@/lib/mail";
-import { ACTION_PERMISSION, NOTE_REQUIRED, checkTransition, type ReviewAction } from "./state";
+import { getSignOffFactsByTest } from "@/db/queries/review-acceptance";
+import { ACTION_PERMISSION, NOTE_REQUIRED, checkTransition, signOffNeedsReason, signOffRuleMessage, type ReviewAction } from "./state";
 
 export interface ReviewOutcome {
   testId: string;
@@ -30,17 +31,19 @@ const EVENT_KIND = {
   request_review: "review_requested",
   ask_help: "help_requested",
   sign_off: "signed_off",
+  accept_with_reason: "accepted_with_reason",
   send_back: "sent_back",
   resubmit: "resubmitted",
 } as const;
 
 async function mailsFor(tx: Tx, actor: Actor, action: ReviewAction, summary: VacuumTestSummary, createdById: string, note: string | null): Promise<OutgoingMail[]> {
   const org = actor.organizationId;
-  if (action === "sign_off" || action === "send_back") {
+  if (action === "sign_off" || action === "accept_with_reason" || action === "send_back") {
     if (createdById === actor.userId) return [];
     const tech = await getUserEmailById(tx, { organizationId: org, userId: createdById });
     if (!tech) return [];
-    return [action === "sign_off" ? signedOffMail(tech.email, summary, { by: actor.name, note }) : sentBackMail(tech.email, summary, { by: actor.name, request: note ?? "" })];
+    if (action === "send_back") return [sentBackMail(tech.email, summary, { by: actor.name, request: note ?? "" })];
+    return [signedOffMail(tech.email, summary, { by: actor.name, note, acceptedWithReason: action === "accept_with_reason" })];
   }
   const reviewers = (await listReviewerEmailsByOrganization(tx, { organizationId: org })).filter((e) => e !== actor.email);
   return reviewers.map((to) => reviewRequestedMail(to, summary, { by: actor.name, help: action === "ask_help", note }));
@@ -59,14 +62,26 @@ export async function applyReviewAction(
     throw new AppError("forbidden", `Your role (${actor.role}) cannot ${action.replace("_", " ")} a test; a lead or the owner can.`);
   }
   if (NOTE_REQUIRED[action] && !note) {
-    throw new AppError("invalid_input", action === "send_back" ? "note: say what to do (for example: pull down again and hold 15 minutes)." : "note: say what you need help with.");
+    throw new AppError(
+      "invalid_input",
+      action === "send_back"
+        ? "note: say what to do (for example: pull down again and hold 15 minutes)."
+        : action === "accept_with_reason"
+          ? "note: say why you accept a test that does not pass (for example: customer declined the repair, recorded on the work order)."
+          : "note: say what you need help with.",
+    );
   }
   const outcome = await db.transaction(async (tx) => {
     const locked = await lockTestReviewStateById(tx, { organizationId: actor.organizationId, testId });
     if (!locked) throw new AppError("not_found", "No such test.");
     const check = checkTransition(locked.status, action);
     if (!check.ok) throw new AppError("conflict", check.message, { status: locked.status, action });
-    const helpRequested = action === "ask_help" ? true : action === "sign_off" || action === "send_back" ? false : locked.helpRequested;
+    if (action === "sign_off" || action === "accept_with_reason") {
+      const facts = await getSignOffFactsByTest(tx, { organizationId: actor.organizationId, testId });
+      const refused = signOffRuleMessage(action, signOffNeedsReason(facts.verdict, facts.meetsProfile));
+      if (refused) throw new AppError("conflict", refused, { action, verdict: facts.verdict, meetsProfile: facts.meetsProfile });
+    }
+    const helpRequested = action === "ask_help" ? true : action === "sign_off" || action === "accept_with_reason" || action === "send_back" ? false : locked.helpRequested;
     const moved = await updateTestStatusById(tx, { organizationId: actor.organizationId, testId, fromStatus: locked.status, toStatus: check.to, helpRequested });
     if (!moved) throw new AppError("conflict");
     const event = await insertTestEvent(tx, {

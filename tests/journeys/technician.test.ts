@@ -176,7 +176,8 @@ describe("technician on a phone", () => {
     await page.waitForURL(/\/vacuum-tests\/[0-9a-f-]{36}$/);
     await expectChartDrawn(page);
     await expect.poll(() => page.getByTestId("history-entry").count()).toBe(1);
-    // A tap on the chart fills the isolation field.
+    // With "Move the isolation" chosen, a tap on the chart fills the isolation field.
+    await page.getByTestId("chart-tap-mode").getByLabel("Move the isolation").check();
     const canvas = page.getByTestId("decay-chart").locator("canvas");
     const box = (await canvas.boundingBox())!;
     await canvas.tap({ position: { x: box.width * 0.7, y: box.height / 2 } });

@@ -30,7 +30,14 @@ const L = {
   plannerHistory: () => import("@/app/api/planner/history/route"),
   profileReanalysis: () => import("@/app/api/settings/profiles/[id]/reanalysis/route"),
   task: () => import("@/app/api/tasks/[id]/route"),
+  similarNames: () => import("@/app/api/records/similar/route"),
+  mergeRecords: () => import("@/app/api/records/merge/route"),
 };
+
+async function twoSpareSites(w: World): Promise<{ fromId: string; intoId: string }> {
+  const mk = async (name: string) => (await (await hit(L.sites, "POST", "/x", w.crew.owner, { body: { name } })).json()).site.id as string;
+  return { fromId: await mk("Spare site (duplicate)"), intoId: await mk("Spare site") };
+}
 
 const profile = { name: "Matrix profile", targetMicrons: 500, holdMinutes: 10, limitMicrons: 1000, leakRateMicronsPerMinute: 20 };
 
@@ -70,6 +77,18 @@ export const RECORD_PROBES: Probe[] = [
   { route: "GET /api/systems", call: (as) => hit(L.systems, "GET", "/x", as), expect: rule("member"), outsider: "no-leak" },
   { route: "POST /api/systems", call: (as, w) => hit(L.systems, "POST", "/x", as, { body: { siteId: w.siteId, name: "Matrix system" } }), expect: rule("records.manage"), outsider: 400 },
   { route: "GET /api/systems/:id", call: (as, w) => hit(L.system, "GET", "/x", as, { params: { id: w.systemId } }), expect: rule("member"), outsider: 404 },
+  {
+    route: "GET /api/records/similar",
+    call: (as) => hit(L.similarNames, "GET", "/api/records/similar?kind=site&name=Matrix%20site", as),
+    expect: rule("records.manage"),
+    outsider: "no-leak",
+  },
+  {
+    route: "POST /api/records/merge",
+    call: async (as, w) => hit(L.mergeRecords, "POST", "/x", as, { body: { kind: "site", ...(await twoSpareSites(w)) } }),
+    expect: rule("records.manage"),
+    outsider: 404,
+  },
   { route: "GET /api/jobs", call: (as) => hit(L.jobs, "GET", "/x", as), expect: rule("member"), outsider: "no-leak" },
   { route: "POST /api/jobs", call: (as, w) => hit(L.jobs, "POST", "/x", as, { body: { visitedOn: "2026-11-21", siteId: w.siteId } }), expect: rule("records.manage"), outsider: 400 },
 

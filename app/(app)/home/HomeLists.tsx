@@ -13,8 +13,11 @@ export function needsAttention(items: VacuumTestListItem[]): VacuumTestListItem[
     .sort((a, b) => rank(a) - rank(b));
 }
 
-/** My recent tests and what needs my attention. */
-export function HomeLists({ userId }: { userId: string }) {
+/**
+ * My recent tests and what needs my attention. For a reviewer (`reviewQueueCount` given) the
+ * attention count is the shop's review queue, with the member's own tests needing a look below it.
+ */
+export function HomeLists({ userId, reviewQueueCount = null }: { userId: string; reviewQueueCount?: number | null }) {
   const q = useQuery({
     queryKey: ["tests", "mine", userId],
     queryFn: ({ signal }) => listTests({ technicianId: userId, limit: 30 }, signal),
@@ -32,7 +35,7 @@ export function HomeLists({ userId }: { userId: string }) {
       </Alert>
     );
   const items = q.data.items;
-  if (items.length === 0)
+  if (items.length === 0 && !reviewQueueCount)
     return (
       <EmptyState title="No tests yet">
         After your next evacuation, upload the micron gauge’s log or type the readings. The verdict and the curve show in seconds.
@@ -40,11 +43,20 @@ export function HomeLists({ userId }: { userId: string }) {
     );
   const attention = needsAttention(items).slice(0, 5);
   const recent = items.slice(0, 5);
+  const count = reviewQueueCount ?? attention.length;
   return (
     <div className="grid gap-5 lg:grid-cols-2">
-      <Card title={`Needs your attention${attention.length ? ` (${attention.length})` : ""}`} data-testid="attention">
+      <Card title={`Needs your attention${count ? ` (${count})` : ""}`} data-testid="attention">
+        {reviewQueueCount != null && (
+          <p className="mb-3 text-body" data-testid="attention-queue">
+            <LinkButton href="/review" variant="secondary">
+              {reviewQueueCount === 1 ? "1 test waits" : `${reviewQueueCount} tests wait`} for your review
+            </LinkButton>
+          </p>
+        )}
+        {reviewQueueCount != null && attention.length > 0 && <h3 className="mb-2 text-body font-semibold">Your own tests</h3>}
         {attention.length === 0 ? (
-          <p className="text-body text-fg-soft">Nothing waiting on you. Every recent test passed or is signed off.</p>
+          <p className="text-body text-fg-soft">{reviewQueueCount != null ? "None of your own recent tests needs a look." : "Nothing waiting on you. Every recent test passed or is signed off."}</p>
         ) : (
           <ul className="space-y-3">
             {attention.map((t) => (
@@ -55,7 +67,7 @@ export function HomeLists({ userId }: { userId: string }) {
           </ul>
         )}
       </Card>
-      <Card title="Your recent tests" data-testid="recent" actions={<LinkButton href={`/vacuum-tests?technicianId=${encodeURIComponent(userId)}`} variant="quiet">All</LinkButton>}>
+      {recent.length > 0 && <Card title="Your recent tests" data-testid="recent" actions={<LinkButton href={`/vacuum-tests?technicianId=${encodeURIComponent(userId)}`} variant="quiet">All</LinkButton>}>
         <ul className="space-y-3">
           {recent.map((t) => (
             <li key={t.id}>
@@ -63,7 +75,7 @@ export function HomeLists({ userId }: { userId: string }) {
             </li>
           ))}
         </ul>
-      </Card>
+      </Card>}
     </div>
   );
 }

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState, type ReactNode } from "react";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
 import { apiFetch } from "@/lib/client/api";
+import { NameWithSimilar } from "./NameWithSimilar";
 
 const TUBE_ODS = ["1/4", "5/16", "3/8", "1/2", "5/8", "3/4", "7/8", "1-1/8", "1-3/8", "1-5/8", "2-1/8"];
 
@@ -54,7 +55,7 @@ const num = (f: FormData, k: string) => {
 export function NewCustomerForm() {
   return (
     <CreateForm title="New customer" url="/api/customers" submitLabel="Add customer" build={(f) => ({ name: str(f, "name"), email: str(f, "email"), phone: str(f, "phone") })}>
-      <Input label="Name" name="name" required className="sm:col-span-2" />
+      <NameWithSimilar kind="customer" label="Name" className="sm:col-span-2" />
       <Input label="E-mail" name="email" type="email" />
       <Input label="Phone" name="phone" type="tel" />
     </CreateForm>
@@ -64,7 +65,7 @@ export function NewCustomerForm() {
 export function NewSiteForm({ customers }: { customers: { id: string; name: string }[] }) {
   return (
     <CreateForm title="New site" url="/api/sites" submitLabel="Add site" build={(f) => ({ name: str(f, "name"), address: str(f, "address"), ...(str(f, "customerId") ? { customerId: str(f, "customerId") } : {}) })}>
-      <Input label="Site name" name="name" required />
+      <NameWithSimilar kind="site" label="Site name" />
       <Select label="Customer" name="customerId" options={[{ value: "", label: "None" }, ...customers.map((c) => ({ value: c.id, label: c.name }))]} />
       <Input label="Address" name="address" className="sm:col-span-2" />
     </CreateForm>
@@ -84,7 +85,7 @@ export function NewSystemForm({ siteId }: { siteId: string }) {
         indoorCoilLitres: num(f, "indoorCoilLitres"), outdoorUnitLitres: num(f, "outdoorUnitLitres"), installedOn: str(f, "installedOn"),
       })}
     >
-      <Input label="Name" name="name" required />
+      <NameWithSimilar kind="system" label="Name" siteId={siteId} />
       <Input label="Kind (split, packaged, walk-in…)" name="kind" />
       <Input label="Refrigerant" name="refrigerant" />
       <Input label="Factory charge (kg)" name="factoryChargeKg" inputMode="decimal" />

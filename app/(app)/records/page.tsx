@@ -8,7 +8,7 @@ import { can, canSeeCustomerContact } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
 import { NewCustomerForm, NewJobForm, NewSiteForm } from "./RecordForms";
 
-export const metadata: Metadata = { title: "Records" };
+export const metadata: Metadata = { title: "Customers" };
 export const dynamic = "force-dynamic";
 
 /** Customers, their sites and the jobs (visits) of the shop. */
@@ -26,7 +26,8 @@ export default async function RecordsPage() {
   const memberName = new Map(members.map((m) => [m.userId, m.name]));
   return (
     <div className="mx-auto w-full max-w-3xl space-y-5 px-4 py-5 sm:py-8">
-      <h1 className="text-headline">Records</h1>
+      <h1 className="text-headline">Customers</h1>
+      <p className="text-body text-fg-soft">Customers, their sites and systems, and the visits (jobs) to them.</p>
       <Card title="Sites">
         {sites.length === 0 ? (
           <EmptyState title="No sites yet">Add a site, or name one when you upload a test.</EmptyState>

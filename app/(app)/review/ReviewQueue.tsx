@@ -8,6 +8,7 @@ import { Alert, Badge, Button, EmptyState, Select, Spinner } from "@/components/
 import { VerdictBadge } from "@/components/verdict/VerdictBadge";
 import { Sparkline } from "@/components/review/Sparkline";
 import { apiFetch } from "@/lib/client/api";
+import { signOffNeedsReason } from "@/lib/review/state";
 import type { Sparkline as SparklineData } from "@/lib/review/sparkline";
 
 interface QueueItem {
@@ -81,6 +82,7 @@ export function ReviewQueue({ technicians }: { technicians: { id: string; name: 
                     <VerdictBadge verdict={t.verdict} meetsProfile={t.meetsProfile} />
                     {t.meetsProfile === false && t.verdict !== "pass" && <Badge tone="attention">Misses profile</Badge>}
                     {t.helpRequested && <Badge tone="attention">Help asked</Badge>}
+                    {signOffNeedsReason(t.verdict, t.meetsProfile) && <Badge tone="attention">Sign-off needs a reason</Badge>}
                     {t.endMicrons != null && <Badge>last reading {Math.round(t.endMicrons).toLocaleString("en-US")} microns</Badge>}
                   </div>
                 </div>

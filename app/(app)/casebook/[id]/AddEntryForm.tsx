@@ -4,13 +4,9 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { Alert, Button, Input, Select, Textarea } from "@/components/ui";
 import { sendJson } from "../send";
+import { pickerLabel, type RecentTest } from "./picker";
 
-export interface RecentTest {
-  id: string;
-  title: string;
-  verdict: string | null;
-  testedAt: string;
-}
+export type { RecentTest } from "./picker";
 
 /** A trainer adds one of the shop's tests with a title and notes. */
 export function AddEntryForm({ collectionId, recentTests }: { collectionId: string; recentTests: RecentTest[] }) {
@@ -20,6 +16,9 @@ export function AddEntryForm({ collectionId, recentTests }: { collectionId: stri
   const [notes, setNotes] = useState("");
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  const [search, setSearch] = useState("");
+  const words = search.trim().toLowerCase().split(/\s+/).filter(Boolean);
+  const shown = recentTests.filter((t) => words.every((w) => pickerLabel(t).toLowerCase().includes(w)));
   if (recentTests.length === 0) return <p className="text-body text-fg-soft">The shop has no tests yet.</p>;
   return (
     <form
@@ -40,7 +39,19 @@ export function AddEntryForm({ collectionId, recentTests }: { collectionId: stri
         }
       }}
     >
-      <Select label="Test" value={testId} onChange={(e) => setTestId(e.target.value)} options={recentTests.map((t) => ({ value: t.id, label: `${t.title} — ${new Date(t.testedAt).toLocaleDateString("en-US")}${t.verdict ? ` (${t.verdict.replace(/_/g, " ")})` : ""}` }))} />
+      <Input
+        label="Find by site, technician, date or verdict"
+        type="search"
+        value={search}
+        onChange={(e) => {
+          setSearch(e.target.value);
+          const w = e.target.value.trim().toLowerCase().split(/\s+/).filter(Boolean);
+          const first = recentTests.find((t) => w.every((x) => pickerLabel(t).toLowerCase().includes(x)));
+          if (first) setTestId(first.id);
+        }}
+        hint="Words from the line below; newest first."
+      />
+      <Select label="Test" value={testId} onChange={(e) => setTestId(e.target.value)} options={(shown.length ? shown : recentTests).map((t) => ({ value: t.id, label: pickerLabel(t) }))} />
       <Input label="Title for the casebook" value={title} onChange={(e) => setTitle(e.target.value)} required maxLength={200} hint="Say what it teaches, not whose job it was." />
       <Textarea label="Notes" value={notes} onChange={(e) => setNotes(e.target.value)} rows={3} maxLength={4000} />
       <Button type="submit" busy={busy}>Add to collection</Button>

@@ -25,7 +25,7 @@ export default async function CollectionPage({ params }: { params: Promise<{ id:
   }
   const curate = can(actor.role, "casebook.curate");
   const recent = curate
-    ? (await listTestsByOrganization(db(), { viewer: actor, filters: { limit: 60 } })).map((t) => ({ id: t.id, title: t.title, verdict: t.verdict, testedAt: t.testedAt.toISOString() }))
+    ? (await listTestsByOrganization(db(), { viewer: actor, filters: { limit: 60 } })).map((t) => ({ id: t.id, title: t.title, verdict: t.verdict, meetsProfile: t.meetsProfile, siteName: t.siteName, technicianName: t.technicianName, testedAt: t.testedAt.toISOString() }))
     : [];
   const c = detail.collection;
   return (

@@ -6,6 +6,7 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { Alert, Button, Card, Spinner, Textarea } from "@/components/ui";
 import { VerdictBanner } from "@/components/verdict/VerdictBanner";
 import { LazySeriesChart } from "@/components/overlay/LazySeriesChart";
+import { LazyDecayChart } from "@/components/curve/LazyDecayChart";
 import type { PracticeTestView } from "@/lib/practice/view";
 import { CALL_CHOICES, PRACTICE_CALL_WORDS, type CallChoice } from "@/lib/practice/words";
 import { sendJson } from "../../casebook/send";
@@ -37,7 +38,14 @@ export function PracticeCallView({ id, canCall }: { id: string; canCall: boolean
         <h1 className="text-headline break-words">{v.test.title}</h1>
       </header>
       <Card title="The curve">
-        <LazySeriesChart series={series} xTitle="minutes from the first reading" ariaLabel="The readings of this test, without the analysis." testId="practice-chart" />
+        {v.state === "revealed" && v.analysis ? (
+          // After the call: the same curve with the analysis drawn on it (fit, isolation, the profile's limit).
+          <div data-testid="practice-chart-revealed">
+            <LazyDecayChart analysis={v.analysis} series={v.series} />
+          </div>
+        ) : (
+          <LazySeriesChart series={series} xTitle="minutes from the first reading" ariaLabel="The readings of this test, without the analysis." testId="practice-chart" />
+        )}
       </Card>
       {v.state === "awaiting_call" ? (
         canCall ? (

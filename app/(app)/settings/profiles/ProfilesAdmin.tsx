@@ -64,6 +64,9 @@ export function ProfilesAdmin() {
 
   if (q.isPending) return <Spinner label="Loading profiles" />;
   if (q.isError) return <Alert tone="error">{(q.error as Error).message}</Alert>;
+  // A new profile starts from the shop's standard (its default profile), not from fixed numbers.
+  const standard = q.data.items.find((p) => p.isDefault);
+  const shopStandard: Draft = standard ? { ...toDraft(standard), name: "", makeDefault: false } : EMPTY;
   return (
     <div className="space-y-4">
       <ul className="space-y-3">
@@ -97,7 +100,7 @@ export function ProfilesAdmin() {
       </ul>
       {(makeDefault.isError || remove.isError) && <Alert tone="error">{((makeDefault.error ?? remove.error) as Error).message}</Alert>}
       <Card title="New profile" headingLevel={3}>
-        <ProfileForm key={create.isSuccess ? `done-${create.submittedAt}` : "new"} initial={EMPTY} submitLabel="Add profile" busy={create.isPending} error={create.error as Error | null} onSubmit={(d) => create.mutate(d)} />
+        <ProfileForm key={`${create.isSuccess ? `done-${create.submittedAt}` : "new"}-${standard?.id ?? "built-in"}`} initial={shopStandard} submitLabel="Add profile" busy={create.isPending} error={create.error as Error | null} onSubmit={(d) => create.mutate(d)} />
       </Card>
     </div>
   );

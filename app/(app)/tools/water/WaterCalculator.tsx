@@ -10,8 +10,9 @@ const num = (s: string) => Number(s.replace(",", "."));
 
 export function WaterCalculator() {
   const [microns, setMicrons] = useState("500");
-  const [temp, setTemp] = useState("10");
-  const [tUnit, setTUnit] = useState<"C" | "F">("C");
+  // Opens in °F, the unit the shop works in (50 °F = 10 °C).
+  const [temp, setTemp] = useState("50");
+  const [tUnit, setTUnit] = useState<"C" | "F">("F");
   const m = num(microns);
   const tC = tUnit === "C" ? num(temp) : ((num(temp) - 32) * 5) / 9;
   const pa = Number.isFinite(tC) ? waterVapourPressurePa(tC) : NaN;
@@ -25,16 +26,16 @@ export function WaterCalculator() {
       <Card title="To boil water at this temperature">
         <div className="grid gap-3 sm:grid-cols-2">
           <Input label="Temperature" inputMode="decimal" value={temp} onChange={(e) => setTemp(e.target.value)} />
-          <Select label="Unit" value={tUnit} onChange={(e) => setTUnit(e.target.value as "C" | "F")} options={[{ value: "C", label: "°C" }, { value: "F", label: "°F" }]} />
+          <Select label="Unit" value={tUnit} onChange={(e) => setTUnit(e.target.value as "C" | "F")} options={[{ value: "F", label: "°F" }, { value: "C", label: "°C" }]} />
         </div>
         <p className="mt-3 text-body" data-testid="vacuum-needed">
           {Number.isFinite(needMicrons) ? (
             <>
-              Below <strong>{Math.round(needMicrons).toLocaleString("en-US")} microns</strong> ({pa.toFixed(1)} Pa) water at {tC.toFixed(1)} °C ({cToF(tC).toFixed(1)} °F){" "}
+              Below <strong>{Math.round(needMicrons).toLocaleString("en-US")} microns</strong> ({pa.toFixed(1)} Pa) water at {cToF(tC).toFixed(1)} °F ({tC.toFixed(1)} °C){" "}
               {needMicrons < TRIPLE_POINT_MICRONS ? "as ice sublimes (it is below the triple point)." : "boils."}
             </>
           ) : (
-            "Outside the range of the water tables (−100 to 200 °C)."
+            "Outside the range of the water tables (−148 to 392 °F, −100 to 200 °C)."
           )}
         </p>
       </Card>

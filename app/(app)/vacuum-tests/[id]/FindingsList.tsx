@@ -18,7 +18,7 @@ function evidenceText(v: number | string | boolean | null): string {
 }
 
 /** Each sign in the log: what it means, what to check, and its cautions shown prominently. */
-export function FindingsList({ findings }: { findings: Finding[] }) {
+export function FindingsList({ findings, cautionsInSafetyBox = false }: { findings: Finding[]; cautionsInSafetyBox?: boolean }) {
   if (findings.length === 0) return null;
   const sorted = [...findings].sort((a, b) => ORDER.indexOf(a.severity) - ORDER.indexOf(b.severity));
   return (
@@ -37,7 +37,8 @@ export function FindingsList({ findings }: { findings: Finding[] }) {
               </div>
               <p className="mt-1 text-body">{f.message}</p>
               {f.atSeconds != null && <p className="text-caption text-fg-soft">At {durationWords(f.atSeconds)} from the start.</p>}
-              {f.cautions.length > 0 && (
+              {f.cautions.length > 0 && cautionsInSafetyBox && <p className="mt-1 text-caption font-medium">Its caution is in the Safety box.</p>}
+              {f.cautions.length > 0 && !cautionsInSafetyBox && (
                 <div className="mt-2 rounded-lg border-2 border-flare-500 bg-flare-100 px-3 py-2 text-ink dark:bg-surface-sunken dark:text-fg" role="note">
                   <p className="font-semibold">Caution</p>
                   <ul className="list-disc pl-5 text-body">

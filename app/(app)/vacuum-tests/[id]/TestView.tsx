@@ -23,13 +23,19 @@ import { useTestDetail } from "@/lib/client/queries";
 import { versionHref } from "./version";
 import { VersionBanner } from "./VersionBanner";
 import { CustomerNote } from "./CustomerNote";
+import { NextStep } from "./NextStep";
+import { TrainerShortcuts } from "./TrainerShortcuts";
+import { ChartTapModePicker, type ChartTapMode } from "./ChartTapMode";
 
 /** The test page: verdict, curve, numbers, forecast, findings, re-analysis and history. */
-export function TestView({ id, canReanalyse, canShare, userId }: { id: string; canReanalyse: boolean; canShare: boolean; userId?: string }) {
+export function TestView({ id, canReanalyse, canShare, canCurate = false, userId }: { id: string; canReanalyse: boolean; canShare: boolean; canCurate?: boolean; userId?: string }) {
   // ?analysis=<id> shows an earlier analysis version (from the history); none shows the current one.
   const analysisId = useSearchParams()?.get("analysis") || null;
   const q = useTestDetail(id, analysisId);
   const comments = useQuery({ queryKey: reviewKeys.comments(id), queryFn: ({ signal }) => getComments(id, signal) });
+  // A tap does one named thing: a comment's minute and the isolation for "Analyse again" are kept apart.
+  const [tapMode, setTapMode] = useState<ChartTapMode>("comment");
+  const [commentAt, setCommentAt] = useState<number | null>(null);
   const [picked, setPicked] = useState<number | null>(null);
   const [shown, setShown] = useState<number | null>(null);
   const markers = useMemo(
@@ -69,6 +75,7 @@ export function TestView({ id, canReanalyse, canShare, userId }: { id: string; c
   const { test, analysis, series, history, upload, shown: version } = q.data;
   const earlier = !!version && !version.isCurrent;
   const where = [test.site?.name, test.system?.name].filter(Boolean).join(" · ");
+  const movesIsolation = tapMode === "isolation" && canReanalyse && !earlier;
   return (
     <div className="space-y-5">
       <header className="space-y-1">
@@ -85,25 +92,34 @@ export function TestView({ id, canReanalyse, canShare, userId }: { id: string; c
           </p>
         )}
       </header>
+      {!earlier && <NextStep testId={id} />}
       {earlier && <VersionBanner testId={id} shown={version} />}
       <VerdictBanner analysis={analysis} />
+      {canCurate && <TrainerShortcuts testId={id} title={test.title} />}
       <div>
         <h2 className="sr-only">Curve</h2>
-        <LazyDecayChart analysis={analysis} series={series} onPickSeconds={setPicked} pickedSeconds={picked} markers={markers} highlightSeconds={shown} />
-        <p className="mt-1 text-caption text-fg-soft">
-          Tap the chart to pick a time: {canReanalyse && !earlier ? "move the isolation point (“Analyse again” below) or " : ""}comment at that minute.
-        </p>
+        <LazyDecayChart
+          analysis={analysis}
+          series={series}
+          onPickSeconds={movesIsolation ? setPicked : setCommentAt}
+          pickedSeconds={movesIsolation ? picked : commentAt}
+          pickLabel={movesIsolation ? "New isolation" : "Comment here"}
+          markers={markers}
+          highlightSeconds={shown}
+        />
+        <ChartTapModePicker mode={tapMode} onMode={setTapMode} canMoveIsolation={canReanalyse && !earlier} />
       </div>
       <div className="grid gap-5 lg:grid-cols-2">
         <NumbersPanel analysis={analysis} />
         <div className="space-y-5">
-          <SafetyNote full />
+          <SafetyNote full testCautions={analysis.findings.flatMap((f) => f.cautions)} />
         </div>
       </div>
-      <FindingsList findings={analysis.findings} />
+      <FindingsList findings={analysis.findings} cautionsInSafetyBox />
       <PlanCompare analysis={analysis} series={series} volumeLitres={test.volumeLitres ?? null} />
       <RigForTest testId={id} targetNotReached={analysis.findings.some((f) => f.code === "target_not_reached")} />
-      <TestReviewSection testId={id} canShare={canShare} pickedSeconds={picked} onShowSeconds={setShown} onChanged={() => void q.refetch()} />
+      <div id="review" className="scroll-mt-4" />
+      <TestReviewSection testId={id} canShare={canShare} pickedSeconds={commentAt} onShowSeconds={setShown} onChanged={() => void q.refetch()} />
       <div className="grid gap-5 lg:grid-cols-2">
         {canReanalyse && !earlier && <ReanalyseForm testId={id} analysis={analysis} fromFile={!!upload} pickedSeconds={picked} onPick={setPicked} />}
         <div className="space-y-5">

@@ -1,6 +1,7 @@
 "use client";
 
 import { useId } from "react";
+import { SimilarNames } from "@/components/records/SimilarNames";
 import { useQuery } from "@tanstack/react-query";
 import { Input, Select, Textarea } from "@/components/ui";
 import { listJobs, listSites, listSystems, type JobItem } from "@/lib/client/api";
@@ -16,7 +17,9 @@ interface Props {
 const NEW_VISIT = "new";
 
 function jobLabel(j: JobItem): string {
-  return [j.reference, j.visitedOn, j.reason].filter(Boolean).join(" · ") || "Job";
+  const what = [j.reference, j.visitedOn, j.reason].filter(Boolean).join(" · ") || "Job";
+  const whose = [j.customerName, j.siteName && j.siteName !== j.customerName ? j.siteName : null].filter(Boolean).join(", ");
+  return whose ? `${what} — ${whose}` : what;
 }
 
 function match(list: { id: string; name: string }[] | undefined, name: string): string {
@@ -72,6 +75,9 @@ export function ContextForm({ value, onChange, canCreateJob }: Props) {
           }}
           hint={isNewSite ? `A new site “${value.siteName.trim()}” will be created.` : undefined}
         />
+        {isNewSite && canCreateJob && (
+          <SimilarNames kind="site" name={value.siteName} onUse={(m) => onChange({ ...value, siteName: m.name, siteId: m.id, systemId: "" })} />
+        )}
         <datalist id={`${ids}-sites`}>
           {sites.data?.map((s) => <option key={s.id} value={s.name} />)}
         </datalist>
@@ -87,6 +93,9 @@ export function ContextForm({ value, onChange, canCreateJob }: Props) {
           onChange={(e) => onChange({ ...value, systemName: e.target.value, systemId: match(systems.data, e.target.value) })}
           hint={!value.siteName.trim() ? "Choose a site first." : isNewSystem ? `A new system “${value.systemName.trim()}” will be created.` : undefined}
         />
+        {isNewSystem && canCreateJob && value.siteId && (
+          <SimilarNames kind="system" name={value.systemName} siteId={value.siteId} onUse={(m) => onChange({ ...value, systemName: m.name, systemId: m.id })} />
+        )}
         <datalist id={`${ids}-systems`}>
           {systems.data?.map((s) => <option key={s.id} value={s.name} />)}
         </datalist>

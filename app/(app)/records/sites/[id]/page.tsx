@@ -1,8 +1,10 @@
 import type { Metadata } from "next";
+import { codeWords } from "@/lib/words/codes";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db/client";
-import { getSiteById, listSystemsByOrganization } from "@/db/queries/records";
+import { getSiteById, listSitesByOrganization, listSystemsByOrganization } from "@/db/queries/records";
+import { MergeSite } from "./MergeSite";
 import { Card, LinkButton } from "@/components/ui";
 import { can } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
@@ -21,7 +23,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   const systems = await listSystemsByOrganization(db(), { organizationId: actor.organizationId, siteId: id });
   return (
     <div className="mx-auto w-full max-w-3xl space-y-5 px-4 py-5 sm:py-8">
-      <LinkButton href="/records" variant="quiet">← Records</LinkButton>
+      <LinkButton href="/records" variant="quiet">← Customers</LinkButton>
       <div>
         <h1 className="text-headline">{site.name}</h1>
         <p className="text-body text-fg-soft">{[site.address, site.customerName].filter(Boolean).join(" · ") || "No address on file"}</p>
@@ -34,13 +36,22 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
             {systems.map((s) => (
               <li key={s.id} className="py-2">
                 <Link href={`/records/systems/${s.id}`} className="font-medium text-tide-700 underline dark:text-tide-200">{s.name}</Link>
-                <p className="text-caption text-fg-soft">{[s.kind, s.refrigerant, s.installedOn ? `installed ${s.installedOn}` : null].filter(Boolean).join(" · ")}</p>
+                <p className="text-caption text-fg-soft">{[codeWords(s.kind), s.refrigerant, s.installedOn ? `installed ${s.installedOn}` : null].filter(Boolean).join(" · ")}</p>
               </li>
             ))}
           </ul>
         )}
       </Card>
       {can(actor.role, "records.manage") && <NewSystemForm siteId={id} />}
+      {can(actor.role, "records.manage") && (
+        <MergeSite
+          siteId={id}
+          siteName={site.name}
+          others={(await listSitesByOrganization(db(), { organizationId: actor.organizationId }))
+            .filter((s) => s.id !== id)
+            .map((s) => ({ id: s.id, name: s.name, detail: [s.customerName, s.address].filter(Boolean).join(" · ") || null }))}
+        />
+      )}
     </div>
   );
 }

@@ -1,4 +1,6 @@
 import type { Metadata } from "next";
+import { chargeWords } from "@/lib/words/charge";
+import { codeWords } from "@/lib/words/codes";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import type { Verdict } from "@/analysis/decay/types";
@@ -23,9 +25,9 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
   if (!h) notFound();
   const s = h.system;
   const facts: [string, string | null][] = [
-    ["Kind", s.kind],
+    ["Kind", codeWords(s.kind)],
     ["Refrigerant", s.refrigerant],
-    ["Factory charge", s.factoryChargeKg != null ? `${s.factoryChargeKg} kg` : null],
+    ["Factory charge", s.factoryChargeKg != null ? chargeWords(s.factoryChargeKg) : null],
     ["Line set", s.lineSetFeet != null ? `${s.lineSetFeet} ft${s.liquidOd ? `, ${s.liquidOd} in. liquid` : ""}${s.suctionOd ? ` / ${s.suctionOd} in. suction` : ""}` : null],
     ["Indoor coil", s.indoorCoilLitres != null ? `${s.indoorCoilLitres} L` : null],
     ["Outdoor unit", s.outdoorUnitLitres != null ? `${s.outdoorUnitLitres} L` : null],

@@ -1,0 +1,15 @@
+import { z } from "zod";
+import { db } from "@/db/client";
+import { mergeRecordsById } from "@/db/queries/record-merge";
+import { route } from "@/lib/api/handler";
+
+const mergeSchema = z.object({
+  kind: z.enum(["customer", "site", "system"]),
+  fromId: z.string().uuid("fromId: not a record id"),
+  intoId: z.string().uuid("intoId: not a record id"),
+});
+
+/** POST /api/records/merge — a duplicate customer, site or system merged into the one kept: { kind, intoId, moved }. */
+export const POST = route({ permission: "records.manage", body: mergeSchema }, async ({ actor, body }) =>
+  mergeRecordsById(db(), { organizationId: actor.organizationId, kind: body.kind, fromId: body.fromId, intoId: body.intoId }),
+);
