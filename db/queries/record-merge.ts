@@ -7,7 +7,6 @@
 import { and, eq, sql } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { customers, jobs, sites, systems, vacuumTests } from "@/db/schema";
-import { AppError } from "@/lib/errors";
 import type { RecordKind } from "./similar-names";
 
 export interface MergeOutcome {
@@ -18,9 +17,12 @@ export interface MergeOutcome {
 
 const TABLE = { customer: customers, site: sites, system: systems } as const;
 
-export async function mergeRecordsById(db: Database, params: { organizationId: string; kind: RecordKind; fromId: string; intoId: string }): Promise<MergeOutcome> {
+/** The merge, or which of the two ids names no record of this kind in the organization (nothing changed). */
+export async function mergeRecordsById(
+  db: Database,
+  params: { organizationId: string; kind: RecordKind; fromId: string; intoId: string },
+): Promise<MergeOutcome | { missing: "fromId" | "intoId" }> {
   const { organizationId: org, kind, fromId, intoId } = params;
-  if (fromId === intoId) throw new AppError("invalid_input", "intoId: a record cannot be merged into itself.", { field: "intoId" });
   return db.transaction(async (tx) => {
     const table = TABLE[kind];
     const found = await tx
@@ -28,8 +30,8 @@ export async function mergeRecordsById(db: Database, params: { organizationId: s
       .from(table)
       .where(and(eq(table.organizationId, org), sql`${table.id} in (${fromId}, ${intoId})`))
       .for("update");
-    if (!found.some((r) => r.id === fromId)) throw new AppError("not_found", `fromId: no such ${kind} in your organization.`, { field: "fromId" });
-    if (!found.some((r) => r.id === intoId)) throw new AppError("not_found", `intoId: no such ${kind} in your organization.`, { field: "intoId" });
+    if (!found.some((r) => r.id === fromId)) return { missing: "fromId" as const };
+    if (!found.some((r) => r.id === intoId)) return { missing: "intoId" as const };
     const moved = { tests: 0, jobs: 0, sites: 0, systems: 0 };
     if (kind === "customer") {
       moved.sites = (await tx.update(sites).set({ customerId: intoId }).where(and(eq(sites.organizationId, org), eq(sites.customerId, fromId)))).rowCount ?? 0;

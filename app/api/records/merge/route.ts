@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { db } from "@/db/client";
-import { mergeRecordsById } from "@/db/queries/record-merge";
+import { mergeDuplicateRecord } from "@/lib/records/merge";
 import { route } from "@/lib/api/handler";
 
 const mergeSchema = z.object({
@@ -11,5 +11,5 @@ const mergeSchema = z.object({
 
 /** POST /api/records/merge — a duplicate customer, site or system merged into the one kept: { kind, intoId, moved }. */
 export const POST = route({ permission: "records.manage", body: mergeSchema }, async ({ actor, body }) =>
-  mergeRecordsById(db(), { organizationId: actor.organizationId, kind: body.kind, fromId: body.fromId, intoId: body.intoId }),
+  mergeDuplicateRecord(db(), { organizationId: actor.organizationId, kind: body.kind, fromId: body.fromId, intoId: body.intoId }),
 );
