@@ -26,6 +26,8 @@ const L = {
   settingsProfiles: () => import("@/app/api/settings/profiles/route"),
   settingsProfile: () => import("@/app/api/settings/profiles/[id]/route"),
   profileDefault: () => import("@/app/api/settings/profiles/[id]/default/route"),
+  profileReanalysis: () => import("@/app/api/settings/profiles/[id]/reanalysis/route"),
+  task: () => import("@/app/api/tasks/[id]/route"),
   shopSettings: () => import("@/app/api/settings/shop/route"),
   plannerHistory: () => import("@/app/api/planner/history/route"),
 };
@@ -192,6 +194,20 @@ export const RECORD_PROBES: Probe[] = [
     route: "POST /api/settings/profiles/:id/default",
     call: (as, w) => hit(L.profileDefault, "POST", "/x", as, { params: { id: w.profileId } }),
     expect: rule("profiles.manage"),
+    outsider: 404,
+  },
+  {
+    route: "POST /api/settings/profiles/:id/reanalysis",
+    // A profile no test was judged by: 200 { task: null }, nothing re-checked in the shared world.
+    call: async (as, w) => hit(L.profileReanalysis, "POST", "/x", as, { body: {}, params: { id: await freshProfile(w) } }),
+    expect: rule("profiles.manage"),
+    outsider: 404,
+  },
+  {
+    route: "GET /api/tasks/:id",
+    // Tasks are the person's own (lib/jobs/tasks.ts): an id that is not theirs answers 404 to every role.
+    call: (as) => hit(L.task, "GET", "/x", as, { params: { id: "00000000-0000-4000-8000-000000000000" } }),
+    expect: () => 404,
     outsider: 404,
   },
 ];

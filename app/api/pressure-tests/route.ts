@@ -9,7 +9,7 @@ import { assertSameRequest, requestFingerprint } from "@/lib/vacuum-tests/idempo
 import { idempotencyKeySchema, parseInput } from "@/lib/vacuum-tests/schemas";
 
 /** Nitrogen tests the caller may see (same rule as vacuum tests), optionally for one job. */
-export const GET = route({ permission: "member", query: pressureTestListQuery }, async ({ actor, query }) => {
+export const GET = route({ policy: "pressureTest.list", query: pressureTestListQuery }, async ({ actor, query }) => {
   return { items: await listPressureTestsByViewer(db(), { viewer: viewerOf(actor), jobId: query.jobId }) };
 });
 
@@ -21,7 +21,7 @@ export const GET = route({ permission: "member", query: pressureTestListQuery },
  * a retry with the same key and request answers 200 with the record already made, the same key
  * with another request is a 422, and two concurrent twins make one record.
  */
-export const POST = route({ permission: "tests.upload", body: pressureTestCreateSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ req, actor, body }) => {
+export const POST = route({ policy: "pressureTest.record", body: pressureTestCreateSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ req, actor, body }) => {
   const rawKey = req.headers.get("idempotency-key");
   const idempotencyKey = rawKey === null ? null : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const fingerprint = requestFingerprint("POST /api/pressure-tests", { body });
