@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { route } from "@/lib/api/handler";
-import { PERMISSIONS, ROLES, can, type Permission, type Role } from "@/lib/permissions";
+import { PERMISSIONS, POLICIES, ROLES, can, type Permission, type PolicyName, type Role } from "@/lib/permissions";
 import { appRequest, createCrew, routeParams, type TestMember } from "./helpers/members";
 
 /**
@@ -23,10 +23,16 @@ const PROMISED: Record<Permission, readonly Role[]> = {
   "profiles.manage": ["owner", "lead"],
 };
 
-/** One probe per permission, built with the real wrapper: the only thing it checks is the role. */
-const PROBES: Record<Permission, ReturnType<typeof route>> = Object.fromEntries(
-  (Object.keys(PROMISED) as Permission[]).map((p) => [p, route({ permission: p }, async ({ actor }) => ({ ok: true, role: actor.role }))]),
-) as Record<Permission, ReturnType<typeof route>>;
+/** One probe per policy, built with the real wrapper: the only thing it checks is the role. */
+const PROBES: Record<PolicyName, ReturnType<typeof route>> = Object.fromEntries(
+  (Object.keys(POLICIES) as PolicyName[]).map((p) => [p, route({ policy: p }, async ({ actor }) => ({ ok: true, role: actor.role }))]),
+) as Record<PolicyName, ReturnType<typeof route>>;
+
+/** The roles a policy's permission row promises ("member": every role). */
+const promisedFor = (policy: PolicyName): readonly Role[] => {
+  const p = POLICIES[policy].permission;
+  return p === "member" ? ROLES : PROMISED[p];
+};
 
 type Handler = (req: Request, ctx?: { params: Promise<Record<string, string>> }) => Promise<Response>;
 interface RealCall {
@@ -78,20 +84,22 @@ beforeAll(async () => {
 });
 
 describe("permission matrix (common practice, no published source: least privilege per role)", () => {
-  it("has a probe and a promised row for every permission in lib/permissions.ts, and no extra ones", () => {
-    expect(Object.keys(PROBES).sort()).toEqual(Object.keys(PERMISSIONS).sort());
+  it("has a probe for every policy and a promised row for every permission in lib/permissions.ts, and no extra ones", () => {
+    expect(Object.keys(PROBES).sort()).toEqual(Object.keys(POLICIES).sort());
     expect(Object.keys(PROMISED).sort()).toEqual(Object.keys(PERMISSIONS).sort());
+    // Every policy stands on a row of the matrix (or any member), never on a role list of its own.
+    for (const p of Object.values(POLICIES)) expect([...Object.keys(PERMISSIONS), "member"]).toContain(p.permission);
   });
 
   it.each(Object.keys(PERMISSIONS) as Permission[])("lib/permissions.ts grants %s to exactly the promised roles", (p) => {
     expect(ROLES.filter((r) => can(r, p))).toEqual(PROMISED[p]);
   });
 
-  it.each(Object.keys(PERMISSIONS) as Permission[])("route({ permission: %s }) lets the promised roles through, refuses the rest with 403 and anonymous with 401", async (p) => {
+  it.each(Object.keys(POLICIES) as PolicyName[])("route({ policy: %s }) lets the roles of its permission row through, refuses the rest with 403 and anonymous with 401", async (p) => {
     const probe = PROBES[p];
     for (const role of ROLES) {
       const res = await probe(appRequest("/probe", { as: crew[role] }));
-      const allowed = PROMISED[p].includes(role);
+      const allowed = promisedFor(p).includes(role);
       expect(res.status, `${p} as ${role}`).toBe(allowed ? 200 : 403);
       const body = await res.json();
       if (allowed) expect(body.role).toBe(role);

@@ -64,21 +64,24 @@ export async function claimOutboxMailById(db: Db, params: { organizationId: stri
   const [claimed] = await db
     .update(mailOutbox)
     .set({ attempts: sql`${mailOutbox.attempts} + 1` })
-    .where(inArray(mailOutbox.id, locked))
+    .where(and(eq(mailOutbox.organizationId, params.organizationId), inArray(mailOutbox.id, locked)))
     .returning();
   return claimed ?? null;
 }
 
-export async function markOutboxMailSent(db: Db, params: { id: string }) {
-  await db.update(mailOutbox).set({ status: "sent", sentAt: new Date(), lastError: null, nextAttemptAt: null }).where(eq(mailOutbox.id, params.id));
+export async function markOutboxMailSent(db: Db, params: { organizationId: string; id: string }) {
+  await db
+    .update(mailOutbox)
+    .set({ status: "sent", sentAt: new Date(), lastError: null, nextAttemptAt: null })
+    .where(and(eq(mailOutbox.organizationId, params.organizationId), eq(mailOutbox.id, params.id)));
 }
 
 /** A failed try: the error, and when the next one is due. */
-export async function markOutboxMailFailed(db: Db, params: { id: string; error: string; nextAttemptAt: Date }) {
+export async function markOutboxMailFailed(db: Db, params: { organizationId: string; id: string; error: string; nextAttemptAt: Date }) {
   await db
     .update(mailOutbox)
     .set({ status: "failed", lastError: params.error.slice(0, 500), nextAttemptAt: params.nextAttemptAt })
-    .where(eq(mailOutbox.id, params.id));
+    .where(and(eq(mailOutbox.organizationId, params.organizationId), eq(mailOutbox.id, params.id)));
 }
 
 /** No more automatic tries (the dead-letter state); a person may still send it again. */
@@ -101,7 +104,7 @@ export async function requeueUnsentOutboxMail(db: Db, params: { organizationId: 
   const rows = await db
     .update(mailOutbox)
     .set({ status: "pending", nextAttemptAt: new Date(), retryUntil: sql`now() + interval '24 hours'` })
-    .where(inArray(mailOutbox.id, picked))
+    .where(and(eq(mailOutbox.organizationId, params.organizationId), inArray(mailOutbox.id, picked)))
     .returning({ id: mailOutbox.id });
   return rows.map((r) => r.id);
 }

@@ -1,4 +1,4 @@
-import { and, desc, eq, type SQL } from "drizzle-orm";
+import { and, desc, eq, getTableColumns, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { jobs, pressureTests, user } from "@/db/schema";
 import { canReadAllTests } from "@/db/roles";
@@ -13,9 +13,28 @@ export function visiblePressureTestsWhere(viewer: Viewer): SQL {
   return canReadAllTests(viewer.role) ? org : and(org, eq(pressureTests.createdById, viewer.userId))!;
 }
 
+/** The record as answered: every column but the key bookkeeping. */
+const { idempotencyKey: _key, requestFingerprint: _fingerprint, ...SHOWN } = getTableColumns(pressureTests);
+void _key;
+void _fingerprint;
+
+/**
+ * Insert a nitrogen test. With an Idempotency-Key, a concurrent twin with the same key (same
+ * person, same shop) loses on the unique index: null, and the caller answers with the winner.
+ */
 export async function createPressureTest(db: Db, params: NewPressureTest & { organizationId: string }) {
-  const [row] = await db.insert(pressureTests).values(params).returning();
-  return row;
+  const [row] = await db.insert(pressureTests).values(params).onConflictDoNothing().returning(SHOWN);
+  return row ?? null;
+}
+
+/** The test a person already made with an Idempotency-Key, with the fingerprint of that request; null when the key is new. */
+export async function getPressureTestByKey(db: Db, params: { organizationId: string; userId: string; key: string }) {
+  const [row] = await db
+    .select({ test: SHOWN, requestFingerprint: pressureTests.requestFingerprint })
+    .from(pressureTests)
+    .where(and(eq(pressureTests.organizationId, params.organizationId), eq(pressureTests.createdById, params.userId), eq(pressureTests.idempotencyKey, params.key)))
+    .limit(1);
+  return row ?? null;
 }
 
 /** Nitrogen tests the viewer may see, newest first, optionally for one job. */
@@ -48,7 +67,7 @@ export async function listPressureTestsByViewer(db: Db, params: { viewer: Viewer
 /** One nitrogen test the viewer may see; null when unknown, other org or not visible. */
 export async function getPressureTestById(db: Db, params: { viewer: Viewer; pressureTestId: string }) {
   const [row] = await db
-    .select({ test: pressureTests, createdByName: user.name })
+    .select({ test: SHOWN, createdByName: user.name })
     .from(pressureTests)
     .innerJoin(user, eq(user.id, pressureTests.createdById))
     .where(and(eq(pressureTests.id, params.pressureTestId), visiblePressureTestsWhere(params.viewer)))

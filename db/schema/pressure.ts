@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { pgTable, text, timestamp, uuid, real, jsonb, index, check } from "drizzle-orm/pg-core";
+import { pgTable, text, timestamp, uuid, real, jsonb, index, check, uniqueIndex } from "drizzle-orm/pg-core";
 import type { NitrogenResult } from "@/analysis/calculators/nitrogen";
 import { organization, user } from "./auth";
 import { PRESSURE_VERDICTS } from "@/db/vocabulary";
@@ -47,12 +47,17 @@ export const pressureTests = pgTable(
     verdict: text("verdict", { enum: PRESSURE_VERDICTS }).notNull(),
     result: jsonb("result").$type<NitrogenResult>().notNull(),
     notes: text("notes"),
+    /** The Idempotency-Key the record was made with (a retry answers with this record), scoped to the person who sent it. */
+    idempotencyKey: text("idempotency_key"),
+    /** SHA-256 of the create request's meaning: the same key with another request is refused (422). */
+    requestFingerprint: text("request_fingerprint"),
     testedAt: timestamp("tested_at", { withTimezone: true }).defaultNow().notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
   },
   (t) => [
     index("pressure_tests_org_tested_idx").on(t.organizationId, t.testedAt),
     index("pressure_tests_org_creator_idx").on(t.organizationId, t.createdById),
+    uniqueIndex("pressure_tests_key_idx").on(t.organizationId, t.createdById, t.idempotencyKey),
     check("pressure_tests_over_pressure_acknowledged", sql`${t.verdict} <> 'stopped' OR (${t.overPressureAcknowledgedAt} IS NOT NULL AND ${t.overPressureAcknowledgedById} IS NOT NULL)`),
     oneOf("pressure_tests_verdict_check", t.verdict, PRESSURE_VERDICTS),
     check("pressure_tests_times_in_order", sql`${t.startedAt} IS NULL OR ${t.endedAt} IS NULL OR ${t.endedAt} > ${t.startedAt}`),

@@ -4,7 +4,7 @@ import { getMembershipByUser } from "@/db/queries/members";
 import { getAuth } from "@/lib/auth";
 import { AppError } from "@/lib/errors";
 import { describeError, log } from "@/lib/log";
-import { can, type Permission, type Role } from "@/lib/permissions";
+import { can, mayUse, type Permission, type PolicyName, type Role } from "@/lib/permissions";
 import { assertAcceptedBody, mediaTypeOf, readJsonBody, readMultipartBody, type BodyKind } from "./body";
 import { assertSameOrigin } from "./csrf";
 import { isDatabaseUnreachable } from "./failures";
@@ -26,8 +26,8 @@ export interface Actor {
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
 interface Spec<B, Q, P> {
-  /** The matrix row this handler needs; "member" = any member of the organization. */
-  permission: Permission | "member";
+  /** The resource-level policy of lib/permissions.ts this handler serves (its role check runs here). */
+  policy: PolicyName;
   body?: ZodType<B>;
   query?: ZodType<Q>;
   params?: ZodType<P>;
@@ -86,10 +86,13 @@ export async function requireActor(headers: Headers): Promise<Actor> {
   };
 }
 
+export function requirePolicy(actor: Actor, policy: PolicyName): void {
+  if (!mayUse(actor.role, policy)) throw new AppError("forbidden", `Your role (${actor.role}) does not allow this.`);
+}
+
+/** A page's role check (lib/session.ts): one row of the permission matrix. */
 export function requirePermission(actor: Actor, permission: Permission | "member"): void {
-  if (permission !== "member" && !can(actor.role, permission)) {
-    throw new AppError("forbidden", `Your role (${actor.role}) does not allow this.`);
-  }
+  if (permission !== "member" && !can(actor.role, permission)) throw new AppError("forbidden", `Your role (${actor.role}) does not allow this.`);
 }
 
 async function parsePart<T>(schema: ZodType<T> | undefined, value: unknown, where: string): Promise<T> {
@@ -110,7 +113,7 @@ function guardRequest(req: Request, accepts: readonly BodyKind[] = ["json"]): vo
   assertAcceptedBody(req, accepts);
 }
 
-async function partsOf<B, Q, P>(spec: Omit<Spec<B, Q, P>, "permission">, req: Request, ctx?: RouteContext) {
+async function partsOf<B, Q, P>(spec: Omit<Spec<B, Q, P>, "policy">, req: Request, ctx?: RouteContext) {
   const params = await parsePart(spec.params, ctx ? await ctx.params : {}, "path");
   const query = await parsePart(spec.query, Object.fromEntries(new URL(req.url).searchParams), "query");
   const type = mediaTypeOf(req.headers);
@@ -138,7 +141,7 @@ export function route<B = undefined, Q = undefined, P = undefined>(
     try {
       guardRequest(req, spec.accepts);
       const actor = await requireActor(req.headers);
-      requirePermission(actor, spec.permission);
+      requirePolicy(actor, spec.policy);
       const { params, query, body, form, json } = await partsOf(spec, req, ctx);
       return answer(await fn({ req, actor, body, query, params, form, json }));
     } catch (err) {

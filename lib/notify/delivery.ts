@@ -57,11 +57,11 @@ async function sendRow(db: Database, row: OutboxRow): Promise<void> {
 const RECORD_SENT_FOR_MS = 15 * 60_000;
 
 /** The message went but its transaction did not commit: mark it sent as soon as the database is back. */
-async function recordSentWhenBack(db: Database, id: string): Promise<void> {
+async function recordSentWhenBack(db: Database, organizationId: string, id: string): Promise<void> {
   const until = Date.now() + RECORD_SENT_FOR_MS;
   for (let wait = 250; ; wait = Math.min(1000, wait * 2)) {
     try {
-      await markOutboxMailSent(db, { id });
+      await markOutboxMailSent(db, { organizationId, id });
       log.warn("mail sent during a database outage; recorded once the database was back", { outboxId: id });
       return;
     } catch (err) {
@@ -80,7 +80,7 @@ export async function deliverOutboxRow(db: Database, params: { organizationId: s
     });
   } catch (err) {
     if (!accepted) throw err;
-    await recordSentWhenBack(db, params.id);
+    await recordSentWhenBack(db, params.organizationId, params.id);
     return "sent";
   }
 }
@@ -95,7 +95,7 @@ async function tryRow(db: Database, params: { organizationId: string; id: string
       return recordFailure(tx, row, err);
     }
     onAccepted();
-    await markOutboxMailSent(tx, { id: row.id });
+    await markOutboxMailSent(tx, { organizationId: row.organizationId, id: row.id });
     return "sent";
   });
 }
@@ -110,7 +110,7 @@ async function recordFailure(tx: Tx, row: OutboxRow, err: unknown): Promise<RowO
     return "dead";
   }
   log.warn("mail not sent; trying again later", { outboxId: row.id, attempts: row.attempts, afterSeconds: step.afterSeconds, error });
-  await markOutboxMailFailed(tx, { id: row.id, error, nextAttemptAt: step.at });
+  await markOutboxMailFailed(tx, { organizationId: row.organizationId, id: row.id, error, nextAttemptAt: step.at });
   await enqueueMailDelivery(tx, { organizationId: row.organizationId, ids: [row.id], afterSeconds: step.afterSeconds });
   return "retry";
 }

@@ -28,7 +28,7 @@ import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { retestUploadedMail } from "@/lib/notify/messages";
 import { queueMail } from "@/lib/notify/outbox";
-import { can } from "@/lib/permissions";
+import { allows } from "@/lib/permissions";
 import { RAW_LOG_CONTENT_TYPE, rawLogKey } from "@/lib/storage";
 import { analyseLog } from "@/lib/engine/door";
 import { sha256Hex } from "@/lib/vacuum-tests/files";
@@ -66,9 +66,9 @@ export function setRetestFaultForTests(hook: FaultHook | null): void {
   faultBeforeCommit = hook;
 }
 
-/** The test's technician, or anyone who reviews (owner, lead), may upload its re-test. */
+/** The policy "vacuumTest.retest" (lib/permissions.ts): the test's technician, or anyone who reviews (owner, lead). */
 export function mayUploadRetest(actor: Pick<Actor, "userId" | "role">, createdById: string): boolean {
-  return actor.userId === createdById || can(actor.role, "tests.review");
+  return allows(actor, "vacuumTest.retest", { createdById });
 }
 
 /** Where a re-test's raw file lives: beside the test's first file, under its own id (never overwriting it). */

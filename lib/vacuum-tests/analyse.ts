@@ -11,6 +11,7 @@ import { getAnalysisById, saveNewAnalysis as writeNewAnalysis } from "@/db/queri
 import { getIdempotencyKeyByKey, getUploadByTest, insertIdempotencyKey } from "@/db/queries/vacuum-tests";
 import type { Viewer } from "@/db/queries/visibility";
 import { AppError } from "@/lib/errors";
+import { allows } from "@/lib/permissions";
 import { describeError, log } from "@/lib/log";
 import { randomUUID } from "node:crypto";
 import { assertSameRequest, requestFingerprint, type SpentKey } from "./idempotency";
@@ -21,9 +22,9 @@ import { compactOptions, importOptionsOf, resolveProfile } from "./options";
 import { requireRevealedTest } from "./read";
 import type { ReanalysisInput } from "./schemas";
 
-/** Owners and leads re-analyse any test they see; everyone else only their own. */
+/** The policy "vacuumTest.reanalyse" (lib/permissions.ts): owners and leads re-analyse any test they see; everyone else only their own. */
 export function mayReanalyse(viewer: Viewer, createdById: string): boolean {
-  return viewer.role === "owner" || viewer.role === "lead" || viewer.userId === createdById;
+  return allows(viewer, "vacuumTest.reanalyse", { createdById });
 }
 
 export interface ReanalysisOutcome {

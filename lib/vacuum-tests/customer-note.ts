@@ -3,12 +3,12 @@ import type { Db } from "@/db/client";
 import { updateTestCustomerNoteById } from "@/db/queries/vacuum-tests";
 import type { Actor } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
-import { can } from "@/lib/permissions";
+import { allows } from "@/lib/permissions";
 import { requireVisibleTest } from "./read";
 
-/** Who may write it: the test's technician, and whoever may share reports (owner, lead). */
+/** The policy "vacuumTest.writeCustomerNote" (lib/permissions.ts): the test's technician, and whoever may share reports (owner, lead). */
 export function mayWriteCustomerNote(actor: Pick<Actor, "userId" | "role">, createdById: string): boolean {
-  return actor.userId === createdById || can(actor.role, "reports.share");
+  return allows(actor, "vacuumTest.writeCustomerNote", { createdById });
 }
 
 export async function setCustomerNote(db: Db, actor: Actor, testId: string, customerNote: string | null) {

@@ -58,7 +58,7 @@ beforeAll(async () => {
     if (!claimed) throw new Error("outbox row not claimed");
     await markOutboxMailDead(tx, { organizationId: owner.organizationId, ids: [outboxId], error: "Can't send mail - all recipients were rejected: 550 5.1.1 user unknown" });
     await claimOutboxMailById(tx, { organizationId: owner.organizationId, id: waitingId });
-    await markOutboxMailFailed(tx, { id: waitingId, error: "connect ECONNREFUSED 127.0.0.1:9", nextAttemptAt: new Date(Date.now() + 3600_000) });
+    await markOutboxMailFailed(tx, { organizationId: owner.organizationId, id: waitingId, error: "connect ECONNREFUSED 127.0.0.1:9", nextAttemptAt: new Date(Date.now() + 3600_000) });
   });
   // A test first judged a leak (version 1), then re-analysed as a pass (version 2, current).
   versionedId = await seedTest(tech, { verdict: "leak", title: "Rooftop unit 3 after brazing" });

@@ -26,10 +26,10 @@ const L = {
   settingsProfiles: () => import("@/app/api/settings/profiles/route"),
   settingsProfile: () => import("@/app/api/settings/profiles/[id]/route"),
   profileDefault: () => import("@/app/api/settings/profiles/[id]/default/route"),
-  shopSettings: () => import("@/app/api/settings/shop/route"),
-  plannerHistory: () => import("@/app/api/planner/history/route"),
   profileReanalysis: () => import("@/app/api/settings/profiles/[id]/reanalysis/route"),
   task: () => import("@/app/api/tasks/[id]/route"),
+  shopSettings: () => import("@/app/api/settings/shop/route"),
+  plannerHistory: () => import("@/app/api/planner/history/route"),
   similarNames: () => import("@/app/api/records/similar/route"),
   mergeRecords: () => import("@/app/api/records/merge/route"),
 };
@@ -217,7 +217,8 @@ export const RECORD_PROBES: Probe[] = [
   },
   {
     route: "POST /api/settings/profiles/:id/reanalysis",
-    call: (as, w) => hit(L.profileReanalysis, "POST", "/x", as, { body: {}, params: { id: w.profileId } }),
+    // A profile no test was judged by: 200 { task: null }, nothing re-checked in the shared world.
+    call: async (as, w) => hit(L.profileReanalysis, "POST", "/x", as, { body: {}, params: { id: await freshProfile(w) } }),
     expect: rule("profiles.manage"),
     outsider: 404,
   },

@@ -6,9 +6,9 @@ import { createCollection, listCollections } from "@/lib/casebook/service";
 export const dynamic = "force-dynamic";
 
 /** GET /api/casebook — the organization's collections (every member reads the casebook). */
-export const GET = route({ permission: "casebook.read" }, async ({ actor }) => ({ collections: await listCollections(db(), actor) }));
+export const GET = route({ policy: "casebook.read" }, async ({ actor }) => ({ collections: await listCollections(db(), actor) }));
 
 /** POST /api/casebook — a new collection (trainers). */
-export const POST = route({ permission: "casebook.curate", body: collectionCreateSchema }, async ({ actor, body }) =>
+export const POST = route({ policy: "casebook.curate", body: collectionCreateSchema }, async ({ actor, body }) =>
   Response.json({ collection: await createCollection(db(), actor, body) }, { status: 201 }),
 );

@@ -14,12 +14,12 @@ const customerSchema = z.object({
 });
 
 /** GET /api/customers — { items } of the organization, by name; e-mail and phone only for roles that manage records. */
-export const GET = route({ permission: "member" }, async ({ actor }) => ({
+export const GET = route({ policy: "record.read" }, async ({ actor }) => ({
   items: await listCustomersByOrganization(db(), { organizationId: actor.organizationId, withContact: canSeeCustomerContact(actor.role) }),
 }));
 
 /** POST /api/customers — 201 { customer }. */
-export const POST = route({ permission: "records.manage", body: customerSchema }, async ({ actor, body }) => {
+export const POST = route({ policy: "record.create", body: customerSchema }, async ({ actor, body }) => {
   const customer = await createCustomer(db(), { organizationId: actor.organizationId, ...body });
   return Response.json({ customer }, { status: 201 });
 });

@@ -8,12 +8,12 @@ import { createJobSchema, jobsQuerySchema } from "@/lib/vacuum-tests/records-sch
 export const dynamic = "force-dynamic";
 
 /** GET /api/jobs?siteId= — { items: Job[] }, newest visit first. */
-export const GET = route({ permission: "member", query: jobsQuerySchema }, async ({ actor, query }) => ({
+export const GET = route({ policy: "record.read", query: jobsQuerySchema }, async ({ actor, query }) => ({
   items: await listJobsByOrganization(db(), { organizationId: actor.organizationId, siteId: query.siteId }),
 }));
 
 /** POST /api/jobs — 201 { job }; site, system and technician must belong to the organization. */
-export const POST = route({ permission: "records.manage", body: createJobSchema }, async ({ actor, body }) => {
+export const POST = route({ policy: "record.create", body: createJobSchema }, async ({ actor, body }) => {
   const organizationId = actor.organizationId;
   const job = await db().transaction(async (tx) => {
     if (body.siteId && !(await getSiteById(tx, { organizationId, siteId: body.siteId })))

@@ -3,7 +3,7 @@ import { listMembersByOrganization } from "@/db/queries/members";
 import { route } from "@/lib/api/handler";
 
 /** GET /api/members — the members of the caller's shop with names and roles. */
-export const GET = route({ permission: "members.read" }, async ({ actor }) => {
+export const GET = route({ policy: "member.list" }, async ({ actor }) => {
   const members = await listMembersByOrganization(db(), { organizationId: actor.organizationId });
   return { members };
 });

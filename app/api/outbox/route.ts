@@ -10,7 +10,7 @@ const query = z.object({
 });
 
 /** The organization's outgoing mail (no bodies), for leads and owners to see what did not go. */
-export const GET = route({ permission: "tests.review", query }, async ({ actor, query }) => {
+export const GET = route({ policy: "outbox.read", query }, async ({ actor, query }) => {
   const rows = await listOutboxMailByOrganization(db(), { organizationId: actor.organizationId, status: query.status, testId: query.testId, limit: 200 });
   return {
     mail: rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString(), sentAt: r.sentAt?.toISOString() ?? null, nextAttemptAt: r.nextAttemptAt?.toISOString() ?? null })),

@@ -9,6 +9,6 @@ export const dynamic = "force-dynamic";
  * leakRateMicronsPerMinute, isDefault }] }; with no profiles of its own, the organization sees the
  * engine's default as "Common practice (default)" with id null.
  */
-export const GET = route({ permission: "member" }, async ({ actor }) => ({
+export const GET = route({ policy: "profile.list" }, async ({ actor }) => ({
   items: await listProfilesByOrganization(db(), { organizationId: actor.organizationId }),
 }));

@@ -5,7 +5,7 @@ import { reviewQueueQuerySchema } from "@/lib/review/schemas";
 import { sparklineOf } from "@/lib/review/sparkline";
 
 /** The lead's queue: tests waiting for review, the longest waiting first. A read only: the review sweep job moves tests in. */
-export const GET = route({ permission: "tests.review", query: reviewQueueQuerySchema }, async ({ actor, query }) => {
+export const GET = route({ policy: "reviewQueue.read", query: reviewQueueQuerySchema }, async ({ actor, query }) => {
   const rows = await listReviewQueueByOrganization(db(), {
     viewer: { organizationId: actor.organizationId, userId: actor.userId, role: actor.role },
     filters: { technicianId: query.technicianId, verdict: query.verdict, helpOnly: query.help === "1" },

@@ -7,12 +7,12 @@ import { rigCreateSchema } from "@/lib/rigs/schemas";
 import { viewerOf } from "@/lib/rigs/service";
 
 /** Rigs the caller may see (owners and leads: all; others: the ones they keep). */
-export const GET = route({ permission: "member" }, async ({ actor }) => {
+export const GET = route({ policy: "rig.read" }, async ({ actor }) => {
   return { rigs: await listRigsByViewer(db(), { viewer: viewerOf(actor) }), canManageAll: canManageAllRigs(actor.role), canCreate: canManageOwnRigs(actor.role) };
 });
 
 /** A new rig. Technicians keep the rigs they create; owners and leads may name any member as keeper. */
-export const POST = route({ permission: "member", body: rigCreateSchema }, async ({ actor, body }) => {
+export const POST = route({ policy: "rig.manage", body: rigCreateSchema }, async ({ actor, body }) => {
   if (!canManageOwnRigs(actor.role)) throw new AppError("forbidden", "Your role may not add rigs.");
   let keeperId: string | null = actor.userId;
   if (canManageAllRigs(actor.role) && body.keeperId !== undefined) {

@@ -7,12 +7,12 @@ import { createSiteSchema } from "@/lib/vacuum-tests/records-schemas";
 export const dynamic = "force-dynamic";
 
 /** GET /api/sites — { items: [{ id, name, address, customerId, customerName, createdAt }] }. */
-export const GET = route({ permission: "member" }, async ({ actor }) => ({
+export const GET = route({ policy: "record.read" }, async ({ actor }) => ({
   items: await listSitesByOrganization(db(), { organizationId: actor.organizationId }),
 }));
 
 /** POST /api/sites — 201 { site }; a new customer may be created in the same transaction. */
-export const POST = route({ permission: "records.manage", body: createSiteSchema }, async ({ actor, body }) => {
+export const POST = route({ policy: "record.create", body: createSiteSchema }, async ({ actor, body }) => {
   const organizationId = actor.organizationId;
   const site = await db().transaction(async (tx) => {
     let customerId = body.customerId ?? null;

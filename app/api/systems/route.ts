@@ -7,12 +7,12 @@ import { createSystemSchema, systemsQuerySchema } from "@/lib/vacuum-tests/recor
 export const dynamic = "force-dynamic";
 
 /** GET /api/systems?siteId= — { items: System[] } of the organization (of one site when given). */
-export const GET = route({ permission: "member", query: systemsQuerySchema }, async ({ actor, query }) => ({
+export const GET = route({ policy: "record.read", query: systemsQuerySchema }, async ({ actor, query }) => ({
   items: await listSystemsByOrganization(db(), { organizationId: actor.organizationId, siteId: query.siteId }),
 }));
 
 /** POST /api/systems — 201 { system } at a site of the organization. */
-export const POST = route({ permission: "records.manage", body: createSystemSchema }, async ({ actor, body }) => {
+export const POST = route({ policy: "record.create", body: createSystemSchema }, async ({ actor, body }) => {
   const organizationId = actor.organizationId;
   const system = await db().transaction(async (tx) => {
     if (!(await getSiteById(tx, { organizationId, siteId: body.siteId })))

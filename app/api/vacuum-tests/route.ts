@@ -17,7 +17,7 @@ export const dynamic = "force-dynamic";
  * A large log (over ANALYSIS_JOB_MIN_KB) is queued: 202 { task } to follow at /api/tasks/:id
  * (a retry of it answers 202 with the same task, or 200 with the test once it is made).
  */
-export const POST = route({ permission: "tests.upload", accepts: ["json", "multipart"] }, async ({ req, actor, form, json }) => {
+export const POST = route({ policy: "vacuumTest.upload", accepts: ["json", "multipart"] }, async ({ req, actor, form, json }) => {
   const rawKey = req.headers.get("idempotency-key");
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const input = await readUploadRequest(req, { form, json });
@@ -28,4 +28,4 @@ export const POST = route({ permission: "tests.upload", accepts: ["json", "multi
 });
 
 /** GET /api/vacuum-tests — the tests the caller may see, newest first, cursor-paginated. */
-export const GET = route({ permission: "member", query: listTestsQuerySchema }, async ({ actor, query }) => listTests(db(), actor, query));
+export const GET = route({ policy: "vacuumTest.list", query: listTestsQuerySchema }, async ({ actor, query }) => listTests(db(), actor, query));

@@ -6,11 +6,11 @@
  * pressure, at the top of it — shows before Save; such a test saves only once acknowledged.
  */
 import { useRouter } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import { ABSOLUTE_UNIT_OF, NITROGEN_CAUTIONS, type NitrogenPressureUnit, type NitrogenResult, type TemperatureUnit } from "@/analysis/calculators/nitrogen";
 import { inspectNitrogenLogHeader, type NitrogenLogHeader } from "@/analysis/calculators/nitrogen-log";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
-import { apiFetch, ApiError } from "@/lib/client/api";
+import { apiFetch, ApiError, newIdempotencyKey } from "@/lib/client/api";
 import { evaluatePressureTestRequest } from "@/lib/pressure/evaluate";
 import type { PressureTestCreate } from "@/lib/pressure/schemas";
 import { AtmosphereFields, atmosphereBody, type AtmosphereState } from "./AtmosphereFields";
@@ -106,15 +106,18 @@ export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }
   const overPressure = Boolean(preview && "result" in preview && preview.result.overPressure);
   const hasWhen = mode === "file" || (startedAt && endedAt) || Number.isFinite(num(durationMin));
 
+  const saveKey = useRef<string | null>(null);
   async function save() {
     if (!body) return;
+    // One key per record: a retry or a second tap answers with the record already saved.
+    const idempotencyKey = (saveKey.current ??= newIdempotencyKey());
     setError(null);
     setBusy(true);
     try {
       const res = await apiFetch<{ result: NitrogenResult; assumptions: string[] }>("/api/pressure-tests", {
         method: "POST",
         body: JSON.stringify({ ...body, ...(overPressure ? { overPressureAcknowledged: acknowledged } : {}) }),
-      });
+      }, { idempotencyKey });
       setSaved(res);
       router.refresh();
     } catch (e) {
@@ -126,6 +129,7 @@ export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }
 
   const edit = <T,>(set: (v: T) => void) => (v: T) => {
     set(v);
+    saveKey.current = null;
     setSaved(null);
     setAcknowledged(false);
   };

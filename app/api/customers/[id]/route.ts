@@ -5,7 +5,7 @@ import { AppError } from "@/lib/errors";
 import { canSeeCustomerContact } from "@/lib/permissions";
 
 /** GET /api/customers/:id — { customer, sites } (404 outside the organization); contact details as in GET /api/customers. */
-export const GET = route({ permission: "member", params: uuidParam }, async ({ actor, params }) => {
+export const GET = route({ policy: "record.read", params: uuidParam }, async ({ actor, params }) => {
   const org = actor.organizationId;
   const found = await getCustomerById(db(), { organizationId: org, customerId: params.id });
   if (!found) throw new AppError("not_found", "No such customer.");

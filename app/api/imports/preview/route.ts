@@ -7,7 +7,7 @@ import { importOptionsOf } from "@/lib/vacuum-tests/options";
 export const dynamic = "force-dynamic";
 
 /** POST /api/imports/preview — multipart `file` (+ optional column/unit choices) → columns, first rows, detection. */
-export const POST = route({ permission: "tests.upload", accepts: ["multipart"] }, async ({ form }) => {
+export const POST = route({ policy: "vacuumTest.upload", accepts: ["multipart"] }, async ({ form }) => {
   const { file, fields } = await readPreviewFile({ form });
   const overrides = parseInput(importOverridesSchema, fields, "form");
   return previewLog(file.text, importOptionsOf(overrides) ?? {});

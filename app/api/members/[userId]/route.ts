@@ -23,7 +23,7 @@ function notSelf(actor: Actor, userId: string, what: string) {
 
 /** PATCH /api/members/:userId {role} — changes a member's role. */
 export const PATCH = route(
-  { permission: "members.manage", params, body: z.object({ role: z.enum(ROLES) }) },
+  { policy: "member.manage", params, body: z.object({ role: z.enum(ROLES) }) },
   async ({ req, actor, params: p, body }) => {
     const found = await memberInShop(req, actor, p.userId);
     notSelf(actor, p.userId, "change the role of");
@@ -35,7 +35,7 @@ export const PATCH = route(
 );
 
 /** DELETE /api/members/:userId — removes a member from the shop (their tests stay with the shop). */
-export const DELETE = route({ permission: "members.manage", params }, async ({ req, actor, params: p }) => {
+export const DELETE = route({ policy: "member.manage", params }, async ({ req, actor, params: p }) => {
   const found = await memberInShop(req, actor, p.userId);
   notSelf(actor, p.userId, "remove");
   await viaAuth(() => getAuth().api.removeMember({ headers: req.headers, body: { memberIdOrEmail: found.id, organizationId: actor.organizationId } }));

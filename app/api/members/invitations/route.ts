@@ -7,7 +7,7 @@ import { INVITABLE_ROLES, type Role } from "@/lib/permissions";
 import { viaAuth } from "../auth-errors";
 
 /** GET /api/members/invitations — open invitations of the caller's shop (owners only). */
-export const GET = route({ permission: "members.manage" }, async ({ actor }) => {
+export const GET = route({ policy: "member.manage" }, async ({ actor }) => {
   const invitations = await listInvitationsByOrganization(db(), { organizationId: actor.organizationId });
   return { invitations };
 });
@@ -18,7 +18,7 @@ const inviteBody = z.object({
 });
 
 /** POST /api/members/invitations {email, role} — invites someone by e-mail; better-auth sends the mail. */
-export const POST = route({ permission: "members.manage", body: inviteBody }, async ({ req, actor, body }) => {
+export const POST = route({ policy: "member.manage", body: inviteBody }, async ({ req, actor, body }) => {
   const role = body.role as Exclude<Role, "owner">;
   const invitation = await viaAuth(() =>
     getAuth().api.createInvitation({

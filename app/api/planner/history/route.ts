@@ -5,6 +5,6 @@ import { plannerHistoryQuery } from "@/lib/planner/schemas";
 import { viewerOf } from "@/lib/rigs/service";
 
 /** A system's recorded pull-downs beside the plan for each (the tests the caller may see). */
-export const GET = route({ permission: "member", query: plannerHistoryQuery }, async ({ actor, query }) => {
+export const GET = route({ policy: "planner.read", query: plannerHistoryQuery }, async ({ actor, query }) => {
   return loadPlannerHistory(db(), { viewer: viewerOf(actor), systemId: query.systemId });
 });

@@ -5,4 +5,4 @@ import { listPracticeTests } from "@/lib/practice/view";
 export const dynamic = "force-dynamic";
 
 /** GET /api/practice/tests — practice tests the member can see, with whether they have called each (never the verdict). */
-export const GET = route({ permission: "member" }, async ({ actor }) => ({ tests: await listPracticeTests(db(), actor) }));
+export const GET = route({ policy: "practice.read" }, async ({ actor }) => ({ tests: await listPracticeTests(db(), actor) }));

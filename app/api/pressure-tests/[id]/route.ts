@@ -5,7 +5,7 @@ import { AppError } from "@/lib/errors";
 import { pressureTestParams } from "@/lib/pressure/schemas";
 import { viewerOf } from "@/lib/rigs/service";
 
-export const GET = route({ permission: "member", params: pressureTestParams }, async ({ actor, params }) => {
+export const GET = route({ policy: "pressureTest.read", params: pressureTestParams }, async ({ actor, params }) => {
   const row = await getPressureTestById(db(), { viewer: viewerOf(actor), pressureTestId: params.id });
   if (!row) throw new AppError("not_found", "No such pressure test.");
   return { test: row.test, createdByName: row.createdByName };

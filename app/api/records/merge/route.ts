@@ -10,6 +10,6 @@ const mergeSchema = z.object({
 });
 
 /** POST /api/records/merge — a duplicate customer, site or system merged into the one kept: { kind, intoId, moved }. */
-export const POST = route({ permission: "records.manage", body: mergeSchema }, async ({ actor, body }) =>
+export const POST = route({ policy: "record.merge", body: mergeSchema }, async ({ actor, body }) =>
   mergeDuplicateRecord(db(), { organizationId: actor.organizationId, kind: body.kind, fromId: body.fromId, intoId: body.intoId }),
 );

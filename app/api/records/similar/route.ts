@@ -15,6 +15,6 @@ const similarQuerySchema = z.object({
  * GET /api/records/similar?kind=site&name=Harbour%20Dental — { matches: [{ id, name, detail, score }] }:
  * the shop's records named like the one about to be created (pg_trgm), best first, at most five.
  */
-export const GET = route({ permission: "records.manage", query: similarQuerySchema }, async ({ actor, query }) => ({
+export const GET = route({ policy: "record.similar", query: similarQuerySchema }, async ({ actor, query }) => ({
   matches: await listSimilarNamesByOrganization(db(), { organizationId: actor.organizationId, kind: query.kind, name: query.name, siteId: query.siteId ?? null }),
 }));

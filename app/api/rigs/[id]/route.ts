@@ -7,11 +7,11 @@ import { rigParams, rigUpdateSchema, todayQuery } from "@/lib/rigs/schemas";
 import { requireRigAccess, rigDetail, todayIso, viewerOf } from "@/lib/rigs/service";
 
 /** The rig with its items, recent events, blank-off trend and reminders (`?today=YYYY-MM-DD` to evaluate on a given day). */
-export const GET = route({ permission: "member", params: rigParams, query: todayQuery }, async ({ actor, params, query }) => {
+export const GET = route({ policy: "rig.read", params: rigParams, query: todayQuery }, async ({ actor, params, query }) => {
   return rigDetail(db(), viewerOf(actor), params.id, query.today ?? todayIso());
 });
 
-export const PATCH = route({ permission: "member", params: rigParams, body: rigUpdateSchema }, async ({ actor, params, body }) => {
+export const PATCH = route({ policy: "rig.manage", params: rigParams, body: rigUpdateSchema }, async ({ actor, params, body }) => {
   const viewer = viewerOf(actor);
   await requireRigAccess(db(), viewer, params.id, "manage");
   const values: Parameters<typeof updateRigById>[1]["values"] = {};
@@ -29,7 +29,7 @@ export const PATCH = route({ permission: "member", params: rigParams, body: rigU
   return { rig };
 });
 
-export const DELETE = route({ permission: "member", params: rigParams }, async ({ actor, params }) => {
+export const DELETE = route({ policy: "rig.manage", params: rigParams }, async ({ actor, params }) => {
   const viewer = viewerOf(actor);
   await requireRigAccess(db(), viewer, params.id, "manage");
   await deleteRigById(db(), { viewer, rigId: params.id });

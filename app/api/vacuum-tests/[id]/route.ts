@@ -16,11 +16,11 @@ const query = z.object({
  * With ?analysisId= the analysis and series are that earlier version's, plus
  * `shown: { analysisId, version, versionCount, isCurrent }`; an analysis not of this test is a 404.
  */
-export const GET = route({ permission: "member", params: uuidParam, query }, async ({ actor, params, query }) =>
+export const GET = route({ policy: "vacuumTest.read", params: uuidParam, query }, async ({ actor, params, query }) =>
   query.analysisId ? loadTestDetailAtAnalysis(db(), actor, params.id, query.analysisId) : loadTestDetail(db(), actor, params.id),
 );
 
 /** PATCH /api/vacuum-tests/:id — { customerNote }: the note on the customer's copy of the report. */
-export const PATCH = route({ permission: "member", params: uuidParam, body: testNoteSchema }, async ({ actor, params, body }) =>
+export const PATCH = route({ policy: "vacuumTest.writeCustomerNote", params: uuidParam, body: testNoteSchema }, async ({ actor, params, body }) =>
   setCustomerNote(db(), actor, params.id, body.customerNote),
 );

@@ -6,6 +6,6 @@ import { addEntry } from "@/lib/casebook/service";
 export const dynamic = "force-dynamic";
 
 /** POST /api/casebook/:id/entries — add a test with a title and notes (trainers). */
-export const POST = route({ permission: "casebook.curate", params: collectionParams, body: entryCreateSchema }, async ({ actor, params, body }) =>
+export const POST = route({ policy: "casebook.curate", params: collectionParams, body: entryCreateSchema }, async ({ actor, params, body }) =>
   Response.json({ entry: await addEntry(db(), actor, params.id, body) }, { status: 201 }),
 );

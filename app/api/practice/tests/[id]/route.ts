@@ -5,4 +5,4 @@ import { loadPracticeTest } from "@/lib/practice/view";
 export const dynamic = "force-dynamic";
 
 /** GET /api/practice/tests/:id — the curve; the analysis only once the apprentice has made their call. */
-export const GET = route({ permission: "member", params: uuidParam }, async ({ actor, params }) => loadPracticeTest(db(), actor, params.id));
+export const GET = route({ policy: "practice.read", params: uuidParam }, async ({ actor, params }) => loadPracticeTest(db(), actor, params.id));

@@ -6,7 +6,7 @@ import { AppError } from "@/lib/errors";
 import { rigEventSchema, rigParams } from "@/lib/rigs/schemas";
 import { requireRigAccess, viewerOf } from "@/lib/rigs/service";
 
-export const GET = route({ permission: "member", params: rigParams }, async ({ actor, params }) => {
+export const GET = route({ policy: "rig.read", params: rigParams }, async ({ actor, params }) => {
   await requireRigAccess(db(), viewerOf(actor), params.id, "read");
   return { events: await listRigEventsByRig(db(), { organizationId: actor.organizationId, rigId: params.id }) };
 });
@@ -16,7 +16,7 @@ export const GET = route({ permission: "member", params: rigParams }, async ({ a
  * reading, or a gauge log whose lowest reading is taken), gauge cleaned or checked, hose gaskets,
  * pump hour-meter reading.
  */
-export const POST = route({ permission: "member", params: rigParams, body: rigEventSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ actor, params, body }) => {
+export const POST = route({ policy: "rig.manage", params: rigParams, body: rigEventSchema, maxJsonBytes: 9 * 1024 * 1024 }, async ({ actor, params, body }) => {
   await requireRigAccess(db(), viewerOf(actor), params.id, "manage");
   if (body.itemId && !(await getRigItemById(db(), { organizationId: actor.organizationId, rigId: params.id, itemId: body.itemId })))
     throw new AppError("invalid_input", "itemId: not an item of this rig");

@@ -9,7 +9,7 @@ import { requireRigAccess, rigDetailOf, todayIso, viewerOf } from "@/lib/rigs/se
  * The rig a vacuum test was made with and its recent history (events, blank-off trend, reminders),
  * so "target not reached" can point to it. `{ rig: null }` when none was recorded.
  */
-export const GET = route({ permission: "member", params: testParams, query: todayQuery }, async ({ actor, params, query }) => {
+export const GET = route({ policy: "rig.read", params: testParams, query: todayQuery }, async ({ actor, params, query }) => {
   const viewer = viewerOf(actor);
   if (!(await isTestVisible(db(), { viewer, testId: params.testId }))) throw new AppError("not_found", "No such test.");
   const rig = await getRigByTest(db(), { viewer, testId: params.testId });
@@ -18,7 +18,7 @@ export const GET = route({ permission: "member", params: testParams, query: toda
 });
 
 /** Record which rig was used for a test the caller can see (a rig the caller can see). */
-export const PUT = route({ permission: "member", params: testParams, body: testRigSchema }, async ({ actor, params, body }) => {
+export const PUT = route({ policy: "rig.manage", params: testParams, body: testRigSchema }, async ({ actor, params, body }) => {
   const viewer = viewerOf(actor);
   if (!(await isTestVisible(db(), { viewer, testId: params.testId }))) throw new AppError("not_found", "No such test.");
   await requireRigAccess(db(), viewer, body.rigId, "read");

@@ -8,7 +8,7 @@ import { profileInputSchema } from "@/lib/review/profile-schemas";
  * Edit a profile. Tests already analysed keep the profile stored with their analysis, so an
  * edit changes new analyses only; old results never change silently.
  */
-export const PUT = route({ permission: "profiles.manage", params: uuidParam, body: profileInputSchema }, async ({ actor, params, body }) => {
+export const PUT = route({ policy: "profile.manage", params: uuidParam, body: profileInputSchema }, async ({ actor, params, body }) => {
   const { makeDefault, ...profile } = body;
   const row = await db().transaction(async (tx) => {
     const updated = await updateProfileById(tx, { organizationId: actor.organizationId, profileId: params.id, ...profile });
@@ -18,7 +18,7 @@ export const PUT = route({ permission: "profiles.manage", params: uuidParam, bod
   return { profile: row };
 });
 
-export const DELETE = route({ permission: "profiles.manage", params: uuidParam }, async ({ actor, params }) => {
+export const DELETE = route({ policy: "profile.manage", params: uuidParam }, async ({ actor, params }) => {
   const out = await deleteProfileById(db(), { organizationId: actor.organizationId, profileId: params.id });
   if (out === "not_found") throw new AppError("not_found", "No such profile.");
   if (out === "is_default") throw new AppError("conflict", "This is the default profile; make another one the default first.");

@@ -6,7 +6,7 @@ import { requireVisibleTest } from "@/lib/vacuum-tests/read";
 import { commentSchema } from "@/lib/review/schemas";
 import { queueCommentMail } from "@/lib/review/comment-mail";
 
-export const GET = route({ permission: "tests.comment", params: uuidParam }, async ({ actor, params }) => {
+export const GET = route({ policy: "vacuumTest.comment", params: uuidParam }, async ({ actor, params }) => {
   await requireVisibleTest(db(), actor, params.id);
   const rows = await listTestCommentsByTest(db(), { organizationId: actor.organizationId, testId: params.id });
   return { comments: rows.map((c) => ({ ...c, createdAt: c.createdAt.toISOString() })) };
@@ -16,7 +16,7 @@ export const GET = route({ permission: "tests.comment", params: uuidParam }, asy
  * A comment, optionally at a time on the curve; recorded in the audit trail too, and e-mailed
  * (technician ⇄ leads, lib/review/comment-mail.ts) through the outbox (its delivery job commits with the comment).
  */
-export const POST = route({ permission: "tests.comment", params: uuidParam, body: commentSchema }, async ({ actor, params, body }) => {
+export const POST = route({ policy: "vacuumTest.comment", params: uuidParam, body: commentSchema }, async ({ actor, params, body }) => {
   const detail = await requireVisibleTest(db(), actor, params.id);
   const { comment } = await db().transaction(async (tx) => {
     const c = await insertTestComment(tx, {

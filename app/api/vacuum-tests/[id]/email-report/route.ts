@@ -9,7 +9,7 @@ import { requireVisibleTest } from "@/lib/vacuum-tests/read";
 import { emailReportSchema } from "@/lib/review/schemas";
 
 /** E-mail the report (PDF attached, built at send time) to a customer address; the message quotes the report's own words. */
-export const POST = route({ permission: "reports.share", params: uuidParam, body: emailReportSchema }, async ({ actor, params, body }) => {
+export const POST = route({ policy: "vacuumTest.share", params: uuidParam, body: emailReportSchema }, async ({ actor, params, body }) => {
   await requireVisibleTest(db(), actor, params.id);
   const model = await buildReportModel(db(), { organizationId: actor.organizationId, testId: params.id });
   if (!model) throw new AppError("not_found", "No such test.");

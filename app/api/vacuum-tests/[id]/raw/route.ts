@@ -10,7 +10,7 @@ export const dynamic = "force-dynamic";
 const EXPIRES_IN_SECONDS = 300;
 
 /** GET /api/vacuum-tests/:id/raw — a 5-minute link to the file exactly as uploaded. */
-export const GET = route({ permission: "member", params: uuidParam }, async ({ actor, params }) => {
+export const GET = route({ policy: "vacuumTest.read", params: uuidParam }, async ({ actor, params }) => {
   await requireVisibleTest(db(), actor, params.id);
   const upload = await getUploadByTest(db(), { organizationId: actor.organizationId, testId: params.id });
   if (!upload) throw new AppError("not_found", "This test has no raw file.");

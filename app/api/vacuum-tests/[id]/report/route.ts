@@ -8,7 +8,7 @@ import { pdfResponse } from "@/lib/reports/respond";
 
 /** The test's report as a PDF, for any member who can see the test. */
 export const GET = route(
-  { permission: "member", params: z.object({ id: z.string().uuid("not a valid id") }), query: z.object({ download: z.enum(["1", "0"]).optional() }) },
+  { policy: "vacuumTest.read", params: z.object({ id: z.string().uuid("not a valid id") }), query: z.object({ download: z.enum(["1", "0"]).optional() }) },
   async ({ actor, params, query }) => {
     await requireRevealedTest(db(), actor, params.id);
     const model = await buildReportModel(db(), { organizationId: actor.organizationId, testId: params.id });

@@ -15,7 +15,7 @@ export const dynamic = "force-dynamic";
  * analysis for a retried key (the same person, the same file and note); 422 for an unreadable log
  * or a key already used for a different request (nothing changed); 409 unless sent back.
  */
-export const POST = route({ permission: "tests.upload", params: uuidParam, accepts: ["multipart"] }, async ({ req, actor, params, form }) => {
+export const POST = route({ policy: "vacuumTest.retest", params: uuidParam, accepts: ["multipart"] }, async ({ req, actor, params, form }) => {
   const rawKey = req.headers.get("idempotency-key");
   const idempotencyKey = rawKey === null ? undefined : parseInput(idempotencyKeySchema, rawKey, "Idempotency-Key");
   const { file, fields } = await readPreviewFile({ form }); // the file under the upload cap, refused unless a text log

@@ -9,7 +9,7 @@ import { getLatestReviewEventByTest, getSignOffFactsByTest } from "@/db/queries/
 import { availableActions, signOffNeedsReason } from "@/lib/review/state";
 
 /** The test's review state and the actions the caller may take now. */
-export const GET = route({ permission: "member", params: uuidParam }, async ({ actor, params }) => {
+export const GET = route({ policy: "vacuumTest.read", params: uuidParam }, async ({ actor, params }) => {
   const row = await requireVisibleTest(db(), actor, params.id);
   const facts = await getSignOffFactsByTest(db(), { organizationId: actor.organizationId, testId: params.id });
   const needsReason = signOffNeedsReason(facts.verdict, facts.meetsProfile);
@@ -34,7 +34,7 @@ export const GET = route({ permission: "member", params: uuidParam }, async ({ a
 });
 
 /** Sign off, send back (with a request), ask for review or help, resubmit after a re-test. */
-export const POST = route({ permission: "member", params: uuidParam, body: reviewActionSchema }, async ({ actor, params, body }) => {
+export const POST = route({ policy: "vacuumTest.review", params: uuidParam, body: reviewActionSchema }, async ({ actor, params, body }) => {
   const out = await applyReviewAction(db(), actor, { testId: params.id, action: body.action, note: body.note });
   return { status: out.status, fromStatus: out.fromStatus, helpRequested: out.helpRequested, eventId: out.eventId };
 });

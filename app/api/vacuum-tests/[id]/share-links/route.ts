@@ -6,7 +6,7 @@ import { shareLinkCreateSchema } from "@/lib/review/schemas";
 import { createShareLink } from "@/lib/reports/share";
 
 /** The test's share links (never their tokens: only a hash is kept). */
-export const GET = route({ permission: "reports.share", params: uuidParam }, async ({ actor, params }) => {
+export const GET = route({ policy: "vacuumTest.share", params: uuidParam }, async ({ actor, params }) => {
   await requireVisibleTest(db(), actor, params.id);
   const rows = await listShareLinksByTest(db(), { organizationId: actor.organizationId, testId: params.id });
   const now = Date.now();
@@ -22,7 +22,7 @@ export const GET = route({ permission: "reports.share", params: uuidParam }, asy
 });
 
 /** A new read-only link to the report; the URL (with its token) is shown this once. */
-export const POST = route({ permission: "reports.share", params: uuidParam, body: shareLinkCreateSchema }, async ({ actor, params, body }) => {
+export const POST = route({ policy: "vacuumTest.share", params: uuidParam, body: shareLinkCreateSchema }, async ({ actor, params, body }) => {
   await requireVisibleTest(db(), actor, params.id);
   const link = await db().transaction((tx) =>
     createShareLink(tx, { organizationId: actor.organizationId, testId: params.id, actorId: actor.userId, expiresInDays: body.expiresInDays }),

@@ -5,14 +5,14 @@ import { AppError } from "@/lib/errors";
 import { rigItemParams, rigItemUpdateSchema } from "@/lib/rigs/schemas";
 import { requireRigAccess, viewerOf } from "@/lib/rigs/service";
 
-export const PATCH = route({ permission: "member", params: rigItemParams, body: rigItemUpdateSchema }, async ({ actor, params, body }) => {
+export const PATCH = route({ policy: "rig.manage", params: rigItemParams, body: rigItemUpdateSchema }, async ({ actor, params, body }) => {
   await requireRigAccess(db(), viewerOf(actor), params.id, "manage");
   const item = await updateRigItemById(db(), { organizationId: actor.organizationId, rigId: params.id, itemId: params.itemId, values: body });
   if (!item) throw new AppError("not_found", "No such item on this rig.");
   return { item };
 });
 
-export const DELETE = route({ permission: "member", params: rigItemParams }, async ({ actor, params }) => {
+export const DELETE = route({ policy: "rig.manage", params: rigItemParams }, async ({ actor, params }) => {
   await requireRigAccess(db(), viewerOf(actor), params.id, "manage");
   if (!(await deleteRigItemById(db(), { organizationId: actor.organizationId, rigId: params.id, itemId: params.itemId })))
     throw new AppError("not_found", "No such item on this rig.");

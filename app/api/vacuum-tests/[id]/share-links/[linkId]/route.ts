@@ -9,7 +9,7 @@ import { requireVisibleTest } from "@/lib/vacuum-tests/read";
 const params = z.object({ id: z.string().uuid("not a valid id"), linkId: z.string().uuid("not a valid id") });
 
 /** Revoke a link: it stops working at once. */
-export const DELETE = route({ permission: "reports.share", params }, async ({ actor, params }) => {
+export const DELETE = route({ policy: "vacuumTest.share", params }, async ({ actor, params }) => {
   await requireVisibleTest(db(), actor, params.id);
   const out = await db().transaction(async (tx) => {
     const row = await revokeShareLinkById(tx, { organizationId: actor.organizationId, testId: params.id, linkId: params.linkId, at: new Date() });
