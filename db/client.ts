@@ -49,12 +49,12 @@ function watch(pool: Pool): Pool {
 
 /**
  * One JSON line on stderr in the shape of lib/log.ts, with the error's name, code and message only
- * (never a query's parameters). Written through console.warn, which the server passes through its
- * redaction (instrumentation.ts); the data layer does not import lib/.
+ * (never a query's parameters, so nothing to redact), written straight to stderr as lib/log.ts
+ * writes; the data layer does not import lib/.
  */
 function warnLost(message: string, err: Error & { code?: unknown }): void {
   const e = { name: err.name, message: err.message, ...(typeof err.code === "string" ? { code: err.code } : {}) };
-  console.warn(JSON.stringify({ level: "warn", time: new Date().toISOString(), message, err: e }));
+  process.stderr.write(JSON.stringify({ level: "warn", time: new Date().toISOString(), message, err: e }) + "\n");
 }
 
 /** One pool per process (survives hot reload in development). */
