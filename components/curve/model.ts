@@ -5,6 +5,7 @@
 import { durationWords } from "@/analysis/shared/format";
 import type { AnalysisResult, Hold, ModelFit } from "@/analysis/decay/types";
 import { storyOf } from "@/lib/verdict/story";
+import { bucketExtremes } from "@/analysis/shared/downsample";
 
 export interface XY {
   x: number;
@@ -68,21 +69,12 @@ export function decimateMinMax(t: number[], p: number[], buckets = 700): XY[] {
     for (let i = 0; i < n; i++) out.push({ x: t[i] / 60, y: Math.max(FLOOR_MICRONS, p[i]) });
     return out;
   }
-  const size = n / buckets;
-  for (let b = 0; b < buckets; b++) {
-    const from = Math.floor(b * size);
-    const to = Math.min(n, Math.floor((b + 1) * size));
-    let lo = from;
-    let hi = from;
-    for (let i = from; i < to; i++) {
-      if (p[i] < p[lo]) lo = i;
-      if (p[i] > p[hi]) hi = i;
-    }
+  bucketExtremes(p, n, buckets, (lo, hi) => {
     for (const i of lo <= hi ? [lo, hi] : [hi, lo]) {
       if (out.length && out[out.length - 1].x === t[i] / 60) continue;
       out.push({ x: t[i] / 60, y: Math.max(FLOOR_MICRONS, p[i]) });
     }
-  }
+  });
   return out;
 }
 

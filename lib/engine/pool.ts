@@ -5,13 +5,10 @@
  * long log never stalls the main thread while it serves HTTP, the database and storage.
  *
  *  - Size: ENGINE_WORKERS (lib/env.ts); 0 runs the engine inline on the caller's thread.
- *  - Small logs run inline anyway (ENGINE_INLINE_MAX_KB, default 256 kB). On the 2-core machine
- *    the engine takes 4–7 ms for a 104 kB log and 7–13 ms at 256 kB (its speed drifts), so a small
- *    log holds the event loop briefly. Handing it to a worker cost more than that in bench:api:
- *    with a 104 kB log at 20 concurrent, server CPU per upload was 23–25.5 ms inline against
- *    26–31 ms through the worker, p95 560–583 against 611–686 ms, in alternating runs (copying the
- *    log in and the run out, a second heap, two threads contending for the cores). A large log, up
- *    to the 32 MB upload limit, would hold the loop for seconds, so it goes to a worker.
+ *  - Small logs run inline anyway (ENGINE_INLINE_MAX_KB, default 256 kB): the engine holds the event
+ *    loop only milliseconds for them, less than handing them to a worker costs (copying the log in
+ *    and the run out, a second heap; measured in docs/PERFORMANCE.md). A large log, up to the
+ *    upload limit, would hold the loop for seconds, so it goes to a worker.
  *  - A LogError in the worker comes back as the same LogError (→ 422 with the importer's message).
  *  - A worker that dies or overruns ENGINE_TIMEOUT_MS fails only its own log with a clear error
  *    and is replaced; the others carry on. If workers keep failing without finishing a single
@@ -87,8 +84,8 @@ function smallEnoughForInline(task: EngineTask): boolean {
 /**
  * Workers the pool keeps: the setting, else one per core less the one the main thread needs for
  * HTTP, the database and storage (at least 1, at most 4). On a 2-core machine one worker beat two
- * in bench:api (server CPU about 37 against 48 ms per upload at 20 concurrent): a second isolate
- * warms up and compiles the engine again while competing with the main thread for the cores.
+ * in bench:api (docs/PERFORMANCE.md): a second isolate warms up and compiles the engine again while
+ * competing with the main thread for the cores.
  */
 export function engineWorkerCount(): number {
   const configured = env().ENGINE_WORKERS;
