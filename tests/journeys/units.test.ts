@@ -1,6 +1,6 @@
 /**
  * Units as a shop setting, on a desktop: the owner switches the shop to metric; a technician sees
- * °C and metres on the test page and the report and kPa in the nitrogen tool; then chooses
+ * °C and metres on the test page, the report and the upload form and kPa in the nitrogen tool; then chooses
  * imperial for themself and sees °F and feet while the report stays in the shop's units.
  * Real Chromium against the running Riseline (next build + next start) and the real database.
  */
@@ -69,6 +69,11 @@ describe("units journey (NIST SP 811: 1 ft = 0.3048 m, 1 psi = 6.894757 kPa, °F
     expect(report).toMatch(/7\.6 m,/);
     await t.goto("/tools/pressure-test");
     await expect(t.getByLabel("Pressure unit").inputValue()).resolves.toBe("kpa_gauge");
+    // The upload form asks in the reader's units (stored in feet and °C as before).
+    await t.goto("/vacuum-tests/new");
+    await t.getByText("Add job, site and system").click();
+    await expect(t.getByLabel("Line-set length (metres)").waitFor()).resolves.toBeUndefined();
+    await expect(t.getByLabel("Unit", { exact: true }).inputValue()).resolves.toBe("C");
 
     await t.goto("/settings/members");
     const mine = t.getByTestId("units-settings");
