@@ -1,6 +1,16 @@
 /** Conversions and quantities in words of lib/units, checked against NIST SP 811 (2008), appendix B. */
 import { describe, expect, it } from "vitest";
-import { celsiusFromFahrenheit, effectiveUnitSystem, fahrenheitFromCelsius, feetFromMetres, kgFromPounds, kpaFromPsi, metresFromFeet, poundsFromKg, psiFromKpa } from "@/lib/units/convert";
+import {
+  celsiusFromFahrenheit,
+  effectiveUnitSystem,
+  fahrenheitFromCelsius,
+  feetFromMetres,
+  kgFromPounds,
+  kpaFromPsi,
+  metresFromFeet,
+  poundsFromKg,
+  psiFromKpa,
+} from "@/lib/units/convert";
 import { chargeWords, lengthWords, pressureWords, temperatureWords, toStored } from "@/lib/units/format";
 import { contextFields, EMPTY_CONTEXT } from "@/app/(app)/vacuum-tests/new/context";
 

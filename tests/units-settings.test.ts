@@ -22,7 +22,8 @@ afterAll(async () => {
   await closeDb();
 });
 
-const json = (method: string, body: unknown, as: TestMember, path: string) => appRequest(path, { method, body: JSON.stringify(body), headers: { "content-type": "application/json" }, as });
+const json = (method: string, body: unknown, as: TestMember, path: string) =>
+  appRequest(path, { method, body: JSON.stringify(body), headers: { "content-type": "application/json" }, as });
 const read = async (as: TestMember) => (await unitsGet(appRequest("/api/settings/units", { as }))).json();
 
 describe("units as a shop setting with a person's own choice (NIST SP 811 factors)", () => {

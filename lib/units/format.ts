@@ -3,7 +3,17 @@
  * charges (stored kg) and gauge pressures (stored psig). Microns stay microns in both systems
  * (the trade's unit of deep vacuum), so there is no formatter for them here.
  */
-import { celsiusFromFahrenheit, feetFromMetres, fahrenheitFromCelsius, kgFromPounds, kpaFromPsi, metresFromFeet, poundsFromKg, psiFromKpa, type UnitSystem } from "./convert";
+import {
+  celsiusFromFahrenheit,
+  feetFromMetres,
+  fahrenheitFromCelsius,
+  kgFromPounds,
+  kpaFromPsi,
+  metresFromFeet,
+  poundsFromKg,
+  psiFromKpa,
+  type UnitSystem,
+} from "./convert";
 
 const round = (v: number, digits: number): number => Number(v.toFixed(digits));
 

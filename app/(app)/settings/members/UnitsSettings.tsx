@@ -25,7 +25,10 @@ export function UnitsSettings({ initial, canManage }: { initial: UnitSettings; c
     setError(null);
     try {
       const body = which === "shop" ? { unitSystem: shop } : { unitSystem: mine === "" ? null : mine };
-      const r = await apiFetch<UnitSettings>(which === "shop" ? "/api/settings/units" : "/api/settings/units/mine", { method: "PUT", body: JSON.stringify(body) });
+      const r = await apiFetch<UnitSettings>(which === "shop" ? "/api/settings/units" : "/api/settings/units/mine", {
+        method: "PUT",
+        body: JSON.stringify(body),
+      });
       setSaved(r);
       router.refresh();
     } catch (err) {
@@ -46,7 +49,9 @@ export function UnitsSettings({ initial, canManage }: { initial: UnitSettings; c
             <option value="imperial">{WORDS.imperial}</option>
             <option value="metric">{WORDS.metric}</option>
           </Select>
-          <Button type="submit" busy={busy === "shop"} disabled={shop === saved.shop}>Save shop units</Button>
+          <Button type="submit" busy={busy === "shop"} disabled={shop === saved.shop}>
+            Save shop units
+          </Button>
         </form>
       ) : null}
       <form className="mt-3 flex flex-wrap items-end gap-2" onSubmit={(e) => (e.preventDefault(), void save("mine"))}>
@@ -55,7 +60,9 @@ export function UnitsSettings({ initial, canManage }: { initial: UnitSettings; c
           <option value="imperial">{WORDS.imperial}</option>
           <option value="metric">{WORDS.metric}</option>
         </Select>
-        <Button type="submit" busy={busy === "mine"} disabled={mine === (saved.person ?? "")}>Save your units</Button>
+        <Button type="submit" busy={busy === "mine"} disabled={mine === (saved.person ?? "")}>
+          Save your units
+        </Button>
       </form>
       {error && <Alert tone="error">{error}</Alert>}
     </Card>
