@@ -101,6 +101,7 @@ export const POLICIES = {
   "member.manage": { permission: "members.manage" },
   "shop.read": { permission: "member" },
   "shop.manage": { permission: "members.manage" },
+  "preference.write": { permission: "member", rows: "the person's own preferences only" },
   "overlay.read": { permission: "member", rows: VISIBLE },
   "planner.read": { permission: "member", rows: VISIBLE },
   "task.read": { permission: "member", rows: "the person's own background tasks; every task for who reads all tests" },

@@ -21,6 +21,9 @@ import { equipmentLines, type EquipmentLine } from "./equipment";
 import { reviewStoryOf, type ReviewStory } from "./review-story";
 import { dayInZone, whenInZone } from "./time";
 import { REPORT_CAUTIONS } from "./words";
+import type { UnitSystem } from "@/lib/units/convert";
+import { lengthWords, temperatureWords } from "@/lib/units/format";
+import { unitSettingsOf } from "@/lib/units/settings";
 
 export interface ReportCurve {
   /** Minutes from the first data row. */
@@ -124,12 +127,12 @@ function curveOf(series: { t: number[]; p: number[] }, r: AnalysisResult): Repor
   };
 }
 
-function conditionsOf(t: { lineSetFeet: number | null; liquidOd: string | null; suctionOd: string | null; volumeLitres: number | null; ambientC: number | null }, system: ReportModel["system"]): [string, string][] {
+function conditionsOf(t: { lineSetFeet: number | null; liquidOd: string | null; suctionOd: string | null; volumeLitres: number | null; ambientC: number | null }, system: ReportModel["system"], units: UnitSystem): [string, string][] {
   const out: [string, string][] = [];
   const feet = t.lineSetFeet ?? system?.lineSetFeet ?? null;
-  if (feet) out.push(["Line set", `${fmt(feet)} ft, ${t.liquidOd ?? system?.liquidOd ?? "?"} in. liquid / ${t.suctionOd ?? system?.suctionOd ?? "?"} in. suction`]);
+  if (feet) out.push(["Line set", `${lengthWords(feet, units)}, ${t.liquidOd ?? system?.liquidOd ?? "?"} in. liquid / ${t.suctionOd ?? system?.suctionOd ?? "?"} in. suction`]);
   if (t.volumeLitres != null) out.push(["System volume", `${fmt(t.volumeLitres, 1)} L (${fmt(t.volumeLitres * 0.0353147, 2)} cu ft)`]);
-  if (t.ambientC != null) out.push(["Ambient temperature", `${fmt(t.ambientC, 1)} °C (${fmt(t.ambientC * 1.8 + 32)} °F)`]);
+  if (t.ambientC != null) out.push(["Ambient temperature", temperatureWords(t.ambientC, units)]);
   return out;
 }
 
@@ -144,7 +147,8 @@ export async function buildReportModel(db: Db, params: { organizationId: string;
   const row = await getTestById(db, { viewer: owner, testId: params.testId });
   if (!row) return null;
   const t = row.test;
-  const [orgName, timeZone, analysis, site, system, events, rig, upload] = await Promise.all([
+  // The report is the shop's document: it is written in the shop's units (not the reader's own).
+  const [orgName, timeZone, analysis, site, system, events, rig, upload, { shop: units }] = await Promise.all([
     getOrganizationNameById(db, { organizationId: org }),
     getOrganizationTimeZoneById(db, { organizationId: org }),
     t.currentAnalysisId ? getAnalysisById(db, { organizationId: org, analysisId: t.currentAnalysisId }) : null,
@@ -153,6 +157,7 @@ export async function buildReportModel(db: Db, params: { organizationId: string;
     listReviewEventsByTest(db, { organizationId: org, testId: t.id }),
     getRigByTest(db, { viewer: owner, testId: t.id }),
     getUploadByTest(db, { organizationId: org, testId: t.id }),
+    unitSettingsOf(db, { organizationId: org, userId: "" }),
   ]);
   const testedOn = dayInZone(t.testedAt, timeZone);
   const [items, rigEvents] = rig
@@ -178,7 +183,7 @@ export async function buildReportModel(db: Db, params: { organizationId: string;
     siteAddress: site?.address ?? null,
     system: sys,
     refrigerant: t.refrigerant ?? system?.refrigerant ?? null,
-    conditions: conditionsOf(t, sys),
+    conditions: conditionsOf(t, sys, units),
     rig: rig ? { name: rig.name, truck: rig.truck, pieces: equipmentLines(items, rigEvents, testedOn) } : null,
     rigNote: t.rigNote,
     customerNote: t.customerNote,

@@ -29,6 +29,8 @@ const L = {
   profileReanalysis: () => import("@/app/api/settings/profiles/[id]/reanalysis/route"),
   task: () => import("@/app/api/tasks/[id]/route"),
   shopSettings: () => import("@/app/api/settings/shop/route"),
+  unitSettings: () => import("@/app/api/settings/units/route"),
+  myUnits: () => import("@/app/api/settings/units/mine/route"),
   plannerHistory: () => import("@/app/api/planner/history/route"),
   similarNames: () => import("@/app/api/records/similar/route"),
   mergeRecords: () => import("@/app/api/records/merge/route"),
@@ -58,6 +60,9 @@ async function freshInvitation(w: World): Promise<string> {
 export const RECORD_PROBES: Probe[] = [
   { route: "GET /api/settings/shop", call: (as) => hit(L.shopSettings, "GET", "/x", as), expect: rule("member"), outsider: "no-leak" },
   { route: "PUT /api/settings/shop", call: (as) => hit(L.shopSettings, "PUT", "/x", as, { body: { timeZone: "America/Chicago" } }), expect: rule("members.manage"), outsider: "no-leak" },
+  { route: "GET /api/settings/units", call: (as) => hit(L.unitSettings, "GET", "/x", as), expect: rule("member"), outsider: "no-leak" },
+  { route: "PUT /api/settings/units", call: (as) => hit(L.unitSettings, "PUT", "/x", as, { body: { unitSystem: "imperial" } }), expect: rule("members.manage"), outsider: "no-leak" },
+  { route: "PUT /api/settings/units/mine", call: (as) => hit(L.myUnits, "PUT", "/x", as, { body: { unitSystem: null } }), expect: rule("member"), outsider: "no-leak" },
   {
     route: "GET /api/planner/history",
     call: (as, w) => hit(L.plannerHistory, "GET", `/api/planner/history?systemId=${w.systemId}`, as),

@@ -6,16 +6,19 @@ import { can } from "@/lib/permissions";
 import { getOrganizationTimeZoneById } from "@/db/queries/settings";
 import { MembersManager, type InvitationRow, type MemberRow } from "./MembersManager";
 import { ShopTimeZone } from "./ShopTimeZone";
+import { UnitsSettings } from "./UnitsSettings";
+import { unitSettingsOf } from "@/lib/units/settings";
 
 export const metadata: Metadata = { title: "Shop" };
 
 export default async function MembersPage() {
   const actor = await pageActor("members.read");
   const canManage = can(actor.role, "members.manage");
-  const [members, invitations, timeZone] = await Promise.all([
+  const [members, invitations, timeZone, units] = await Promise.all([
     listMembersByOrganization(db(), { organizationId: actor.organizationId }),
     canManage ? listInvitationsByOrganization(db(), { organizationId: actor.organizationId }) : Promise.resolve([]),
     getOrganizationTimeZoneById(db(), { organizationId: actor.organizationId }),
+    unitSettingsOf(db(), actor),
   ]);
   const memberRows: MemberRow[] = members.map((m) => ({ userId: m.userId, name: m.name, email: m.email, role: m.role, joinedAt: m.joinedAt.toISOString() }));
   const inviteRows: InvitationRow[] = invitations.map((i) => ({ id: i.id, email: i.email, role: i.role ?? "", expiresAt: i.expiresAt.toISOString() }));
@@ -30,6 +33,7 @@ export default async function MembersPage() {
       </header>
       <MembersManager members={memberRows} invitations={inviteRows} canManage={canManage} selfUserId={actor.userId} />
       <ShopTimeZone timeZone={timeZone} canManage={canManage} />
+      <UnitsSettings initial={units} canManage={canManage} />
     </div>
   );
 }

@@ -15,6 +15,7 @@ import { evaluatePressureTestRequest } from "@/lib/pressure/evaluate";
 import type { PressureTestCreate } from "@/lib/pressure/schemas";
 import { AtmosphereFields, atmosphereBody, type AtmosphereState } from "./AtmosphereFields";
 import { PressureResult } from "./PressureResult";
+import { useUnits } from "@/lib/units/context";
 import { UNIT_WORDS } from "./words";
 
 const num = (s: string) => (s.trim() === "" ? NaN : Number(s.replace(",", ".")));
@@ -28,8 +29,10 @@ interface Between {
 export function PressureTestForm({ jobs }: { jobs: { id: string; label: string }[] }) {
   const router = useRouter();
   const [mode, setMode] = useState<"typed" | "file">("typed");
-  const [unit, setUnit] = useState<NitrogenPressureUnit>("psig");
-  const [tUnit, setTUnit] = useState<TemperatureUnit>("F");
+  const metric = useUnits() === "metric";
+  // Opens in the reader's units (kPa gauge and °C for a metric shop); either can be changed.
+  const [unit, setUnit] = useState<NitrogenPressureUnit>(metric ? "kpa_gauge" : "psig");
+  const [tUnit, setTUnit] = useState<TemperatureUnit>(metric ? "C" : "F");
   const [p1, setP1] = useState("");
   const [t1, setT1] = useState("");
   const [p2, setP2] = useState("");

@@ -5,14 +5,16 @@ import { PA_PER_MICRON } from "@/analysis/shared/units";
 import { waterVapourPressurePa } from "@/analysis/calculators/water";
 import { cToF, TRIPLE_POINT_MICRONS, WaterAtVacuum } from "@/components/planner/WaterAtVacuum";
 import { Card, Input, Select } from "@/components/ui";
+import { useUnits } from "@/lib/units/context";
 
 const num = (s: string) => Number(s.replace(",", "."));
 
 export function WaterCalculator() {
   const [microns, setMicrons] = useState("500");
-  // Opens in °F, the unit the shop works in (50 °F = 10 °C).
-  const [temp, setTemp] = useState("50");
-  const [tUnit, setTUnit] = useState<"C" | "F">("F");
+  // Opens in the reader's units: 50 °F or 10 °C (the same temperature).
+  const metric = useUnits() === "metric";
+  const [temp, setTemp] = useState(metric ? "10" : "50");
+  const [tUnit, setTUnit] = useState<"C" | "F">(metric ? "C" : "F");
   const m = num(microns);
   const tC = tUnit === "C" ? num(temp) : ((num(temp) - 32) * 5) / 9;
   const pa = Number.isFinite(tC) ? waterVapourPressurePa(tC) : NaN;

@@ -1,15 +1,18 @@
 import type { AnalysisResult } from "@/analysis/decay/types";
 import type { VacuumTestDto } from "@/lib/client/api";
+import { useUnits } from "@/lib/units/context";
+import { lengthWords, temperatureWords } from "@/lib/units/format";
 import { UNIT_LABELS } from "../new/ColumnChooser";
 
 /** How the log was read and the context recorded with it. */
 export function ImportPanel({ analysis, test }: { analysis: AnalysisResult; test: VacuumTestDto }) {
   const s = analysis.import;
+  const units = useUnits();
   const ctx: [string, string | number | null | undefined][] = [
     ["Refrigerant", test.refrigerant],
-    ["Line set", test.lineSetFeet ? `${test.lineSetFeet} ft, ${test.liquidOd ?? "?"}″ / ${test.suctionOd ?? "?"}″` : null],
+    ["Line set", test.lineSetFeet ? `${lengthWords(test.lineSetFeet, units)}, ${test.liquidOd ?? "?"}″ / ${test.suctionOd ?? "?"}″` : null],
     ["Volume", test.volumeLitres != null ? `${test.volumeLitres} L` : null],
-    ["Ambient", test.ambientC != null ? `${test.ambientC} °C (${Math.round(test.ambientC * 1.8 + 32)} °F)` : null],
+    ["Ambient", test.ambientC != null ? temperatureWords(test.ambientC, units) : null],
     ["Rig", test.rigNote],
     ["Internal notes", test.notes],
   ];

@@ -104,7 +104,7 @@ export function ContextForm({ value, onChange, canCreateJob }: Props) {
         <option value="">Not set</option>
         {REFRIGERANTS.map((r) => <option key={r} value={r}>{r}</option>)}
       </Select>
-      <Input label="Line-set length (feet)" inputMode="decimal" value={value.lineSetFeet} onChange={(e) => set("lineSetFeet", e.target.value)} hint="With the tube sizes, gives the volume for a leak rate." />
+      <Input label={value.lengthUnit === "m" ? "Line-set length (metres)" : "Line-set length (feet)"} inputMode="decimal" value={value.lineSetFeet} onChange={(e) => set("lineSetFeet", e.target.value)} hint="With the tube sizes, gives the volume for a leak rate." />
       <Select label="Liquid line (OD, inch)" value={value.liquidOd} onChange={(e) => set("liquidOd", e.target.value)}>
         <option value="">Not set</option>
         {TUBE_SIZES.map((s) => <option key={s} value={s}>{s}″</option>)}

@@ -21,6 +21,7 @@ import { EMPTY_CONTEXT, appendContext, contextFields, type TestContext } from ".
 import { DropZone, MAX_UPLOAD_BYTES } from "./DropZone";
 import { NewVisit } from "./NewVisit";
 import { adviseOnError } from "./errors";
+import { useUnits } from "@/lib/units/context";
 import type { TimeMode } from "./readings";
 import type { TaskProgress, UploadAnswer } from "@/lib/client/tasks";
 
@@ -88,7 +89,8 @@ export interface NewTestProps {
 export function NewTest({ technicianName, canCreateJob, userId }: NewTestProps) {
   const [tab, setTab] = useState<"file" | "typed">("file");
   const [phase, setPhase] = useState<Phase>({ kind: "pick" });
-  const [context, setContext] = useState<TestContext>(EMPTY_CONTEXT);
+  const units = useUnits();
+  const [context, setContext] = useState<TestContext>(() => ({ ...EMPTY_CONTEXT, ambientUnit: units === "metric" ? "C" : "F", lengthUnit: units === "metric" ? "m" : "ft" }));
   const queryClient = useQueryClient();
 
   /** No signal: the capture goes to the phone's outbox (its key made there) and is judged on the phone. */

@@ -2,6 +2,8 @@
  * The optional context a technician may add to a test (job, site, system, line set, …) and
  * how it travels: as multipart fields with a file, or as JSON beside typed readings.
  */
+import { toStored } from "@/lib/units/format";
+
 export const TUBE_SIZES = ["1/4", "3/8", "1/2", "5/8", "3/4", "7/8", "1-1/8"] as const;
 
 export const REFRIGERANTS = ["R-410A", "R-32", "R-454B", "R-452B", "R-22", "R-134a", "R-404A", "R-407C", "R-448A", "R-290", "R-744"] as const;
@@ -21,7 +23,9 @@ export interface TestContext {
   systemName: string;
   systemId: string;
   refrigerant: string;
+  /** The line-set length as typed, in `lengthUnit` (feet unless the reader works in metres). */
   lineSetFeet: string;
+  lengthUnit?: "ft" | "m";
   liquidOd: string;
   suctionOd: string;
   volumeLitres: string;
@@ -91,8 +95,9 @@ export function contextFields(ctx: TestContext): Record<string, string | number 
   if (ctx.systemId) out.systemId = ctx.systemId;
   else if (ctx.siteId || ctx.siteName.trim()) text("newSystemName", ctx.systemName);
   text("refrigerant", ctx.refrigerant);
-  const feet = num(ctx.lineSetFeet);
-  if (feet !== undefined) out.lineSetFeet = feet;
+  const typed = num(ctx.lineSetFeet);
+  // Stored in feet as before; metres ÷ 0.3048 (NIST SP 811: 1 ft = 0.3048 m exactly).
+  if (typed !== undefined) out.lineSetFeet = ctx.lengthUnit === "m" ? toStored.length(typed, "metric") : typed;
   text("liquidOd", ctx.liquidOd);
   text("suctionOd", ctx.suctionOd);
   const litres = num(ctx.volumeLitres);

@@ -1,5 +1,7 @@
 import type { Metadata } from "next";
-import { chargeWords } from "@/lib/words/charge";
+import { chargeWords, lengthWords } from "@/lib/units/format";
+import { chargeWords as chargeWithKg } from "@/lib/words/charge";
+import { unitSettingsOf } from "@/lib/units/settings";
 import { codeWords } from "@/lib/words/codes";
 import Link from "next/link";
 import { notFound } from "next/navigation";
@@ -24,11 +26,12 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
   const h = await systemHistoryOf(db(), { viewer: { organizationId: actor.organizationId, userId: actor.userId, role: actor.role }, systemId: id });
   if (!h) notFound();
   const s = h.system;
+  const { effective: units } = await unitSettingsOf(db(), actor);
   const facts: [string, string | null][] = [
     ["Kind", codeWords(s.kind)],
     ["Refrigerant", s.refrigerant],
-    ["Factory charge", s.factoryChargeKg != null ? chargeWords(s.factoryChargeKg) : null],
-    ["Line set", s.lineSetFeet != null ? `${s.lineSetFeet} ft${s.liquidOd ? `, ${s.liquidOd} in. liquid` : ""}${s.suctionOd ? ` / ${s.suctionOd} in. suction` : ""}` : null],
+    ["Factory charge", s.factoryChargeKg != null ? (units === "metric" ? chargeWords(s.factoryChargeKg, units) : chargeWithKg(s.factoryChargeKg)) : null],
+    ["Line set", s.lineSetFeet != null ? `${lengthWords(s.lineSetFeet, units)}${s.liquidOd ? `, ${s.liquidOd} in. liquid` : ""}${s.suctionOd ? ` / ${s.suctionOd} in. suction` : ""}` : null],
     ["Indoor coil", s.indoorCoilLitres != null ? `${s.indoorCoilLitres} L` : null],
     ["Outdoor unit", s.outdoorUnitLitres != null ? `${s.outdoorUnitLitres} L` : null],
     ["Installed", s.installedOn],
