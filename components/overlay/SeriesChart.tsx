@@ -10,6 +10,7 @@ import { useMemo, useRef, type MouseEvent } from "react";
 import { Chart, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip, type ChartData, type ChartOptions, type ChartType, type Plugin } from "chart.js";
 import { getRelativePosition } from "chart.js/helpers";
 import { Line } from "react-chartjs-2";
+import { labelRows } from "@/components/curve/label-rows";
 import { logTickLabel, logTicks125, roundLinearTicks } from "@/components/curve/log-ticks";
 import { decimateMinMax, durationWords, microns } from "@/components/curve/model";
 import { SERIES_COLOURS, SERIES_DASHES } from "./colours";
@@ -72,9 +73,20 @@ const markersPlugin: Plugin<"line", MarkersOptions> = {
       const { ctx, chartArea, scales } = chart;
       ctx.save();
       ctx.font = "600 12px 'IBM Plex Sans', system-ui, sans-serif";
-      markers.forEach((m, i) => {
+      // Where each label goes: a pin's numbered disc centred on its line, another label beside its
+      // line; then rows so that no two labels overlap (labelRows).
+      const placed = markers.map((m, i) => {
         const x = scales.x.getPixelForValue(m.atSeconds / 60);
-        if (x < chartArea.left || x > chartArea.right) return;
+        const label = m.kind === "pin" ? `${i + 1}` : m.label;
+        const w = ctx.measureText(label).width;
+        const textX = m.kind === "pin" ? x - w / 2 : x + 4 + w > chartArea.right ? x - 4 - w : x + 4;
+        const span = m.kind === "pin" ? { x0: x - 10, x1: x + 10 } : { x0: textX, x1: textX + w };
+        return { m, x, label, w, textX, span, inside: x >= chartArea.left && x <= chartArea.right };
+      });
+      const shown = placed.filter((p) => p.inside);
+      const rows = labelRows(shown.map((p) => p.span));
+      shown.forEach((p, k) => {
+        const { m, x, label, w, textX } = p;
         const colour = m.kind === "pin" ? pinColour : soft;
         ctx.strokeStyle = colour;
         ctx.lineWidth = 2;
@@ -84,9 +96,7 @@ const markersPlugin: Plugin<"line", MarkersOptions> = {
         ctx.lineTo(x, chartArea.bottom);
         ctx.stroke();
         ctx.setLineDash([]);
-        const label = m.kind === "pin" ? `${i + 1}` : m.label;
-        const w = ctx.measureText(label).width;
-        const y = chartArea.top + 14 + (m.kind === "pin" ? 16 * (i % 3) : 0);
+        const y = chartArea.top + 14 + 20 * rows[k];
         if (m.kind === "pin") {
           ctx.fillStyle = colour;
           ctx.beginPath();
@@ -96,7 +106,7 @@ const markersPlugin: Plugin<"line", MarkersOptions> = {
           ctx.fillText(label, x - w / 2, y);
         } else {
           ctx.fillStyle = colour;
-          ctx.fillText(label, x + 4 + w > chartArea.right ? x - 4 - w : x + 4, y);
+          ctx.fillText(label, textX, y);
         }
       });
       ctx.restore();
