@@ -4,6 +4,8 @@ import { useRouter } from "next/navigation";
 import { useState, type ReactNode } from "react";
 import { Alert, Button, Card, Input, Select } from "@/components/ui";
 import { apiFetch } from "@/lib/client/api";
+import { useUnits } from "@/lib/units/context";
+import { toStored } from "@/lib/units/format";
 import { NameWithSimilar } from "./NameWithSimilar";
 
 const TUBE_ODS = ["1/4", "5/16", "3/8", "1/2", "5/8", "3/4", "7/8", "1-1/8", "1-3/8", "1-5/8", "2-1/8"];
@@ -73,6 +75,10 @@ export function NewSiteForm({ customers }: { customers: { id: string; name: stri
 }
 
 export function NewSystemForm({ siteId }: { siteId: string }) {
+  const units = useUnits();
+  const metric = units === "metric";
+  /** Typed in the reader's units, stored in kg and feet. */
+  const stored = (v: number | null, kind: "charge" | "length") => (v == null ? v : toStored[kind](v, units));
   const od = [{ value: "", label: "—" }, ...TUBE_ODS.map((o) => ({ value: o, label: `${o} in.` }))];
   return (
     <CreateForm
@@ -80,16 +86,16 @@ export function NewSystemForm({ siteId }: { siteId: string }) {
       url="/api/systems"
       submitLabel="Add system"
       build={(f) => ({
-        siteId, name: str(f, "name"), kind: str(f, "kind"), refrigerant: str(f, "refrigerant"), factoryChargeKg: num(f, "factoryChargeKg"),
-        lineSetFeet: num(f, "lineSetFeet"), liquidOd: str(f, "liquidOd"), suctionOd: str(f, "suctionOd"),
+        siteId, name: str(f, "name"), kind: str(f, "kind"), refrigerant: str(f, "refrigerant"), factoryChargeKg: stored(num(f, "factoryChargeKg"), "charge"),
+        lineSetFeet: stored(num(f, "lineSetFeet"), "length"), liquidOd: str(f, "liquidOd"), suctionOd: str(f, "suctionOd"),
         indoorCoilLitres: num(f, "indoorCoilLitres"), outdoorUnitLitres: num(f, "outdoorUnitLitres"), installedOn: str(f, "installedOn"),
       })}
     >
       <NameWithSimilar kind="system" label="Name" siteId={siteId} />
       <Input label="Kind (split, packaged, walk-in…)" name="kind" />
       <Input label="Refrigerant" name="refrigerant" />
-      <Input label="Factory charge (kg)" name="factoryChargeKg" inputMode="decimal" />
-      <Input label="Line set length (ft)" name="lineSetFeet" inputMode="decimal" />
+      <Input label={metric ? "Factory charge (kg)" : "Factory charge (lb)"} name="factoryChargeKg" inputMode="decimal" />
+      <Input label={metric ? "Line set length (m)" : "Line set length (ft)"} name="lineSetFeet" inputMode="decimal" />
       <Input label="Installed on" name="installedOn" type="date" />
       <Select label="Liquid line OD" name="liquidOd" options={od} />
       <Select label="Suction line OD" name="suctionOd" options={od} />

@@ -7,6 +7,9 @@
  * and for a recorded system its own pull-downs beside the plan.
  */
 import { useState } from "react";
+import { metresFromFeet } from "@/lib/units/convert";
+import { toStored } from "@/lib/units/format";
+import { useUnits } from "@/lib/units/context";
 import { planWhatIfs, type PlannerInput, type WhatIf } from "@/analysis/calculators/planner";
 import { CONDITION_WORDS, type SystemCondition } from "@/analysis/calculators/planner-load";
 import { ACR_TUBE_ID_INCHES, systemVolumeLitres, tubeInsideDiameterIn } from "@/analysis/shared/volume";
@@ -39,7 +42,12 @@ function num(s: string): number {
 export function Planner({ systems }: { systems: PlannerSystem[] }) {
   const [systemId, setSystemId] = useState("");
   const [volumeMode, setVolumeMode] = useState<"lineset" | "direct">("lineset");
-  const [lineFt, setLineFt] = useState("25");
+  const units = useUnits();
+  const metric = units === "metric";
+  /** A length in feet as the person types it (metres for a metric reader). */
+  const shownLength = (feet: number) => String(metric ? Math.round(metresFromFeet(feet) * 10) / 10 : feet);
+  const feetOf = (typed: string) => toStored.length(num(typed), units);
+  const [lineFt, setLineFt] = useState(() => shownLength(25));
   const [liquidOd, setLiquidOd] = useState("3/8");
   const [suctionOd, setSuctionOd] = useState("3/4");
   const [coilL, setCoilL] = useState("3");
@@ -49,7 +57,7 @@ export function Planner({ systems }: { systems: PlannerSystem[] }) {
   const [blankOff, setBlankOff] = useState("20");
   const [hoseCount, setHoseCount] = useState("2");
   const [hoseId, setHoseId] = useState("0.25");
-  const [hoseFt, setHoseFt] = useState("6");
+  const [hoseFt, setHoseFt] = useState(() => shownLength(6));
   const [coresRemoved, setCoresRemoved] = useState(false);
   const [manifold, setManifold] = useState(true);
   const [target, setTarget] = useState("500");
@@ -68,7 +76,7 @@ export function Planner({ systems }: { systems: PlannerSystem[] }) {
     if (r.blankOffMicrons) setBlankOff(String(r.blankOffMicrons));
     if (r.hoseCount) setHoseCount(String(r.hoseCount));
     if (r.hoseInsideDiameterIn) setHoseId(String(r.hoseInsideDiameterIn));
-    if (r.hoseLengthFt) setHoseFt(String(r.hoseLengthFt));
+    if (r.hoseLengthFt) setHoseFt(shownLength(r.hoseLengthFt));
   }
 
   function pickSystem(id: string) {
@@ -78,7 +86,7 @@ export function Planner({ systems }: { systems: PlannerSystem[] }) {
     if (!s) return;
     if (s.lineSetFeet && s.liquidOd && s.suctionOd) {
       setVolumeMode("lineset");
-      setLineFt(String(s.lineSetFeet));
+      setLineFt(shownLength(s.lineSetFeet));
       setLiquidOd(s.liquidOd);
       setSuctionOd(s.suctionOd);
     }
@@ -94,19 +102,19 @@ export function Planner({ systems }: { systems: PlannerSystem[] }) {
         const volume =
           volumeMode === "direct"
             ? systemVolumeLitres({ litres: num(litres) })
-            : systemVolumeLitres({ lineSet: [{ lengthFeet: num(lineFt), liquidOd, suctionOd }], coilLitres: num(coilL) || 0 });
+            : systemVolumeLitres({ lineSet: [{ lengthFeet: feetOf(lineFt), liquidOd, suctionOd }], coilLitres: num(coilL) || 0 });
         if (!volume) throw new RangeError("enter the line set or the system volume");
         const grams = num(waterGrams);
         const input: PlannerInput = {
           volumeLitres: volume,
           pump: { displacement: num(displacement), displacementUnit: dispUnit, blankOffMicrons: num(blankOff) },
-          hoses: { count: num(hoseCount), insideDiameterIn: num(hoseId), lengthFt: num(hoseFt) },
+          hoses: { count: num(hoseCount), insideDiameterIn: num(hoseId), lengthFt: feetOf(hoseFt) },
           coresRemoved,
           manifold,
           targetMicrons: num(target),
           condition,
           waterGrams: Number.isFinite(grams) ? grams : null,
-          lineSet: volumeMode === "lineset" ? { lengthFt: num(lineFt), suctionInsideDiameterIn: tubeInsideDiameterIn(suctionOd) } : null,
+          lineSet: volumeMode === "lineset" ? { lengthFt: feetOf(lineFt), suctionInsideDiameterIn: tubeInsideDiameterIn(suctionOd) } : null,
         };
         setResult({ whatIfs: planWhatIfs(input), volume });
       } catch (e) {
@@ -142,7 +150,7 @@ export function Planner({ systems }: { systems: PlannerSystem[] }) {
         </div>
         {volumeMode === "lineset" ? (
           <div className="grid gap-3 sm:grid-cols-2">
-            <Input label="Line-set length (ft)" inputMode="decimal" value={lineFt} onChange={(e) => setLineFt(e.target.value)} />
+            <Input label={metric ? "Line-set length (m)" : "Line-set length (ft)"} inputMode="decimal" value={lineFt} onChange={(e) => setLineFt(e.target.value)} />
             <Input label="Coil and unit volume (L)" inputMode="decimal" value={coilL} onChange={(e) => setCoilL(e.target.value)} hint="Indoor coil, plus the outdoor unit when it is opened too" />
             <Select label="Liquid line OD" value={liquidOd} onChange={(e) => setLiquidOd(e.target.value)} options={SIZES} />
             <Select label="Suction line OD" value={suctionOd} onChange={(e) => setSuctionOd(e.target.value)} options={SIZES} />
@@ -172,7 +180,7 @@ export function Planner({ systems }: { systems: PlannerSystem[] }) {
           <Input label="Target (microns)" inputMode="decimal" value={target} onChange={(e) => setTarget(e.target.value)} />
           <Input label="Number of hoses" inputMode="numeric" value={hoseCount} onChange={(e) => setHoseCount(e.target.value)} />
           <Select label="Hose inside diameter" value={hoseId} onChange={(e) => setHoseId(e.target.value)} options={HOSE_IDS.some((h) => h.value === hoseId) ? HOSE_IDS : [...HOSE_IDS, { value: hoseId, label: `${hoseId} in` }]} />
-          <Input label="Hose length (ft)" inputMode="decimal" value={hoseFt} onChange={(e) => setHoseFt(e.target.value)} />
+          <Input label={metric ? "Hose length (m)" : "Hose length (ft)"} inputMode="decimal" value={hoseFt} onChange={(e) => setHoseFt(e.target.value)} />
         </div>
         <div className="mt-3 space-y-2">
           <label className="flex min-h-tap items-center gap-3 text-body">
