@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
+import { getShopMailSettings } from "./mail-settings";
 import { analyses, member, organization, sites, systems, testEvents, user, vacuumTests, type TestEventKind, type TestStatus } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
 import type { Verdict } from "@/db/vocabulary";
@@ -92,6 +93,13 @@ export async function listReviewerEmailsByOrganization(db: Db, params: { organiz
     .innerJoin(user, eq(user.id, member.userId))
     .where(and(eq(member.organizationId, params.organizationId), inArray(member.role, ["lead", "owner"])))
     .orderBy(asc(user.email));
+  // The shop may choose who receives review mail (settings/mail); members chosen, whatever their role.
+  const { reviewMailTo } = await getShopMailSettings(db, params);
+  if (reviewMailTo.length) {
+    const chosen = await db.select({ email: user.email }).from(member).innerJoin(user, eq(user.id, member.userId))
+      .where(and(eq(member.organizationId, params.organizationId), inArray(member.userId, reviewMailTo))).orderBy(asc(user.email));
+    if (chosen.length) return chosen.map((r) => r.email);
+  }
   const leads = rows.filter((r) => r.role === "lead").map((r) => r.email);
   return leads.length ? leads : rows.map((r) => r.email);
 }
