@@ -26,7 +26,7 @@ import { log } from "@/lib/log";
 import { isPermanentSmtpFailure, nextStepAfterFailure } from "./backoff";
 import { enqueueMailDelivery, type MailJobData } from "./outbox";
 import { mailSender, type MailWithAttachments } from "./transport";
-import { fromWithSenderName, unsubscribeHeaders, unsubscribeUrl } from "./unsubscribe";
+import { fromWithSenderName, unsubscribeHeaders } from "./unsubscribe";
 
 /** The longest one SMTP hand-over may take before it counts as failed (inside the job's 30 s expiry). */
 const SEND_LIMIT_MS = 20_000;
@@ -39,16 +39,19 @@ export function messageIdOf(outboxId: string): string {
   return `<outbox-${outboxId}@${domain}>`;
 }
 
-type Envelope = Pick<MailWithAttachments, "from" | "headers"> & { footer?: string };
+type Envelope = Pick<MailWithAttachments, "from" | "headers"> & { footer?: boolean };
 
-/** The unsubscribe link at the foot of a non-essential mail, in both bodies. */
-function withFooter(row: OutboxRow, url: string | undefined): { text: string; html: string } {
-  if (!url) return { text: row.text, html: row.html };
-  const line = "You receive this because of your mail settings in Riseline. Stop this kind of mail:";
-  const safe = url.replace(/&/g, "&amp;").replace(/"/g, "&quot;");
+/**
+ * The foot of a non-essential mail: where to turn it off. The signed link itself is only in the
+ * headers (a mail's body carries no token); the body points to the person's own settings page.
+ */
+function withFooter(row: OutboxRow, footer: boolean): { text: string; html: string } {
+  if (!footer) return { text: row.text, html: row.html };
+  const url = new URL("/settings/my-mail", env().BETTER_AUTH_URL).toString();
+  const line = "To stop this kind of mail, use your mail client's unsubscribe button or turn it off in your mail settings:";
   return {
     text: `${row.text}\n\n${line} ${url}`,
-    html: `${row.html}<p style="font-size:12px;color:#50616b">${line} <a href="${safe}">unsubscribe</a></p>`,
+    html: `${row.html}<p style="font-size:12px;color:#50616b">${line} <a href="${url}">${url}</a></p>`,
   };
 }
 
@@ -63,7 +66,7 @@ async function envelopeOf(db: Db, row: OutboxRow): Promise<Envelope | null> {
   const from = fromWithSenderName(state.senderName);
   if (!row.kind || !state.userId) return { from };
   const claim = { userId: state.userId, organizationId: row.organizationId, kind: row.kind };
-  return { from, headers: unsubscribeHeaders(claim), footer: unsubscribeUrl(claim) };
+  return { from, headers: unsubscribeHeaders(claim), footer: true };
 }
 
 async function sendRow(db: Database, row: OutboxRow, envelope: Envelope): Promise<void> {
@@ -75,7 +78,7 @@ async function sendRow(db: Database, row: OutboxRow, envelope: Envelope): Promis
   });
   try {
     await Promise.race([
-      mailSender()({ to: row.to, subject: row.subject, ...withFooter(row, envelope.footer), messageId: messageIdOf(row.id), from: envelope.from, headers: envelope.headers, ...(attachments ? { attachments } : {}) }),
+      mailSender()({ to: row.to, subject: row.subject, ...withFooter(row, envelope.footer ?? false), messageId: messageIdOf(row.id), from: envelope.from, headers: envelope.headers, ...(attachments ? { attachments } : {}) }),
       limit,
     ]);
   } finally {
