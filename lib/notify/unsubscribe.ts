@@ -8,6 +8,8 @@ import { createHmac, timingSafeEqual } from "node:crypto";
 import { MAIL_KINDS, type MailKind } from "@/db/schema";
 import { env } from "@/lib/env";
 
+export { MAIL_KIND_WORDS } from "./kind-words";
+
 export interface UnsubscribeClaim {
   userId: string;
   organizationId: string;
@@ -55,10 +57,3 @@ export function fromWithSenderName(senderName: string | null): string | { name: 
   const address = /<([^>]+)>/.exec(from)?.[1] ?? from.trim();
   return { name: senderName, address };
 }
-
-export const MAIL_KIND_WORDS: Record<MailKind, { label: string; hint: string }> = {
-  review_request: { label: "Review requests", hint: "A test waits for review, help is asked, or a re-test was uploaded." },
-  comment: { label: "Comments", hint: "Someone commented on a test you made or review." },
-  review_outcome: { label: "Sign-off notices", hint: "Your test was signed off, accepted with a reason, or sent back." },
-  rig_reminder: { label: "Rig upkeep reminders", hint: "A hose, core tool or gauge of your rig is due for upkeep." },
-};

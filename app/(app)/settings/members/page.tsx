@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { db } from "@/db/client";
 import { listInvitationsByOrganization, listMembersByOrganization } from "@/db/queries/members";
 import { pageActor } from "@/lib/session";
@@ -30,6 +31,9 @@ export default async function MembersPage() {
       </header>
       <MembersManager members={memberRows} invitations={inviteRows} canManage={canManage} selfUserId={actor.userId} />
       <ShopTimeZone timeZone={timeZone} canManage={canManage} />
+      <p className="text-body text-fg-soft">
+        Which e-mails you receive: <Link className="font-medium text-tide-700 underline" href="/settings/my-mail">My mail</Link>.
+      </p>
     </div>
   );
 }
