@@ -1,4 +1,5 @@
 import nodemailer, { type Transporter } from "nodemailer";
+import type { MailKind } from "@/db/schema";
 import { env } from "@/lib/env";
 import { describeError, log } from "@/lib/log";
 
@@ -9,6 +10,11 @@ export interface OutgoingMail {
   html: string;
   /** Set by the outbox so every try of one message carries the same Message-ID. */
   messageId?: string;
+  /** The kind a person may turn off (db/schema/mail.ts); absent: essential, never unsubscribable. */
+  kind?: MailKind;
+  /** Set at send time: the shop's sender name before MAIL_FROM's address, and List-Unsubscribe. */
+  from?: string | { name: string; address: string };
+  headers?: Record<string, string>;
 }
 
 /**
@@ -51,7 +57,7 @@ function transporter(): Transporter {
 
 /** Send one message over the shared SMTP pool. Throws when the server refuses or is unreachable. */
 export async function sendMail(mail: OutgoingMail): Promise<void> {
-  await transporter().sendMail({ from: env().MAIL_FROM, ...mail });
+  await transporter().sendMail({ ...mail, from: mail.from ?? env().MAIL_FROM });
 }
 
 /** Close the SMTP pool now (scripts and tests that want to exit at once; the next send reopens it). */
@@ -64,7 +70,7 @@ const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
 /** Plain text and HTML from the same paragraphs and one call-to-action link. */
-export function composeMail(opts: { to: string; subject: string; paragraphs: string[]; link?: { label: string; url: string } }): OutgoingMail {
+export function composeMail(opts: { to: string; subject: string; paragraphs: string[]; link?: { label: string; url: string }; kind?: MailKind }): OutgoingMail {
   const text = [...opts.paragraphs, ...(opts.link ? [`${opts.link.label}: ${opts.link.url}`] : []), "", "— Riseline"].join("\n\n");
   const html = [
     `<div style="font-family:'IBM Plex Sans',Arial,sans-serif;font-size:16px;line-height:1.5;color:#14232b">`,
@@ -74,5 +80,5 @@ export function composeMail(opts: { to: string; subject: string; paragraphs: str
       : "",
     `<p style="font-size:13px;color:#50616b">— Riseline</p></div>`,
   ].join("");
-  return { to: opts.to, subject: opts.subject, text, html };
+  return { to: opts.to, subject: opts.subject, text, html, ...(opts.kind ? { kind: opts.kind } : {}) };
 }

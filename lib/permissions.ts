@@ -104,6 +104,9 @@ export const POLICIES = {
   "preference.write": { permission: "member", rows: "the person's own preferences only" },
   "overlay.read": { permission: "member", rows: VISIBLE },
   "planner.read": { permission: "member", rows: VISIBLE },
+  "mailSettings.read": { permission: "members.manage" },
+  "mailSettings.manage": { permission: "members.manage" },
+  "mailPreferences.own": { permission: "member", rows: "the person's own preferences" },
   "task.read": { permission: "member", rows: "the person's own background tasks; every task for who reads all tests" },
 } as const satisfies Record<string, PolicyRule>;
 

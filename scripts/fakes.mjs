@@ -44,6 +44,8 @@ const smtp = new SMTPServer({
           subject: mail.subject ?? "",
           text: mail.text ?? "",
           html: typeof mail.html === "string" ? mail.html : "",
+          // Every header as sent (folded lines unfolded), for tests of List-Unsubscribe and the like.
+          headers: Object.fromEntries((mail.headerLines ?? []).map((h) => [h.key, h.line.slice(h.line.indexOf(":") + 1).replace(/\r?\n[ \t]+/g, " ").trim()])),
           attachments: (mail.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, size: a.size })),
         };
         // Written aside and renamed: a reader never sees half a message.

@@ -22,7 +22,7 @@ describe("outgoing mail page: words and where it is linked (product rules, no pu
   });
 
   it("names every status in words, not only a colour", () => {
-    expect(Object.values(MAIL_STATUS_TEXT).map((t) => t.label)).toEqual(["Waiting to send", "Sent", "Not sent yet", "Gave up"]);
+    expect(Object.values(MAIL_STATUS_TEXT).map((t) => t.label)).toEqual(["Waiting to send", "Sent", "Not sent yet", "Gave up", "Turned off"]);
   });
 
   it("links the page for owners and leads (tests.review) and for no other role", () => {

@@ -10,16 +10,19 @@ import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { ROLES } from "@/lib/permissions";
 import { matches, type Probe } from "./role-matrix/expect";
+import { MAIL_PROBES } from "./role-matrix/probes-mail";
 import { RECORD_PROBES } from "./role-matrix/probes-records";
 import { TEST_PROBES } from "./role-matrix/probes-vacuum-tests";
 import { buildWorld, type World } from "./role-matrix/world";
 
-const PROBES: Probe[] = [...TEST_PROBES, ...RECORD_PROBES];
+const PROBES: Probe[] = [...TEST_PROBES, ...RECORD_PROBES, ...MAIL_PROBES];
 
 /** Routes with a dedicated test of their own access rules instead of a probe here. */
 const COVERED_ELSEWHERE: Record<string, string> = {
   "GET /api/health": "public by design: tests/health.test.ts, tests/faults/*",
   "POST /api/invitations/:id/accept": "signed in, before any shop: tests/invitations-verified.test.ts",
+  "GET /api/mail/unsubscribe": "no session, a signed token instead: tests/mail-settings.test.ts",
+  "POST /api/mail/unsubscribe": "no session, a signed token instead: tests/mail-settings.test.ts",
 };
 
 function routeFiles(dir: string): string[] {

@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, inArray, lt, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { mailOutbox, type MailStatus } from "@/db/schema";
+import { mailOutbox, type MailKind, type MailStatus } from "@/db/schema";
 
 export type OutboxRow = typeof mailOutbox.$inferSelect;
 
@@ -12,6 +12,8 @@ export interface NewOutboxMail {
   text: string;
   html: string;
   attachment?: "report_pdf" | null;
+  /** A kind a person may turn off; absent for essential mail. */
+  kind?: MailKind | null;
 }
 
 /** Queue messages (call inside the transaction of the change they announce). */
@@ -81,6 +83,14 @@ export async function markOutboxMailFailed(db: Db, params: { organizationId: str
   await db
     .update(mailOutbox)
     .set({ status: "failed", lastError: params.error.slice(0, 500), nextAttemptAt: params.nextAttemptAt })
+    .where(and(eq(mailOutbox.organizationId, params.organizationId), eq(mailOutbox.id, params.id)));
+}
+
+/** Not sent: the recipient turned this kind of mail off. */
+export async function markOutboxMailOff(db: Db, params: { organizationId: string; id: string }) {
+  await db
+    .update(mailOutbox)
+    .set({ status: "off", lastError: null, nextAttemptAt: null })
     .where(and(eq(mailOutbox.organizationId, params.organizationId), eq(mailOutbox.id, params.id)));
 }
 

@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
 import type { Db } from "@/db/client";
+import { getShopMailSettings } from "./mail-settings";
 import { analyses, member, organization, sites, systems, testEvents, user, vacuumTests, type TestEventKind, type TestStatus } from "@/db/schema";
 import { visibleTestsWhere, type Viewer } from "./visibility";
 import type { Verdict } from "@/db/vocabulary";
@@ -84,8 +85,8 @@ export async function listTestEventsByTest(db: Db, params: { organizationId: str
     .orderBy(asc(testEvents.createdAt), asc(testEvents.id));
 }
 
-/** Who gets "review requested": the organization's leads, or its owners when it has no lead. */
-export async function listReviewerEmailsByOrganization(db: Db, params: { organizationId: string }): Promise<string[]> {
+/** The organization's leads, or its owners when it has no lead (rig upkeep for unkept rigs, for one). */
+export async function listLeadEmailsByOrganization(db: Db, params: { organizationId: string }): Promise<string[]> {
   const rows = await db
     .select({ email: user.email, role: member.role })
     .from(member)
@@ -94,6 +95,24 @@ export async function listReviewerEmailsByOrganization(db: Db, params: { organiz
     .orderBy(asc(user.email));
   const leads = rows.filter((r) => r.role === "lead").map((r) => r.email);
   return leads.length ? leads : rows.map((r) => r.email);
+}
+
+/**
+ * Who gets review mail (review requests, re-tests, a technician's comment on a waiting test): the
+ * members the owner chose (settings/mail), whatever their role; otherwise the leads (owners when none).
+ */
+export async function listReviewerEmailsByOrganization(db: Db, params: { organizationId: string }): Promise<string[]> {
+  const { reviewMailTo } = await getShopMailSettings(db, params);
+  if (reviewMailTo.length) {
+    const chosen = await db
+      .select({ email: user.email })
+      .from(member)
+      .innerJoin(user, eq(user.id, member.userId))
+      .where(and(eq(member.organizationId, params.organizationId), inArray(member.userId, reviewMailTo)))
+      .orderBy(asc(user.email));
+    if (chosen.length) return chosen.map((r) => r.email);
+  }
+  return listLeadEmailsByOrganization(db, params);
 }
 
 export async function getUserEmailById(db: Db, params: { organizationId: string; userId: string }) {

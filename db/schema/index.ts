@@ -8,3 +8,4 @@ export * from "./casebook";
 export * from "./settings";
 export * from "./security";
 export * from "./tasks";
+export * from "./mail";

@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import { pgTable, text, timestamp, uuid, real, integer, index, uniqueIndex } from "drizzle-orm/pg-core";
 import { organization, user } from "./auth";
 import { oneOf } from "./checks";
+import { MAIL_KINDS } from "./mail";
 import { TEST_STATUSES, vacuumTests } from "./tests";
 
 /** What happened to a test, for the audit trail shown on the test page. */
@@ -61,7 +62,8 @@ export const testComments = pgTable(
 );
 
 /** "dead": Riseline stopped trying (the address was refused, or a day of tries went by); a person may send it again. */
-export const MAIL_STATUSES = ["pending", "sent", "failed", "dead"] as const;
+/** "off": not sent because the person turned that kind of mail off for themselves (db/schema/mail.ts). */
+export const MAIL_STATUSES = ["pending", "sent", "failed", "dead", "off"] as const;
 export type MailStatus = (typeof MAIL_STATUSES)[number];
 
 /** Outgoing e-mail, written in the same transaction as the change it announces; sent after commit. */
@@ -77,6 +79,8 @@ export const mailOutbox = pgTable(
     html: text("html_body").notNull(),
     /** Built at send time so the body never goes stale: "report_pdf" attaches the test's report. */
     attachment: text("attachment", { enum: ["report_pdf"] }),
+    /** The kind a person may turn off (null: essential mail, always sent, no unsubscribe link). */
+    kind: text("kind", { enum: MAIL_KINDS }),
     status: text("status", { enum: MAIL_STATUSES }).default("pending").notNull(),
     attempts: integer("attempts").default(0).notNull(),
     lastError: text("last_error"),

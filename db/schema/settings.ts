@@ -8,6 +8,10 @@ export const organizationSettings = pgTable("organization_settings", {
   timeZone: text("time_zone").default("UTC").notNull(),
   /** "imperial" (°F, ft, lb·oz, psig) or "metric" (°C, m, kg, kPa): the shop's working units. */
   unitSystem: text("unit_system").default("imperial").notNull(),
+  /** The From display name of the shop's mail (the address stays MAIL_FROM); null: MAIL_FROM's own. */
+  mailSenderName: text("mail_sender_name"),
+  /** Who receives review mail: user ids of members; null or empty: every lead (owners when no lead). */
+  reviewMailTo: text("review_mail_to").array(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
 });
 

@@ -10,14 +10,15 @@ import { isStateChanging } from "@/lib/api/csrf";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 
-export type BodyKind = "json" | "multipart";
+/** "form" (form-encoded) is for the one-click unsubscribe only (RFC 8058 §3.1), whose token is its own proof. */
+export type BodyKind = "json" | "multipart" | "form";
 
 /** The media type of a request, lower-case, without parameters; "" when absent. */
 export function mediaTypeOf(headers: Headers): string {
   return (headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
 }
 
-const TYPE_OF: Record<BodyKind, string> = { json: "application/json", multipart: "multipart/form-data" };
+const TYPE_OF: Record<BodyKind, string> = { json: "application/json", multipart: "multipart/form-data", form: "application/x-www-form-urlencoded" };
 
 function hasBody(req: Request): boolean {
   const length = req.headers.get("content-length");

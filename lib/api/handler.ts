@@ -170,12 +170,12 @@ export function signedInRoute<B = undefined, P = undefined>(
 
 /** For routes that anyone may call (share links, health): origin check, zod parse and error mapping. */
 export function publicRoute<Q = undefined, P = undefined>(
-  spec: { query?: ZodType<Q>; params?: ZodType<P> },
+  spec: { query?: ZodType<Q>; params?: ZodType<P>; accepts?: readonly BodyKind[] },
   fn: (call: { req: Request; query: Q; params: P }) => Promise<Response | unknown>,
 ) {
   return async (req: Request, ctx?: RouteContext): Promise<Response> => {
     try {
-      guardRequest(req);
+      guardRequest(req, spec.accepts);
       const { params, query } = await partsOf(spec, req, ctx);
       return answer(await fn({ req, query, params }));
     } catch (err) {

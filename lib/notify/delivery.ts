@@ -5,7 +5,8 @@
  *    person's "send again" never send it at the same time; the try is counted in the same update.
  *  - Sent: the row says so. Failed: the error and the next try are written and the retry job is
  *    queued in that same transaction (./backoff.ts says when, or that Riseline gives up: "dead").
- *  - A row already sent, given up, or locked by another sender is skipped.
+ *  - A row already sent, given up, or locked by another sender is skipped; so is a kind of mail its
+ *    recipient turned off (status "off"). Non-essential mail carries its unsubscribe headers.
  *  - The database failing after the mail server accepted a message (an outage, a restart) does
  *    not send it twice: this process knows it went, and records "sent" as soon as the database
  *    answers again, well before any retry of the job could claim the row.
@@ -17,13 +18,15 @@
  *    retries run out the job goes to the dead-letter queue (markDeadLettered below).
  */
 import type PgBoss from "pg-boss";
-import type { Database, Tx } from "@/db/client";
-import { claimOutboxMailById, markOutboxMailDead, markOutboxMailFailed, markOutboxMailSent, type OutboxRow } from "@/db/queries/outbox";
+import type { Database, Db, Tx } from "@/db/client";
+import { getMailRecipientState } from "@/db/queries/mail-settings";
+import { claimOutboxMailById, markOutboxMailDead, markOutboxMailOff, markOutboxMailFailed, markOutboxMailSent, type OutboxRow } from "@/db/queries/outbox";
 import { env } from "@/lib/env";
 import { log } from "@/lib/log";
 import { isPermanentSmtpFailure, nextStepAfterFailure } from "./backoff";
 import { enqueueMailDelivery, type MailJobData } from "./outbox";
-import { mailSender } from "./transport";
+import { mailSender, type MailWithAttachments } from "./transport";
+import { fromWithSenderName, unsubscribeHeaders } from "./unsubscribe";
 
 /** The longest one SMTP hand-over may take before it counts as failed (inside the job's 30 s expiry). */
 const SEND_LIMIT_MS = 20_000;
@@ -36,7 +39,37 @@ export function messageIdOf(outboxId: string): string {
   return `<outbox-${outboxId}@${domain}>`;
 }
 
-async function sendRow(db: Database, row: OutboxRow): Promise<void> {
+type Envelope = Pick<MailWithAttachments, "from" | "headers"> & { footer?: boolean };
+
+/**
+ * The foot of a non-essential mail: where to turn it off. The signed link itself is only in the
+ * headers (a mail's body carries no token); the body points to the person's own settings page.
+ */
+function withFooter(row: OutboxRow, footer: boolean): { text: string; html: string } {
+  if (!footer) return { text: row.text, html: row.html };
+  const url = new URL("/settings/my-mail", env().BETTER_AUTH_URL).toString();
+  const line = "To stop this kind of mail, use your mail client's unsubscribe button or turn it off in your mail settings:";
+  return {
+    text: `${row.text}\n\n${line} ${url}`,
+    html: `${row.html}<p style="font-size:12px;color:#50616b">${line} <a href="${url}">${url}</a></p>`,
+  };
+}
+
+/**
+ * The shop's sender name, and for a kind a person may turn off: whether they did (null: do not
+ * send) and the unsubscribe headers (RFC 2369 §3.2, RFC 8058 §3.1). Read at send time, so a
+ * preference set after the mail was queued still counts.
+ */
+async function envelopeOf(db: Db, row: OutboxRow): Promise<Envelope | null> {
+  const state = await getMailRecipientState(db, { organizationId: row.organizationId, email: row.to, kind: row.kind });
+  if (state.off) return null;
+  const from = fromWithSenderName(state.senderName);
+  if (!row.kind || !state.userId) return { from };
+  const claim = { userId: state.userId, organizationId: row.organizationId, kind: row.kind };
+  return { from, headers: unsubscribeHeaders(claim), footer: true };
+}
+
+async function sendRow(db: Database, row: OutboxRow, envelope: Envelope): Promise<void> {
   // Loaded only when a row needs it, so notifications never pull in the PDF code.
   const attachments = row.attachment === "report_pdf" ? await (await import("@/lib/reports/attach")).reportAttachments(db, row) : undefined;
   let timer: NodeJS.Timeout | undefined;
@@ -45,7 +78,7 @@ async function sendRow(db: Database, row: OutboxRow): Promise<void> {
   });
   try {
     await Promise.race([
-      mailSender()({ to: row.to, subject: row.subject, text: row.text, html: row.html, messageId: messageIdOf(row.id), ...(attachments ? { attachments } : {}) }),
+      mailSender()({ to: row.to, subject: row.subject, ...withFooter(row, envelope.footer ?? false), messageId: messageIdOf(row.id), from: envelope.from, headers: envelope.headers, ...(attachments ? { attachments } : {}) }),
       limit,
     ]);
   } finally {
@@ -89,8 +122,13 @@ async function tryRow(db: Database, params: { organizationId: string; id: string
   return db.transaction(async (tx) => {
     const row = await claimOutboxMailById(tx, params);
     if (!row) return "skipped";
+    const envelope = await envelopeOf(tx, row);
+    if (!envelope) {
+      await markOutboxMailOff(tx, { organizationId: row.organizationId, id: row.id });
+      return "skipped";
+    }
     try {
-      await sendRow(db, row);
+      await sendRow(db, row, envelope);
     } catch (err) {
       return recordFailure(tx, row, err);
     }

@@ -37,6 +37,7 @@ export function reviewRequestedMail(to: string, t: VacuumTestSummary, opts: { by
     subject: opts.help ? `Help asked: ${t.title}` : `Review requested: ${t.title}`,
     paragraphs: [headline, verdictLine(t), ...(opts.note ? [`Note: ${opts.note}`] : [])],
     link: { label: "Open the test", url: testUrl(t.id) },
+    kind: "review_request",
   });
 }
 
@@ -51,6 +52,7 @@ export function retestUploadedMail(to: string, t: VacuumTestSummary, opts: { by:
       ...(opts.note ? [`Note: ${opts.note}`] : []),
     ],
     link: { label: "Open the test", url: testUrl(t.id) },
+    kind: "review_request",
   });
 }
 
@@ -62,6 +64,7 @@ export function commentMail(to: string, t: VacuumTestSummary, opts: { by: string
     subject: `Comment on: ${t.title}`,
     paragraphs: [`${opts.by} commented on "${t.title}"${at}:`, opts.body, verdictLine(t)],
     link: { label: "Open the test", url: testUrl(t.id) },
+    kind: "comment",
   });
 }
 
@@ -72,6 +75,7 @@ export function signedOffMail(to: string, t: VacuumTestSummary, opts: { by: stri
       subject: `Accepted with a reason: ${t.title}`,
       paragraphs: [`${opts.by} accepted "${t.title}" although it does not pass.`, verdictLine(t), `Reason: ${opts.note ?? ""}`],
       link: { label: "Open the test", url: testUrl(t.id) },
+    kind: "review_outcome",
     });
   }
   return composeMail({
@@ -79,6 +83,7 @@ export function signedOffMail(to: string, t: VacuumTestSummary, opts: { by: stri
     subject: `Signed off: ${t.title}`,
     paragraphs: [`${opts.by} signed off "${t.title}".`, verdictLine(t), ...(opts.note ? [`Note: ${opts.note}`] : [])],
     link: { label: "Open the test", url: testUrl(t.id) },
+    kind: "review_outcome",
   });
 }
 
@@ -92,6 +97,7 @@ export function sentBackMail(to: string, t: VacuumTestSummary, opts: { by: strin
       "When you have done it, upload the re-test log on the test's page; it goes back to the review queue.",
     ],
     link: { label: "Open the test", url: testUrl(t.id) },
+    kind: "review_outcome",
   });
 }
 
@@ -125,6 +131,7 @@ export function rigRemindersMail(to: string, rig: { id: string; name: string }, 
     to,
     subject: reminders.length === 1 ? `Rig upkeep: ${reminders[0].title}` : `Rig upkeep: ${reminders.length} reminders for ${rig.name}`,
     paragraphs: [`Upkeep for the rig "${rig.name}":`, ...reminders.map((r) => `${r.title}. ${r.message}`), "Log the work on the rig's page when it is done."],
+    kind: "rig_reminder",
     link: { label: "Open the rig", url: new URL(`/tools/rigs/${rig.id}`, env().BETTER_AUTH_URL).toString() },
   });
 }

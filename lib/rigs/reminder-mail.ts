@@ -8,7 +8,7 @@
  */
 import type { Database } from "@/db/client";
 import { listRigEventsByRig, listRigItemsByRig, listOrganizationsWithRigItems, listRigReminderNoticesByRig, listRigsWithKeeperByOrganization, updateRigReminderNoticesByRig } from "@/db/queries/rigs";
-import { listReviewerEmailsByOrganization } from "@/db/queries/review";
+import { listLeadEmailsByOrganization } from "@/db/queries/review";
 import { rigRemindersMail } from "@/lib/notify/messages";
 import { queueMail } from "@/lib/notify/outbox";
 import { rigReminders } from "./reminders";
@@ -25,7 +25,7 @@ export async function mailRigReminders(db: Database, params: { today?: string; o
   const run: ReminderRun = { rigs: 0, mailed: 0 };
   const shops = params.organizationId ? [params.organizationId] : await listOrganizationsWithRigItems(db);
   for (const organizationId of shops) {
-    const leads = await listReviewerEmailsByOrganization(db, { organizationId });
+    const leads = await listLeadEmailsByOrganization(db, { organizationId });
     for (const rig of await listRigsWithKeeperByOrganization(db, { organizationId })) {
       run.rigs++;
       const [items, events, notified] = await Promise.all([

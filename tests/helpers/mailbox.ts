@@ -11,6 +11,8 @@ export interface CaughtMail extends CaughtMessage {
   sessionId: string;
   /** The message's Message-ID header (one outbox row keeps the same one on every try). */
   messageId: string;
+  /** Every header by lower-case name (unfolded). */
+  headers: Record<string, string>;
 }
 
 export function readMailbox(): CaughtMail[] {

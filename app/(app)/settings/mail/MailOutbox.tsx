@@ -56,7 +56,7 @@ function MailRow({ m, onResend, busy }: { m: OutboxItem; onResend: (id: string) 
       </dl>
       {(m.status !== "sent" || m.testId) && (
         <div className="mt-3 flex flex-wrap gap-2">
-          {m.status !== "sent" && (
+          {m.status !== "sent" && m.status !== "off" && (
             <Button variant="secondary" busy={busy} onClick={() => onResend(m.id)}>
               Send again
             </Button>

@@ -1,7 +1,7 @@
 import { Badge, type BadgeTone } from "@/components/ui";
 import { MAIL_STATUS_TEXT, type MailStatus } from "./words";
 
-const TONE: Record<MailStatus, BadgeTone> = { pending: "neutral", sent: "brand", failed: "attention", dead: "leak" };
+const TONE: Record<MailStatus, BadgeTone> = { pending: "neutral", sent: "brand", failed: "attention", dead: "leak", off: "neutral" };
 
 /** A distinct shape per status (clock, tick, circling arrow, cross), always beside the words. */
 function StatusIcon({ status }: { status: MailStatus }) {

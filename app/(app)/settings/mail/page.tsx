@@ -1,11 +1,21 @@
 import type { Metadata } from "next";
+import { db } from "@/db/client";
+import { getShopMailSettings } from "@/db/queries/mail-settings";
+import { listMembersByOrganization } from "@/db/queries/members";
+import { env } from "@/lib/env";
+import { can, isRole, ROLE_LABELS } from "@/lib/permissions";
 import { pageActor } from "@/lib/session";
 import { MailOutbox } from "./MailOutbox";
+import { ShopMailSettings } from "./ShopMailSettings";
 
 export const metadata: Metadata = { title: "Outgoing mail" };
 
 export default async function MailPage() {
-  await pageActor("tests.review");
+  const actor = await pageActor("tests.review");
+  const owner = can(actor.role, "members.manage");
+  const [settings, members] = owner
+    ? await Promise.all([getShopMailSettings(db(), { organizationId: actor.organizationId }), listMembersByOrganization(db(), { organizationId: actor.organizationId })])
+    : [null, []];
   return (
     <div className="mx-auto w-full max-w-3xl space-y-4 px-4 py-5 sm:py-8">
       <div>
@@ -14,6 +24,14 @@ export default async function MailPage() {
           Every e-mail Riseline sends for the shop: review requests, sign-offs, comments and reports. A change never waits for its mail. A message that did not go is tried again by itself (every half minute at most while the mail server is away, for a day); one Riseline gave up on can be sent again here.
         </p>
       </div>
+      {settings && (
+        <ShopMailSettings
+          senderName={settings.senderName}
+          reviewMailTo={settings.reviewMailTo}
+          members={members.map((m) => ({ userId: m.userId, name: m.name, roleLabel: isRole(m.role) ? ROLE_LABELS[m.role] : m.role }))}
+          address={/<([^>]+)>/.exec(env().MAIL_FROM)?.[1] ?? env().MAIL_FROM}
+        />
+      )}
       <MailOutbox />
     </div>
   );

@@ -1,12 +1,13 @@
 /** The outbox in plain words: a status a person reads, and an SMTP failure said without jargon. */
 
-export type MailStatus = "pending" | "sent" | "failed" | "dead";
+export type MailStatus = "pending" | "sent" | "failed" | "dead" | "off";
 
 export const MAIL_STATUS_TEXT: Record<MailStatus, { label: string; hint: string }> = {
   pending: { label: "Waiting to send", hint: "Queued; Riseline has not delivered it yet." },
   sent: { label: "Sent", hint: "The mail server accepted it." },
   failed: { label: "Not sent yet", hint: "The last try failed; Riseline tries again by itself." },
   dead: { label: "Gave up", hint: "Riseline stopped trying: the address was refused, or a day of tries went by. Check the address, then send it again." },
+  off: { label: "Turned off", hint: "Not sent: the person turned this kind of mail off for themselves." },
 };
 
 /** Patterns of what nodemailer and SMTP servers say, most specific first. */

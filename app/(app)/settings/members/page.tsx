@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { db } from "@/db/client";
 import { listInvitationsByOrganization, listMembersByOrganization } from "@/db/queries/members";
 import { pageActor } from "@/lib/session";
@@ -34,6 +35,9 @@ export default async function MembersPage() {
       <MembersManager members={memberRows} invitations={inviteRows} canManage={canManage} selfUserId={actor.userId} />
       <ShopTimeZone timeZone={timeZone} canManage={canManage} />
       <UnitsSettings initial={units} canManage={canManage} />
+      <p className="text-body text-fg-soft">
+        Which e-mails you receive: <Link className="font-medium text-tide-700 underline" href="/settings/my-mail">My mail</Link>.
+      </p>
     </div>
   );
 }
