@@ -22,7 +22,8 @@ export function navItemsFor(role: Role): NavItem[] {
   if (can(role, "records.manage") || can(role, "tests.read_all")) items.push({ href: "/records", label: "Customers", icon: "customers" });
   items.push({ href: "/tools", label: "Tools", icon: "tools" });
   if (can(role, "profiles.manage")) items.push({ href: "/settings/profiles", label: "Acceptance", icon: "profile" });
-  if (can(role, "tests.review")) items.push({ href: "/settings/mail", label: "Mail", icon: "mail" });
+  // Reviewers reach their own mail choices from the Mail page; everyone else has them here.
+  items.push(can(role, "tests.review") ? { href: "/settings/mail", label: "Mail", icon: "mail" } : { href: "/settings/my-mail", label: "My mail", icon: "mail" });
   items.push({ href: "/settings/members", label: "Shop", icon: "shop" });
   return items;
 }

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { db } from "@/db/client";
 import { getShopMailSettings } from "@/db/queries/mail-settings";
 import { listMembersByOrganization } from "@/db/queries/members";
@@ -22,6 +23,9 @@ export default async function MailPage() {
         <h1 className="text-headline">Outgoing mail</h1>
         <p className="text-body text-fg-soft">
           Every e-mail Riseline sends for the shop: review requests, sign-offs, comments and reports. A change never waits for its mail. A message that did not go is tried again by itself (every half minute at most while the mail server is away, for a day); one Riseline gave up on can be sent again here.
+        </p>
+        <p className="text-body text-fg-soft">
+          Which e-mails you receive yourself: <Link className="font-medium text-tide-700 underline" href="/settings/my-mail">My mail</Link>.
         </p>
       </div>
       {settings && (
