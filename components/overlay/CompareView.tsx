@@ -26,9 +26,18 @@ function rate(v: number | null | undefined): string {
   return v == null || !Number.isFinite(v) ? "—" : `${v.toFixed(v < 10 ? 1 : 0)}`;
 }
 
-export function CompareView({ ids }: { ids: string[] }) {
+// The chart's code starts loading with this view, beside the page's own, not after the data.
+if (typeof window !== "undefined") void import("./SeriesChart");
+
+export function CompareView({ ids, initial = null }: { ids: string[]; initial?: OverlayResult | null }) {
   const [mode, setMode] = useState<"absolute" | "rise">("absolute");
-  const q = useQuery({ queryKey: ["overlay", ids.join(",")], queryFn: ({ signal }) => fetchOverlay(ids, signal), enabled: ids.length > 0 });
+  const q = useQuery({
+    queryKey: ["overlay", ids.join(",")],
+    queryFn: ({ signal }) => fetchOverlay(ids, signal),
+    enabled: ids.length > 0,
+    initialData: initial ?? undefined,
+    staleTime: initial ? 30_000 : 0,
+  });
 
   const series = useMemo(() => {
     if (!q.data) return [];
