@@ -45,7 +45,7 @@ describe("field exports on the upload screen (common practice, no published sour
     const rows = Array.from({ length: 80 }, (_, i) => `"${i * 15}"\t"${(1200 + Math.round(10800 * (1 - Math.exp(-i / 12)))).toLocaleString("en-US")}"`);
     const path = join(scratch, "ambiguous.tsv");
     writeFileSync(path, ['"t (s)"\t"Vacuum (microns)"', ...rows].join("\n") + "\n");
-    await page.goto("/vacuum-tests/new");
+    await page.goto("/vacuum-tests/new", { waitUntil: "networkidle" }); // hydrated: a file picked before it would be lost
     await page.getByLabel("Gauge log file (CSV)").setInputFiles(path);
     const question = page.getByTestId("decimal-question");
     await question.waitFor({ timeout: 30_000 });
@@ -64,7 +64,7 @@ describe("field exports on the upload screen (common practice, no published sour
 
   it("sample 7 (quoted TSV, thousands separators) is a wet system straight away: moisture, no question asked (samples README)", async () => {
     const { context, page, errors } = await phonePage();
-    await page.goto("/vacuum-tests/new");
+    await page.goto("/vacuum-tests/new", { waitUntil: "networkidle" }); // hydrated: a file picked before it would be lost
     await page.getByLabel("Gauge log file (CSV)").setInputFiles(SAMPLE_7);
     await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Levels off: moisture likely");
     expect(await page.getByTestId("decimal-question").count()).toBe(0);

@@ -34,7 +34,7 @@ describe("a long log on a phone (our rule: over 1 MB it is a queued job)", () =>
     const errors: string[] = [];
     page.on("pageerror", (e) => errors.push(e.message));
     await signInThroughPage(page, tech.email, tech.password);
-    await page.goto("/vacuum-tests/new");
+    await page.goto("/vacuum-tests/new", { waitUntil: "networkidle" }); // hydrated: a file picked before it would be lost
     const polled: string[] = [];
     page.on("request", (r) => {
       if (/\/api\/tasks\//.test(r.url())) polled.push(r.url());
