@@ -1,6 +1,6 @@
 "use client";
 
-import { useId, useState } from "react";
+import { useId, useState, useSyncExternalStore } from "react";
 
 export const MAX_UPLOAD_BYTES = 64 * 1024 * 1024;
 
@@ -10,8 +10,13 @@ interface Props {
 }
 
 /** Pick the gauge's CSV with the phone's file picker, or drop it here on a desktop. */
+const noSubscription = () => () => {};
+
 export function DropZone({ onFile, disabled }: Props) {
   const id = useId();
+  // False in the server's HTML and until the page is live (hydrated): a file picked before then
+  // would reach no handler and be lost, so the picker waits (slow phones on a poor line).
+  const live = useSyncExternalStore(noSubscription, () => true, () => false);
   const [over, setOver] = useState(false);
   return (
     <div
@@ -25,7 +30,7 @@ export function DropZone({ onFile, disabled }: Props) {
         e.preventDefault();
         setOver(false);
         const f = e.dataTransfer.files?.[0];
-        if (f && !disabled) onFile(f);
+        if (f && !disabled && live) onFile(f);
       }}
       className={`flex flex-col items-center gap-3 rounded-card border-2 border-dashed px-4 py-8 text-center transition-colors ${
         over ? "border-tide-500 bg-tide-50 dark:bg-tide-900" : "border-surface-line bg-surface-raised"
@@ -42,7 +47,7 @@ export function DropZone({ onFile, disabled }: Props) {
         accept=".csv,text/csv,text/plain"
         aria-label="Gauge log file (CSV)"
         className="peer sr-only"
-        disabled={disabled}
+        disabled={disabled || !live}
         onChange={(e) => {
           const f = e.target.files?.[0];
           e.target.value = "";
