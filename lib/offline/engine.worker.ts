@@ -1,10 +1,11 @@
 /**
- * The analysis engine in a Web Worker on the phone: the same analysis/ code the server runs
- * (phone-engine.ts), so the phone's provisional verdict is the server's.
+ * The analysis engine in a Web Worker on the phone: the server's own engine function
+ * (lib/vacuum-tests/engine.ts, a thin adapter over analysis/), so the phone's provisional verdict is
+ * the server's for the same engine version.
  */
 import type { AnalyzeOptions } from "@/analysis/decay/types";
 import { LogError } from "@/analysis/shared/errors";
-import { analyseOnThisDevice } from "./phone-engine";
+import { runAnalysis } from "@/lib/vacuum-tests/engine";
 
 interface Job {
   id: number;
@@ -15,7 +16,7 @@ interface Job {
 addEventListener("message", (ev: MessageEvent<Job>) => {
   const { id, text, options } = ev.data;
   try {
-    const { result, series } = analyseOnThisDevice(text, options);
+    const { result, series } = runAnalysis(text, options);
     postMessage({ id, ok: true, result, series });
   } catch (e) {
     postMessage({ id, ok: false, message: e instanceof LogError ? e.message : "This phone could not analyse the log." });
