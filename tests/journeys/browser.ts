@@ -3,6 +3,7 @@
  * APP_URL is where Riseline runs (scripts/test.sh starts `next start` there).
  */
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { expect } from "vitest";
 import { env } from "@/lib/env";
 
 export const APP_URL = env().BETTER_AUTH_URL;
@@ -63,4 +64,21 @@ export async function signInThroughPage(page: Page, email: string, password: str
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL(/\/home/);
+}
+
+/**
+ * On the new-test page: the "Typed readings" tab, "Minutes since isolation", and the readings typed
+ * with Enter between rows (Enter moves the focus to the next row's microns cell on the next frame,
+ * so each value is typed only once it is there).
+ */
+export async function typeMinuteReadings(page: Page, readings: number[]): Promise<void> {
+  await page.getByRole("tab", { name: "Typed readings" }).click();
+  await page.getByRole("radio", { name: "Minutes since isolation" }).check({ force: true });
+  await page.getByLabel("Row 1 microns").fill(String(readings[0]));
+  for (const [i, v] of readings.slice(1).entries()) {
+    await page.keyboard.press("Enter");
+    const next = page.getByLabel(`Row ${i + 2} microns`);
+    await expect.poll(() => next.evaluate((el) => el === document.activeElement)).toBe(true);
+    await page.keyboard.type(String(v));
+  }
 }

@@ -9,7 +9,7 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
-import { APP_URL, launch, PHONE, signInThroughPage, type Session } from "./browser";
+import { APP_URL, launch, PHONE, signInThroughPage, type Session, typeMinuteReadings } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
 import { simulateLog } from "@/analysis/decay/simulate";
 
@@ -74,16 +74,8 @@ async function captureFile(page: Page, path: string, n: number): Promise<number>
 }
 
 async function captureTyped(page: Page, n: number): Promise<number> {
-  await page.getByRole("tab", { name: "Typed readings" }).click();
-  await page.getByRole("radio", { name: "Minutes since isolation" }).check({ force: true });
   const readings = Array.from({ length: 12 }, (_, m) => 300 + 60 * m);
-  await page.getByLabel("Row 1 microns").fill(String(readings[0]));
-  for (const [i, v] of readings.slice(1).entries()) {
-    await page.keyboard.press("Enter");
-    const next = page.getByLabel(`Row ${i + 2} microns`);
-    await expect.poll(() => next.evaluate((el) => el === document.activeElement)).toBe(true);
-    await page.keyboard.type(String(v));
-  }
+  await typeMinuteReadings(page, readings);
   const t0 = Date.now();
   await page.getByRole("button", { name: "Analyse readings" }).click();
   await page.getByTestId("outbox-item").nth(n).getByTestId("provisional-verdict").waitFor({ timeout: 20_000 });

@@ -13,7 +13,7 @@ import { join } from "node:path";
 import { createHash } from "node:crypto";
 import { PDFParse } from "pdf-parse";
 import type { Page } from "playwright-core";
-import { DESKTOP, PHONE, launch, signInThroughPage, type Session } from "./browser";
+import { DESKTOP, PHONE, launch, signInThroughPage, type Session, typeMinuteReadings } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
 import { simulateLog } from "@/analysis/decay/simulate";
 
@@ -114,17 +114,9 @@ describe("one story per test", () => {
   it("typed minutes with an empty last row: isolation at the first reading, and a slow leak under the limit is an early fail, never a green pass", async () => {
     const { page, errors, close } = await pageFor(tech);
     await page.goto("/vacuum-tests/new");
-    await page.getByRole("tab", { name: "Typed readings" }).click();
-    await page.getByRole("radio", { name: "Minutes since isolation" }).check({ force: true });
     // 0–9 min, 350 microns climbing 40 per minute: 710 at minute 9, under the 1,000-micron limit, but a leak by rate.
     const readings = Array.from({ length: 10 }, (_, m) => 350 + 40 * m);
-    await page.getByLabel("Row 1 microns").fill(String(readings[0]));
-    for (const [i, v] of readings.slice(1).entries()) {
-      await page.keyboard.press("Enter");
-      const next = page.getByLabel(`Row ${i + 2} microns`);
-      await expect.poll(() => next.evaluate((el) => el === document.activeElement)).toBe(true);
-      await page.keyboard.type(String(v));
-    }
+    await typeMinuteReadings(page, readings);
     await page.keyboard.press("Enter"); // an empty 11th row, as a technician leaves it
     await expect.poll(() => page.getByLabel("Row 11 minutes since isolation").inputValue()).toBe("10");
     await page.getByRole("button", { name: "Analyse readings" }).click();

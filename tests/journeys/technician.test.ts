@@ -9,7 +9,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
-import { launch, PHONE, signInThroughPage, type Session } from "./browser";
+import { launch, PHONE, signInThroughPage, type Session, typeMinuteReadings } from "./browser";
 import { addMember, createShop, type TestMember } from "@/tests/helpers/members";
 import { simulateLog } from "@/analysis/decay/simulate";
 
@@ -114,18 +114,9 @@ describe("technician on a phone", () => {
   it("types readings with Enter between rows and gets a verdict from the same engine (steady 60 µ/min climb: a leak, common practice, no published source)", async () => {
     const { context, page, errors } = await phonePage();
     await page.goto("/vacuum-tests/new");
-    await page.getByRole("tab", { name: "Typed readings" }).click();
-    await page.getByRole("radio", { name: "Minutes since isolation" }).check({ force: true });
     // 0–14 min, 300 microns rising 60 per minute: a steady climb with no levelling off.
     const readings = Array.from({ length: 15 }, (_, m) => 300 + 60 * m);
-    await page.getByLabel("Row 1 microns").fill(String(readings[0]));
-    for (const [i, v] of readings.slice(1).entries()) {
-      await page.keyboard.press("Enter");
-      // Enter moves the focus to the next row's microns cell (on the next frame): type only once it is there.
-      const next = page.getByLabel(`Row ${i + 2} microns`);
-      await expect.poll(() => next.evaluate((el) => el === document.activeElement)).toBe(true);
-      await page.keyboard.type(String(v));
-    }
+    await typeMinuteReadings(page, readings);
     await expect.poll(() => page.getByLabel("Row 15 minutes since isolation").inputValue()).toBe("14");
     await page.getByRole("button", { name: "Analyse readings" }).click();
     await expect.poll(() => page.getByTestId("verdict-headline").textContent(), { timeout: 60_000 }).toBe("Steady climb: leak likely");
